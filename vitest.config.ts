@@ -1,0 +1,27 @@
+import { defineConfig } from "vitest/config";
+
+// Two projects: pure unit tests (engine, components) and integration tests
+// that talk to the real PostgreSQL started by scripts/test.sh.
+export default defineConfig({
+  test: {
+    projects: [
+      {
+        test: {
+          name: "unit",
+          include: ["test/unit/**/*.test.{ts,tsx}", "app/**/*.test.{ts,tsx}"],
+          environment: "node",
+        },
+      },
+      {
+        test: {
+          name: "integration",
+          include: ["test/integration/**/*.test.ts"],
+          environment: "node",
+          fileParallelism: false,
+          testTimeout: 30_000,
+          hookTimeout: 60_000,
+        },
+      },
+    ],
+  },
+});
