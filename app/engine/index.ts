@@ -1,0 +1,57 @@
+// Public API of the proof engine. Pure TypeScript: no React, no Node-only APIs.
+export type {
+  Design,
+  Condition,
+  Component,
+  SupplyComponent,
+  ContactComponent,
+  JunctionComponent,
+  InputComponent,
+  InputFunction,
+  Wire,
+  Controller,
+  ThrottleMapping,
+  Lockout,
+  Rule,
+  InhibitRule,
+  NoRestartRule,
+  Predicate,
+  Verdict,
+  RuleVerdict,
+  InhibitVerdict,
+  NoRestartVerdict,
+  SingleFault,
+  FaultMode,
+  Problem,
+  RowStates,
+} from "./schema";
+export { designSchema, DESIGN_FORMAT, VERDICT_FORMAT, INPUT_FUNCTIONS, LOCKOUTS, TERMINALS } from "./schema";
+export { ENGINE_ROW_LIMIT, validateDesign, formatPath, type ValidationResult } from "./validate";
+export { compileDesign, type CompiledDesign, type ThrottleClass } from "./compile";
+export { prove } from "./prove";
+export {
+  rowCount,
+  decodeRow,
+  encodeRow,
+  rowProblems,
+  evaluateRow,
+  countRows,
+  pageRows,
+  findRow,
+  type RowFilter,
+  type RowView,
+  type ControllerState,
+  type Direction,
+} from "./rows";
+export type { ContactFault } from "./table";
+export { replayTrace, type StepView } from "./sequence";
+export { csvChunks, csvHeader } from "./csv";
+export {
+  diagnose,
+  explainReadings,
+  type Diagnosis,
+  type InputDiagnosis,
+  type DriveReason,
+  type ContactToClose,
+  type ReadingsExplanation,
+} from "./diagnose";

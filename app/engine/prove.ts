@@ -1,0 +1,49 @@
+// The verdict document (spec section 2).
+import { compileDesign, type CompiledDesign } from "./compile";
+import { decodeRow } from "./rows";
+import { summarizeTable } from "./rules";
+import type { Design, RuleVerdict, Verdict } from "./schema";
+import { VERDICT_FORMAT } from "./schema";
+import { singleFaults } from "./faults";
+import { shortestRestart } from "./sequence";
+
+export function isCompiled(d: Design | CompiledDesign): d is CompiledDesign {
+  return (d as CompiledDesign).kind === "chainproof/compiled@1";
+}
+
+export function prove(input: Design | CompiledDesign): Verdict {
+  const c = isCompiled(input) ? input : compileDesign(input);
+  const summary = summarizeTable(c);
+  const rules: RuleVerdict[] = [];
+  const holding: number[] = [];
+  let restartTrace: number[] | null | undefined;
+  for (const r of c.rules) {
+    if (r.type === "inhibit") {
+      const count = summary.inhibit[r.index]!;
+      const holds = count.violating === 0;
+      if (holds) holding.push(r.index);
+      rules.push({
+        id: r.id,
+        holds,
+        unsafeRows: count.unsafe,
+        violatingRows: count.violating,
+        ...(holds ? {} : { example: decodeRow(c, count.example) }),
+      });
+    } else {
+      if (restartTrace === undefined) restartTrace = shortestRestart(c, summary.views);
+      rules.push(
+        restartTrace === null
+          ? { id: r.id, holds: true }
+          : { id: r.id, holds: false, trace: restartTrace.map((row) => decodeRow(c, row)) },
+      );
+    }
+  }
+  return {
+    format: VERDICT_FORMAT,
+    ok: rules.every((r) => r.holds),
+    rows: c.rows,
+    driveRows: summary.driveRows,
+    rules,
+    singleFaults: singleFaults(c, holding),
+  };
+}
