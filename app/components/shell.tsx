@@ -1,0 +1,165 @@
+// The app shell: navigation, workspace switcher, user menu, demo banner. Phone-first.
+import { useState, type ReactNode } from "react";
+import { Form, Link, NavLink, useNavigate } from "react-router";
+import { Logo } from "./logo";
+import { ROLE_LABELS, type Role } from "~/lib/roles";
+
+export type ShellProps = {
+  workspace: { slug: string; name: string };
+  workspaces: Array<{ slug: string; name: string; role: Role }>;
+  user: { name: string; email: string };
+  role: Role;
+  demo: boolean;
+  localMail: boolean;
+  children: ReactNode;
+};
+
+const SECTIONS = [
+  { to: "vehicles", label: "Vehicles", icon: "M3 13l2-5h10l2 5v3H3zM6 16v1.5M14 16v1.5M5.5 13h9" },
+  { to: "designs", label: "Designs", icon: "M4 5h4v4H4zM12 11h4v4h-4zM8 7h3v6h1" },
+  { to: "reviews", label: "Reviews", icon: "M4 4h12v9H9l-3 3v-3H4z" },
+  { to: "bench-tests", label: "Bench tests", icon: "M5 4h10M7 4v5l-3 6a1 1 0 001 1.5h10a1 1 0 001-1.5l-3-6V4" },
+  { to: "settings", label: "Settings", icon: "M10 7a3 3 0 100 6 3 3 0 000-6zM10 2v2M10 16v2M2 10h2M16 10h2M4.3 4.3l1.4 1.4M14.3 14.3l1.4 1.4M4.3 15.7l1.4-1.4M14.3 5.7l1.4-1.4" },
+] as const;
+
+function Icon({ d }: { d: string }) {
+  return (
+    <svg viewBox="0 0 20 20" className="h-5 w-5 flex-none" aria-hidden="true">
+      <path d={d} fill="none" stroke="currentColor" strokeWidth="1.6" strokeLinecap="round" strokeLinejoin="round" />
+    </svg>
+  );
+}
+
+function Nav({ slug, onNavigate }: { slug: string; onNavigate?: () => void }) {
+  return (
+    <nav aria-label="Sections">
+      <ul className="space-y-1">
+        {SECTIONS.map((s) => (
+          <li key={s.to}>
+            <NavLink
+              to={`/w/${slug}/${s.to}`}
+              onClick={onNavigate}
+              className={({ isActive }) =>
+                `flex min-h-11 items-center gap-3 rounded-md px-3 py-2 text-sm font-medium ${
+                  isActive ? "bg-ink-800 text-white" : "text-ink-700 hover:bg-ink-100"
+                }`
+              }
+            >
+              <Icon d={s.icon} />
+              {s.label}
+            </NavLink>
+          </li>
+        ))}
+      </ul>
+    </nav>
+  );
+}
+
+function WorkspaceSwitcher({ current, workspaces }: { current: string; workspaces: ShellProps["workspaces"] }) {
+  const navigate = useNavigate();
+  return (
+    <div>
+      <label htmlFor="workspace-switcher" className="block text-xs font-medium uppercase tracking-wide text-ink-500">
+        Workspace
+      </label>
+      <select
+        id="workspace-switcher"
+        value={current}
+        onChange={(e) => navigate(`/w/${e.target.value}`)}
+        className="mt-1 block w-full rounded-md border border-ink-300 bg-white px-2 py-2 text-sm"
+      >
+        {workspaces.map((w) => (
+          <option key={w.slug} value={w.slug}>
+            {w.name}
+          </option>
+        ))}
+      </select>
+    </div>
+  );
+}
+
+function UserMenu({ user, role }: { user: ShellProps["user"]; role: Role }) {
+  return (
+    <details className="group relative">
+      <summary className="flex min-h-11 cursor-pointer list-none items-center gap-2 rounded-md px-2 py-1 hover:bg-ink-100" aria-label="Account menu">
+        <span className="flex h-8 w-8 items-center justify-center rounded-full bg-ink-800 text-sm font-semibold text-white" aria-hidden="true">
+          {user.name.slice(0, 1).toUpperCase()}
+        </span>
+        <span className="hidden text-left text-sm sm:block">
+          <span className="block font-medium leading-tight">{user.name}</span>
+          <span className="block text-xs text-ink-500">{ROLE_LABELS[role]}</span>
+        </span>
+      </summary>
+      <div className="absolute right-0 z-30 mt-2 w-64 rounded-lg border border-ink-200 bg-white p-3 shadow-lg">
+        <p className="text-sm font-medium">{user.name}</p>
+        <p className="text-xs text-ink-600">{user.email}</p>
+        <p className="mt-1 text-xs text-ink-600">Role here: {ROLE_LABELS[role]}</p>
+        <Form method="post" action="/sign-out" className="mt-3">
+          <button type="submit" className="w-full rounded-md border border-ink-300 px-3 py-2 text-sm font-medium hover:bg-ink-100">
+            Sign out
+          </button>
+        </Form>
+      </div>
+    </details>
+  );
+}
+
+export function Shell({ workspace, workspaces, user, role, demo, localMail, children }: ShellProps) {
+  const [open, setOpen] = useState(false);
+  return (
+    <div className="min-h-screen">
+      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2">
+        Skip to content
+      </a>
+      {demo ? (
+        <div className="bg-ink-800 px-4 py-2 text-center text-xs text-ink-100" role="note">
+          Demo data: the example accounts (password <code>chainproof-demo</code>) are active in this installation.
+          {localMail ? (
+            <>
+              {" "}Mail sent by the app is in the <Link to="/outbox" className="underline">outbox</Link>.
+            </>
+          ) : null}
+        </div>
+      ) : null}
+      <header className="sticky top-0 z-20 flex items-center justify-between border-b border-ink-200 bg-white/95 px-4 py-2 backdrop-blur md:hidden">
+        <button
+          type="button"
+          className="flex min-h-11 min-w-11 items-center justify-center rounded-md hover:bg-ink-100"
+          aria-expanded={open}
+          aria-controls="mobile-nav"
+          onClick={() => setOpen((o) => !o)}
+        >
+          <span className="sr-only">{open ? "Close menu" : "Open menu"}</span>
+          <Icon d={open ? "M5 5l10 10M15 5L5 15" : "M3 6h14M3 10h14M3 14h14"} />
+        </button>
+        <Link to={`/w/${workspace.slug}`} className="text-ink-800">
+          <Logo />
+        </Link>
+        <UserMenu user={user} role={role} />
+      </header>
+      {open ? (
+        <div id="mobile-nav" className="space-y-4 border-b border-ink-200 bg-white px-4 py-4 md:hidden">
+          <WorkspaceSwitcher current={workspace.slug} workspaces={workspaces} />
+          <Nav slug={workspace.slug} onNavigate={() => setOpen(false)} />
+        </div>
+      ) : null}
+      <div className="md:flex">
+        <aside className="hidden w-60 flex-none flex-col gap-6 border-r border-ink-200 bg-white px-4 py-5 md:flex md:min-h-screen">
+          <Link to={`/w/${workspace.slug}`} className="text-ink-800">
+            <Logo />
+          </Link>
+          <WorkspaceSwitcher current={workspace.slug} workspaces={workspaces} />
+          <Nav slug={workspace.slug} />
+        </aside>
+        <div className="min-w-0 flex-1">
+          <div className="hidden items-center justify-end border-b border-ink-200 bg-white px-6 py-2 md:flex">
+            <UserMenu user={user} role={role} />
+          </div>
+          <main id="main" className="mx-auto max-w-6xl px-4 py-6 md:px-8">
+            {children}
+          </main>
+        </div>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,5 @@
+// One index of every table, split by domain.
+export * from "./schema/auth.server";
+export * from "./schema/workspace.server";
+export * from "./schema/mail.server";
+export * from "./schema/vehicle.server";

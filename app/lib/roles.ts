@@ -1,0 +1,27 @@
+// Workspace roles and what each may do. Shared by the server (the authority) and the UI (what to show).
+export const ROLES = ["admin", "engineer", "technician", "reviewer"] as const;
+export type Role = (typeof ROLES)[number];
+
+export const ROLE_LABELS: Record<Role, string> = {
+  admin: "Admin",
+  engineer: "Engineer",
+  technician: "Technician",
+  reviewer: "Reviewer",
+};
+
+export const ROLE_DUTIES: Record<Role, string> = {
+  admin: "manages members and settings",
+  engineer: "draws and edits designs",
+  technician: "diagnoses vehicles and runs bench tests",
+  reviewer: "reviews revisions and signs them off",
+};
+
+/** Who may do what; every loader and action asks through requireMember with one of these. */
+export const CAN = {
+  view: ROLES,
+  manageMembers: ["admin"],
+  editDesigns: ["engineer"],
+  manageVehicles: ["admin", "engineer", "technician"],
+  runBenchTests: ["technician"],
+  review: ["reviewer"],
+} as const satisfies Record<string, readonly Role[]>;

@@ -1,0 +1,32 @@
+import { type RouteConfig, index, layout, prefix, route } from "@react-router/dev/routes";
+
+export default [
+  index("routes/home.tsx"),
+
+  // Signing in and out; better-auth's own endpoints are mounted under /api/auth.
+  route("sign-in", "routes/sign-in.tsx"),
+  route("sign-up", "routes/sign-up.tsx"),
+  route("sign-out", "routes/sign-out.tsx"),
+  route("forgot-password", "routes/forgot-password.tsx"),
+  route("reset-password", "routes/reset-password.tsx"),
+  route("invite/:token", "routes/invite.tsx"),
+  route("welcome", "routes/welcome.tsx"),
+  route("outbox", "routes/outbox.tsx"),
+
+  // Everything inside a workspace: the shell and its sections.
+  ...prefix("w/:ws", [
+    layout("routes/workspace-shell.tsx", [
+      index("routes/workspace-home.tsx"),
+      route("vehicles", "routes/vehicles.tsx"),
+      route("vehicles/:vehicleId", "routes/vehicle.tsx"),
+      route("designs", "routes/designs.tsx"),
+      route("reviews", "routes/reviews.tsx"),
+      route("bench-tests", "routes/bench-tests.tsx"),
+      route("settings", "routes/settings.tsx"),
+    ]),
+  ]),
+
+  // Resource routes.
+  route("api/auth/*", "routes/api/auth.ts"),
+  route("healthz", "routes/api/healthz.ts"),
+] satisfies RouteConfig;

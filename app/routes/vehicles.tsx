@@ -1,0 +1,70 @@
+import { data, Form, Link, useNavigation } from "react-router";
+import type { Route } from "./+types/vehicles";
+import { requireMember } from "~/auth/guard.server";
+import { CAN } from "~/lib/roles";
+import { fieldErrors, formObject, vehicleSchema } from "~/lib/forms";
+import { useFormCheck } from "~/lib/use-form-check";
+import { createVehicle, listVehicles } from "~/vehicles/vehicles.server";
+import { PageHeader } from "~/components/page-header";
+import { EmptyState } from "~/components/empty-state";
+import { Button, TextArea, TextField } from "~/components/ui/form";
+
+export const meta: Route.MetaFunction = () => [{ title: "Vehicles · Chainproof" }];
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const m = await requireMember(request, params.ws, CAN.view);
+  const vehicles = await listVehicles(m.workspace.id);
+  return {
+    canAdd: (CAN.manageVehicles as readonly string[]).includes(m.role),
+    vehicles: vehicles.map((v) => ({ id: v.id, name: v.name, serial: v.serial, model: v.model })),
+  };
+}
+
+export async function action({ request, params }: Route.ActionArgs) {
+  const m = await requireMember(request, params.ws, CAN.manageVehicles);
+  const parsed = vehicleSchema.safeParse(formObject(await request.formData()));
+  if (!parsed.success) return data({ fields: fieldErrors(parsed.error), created: null }, { status: 400 });
+  const id = await createVehicle(m.workspace.id, m.user.id, parsed.data);
+  return { fields: {}, created: id };
+}
+
+export default function Vehicles({ loaderData, actionData }: Route.ComponentProps) {
+  const { errors, onSubmit } = useFormCheck(vehicleSchema, actionData?.fields);
+  const busy = useNavigation().state === "submitting";
+  return (
+    <>
+      <PageHeader title="Vehicles" description="Each vehicle carries the design revision released to it, its photos and its bench-test records." />
+      {loaderData.vehicles.length === 0 ? (
+        <EmptyState title="No vehicles yet">
+          {loaderData.canAdd ? "Add the first vehicle below with its name and serial number." : "An engineer or technician adds vehicles here."}
+        </EmptyState>
+      ) : (
+        <ul className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
+          {loaderData.vehicles.map((v) => (
+            <li key={v.id}>
+              <Link to={v.id} className="block min-h-20 rounded-lg border border-ink-200 bg-white p-4 hover:border-copper-500">
+                <span className="block font-semibold">{v.name}</span>
+                <span className="block text-sm text-ink-600">{[v.model, v.serial].filter(Boolean).join(" · ") || "No model or serial yet"}</span>
+              </Link>
+            </li>
+          ))}
+        </ul>
+      )}
+      {loaderData.canAdd ? (
+        <section className="mt-8 max-w-xl rounded-lg border border-ink-200 bg-white p-5">
+          <h2 className="font-semibold">Add a vehicle</h2>
+          <Form method="post" className="mt-4 space-y-4" onSubmit={onSubmit} noValidate key={actionData?.created ?? "new"}>
+            <TextField label="Name" name="name" required error={errors.name} />
+            <div className="grid gap-4 sm:grid-cols-2">
+              <TextField label="Serial or VIN" name="serial" error={errors.serial} />
+              <TextField label="Model" name="model" error={errors.model} />
+            </div>
+            <TextArea label="Motor controller (free text)" name="controllerDescription" rows={2} error={errors.controllerDescription} />
+            <TextArea label="Notes" name="notes" rows={2} error={errors.notes} />
+            <Button type="submit" disabled={busy}>{busy ? "Adding…" : "Add vehicle"}</Button>
+          </Form>
+        </section>
+      ) : null}
+    </>
+  );
+}

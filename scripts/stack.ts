@@ -1,0 +1,105 @@
+// Brings up the whole local stack (database, mail sink, file store, app) for `npm start` and `npm test`.
+import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import { ensureDatabase, startFileStore, startMailSink, startPostgres, type PostgresHandle } from "./services";
+import { runMigrations } from "./migrate";
+import { seed } from "../drizzle/seed";
+
+export type StackConfig = {
+  name: string; // "start" or "test": prefixes log lines
+  dataDir: string;
+  pgPort: number;
+  database: string;
+  freshDatabase: boolean;
+  smtpPort: number;
+  s3Port: number;
+  appPort: number;
+  demo: boolean;
+  extraEnv?: Record<string, string>;
+};
+
+export type Stack = {
+  env: Record<string, string>;
+  appUrl: string;
+  pg: PostgresHandle;
+  startApp: () => Promise<void>;
+  stopApp: () => Promise<void>;
+  stop: () => Promise<void>;
+};
+
+export function say(name: string, line: string) {
+  console.log(`[${name}] ${line}`);
+}
+
+export function run(cmd: string, args: string[], env: Record<string, string> = {}): number {
+  const r = spawnSync(cmd, args, { stdio: "inherit", env: { ...process.env, ...env } });
+  return r.status ?? 1;
+}
+
+async function waitForHealth(url: string, child: ChildProcess, timeoutMs = 60_000) {
+  const until = Date.now() + timeoutMs;
+  while (Date.now() < until) {
+    if (child.exitCode !== null) throw new Error("the app exited during start-up");
+    try {
+      const r = await fetch(`${url}/healthz`);
+      if (r.ok) return;
+    } catch {
+      // not listening yet
+    }
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error(`the app did not answer on ${url} within ${timeoutMs / 1000} s`);
+}
+
+export async function bringUp(cfg: StackConfig): Promise<Stack> {
+  const log = (s: string) => say(cfg.name, s);
+  const pg = startPostgres({ dir: `${cfg.dataDir}/postgres`, port: cfg.pgPort, log });
+  await ensureDatabase(pg, cfg.database, { fresh: cfg.freshDatabase });
+  const databaseUrl = pg.url(cfg.database);
+  await runMigrations(databaseUrl);
+  log("migrations applied");
+  if (cfg.demo) await seed(databaseUrl, log);
+  const mail = await startMailSink({ port: cfg.smtpPort, databaseUrl });
+  log(`mail sink on smtp://127.0.0.1:${cfg.smtpPort}`);
+  const files = await startFileStore({ port: cfg.s3Port, dir: `${cfg.dataDir}/files`, bucket: "chainproof-uploads" });
+  log(`file store on http://127.0.0.1:${cfg.s3Port}`);
+
+  const appUrl = `http://127.0.0.1:${cfg.appPort}`;
+  const env: Record<string, string> = {
+    NODE_ENV: "production",
+    DATABASE_URL: databaseUrl,
+    APP_URL: appUrl,
+    PORT: String(cfg.appPort),
+    HOST: "127.0.0.1",
+    SMTP_HOST: "127.0.0.1",
+    SMTP_PORT: String(cfg.smtpPort),
+    S3_ENDPOINT: `http://127.0.0.1:${cfg.s3Port}`,
+    S3_BUCKET: "chainproof-uploads",
+    CHAINPROOF_LOCAL: "1",
+    CHAINPROOF_DEMO: cfg.demo ? "1" : "0",
+    ...cfg.extraEnv,
+  };
+
+  let app: ChildProcess | null = null;
+  const startApp = async () => {
+    app = spawn(process.execPath, ["--import", "tsx", "scripts/serve.ts"], { stdio: "inherit", env: { ...process.env, ...env } });
+    await waitForHealth(appUrl, app);
+  };
+  const stopApp = async () => {
+    const child = app;
+    app = null;
+    if (!child || child.exitCode !== null) return;
+    await new Promise<void>((resolve) => {
+      child.once("exit", () => resolve());
+      child.kill("SIGTERM");
+      setTimeout(() => child.kill("SIGKILL"), 5_000).unref();
+    });
+  };
+  const stop = async () => {
+    await stopApp();
+    await mail.stop().catch(() => {});
+    await files.stop().catch(() => {});
+    pg.stop();
+    log("stopped");
+  };
+  return { env, appUrl, pg, startApp, stopApp, stop };
+}

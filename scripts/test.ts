@@ -1,0 +1,92 @@
+// `npm test`: typecheck, unit tests, integration tests against real PostgreSQL and the running app,
+// and end-to-end tests in Debian's Chromium. Prints one closing line "N passed, N failed".
+import { existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";
+import { bringUp, run, say } from "./stack";
+
+const results = ".data/test-results";
+rmSync(results, { recursive: true, force: true });
+mkdirSync(results, { recursive: true });
+
+type Tally = { passed: number; failed: number; skipped: number };
+const tally: Tally = { passed: 0, failed: 0, skipped: 0 };
+const failures: string[] = [];
+
+function addVitest(file: string, label: string, exit: number) {
+  if (!existsSync(file)) {
+    tally.failed += 1;
+    failures.push(`${label}: no report (exit ${exit})`);
+    return;
+  }
+  const r = JSON.parse(readFileSync(file, "utf8")) as { numPassedTests: number; numFailedTests: number; numPendingTests: number; numTodoTests: number; numFailedTestSuites: number };
+  tally.passed += r.numPassedTests;
+  tally.failed += r.numFailedTests + (r.numFailedTests === 0 && exit !== 0 ? 1 : 0);
+  tally.skipped += r.numPendingTests + r.numTodoTests;
+  if (exit !== 0) failures.push(`${label} (exit ${exit})`);
+}
+
+function addPlaywright(file: string, exit: number) {
+  if (!existsSync(file)) {
+    tally.failed += 1;
+    failures.push(`e2e: no report (exit ${exit})`);
+    return;
+  }
+  const r = JSON.parse(readFileSync(file, "utf8")) as { stats: { expected: number; unexpected: number; skipped: number; flaky: number } };
+  tally.passed += r.stats.expected + r.stats.flaky;
+  tally.failed += r.stats.unexpected + (r.stats.unexpected === 0 && exit !== 0 ? 1 : 0);
+  tally.skipped += r.stats.skipped;
+  if (exit !== 0) failures.push(`e2e (exit ${exit})`);
+}
+
+const started = Date.now();
+say("test", "typecheck");
+const tc = run("npx", ["react-router", "typegen"]) || run("npx", ["tsc"]);
+if (tc === 0) tally.passed += 1;
+else {
+  tally.failed += 1;
+  failures.push("typecheck");
+}
+
+say("test", "unit tests");
+addVitest(`${results}/unit.json`, "unit", run("npx", ["vitest", "run", "--project", "unit", "--reporter=default", "--reporter=json", `--outputFile.json=${results}/unit.json`]));
+
+const stack = await bringUp({
+  name: "test",
+  dataDir: ".data/test",
+  pgPort: Number(process.env.CHAINPROOF_TEST_PG_PORT ?? 54339),
+  database: "chainproof_test",
+  freshDatabase: true,
+  smtpPort: 2535,
+  s3Port: 4579,
+  appPort: 3100,
+  demo: true,
+  // Tests stand in for many clients: each sends its own X-Forwarded-For, so rate limits apply per test.
+  extraEnv: { TRUST_PROXY: "1", NODE_ENV: "production" },
+});
+
+try {
+  say("test", "building the app");
+  if (run("npx", ["react-router", "build"], { NODE_ENV: "production" }) !== 0) throw new Error("the build failed");
+  await stack.startApp();
+  const testEnv = { ...stack.env, BASE_URL: stack.appUrl, NODE_ENV: "test" };
+
+  say("test", "integration tests");
+  addVitest(
+    `${results}/integration.json`,
+    "integration",
+    run("npx", ["vitest", "run", "--project", "integration", "--reporter=default", "--reporter=json", `--outputFile.json=${results}/integration.json`], testEnv),
+  );
+
+  say("test", "end-to-end tests (Chromium)");
+  addPlaywright(`${results}/e2e.json`, run("npx", ["playwright", "test"], { ...testEnv, PLAYWRIGHT_JSON_OUTPUT_NAME: `${results}/e2e.json` }));
+} catch (err) {
+  tally.failed += 1;
+  failures.push((err as Error).message);
+} finally {
+  await stack.stop();
+}
+
+const seconds = Math.round((Date.now() - started) / 1000);
+if (failures.length) console.log(`\nFailed: ${failures.join("; ")}`);
+console.log(`\nAll suites finished in ${seconds} s.`);
+console.log(`${tally.passed} passed, ${tally.failed} failed, ${tally.skipped} skipped`);
+process.exit(tally.failed > 0 ? 1 : 0);
