@@ -1,0 +1,31 @@
+// Playwright fixtures: sign in as a demo role; every test context gets its own client address.
+import { expect, test as base, type Page } from "@playwright/test";
+
+export const DEMO_PASSWORD = "chainproof-demo";
+export const DEMO = {
+  admin: "admin@example.com",
+  engineer: "engineer@example.com",
+  technician: "technician@example.com",
+  reviewer: "reviewer@example.com",
+} as const;
+export type DemoRole = keyof typeof DEMO;
+
+let n = 0;
+export const test = base.extend({
+  context: async ({ context }, use) => {
+    n += 1;
+    await context.setExtraHTTPHeaders({ "x-forwarded-for": `198.19.${process.pid % 250}.${n % 250}` });
+    await use(context);
+  },
+});
+export { expect };
+
+export async function signIn(page: Page, role: DemoRole | { email: string; password: string }) {
+  const email = typeof role === "string" ? DEMO[role] : role.email;
+  const password = typeof role === "string" ? DEMO_PASSWORD : role.password;
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await page.waitForURL((url) => !url.pathname.startsWith("/sign-in"));
+}
