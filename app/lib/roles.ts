@@ -10,10 +10,10 @@ export const ROLE_LABELS: Record<Role, string> = {
 };
 
 export const ROLE_DUTIES: Record<Role, string> = {
-  admin: "manages members and settings",
-  engineer: "draws and edits designs",
-  technician: "diagnoses vehicles and runs bench tests",
-  reviewer: "reviews revisions and signs them off",
+  admin: "manage members and settings",
+  engineer: "draw and edit designs",
+  technician: "diagnose vehicles and run bench tests",
+  reviewer: "review revisions and sign them off",
 };
 
 /** Who may do what; every loader and action asks through requireMember with one of these. */

@@ -41,7 +41,7 @@ export default function Invite({ loaderData, actionData }: Route.ComponentProps)
   return (
     <AuthFrame title={`Join ${invitation.workspaceName}`}>
       <p className="text-sm text-ink-700">
-        You are invited as <strong>{ROLE_LABELS[invitation.role]}</strong>: {ROLE_DUTIES[invitation.role]}. The invitation is for{" "}
+        You are invited as <strong>{ROLE_LABELS[invitation.role]}</strong>, to {ROLE_DUTIES[invitation.role]}. The invitation is for{" "}
         <strong>{invitation.email}</strong>.
       </p>
       {actionData?.message ? <div className="mt-4"><Notice tone="error">{actionData.message}</Notice></div> : null}

@@ -73,7 +73,7 @@ export async function inviteMember(ws: { id: string; name: string }, inviter: { 
   const url = new URL(`/invite/${token}`, env.APP_URL).href;
   await sendMail(
     composeMail(email, `${inviter.name} invited you to ${ws.name} on Chainproof`, [
-      `${inviter.name} invited you to join the workspace "${ws.name}" as ${ROLE_LABELS[role].toLowerCase()} (${ROLE_DUTIES[role]}).`,
+      `${inviter.name} invited you to join the workspace "${ws.name}" as ${ROLE_LABELS[role].toLowerCase()}, to ${ROLE_DUTIES[role]}.`,
       "The invitation is valid for seven days.",
     ], { label: "Accept the invitation", url }),
   );
