@@ -1,9 +1,9 @@
-// CSV export of the truth table, streamed in chunks (never the whole table in memory).
+// Tabular export of the truth table (CSV and an aligned text table), streamed in chunks:
+// rows are produced word by word and never held all at once.
 import type { CompiledDesign } from "./compile";
 import { THROTTLE_CLASSES } from "./compile";
 import { matchingRows, type RowFilter } from "./rows";
-import type { WordEvaluator } from "./table";
-import { WORD } from "./table";
+import { WORD, type WordEvaluator } from "./table";
 
 const CHUNK_CHARS = 1 << 16;
 
@@ -13,7 +13,7 @@ function csvField(s: string): string {
 
 /**
  * Columns: `row`, one per condition (its id), `input:ID` per input (1 energized / 0),
- * `powered`, `enabled`, `direction`, `braking`, `throttle`, `drive` (steady drive, 1/0),
+ * `powered`, `enabled` (1/0), `direction`, `braking` (1/0), `throttle`, `drive` (steady drive, 1/0),
  * and `rule:ID` per inhibit rule (`violating`, `unsafe`, or `-` where its `when` does not hold).
  */
 export function csvHeader(c: CompiledDesign): string[] {
@@ -31,19 +31,35 @@ export function csvHeader(c: CompiledDesign): string[] {
   ];
 }
 
-/** Header line, then the matching rows from position `from` (within the filtered rows), `count` at most. */
-export function* csvChunks(
+/** Widest value of each column, for the aligned text table. */
+function columnWidths(c: CompiledDesign): number[] {
+  const values = [
+    String(c.rows - 1).length,
+    ...c.conditions.map((x) => Math.max(...x.states.map((s) => s.length))),
+    ...c.inputs.map(() => 1),
+    1,
+    1,
+    "conflict".length,
+    1,
+    "released".length,
+    1,
+    ...c.rules.filter((r) => r.type === "inhibit").map(() => "violating".length),
+  ];
+  return csvHeader(c).map((h, i) => Math.max(h.length, values[i]));
+}
+
+/** The fields of each matching row from position `from`, at most `count` rows. */
+function* rowFields(
   c: CompiledDesign,
-  filter?: RowFilter,
-  opts: { from?: number; count?: number } = {},
-): Generator<string> {
+  filter: RowFilter | undefined,
+  opts: { from?: number; count?: number },
+  stateText: string[][],
+): Generator<string[]> {
   const from = Math.max(0, Math.floor(opts.from ?? 0));
   const count = opts.count === undefined ? Infinity : Math.max(0, Math.floor(opts.count));
-  const header = csvHeader(c).map(csvField).join(",") + "\n";
-  const stateText = c.conditions.map((cond) => cond.states.map(csvField));
+  if (count === 0) return;
   const inhibit = c.rules.filter((r) => r.type === "inhibit").map((r) => r.index);
-  let ev: WordEvaluator | null = null;
-  // Per-word columns that do not depend on the lane are recomputed lazily per word.
+  let ev: WordEvaluator | undefined;
   let unsafe: number[] = [];
   let forbidden: number[] = [];
   const onWord = (e: WordEvaluator) => {
@@ -51,41 +67,68 @@ export function* csvChunks(
     unsafe = inhibit.map((r) => e.unsafeWord(r));
     forbidden = inhibit.map((r) => e.forbiddenWord(r));
   };
-  let chunk = header;
   let position = 0;
   let emitted = 0;
-  if (count > 0) {
-    for (const index of matchingRows(c, filter, onWord)) {
-      if (position++ < from) continue;
-      const e = ev as unknown as WordEvaluator;
-      const j = index - e.wordIndex * WORD;
-      let line = String(index);
-      for (let k = 0; k < c.conditions.length; k++) {
-        const cond = c.conditions[k];
-        line += "," + stateText[k][Math.floor(index / cond.stride) % cond.radix];
-      }
-      for (const input of c.inputs) line += (e.reach[input.net] >>> j) & 1 ? ",1" : ",0";
-      const dir =
-        (e.dirForward >>> j) & 1 ? "forward" : (e.dirReverse >>> j) & 1 ? "reverse" : (e.dirNeutral >>> j) & 1 ? "neutral" : "conflict";
-      const thr = (e.thrReleased >>> j) & 1 ? 0 : (e.thrApplied >>> j) & 1 ? 1 : 2;
-      line +=
-        ((e.powered >>> j) & 1 ? ",1" : ",0") +
-        ((e.enabled >>> j) & 1 ? ",1" : ",0") +
-        "," +
-        dir +
-        ((e.braking >>> j) & 1 ? ",1" : ",0") +
-        "," +
-        THROTTLE_CLASSES[thr] +
-        ((e.drive >>> j) & 1 ? ",1" : ",0");
-      for (let k = 0; k < inhibit.length; k++) {
-        line += !((unsafe[k] >>> j) & 1) ? ",-" : (forbidden[k] >>> j) & 1 ? ",violating" : ",unsafe";
-      }
-      chunk += line + "\n";
-      if (chunk.length >= CHUNK_CHARS) {
-        yield chunk;
-        chunk = "";
-      }
-      if (++emitted >= count) break;
+  for (const index of matchingRows(c, filter, onWord)) {
+    if (position++ < from) continue;
+    const e = ev!;
+    const j = index - e.wordIndex * WORD;
+    const bit = (x: number) => ((x >>> j) & 1 ? "1" : "0");
+    const f: string[] = [String(index)];
+    for (let k = 0; k < c.conditions.length; k++) {
+      const cond = c.conditions[k];
+      f.push(stateText[k][Math.floor(index / cond.stride) % cond.radix]);
+    }
+    for (const input of c.inputs) f.push(bit(e.reach[input.net]));
+    f.push(
+      bit(e.powered),
+      bit(e.enabled),
+      (e.dirForward >>> j) & 1 ? "forward" : (e.dirReverse >>> j) & 1 ? "reverse" : (e.dirNeutral >>> j) & 1 ? "neutral" : "conflict",
+      bit(e.braking),
+      THROTTLE_CLASSES[(e.thrReleased >>> j) & 1 ? 0 : (e.thrApplied >>> j) & 1 ? 1 : 2],
+      bit(e.drive),
+    );
+    for (let k = 0; k < inhibit.length; k++) {
+      f.push(!((unsafe[k] >>> j) & 1) ? "-" : (forbidden[k] >>> j) & 1 ? "violating" : "unsafe");
+    }
+    yield f;
+    if (++emitted >= count) return;
+  }
+}
+
+/** CSV: the header line, then matching rows from position `from` (within the filtered rows), `count` at most. */
+export function* csvChunks(
+  c: CompiledDesign,
+  filter?: RowFilter,
+  opts: { from?: number; count?: number } = {},
+): Generator<string> {
+  const stateText = c.conditions.map((cond) => cond.states.map(csvField));
+  let chunk = csvHeader(c).map(csvField).join(",") + "\n";
+  for (const f of rowFields(c, filter, opts, stateText)) {
+    chunk += f.join(",") + "\n";
+    if (chunk.length >= CHUNK_CHARS) {
+      yield chunk;
+      chunk = "";
+    }
+  }
+  if (chunk.length > 0) yield chunk;
+}
+
+/** The same rows as an aligned, human-readable text table (header line first). */
+export function* textTableChunks(
+  c: CompiledDesign,
+  filter?: RowFilter,
+  opts: { from?: number; count?: number } = {},
+): Generator<string> {
+  const widths = columnWidths(c);
+  const line = (f: string[]) => f.map((x, i) => (i === 0 ? x.padStart(widths[i]) : x.padEnd(widths[i]))).join("  ").trimEnd();
+  const stateText = c.conditions.map((cond) => cond.states.slice());
+  let chunk = line(csvHeader(c)) + "\n";
+  for (const f of rowFields(c, filter, opts, stateText)) {
+    chunk += line(f) + "\n";
+    if (chunk.length >= CHUNK_CHARS) {
+      yield chunk;
+      chunk = "";
     }
   }
   if (chunk.length > 0) yield chunk;

@@ -45,7 +45,7 @@ export {
 } from "./rows";
 export type { ContactFault } from "./table";
 export { replayTrace, type StepView } from "./sequence";
-export { csvChunks, csvHeader } from "./csv";
+export { csvChunks, csvHeader, textTableChunks } from "./csv";
 export {
   diagnose,
   explainReadings,
