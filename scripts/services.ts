@@ -92,6 +92,7 @@ export async function startMailSink(opts: { port: number; databaseUrl: string; l
   const server = new SMTPServer({
     secure: false,
     authOptional: true,
+    disableReverseLookup: true, // no DNS on loopback: a lookup would stall every message
     disabledCommands: ["STARTTLS"],
     logger: false,
     onData(stream, session, callback) {

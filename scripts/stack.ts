@@ -1,5 +1,5 @@
 // Brings up the whole local stack (database, mail sink, file store, app) for `npm start` and `npm test`.
-import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import { spawn, type ChildProcess } from "node:child_process";
 import { ensureDatabase, startFileStore, startMailSink, startPostgres, type PostgresHandle } from "./services";
 import { runMigrations } from "./migrate";
 import { seed } from "../drizzle/seed";
@@ -30,9 +30,14 @@ export function say(name: string, line: string) {
   console.log(`[${name}] ${line}`);
 }
 
-export function run(cmd: string, args: string[], env: Record<string, string> = {}): number {
-  const r = spawnSync(cmd, args, { stdio: "inherit", env: { ...process.env, ...env } });
-  return r.status ?? 1;
+/** Runs a command to completion without blocking the event loop: the mail sink and file store
+ *  live in this process and must keep answering while tests run. */
+export function run(cmd: string, args: string[], env: Record<string, string> = {}): Promise<number> {
+  return new Promise((resolve) => {
+    const child = spawn(cmd, args, { stdio: "inherit", env: { ...process.env, ...env } });
+    child.once("error", () => resolve(1));
+    child.once("exit", (code) => resolve(code ?? 1));
+  });
 }
 
 async function waitForHealth(url: string, child: ChildProcess, timeoutMs = 60_000) {

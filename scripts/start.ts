@@ -27,7 +27,7 @@ process.on("SIGTERM", () => void shutdown(0));
 
 try {
   say("start", "building the app");
-  if (run("npx", ["react-router", "build"], { NODE_ENV: "production" }) !== 0) throw new Error("the build failed");
+  if ((await run("npx", ["react-router", "build"], { NODE_ENV: "production" })) !== 0) throw new Error("the build failed");
   await stack.startApp();
 } catch (err) {
   console.error(`[start] ${(err as Error).message}`);

@@ -39,7 +39,7 @@ function addPlaywright(file: string, exit: number) {
 
 const started = Date.now();
 say("test", "typecheck");
-const tc = run("npx", ["react-router", "typegen"]) || run("npx", ["tsc"]);
+const tc = (await run("npx", ["react-router", "typegen"])) || (await run("npx", ["tsc"]));
 if (tc === 0) tally.passed += 1;
 else {
   tally.failed += 1;
@@ -47,7 +47,7 @@ else {
 }
 
 say("test", "unit tests");
-addVitest(`${results}/unit.json`, "unit", run("npx", ["vitest", "run", "--project", "unit", "--reporter=default", "--reporter=json", `--outputFile.json=${results}/unit.json`]));
+addVitest(`${results}/unit.json`, "unit", await run("npx", ["vitest", "run", "--project", "unit", "--reporter=default", "--reporter=json", `--outputFile.json=${results}/unit.json`]));
 
 const stack = await bringUp({
   name: "test",
@@ -65,19 +65,19 @@ const stack = await bringUp({
 
 try {
   say("test", "building the app");
-  if (run("npx", ["react-router", "build"], { NODE_ENV: "production" }) !== 0) throw new Error("the build failed");
+  if ((await run("npx", ["react-router", "build"], { NODE_ENV: "production" })) !== 0) throw new Error("the build failed");
   await stack.startApp();
-  const testEnv = { ...stack.env, BASE_URL: stack.appUrl, NODE_ENV: "test" };
+  const testEnv = { ...stack.env, CHAINPROOF_URL: stack.appUrl, BASE_URL: stack.appUrl, NODE_ENV: "test" };
 
   say("test", "integration tests");
   addVitest(
     `${results}/integration.json`,
     "integration",
-    run("npx", ["vitest", "run", "--project", "integration", "--reporter=default", "--reporter=json", `--outputFile.json=${results}/integration.json`], testEnv),
+    await run("npx", ["vitest", "run", "--project", "integration", "--reporter=default", "--reporter=json", `--outputFile.json=${results}/integration.json`], testEnv),
   );
 
   say("test", "end-to-end tests (Chromium)");
-  addPlaywright(`${results}/e2e.json`, run("npx", ["playwright", "test"], { ...testEnv, PLAYWRIGHT_JSON_OUTPUT_NAME: `${results}/e2e.json` }));
+  addPlaywright(`${results}/e2e.json`, await run("npx", ["playwright", "test"], { ...testEnv, PLAYWRIGHT_JSON_OUTPUT_NAME: `${results}/e2e.json` }));
 } catch (err) {
   tally.failed += 1;
   failures.push((err as Error).message);

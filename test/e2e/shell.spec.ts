@@ -12,7 +12,7 @@ for (const role of Object.keys(DEMO) as DemoRole[]) {
       await expect(nav.getByRole("link", { name: section })).toBeVisible();
     }
     await expect(page.getByRole("heading", { name: "Larkspur Light Vehicles" })).toBeVisible();
-    await expect(page.getByText(ROLE_LABEL[role], { exact: true }).first()).toBeVisible();
+    await expect(page.getByText(ROLE_LABEL[role], { exact: true }).filter({ visible: true }).first()).toBeVisible();
     await expect(page.getByRole("note")).toContainText("Demo data");
     await nav.getByRole("link", { name: "Vehicles" }).click();
     await expect(page.getByRole("heading", { name: "Vehicles" })).toBeVisible();

@@ -1,5 +1,7 @@
 // HTTP helpers for integration tests against the running app (BASE_URL, set by scripts/test.ts).
-export const BASE_URL = process.env.BASE_URL ?? "http://127.0.0.1:3100";
+// CHAINPROOF_URL, since Vite reserves BASE_URL for its own base path ("/").
+const fromEnv = process.env.CHAINPROOF_URL ?? (process.env.BASE_URL?.startsWith("http") ? process.env.BASE_URL : undefined);
+export const BASE_URL = fromEnv ?? "http://127.0.0.1:3100";
 export const DEMO_PASSWORD = "chainproof-demo";
 export const DEMO = {
   admin: "admin@example.com",
