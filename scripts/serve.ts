@@ -1,6 +1,7 @@
 // The production HTTP server: static assets, the React Router app, and the client-address header
 // that rate limits use. Listens on HOST:PORT (127.0.0.1:3000 by default).
 import path from "node:path";
+import { randomBytes } from "node:crypto";
 import { pathToFileURL } from "node:url";
 import express from "express";
 import compression from "compression";
@@ -29,7 +30,14 @@ app.use((req, res, next) => {
 });
 app.use("/assets", express.static(path.join(buildDir, "client/assets"), { immutable: true, maxAge: "1y" }));
 app.use(express.static(path.join(buildDir, "client"), { maxAge: "1h" }));
-app.all("*", createRequestHandler({ build, mode: process.env.NODE_ENV ?? "production" }));
+app.all(
+  "*",
+  createRequestHandler({
+    build,
+    mode: process.env.NODE_ENV ?? "production",
+    getLoadContext: () => ({ cspNonce: randomBytes(16).toString("base64") }),
+  }),
+);
 
 const server = app.listen(port, host, () => {
   console.log(`chainproof: serving on http://${host}:${port}`);

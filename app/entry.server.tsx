@@ -1,0 +1,53 @@
+// Server rendering with a per-request nonce, so the Content-Security-Policy allows no inline script
+// but the framework's own.
+import { PassThrough } from "node:stream";
+import { createReadableStreamFromReadable } from "@react-router/node";
+import { ServerRouter, type AppLoadContext, type EntryContext } from "react-router";
+import { isbot } from "isbot";
+import { renderToPipeableStream } from "react-dom/server";
+import { contentSecurityPolicy } from "./lib/csp";
+
+export const streamTimeout = 5_000;
+
+export default function handleRequest(
+  request: Request,
+  responseStatusCode: number,
+  responseHeaders: Headers,
+  routerContext: EntryContext,
+  loadContext: AppLoadContext,
+) {
+  const nonce = loadContext?.cspNonce;
+  if (nonce) responseHeaders.set("Content-Security-Policy", contentSecurityPolicy(nonce));
+  if (request.method.toUpperCase() === "HEAD") {
+    return new Response(null, { status: responseStatusCode, headers: responseHeaders });
+  }
+  return new Promise<Response>((resolve, reject) => {
+    let shellRendered = false;
+    const userAgent = request.headers.get("user-agent");
+    const readyOption = (userAgent && isbot(userAgent)) || routerContext.isSpaMode ? "onAllReady" : "onShellReady";
+    let timeoutId: ReturnType<typeof setTimeout> | undefined = setTimeout(() => abort(), streamTimeout + 1000);
+    const { pipe, abort } = renderToPipeableStream(<ServerRouter context={routerContext} url={request.url} nonce={nonce} />, {
+      nonce,
+      [readyOption]() {
+        shellRendered = true;
+        const body = new PassThrough({
+          final(callback) {
+            clearTimeout(timeoutId);
+            timeoutId = undefined;
+            callback();
+          },
+        });
+        responseHeaders.set("Content-Type", "text/html");
+        pipe(body);
+        resolve(new Response(createReadableStreamFromReadable(body), { headers: responseHeaders, status: responseStatusCode }));
+      },
+      onShellError(error: unknown) {
+        reject(error);
+      },
+      onError(error: unknown) {
+        responseStatusCode = 500;
+        if (shellRendered) console.error(error);
+      },
+    });
+  });
+}
