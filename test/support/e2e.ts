@@ -17,6 +17,16 @@ export const test = base.extend({
     await context.setExtraHTTPHeaders({ "x-forwarded-for": `198.19.${process.pid % 250}.${n % 250}` });
     await use(context);
   },
+  // Every test fails if the page reports a Content-Security-Policy violation or an uncaught error.
+  page: async ({ page }, use) => {
+    const problems: string[] = [];
+    page.on("console", (msg) => {
+      if (msg.type() === "error" && /Content Security Policy|Refused to/i.test(msg.text())) problems.push(msg.text());
+    });
+    page.on("pageerror", (err) => problems.push(`uncaught: ${err.message}`));
+    await use(page);
+    expect(problems, "page errors").toEqual([]);
+  },
 });
 export { expect };
 
