@@ -1,0 +1,103 @@
+// Types and limits shared by the design pages, the design API and the canvas editor.
+// No server imports here: the browser bundle imports this module.
+import type { Problem, Verdict } from "~/engine";
+
+export type { Problem, Verdict };
+
+/**
+ * Where a design stands. "draft": no revision saved yet; "proven": the latest revision is saved
+ * (only proven designs save, so every revision is proven). Review states come with reviews.
+ */
+export const DESIGN_STATUSES = ["draft", "proven"] as const;
+export type DesignStatus = (typeof DESIGN_STATUSES)[number];
+
+export const STATUS_LABELS: Record<DesignStatus, string> = {
+  draft: "Draft",
+  proven: "Proven",
+};
+
+/** Largest JSON body the design API reads (a draft or a revision with its layout). */
+export const DESIGN_BODY_MAX_BYTES = 1_000_000;
+/** Largest truth table the server proves in a request (the engine itself accepts 2^24 rows). */
+export const SERVER_PROOF_ROW_LIMIT = 2 ** 20;
+/** Drafts up to this many rows get a stored check summary ("2 rules fail") when saved. */
+export const DRAFT_CHECK_ROW_LIMIT = 2 ** 16;
+/** Longest revision message. */
+export const REVISION_MESSAGE_MAX = 500;
+
+/** A problem with a request or a document, named by the path of the offending field. */
+export type FieldProblem = { path: string; message: string };
+/** The error body of every design API response that is not a success. */
+export type ApiErrorBody = { error: { code: string; message: string; fields: FieldProblem[] } };
+
+export type SaveDraftResult = { ok: true; version: number } | { ok: false; status: 409; currentVersion: number };
+
+export type SaveRevisionResult =
+  | { status: 201; revision: { number: number; contentHash: string; verdict: Verdict } }
+  | { status: 400; problems: Problem[] }
+  | { status: 422; verdict: Verdict }
+  | { status: 409; latestRevision: number };
+
+/**
+ * Props of the canvas editor (app/canvas/design-editor.tsx), mounted by the editor route.
+ * The two callbacks talk to the design API. They resolve with the outcomes above; any other
+ * failure (signed out, no permission, network down, server error) rejects with an Error whose
+ * message can be shown to the user as it is.
+ */
+export type DesignEditorProps = {
+  /** The draft document, or the latest revision's when that is newer; may be invalid. */
+  initial: unknown;
+  /** The draft's version for optimistic concurrency (0 when the design has no draft). */
+  draftVersion: number;
+  /** The revision the document builds on (0 when none); a save on an older base gets 409. */
+  baseRevision: number;
+  readOnly: boolean;
+  designName: string;
+  onSaveDraft: (doc: unknown, version: number) => Promise<SaveDraftResult>;
+  onSaveRevision: (doc: unknown, baseRevision: number, message: string) => Promise<SaveRevisionResult>;
+};
+
+/** The stored summary of a draft's check, made when the draft is saved. */
+export type DraftCheck =
+  | { state: "invalid"; problems: number }
+  | { state: "checked"; ok: boolean; failing: number; rules: number; singleFaults: number; rows: number }
+  | { state: "unchecked"; rows: number };
+
+/** One design as listed (page and API). Dates are ISO strings. */
+export type DesignSummary = {
+  id: string;
+  name: string;
+  vehicleId: string | null;
+  vehicleName: string | null;
+  status: DesignStatus;
+  createdAt: string;
+  latestRevision: null | {
+    number: number;
+    contentHash: string;
+    createdAt: string;
+    authorName: string;
+    rules: number;
+    singleFaults: number;
+  };
+  draft: null | {
+    version: number;
+    baseRevision: number;
+    updatedAt: string;
+    /** The draft differs from the latest revision (or there is no revision). */
+    changed: boolean;
+    check: DraftCheck;
+  };
+};
+
+/** Short words for a draft check, e.g. "2 of 5 rules fail". */
+export function describeDraftCheck(check: DraftCheck): string {
+  switch (check.state) {
+    case "invalid":
+      return check.problems === 1 ? "1 problem in the design" : `${check.problems} problems in the design`;
+    case "unchecked":
+      return `too large to check on save (${check.rows.toLocaleString("en-US")} rows)`;
+    case "checked":
+      if (check.ok) return check.rules === 0 ? "no rules yet" : "every rule holds";
+      return `${check.failing} of ${check.rules} ${check.rules === 1 ? "rule fails" : "rules fail"}`;
+  }
+}
