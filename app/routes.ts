@@ -20,6 +20,8 @@ export default [
       route("vehicles", "routes/vehicles.tsx"),
       route("vehicles/:vehicleId", "routes/vehicle.tsx"),
       route("designs", "routes/designs.tsx"),
+      route("designs/new", "routes/design-new.tsx"),
+      route("designs/:designId", "routes/design.tsx"),
       route("reviews", "routes/reviews.tsx"),
       route("bench-tests", "routes/bench-tests.tsx"),
       route("settings", "routes/settings.tsx"),
@@ -29,4 +31,13 @@ export default [
   // Resource routes.
   route("api/auth/*", "routes/api/auth.ts"),
   route("healthz", "routes/api/healthz.ts"),
+  // The design API (JSON in, JSON out; docs/decisions/030).
+  ...prefix("api/v1", [
+    route("designs", "routes/api/v1/designs.ts"),
+    route("designs/:designId", "routes/api/v1/design.ts"),
+    route("designs/:designId/draft", "routes/api/v1/design-draft.ts"),
+    route("designs/:designId/revisions", "routes/api/v1/design-revisions.ts"),
+    route("designs/:designId/revisions/:number", "routes/api/v1/design-revision.ts"),
+    route("proofs", "routes/api/v1/proofs.ts"),
+  ]),
 ] satisfies RouteConfig;

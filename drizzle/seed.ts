@@ -1,10 +1,15 @@
 // Demo data of our own invented scenario: Larkspur Light Vehicles, a small maker of electric utility
-// vehicles, with four people (one per role) and three vehicles. Runs only on an empty database.
-import { sql } from "drizzle-orm";
-import { drizzle } from "drizzle-orm/node-postgres";
+// vehicles, with four people (one per role), three vehicles and a design for each. Runs only on an
+// empty database; `tsx drizzle/seed.ts --designs` adds the demo designs to an existing demo
+// workspace that has none.
+import { readFileSync } from "node:fs";
+import { and, eq, sql } from "drizzle-orm";
+import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
 import pg from "pg";
 import { hashPassword } from "better-auth/crypto";
 import * as schema from "../app/db/schema.server";
+import { contentHash } from "../app/designs/content-hash.server";
+import { checkDraft, proveDocument } from "../app/designs/proof";
 
 export const DEMO_PASSWORD = "chainproof-demo";
 export const DEMO_USERS = [
@@ -57,9 +62,108 @@ export async function seed(databaseUrl: string, log: (s: string) => void = conso
         await tx.insert(schema.member).values({ id: crypto.randomUUID(), workspaceId, userId, role: u.role });
       }
       for (const v of VEHICLES) await tx.insert(schema.vehicle).values({ id: crypto.randomUUID(), workspaceId, ...v });
+      await seedDemoDesigns(tx, workspaceId);
     });
     log(`seeded the demo workspace "${DEMO_WORKSPACE.name}"`);
     return true;
+  } finally {
+    await pool.end();
+  }
+}
+
+// Demo designs (docs/decisions/033). Only proven documents become revisions, so the mower's
+// failing change and the trail bike's failing wiring are drafts.
+const DEMO_DESIGNS = [
+  {
+    name: "Haybarn hauler #3, drive inhibit",
+    vehicle: "Haybarn campus hauler #3",
+    revisions: [{ file: "haybarn-campus-hauler.json", message: "Key, seat, charge inlet and park brake; lockouts on power, enable, direction and brake" }],
+    draft: "haybarn-campus-hauler.json",
+  },
+  {
+    name: "Meadowline M-11, drive inhibit",
+    vehicle: "Meadowline deck mower M-11",
+    revisions: [{ file: "meadowline-deck-mower.r1.json", message: "Charge inlet in the power line; direction lever and park brake" }],
+    // Adds the seat switch to the enable line but not the enable-restore lockout: no-restart fails.
+    draft: "meadowline-deck-mower.draft.json",
+  },
+  {
+    name: "Scree P2, drive inhibit",
+    vehicle: "Scree trail bike prototype P2",
+    revisions: [],
+    // The walk-mode button bridges the side-stand switch: the side-stand rule fails.
+    draft: "scree-trail-bike.draft.json",
+  },
+];
+
+type Seeder = Pick<NodePgDatabase<typeof schema>, "insert" | "select">;
+
+function demoDocument(file: string): Record<string, unknown> {
+  return JSON.parse(readFileSync(new URL(`./demo-designs/${file}`, import.meta.url), "utf8")) as Record<string, unknown>;
+}
+
+/** Adds the demo designs to the workspace when it has none; returns how many it added. */
+export async function seedDemoDesigns(db: Seeder, workspaceId: string): Promise<number> {
+  const existing = await db.select({ n: sql<number>`count(*)::int` }).from(schema.design).where(eq(schema.design.workspaceId, workspaceId));
+  if ((existing[0]?.n ?? 0) > 0) return 0;
+  const author = await db
+    .select({ id: schema.user.id })
+    .from(schema.member)
+    .innerJoin(schema.user, eq(schema.member.userId, schema.user.id))
+    .where(and(eq(schema.member.workspaceId, workspaceId), eq(schema.user.email, DEMO_USERS[1].email)))
+    .limit(1);
+  if (!author[0]) throw new Error(`the demo engineer ${DEMO_USERS[1].email} is not a member of the workspace`);
+  const authorId = author[0].id;
+  const vehicles = await db.select({ id: schema.vehicle.id, name: schema.vehicle.name }).from(schema.vehicle).where(eq(schema.vehicle.workspaceId, workspaceId));
+  const day = 24 * 3600 * 1000;
+  const now = Date.now();
+  for (const d of DEMO_DESIGNS) {
+    const designId = crypto.randomUUID();
+    const vehicleId = vehicles.find((v) => v.name === d.vehicle)?.id ?? null;
+    await db.insert(schema.design).values({ id: designId, workspaceId, vehicleId, name: d.name, createdBy: authorId, createdAt: new Date(now - 3 * day) });
+    let number = 0;
+    for (const r of d.revisions) {
+      const proof = proveDocument(demoDocument(r.file));
+      if (!proof.ok || !proof.verdict.ok) throw new Error(`demo revision ${r.file} is not proven`);
+      number += 1;
+      await db.insert(schema.designRevision).values({
+        id: crypto.randomUUID(),
+        designId,
+        workspaceId,
+        number,
+        document: proof.design,
+        verdict: proof.verdict,
+        contentHash: contentHash(proof.design),
+        message: r.message,
+        authorId,
+        createdAt: new Date(now - 2 * day),
+      });
+    }
+    const draft = demoDocument(d.draft);
+    await db.insert(schema.designDraft).values({
+      designId,
+      workspaceId,
+      version: 1,
+      document: draft,
+      contentHash: contentHash(draft),
+      check: checkDraft(draft),
+      baseRevision: number,
+      updatedBy: authorId,
+      updatedAt: new Date(now - day),
+    });
+  }
+  return DEMO_DESIGNS.length;
+}
+
+/** For an installation seeded before designs existed: adds them to the demo workspace if it has none. */
+export async function seedDesignsOnly(databaseUrl: string, log: (s: string) => void = console.log) {
+  const pool = new pg.Pool({ connectionString: databaseUrl, max: 2 });
+  const db = drizzle(pool, { schema });
+  try {
+    const ws = await db.select({ id: schema.workspace.id }).from(schema.workspace).where(eq(schema.workspace.slug, DEMO_WORKSPACE.slug));
+    if (!ws[0]) return log(`no workspace "${DEMO_WORKSPACE.slug}"; nothing to do`);
+    const added = await db.transaction((tx) => seedDemoDesigns(tx, ws[0]!.id));
+    log(added ? `added ${added} demo designs` : "the demo workspace already has designs; nothing added");
   } finally {
     await pool.end();
   }
@@ -71,5 +175,6 @@ if (import.meta.url === `file://${process.argv[1]}`) {
     console.error("DATABASE_URL is not set");
     process.exit(2);
   }
-  await seed(url);
+  if (process.argv.includes("--designs")) await seedDesignsOnly(url);
+  else await seed(url);
 }

@@ -3,3 +3,4 @@ export * from "./schema/auth.server";
 export * from "./schema/workspace.server";
 export * from "./schema/mail.server";
 export * from "./schema/vehicle.server";
+export * from "./schema/design.server";

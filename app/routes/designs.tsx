@@ -1,25 +1,159 @@
+import { Form, Link, useSubmit } from "react-router";
 import type { Route } from "./+types/designs";
 import { requireMember } from "~/auth/guard.server";
 import { CAN } from "~/lib/roles";
+import { listDesigns } from "~/designs/designs.server";
+import { listVehicles } from "~/vehicles/vehicles.server";
+import { designFilterSchema, NO_VEHICLE } from "~/designs/forms";
+import { DESIGN_STATUSES, STATUS_LABELS, type DesignSummary } from "~/designs/types";
+import { HashPrefix, NotProven, StatusBadge, When } from "~/designs/design-bits";
+import { EDITOR_READY } from "~/designs/paths";
 import { PageHeader } from "~/components/page-header";
 import { EmptyState } from "~/components/empty-state";
+import { buttonClass } from "~/components/ui/form";
 
 export const meta: Route.MetaFunction = () => [{ title: "Designs · Chainproof" }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, params.ws, CAN.view);
-  return { canEdit: (CAN.editDesigns as readonly string[]).includes(m.role) };
+  const filter = designFilterSchema.parse(Object.fromEntries(new URL(request.url).searchParams));
+  const [designs, vehicles] = await Promise.all([listDesigns(m.workspace.id, filter), listVehicles(m.workspace.id)]);
+  return {
+    canEdit: (CAN.editDesigns as readonly string[]).includes(m.role),
+    filter,
+    designs,
+    vehicles: vehicles.map((v) => ({ id: v.id, name: v.name })),
+  };
 }
 
+const selectClass =
+  "mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2 text-base sm:text-sm focus:border-copper-500 focus:outline-none focus:ring-2 focus:ring-copper-500/40";
+
 export default function Designs({ loaderData }: Route.ComponentProps) {
+  const { canEdit, filter, designs, vehicles } = loaderData;
+  const submit = useSubmit();
+  const filtered = filter.vehicle !== undefined || filter.status !== undefined;
   return (
     <>
-      <PageHeader title="Designs" description="A design is one vehicle's drive-inhibit wiring with the safety rules it must keep." />
-      <EmptyState title="No designs yet">
-        {loaderData.canEdit
-          ? "Designs are drawn on the canvas, proven by the truth-table evaluator and saved as numbered revisions."
-          : "Engineers draw designs here; you will see them as soon as one is saved."}
-      </EmptyState>
+      <PageHeader
+        title="Designs"
+        description="A design is one vehicle's drive-inhibit wiring with the safety rules it must keep. Only proven designs are saved as revisions."
+        actions={
+          canEdit ? (
+            <Link to="new" className={buttonClass("primary")}>
+              New design
+            </Link>
+          ) : null
+        }
+      />
+
+      <Form method="get" className="mb-5 flex flex-wrap items-end gap-3" onChange={(e) => submit(e.currentTarget)} aria-label="Filter designs">
+        <div className="min-w-48">
+          <label htmlFor="filter-vehicle" className="block text-sm font-medium text-ink-700">
+            Vehicle
+          </label>
+          <select id="filter-vehicle" name="vehicle" defaultValue={filter.vehicle ?? ""} className={selectClass} key={`v-${filter.vehicle ?? ""}`}>
+            <option value="">All vehicles</option>
+            {vehicles.map((v) => (
+              <option key={v.id} value={v.id}>
+                {v.name}
+              </option>
+            ))}
+            <option value={NO_VEHICLE}>No vehicle</option>
+          </select>
+        </div>
+        <div className="min-w-36">
+          <label htmlFor="filter-status" className="block text-sm font-medium text-ink-700">
+            Status
+          </label>
+          <select id="filter-status" name="status" defaultValue={filter.status ?? ""} className={selectClass} key={`s-${filter.status ?? ""}`}>
+            <option value="">Any status</option>
+            {DESIGN_STATUSES.map((s) => (
+              <option key={s} value={s}>
+                {STATUS_LABELS[s]}
+              </option>
+            ))}
+          </select>
+        </div>
+        <noscript>
+          <button type="submit" className={buttonClass("secondary")}>
+            Apply
+          </button>
+        </noscript>
+        {filtered ? (
+          <Link to="." className="min-h-10 py-2 text-sm font-semibold text-copper-700 underline">
+            Clear filters
+          </Link>
+        ) : null}
+      </Form>
+
+      {designs.length === 0 ? (
+        filtered ? (
+          <EmptyState title="No design matches these filters">Choose another vehicle or status, or clear the filters.</EmptyState>
+        ) : (
+          <EmptyState
+            title="No designs yet"
+            action={
+              canEdit ? (
+                <Link to="new" className={buttonClass("primary")}>
+                  Start a design
+                </Link>
+              ) : null
+            }
+          >
+            {canEdit
+              ? "Draw the wiring on the canvas, prove it with the truth-table engine and save it as revision 1."
+              : "Engineers draw designs here; you will see them as soon as one is started."}
+          </EmptyState>
+        )
+      ) : (
+        <ul className="space-y-3" aria-label="Designs">
+          {designs.map((d) => (
+            <DesignRow key={d.id} d={d} canEdit={canEdit} />
+          ))}
+        </ul>
+      )}
     </>
+  );
+}
+
+function DesignRow({ d, canEdit }: { d: DesignSummary; canEdit: boolean }) {
+  const rev = d.latestRevision;
+  return (
+    <li className="rounded-lg border border-ink-200 bg-white p-4">
+      <div className="flex flex-wrap items-start justify-between gap-3">
+        <div className="min-w-0">
+          <Link to={d.id} className="text-base font-semibold text-ink-900 hover:text-copper-700 hover:underline">
+            {d.name}
+          </Link>
+          <p className="text-sm text-ink-600">{d.vehicleName ?? "No vehicle"}</p>
+        </div>
+        <div className="flex items-center gap-2">
+          <StatusBadge status={d.status} />
+          {EDITOR_READY ? (
+            <Link to={`${d.id}/edit`} className={buttonClass("secondary", "min-h-9 px-3 py-1.5")}>
+              {canEdit ? "Edit" : "View canvas"}
+            </Link>
+          ) : null}
+        </div>
+      </div>
+      <div className="mt-3 flex flex-wrap items-center gap-x-5 gap-y-2 text-sm">
+        {rev ? (
+          <span className="text-ink-700">
+            <span className="font-semibold">Revision {rev.number}</span> · <span className="text-moss-700">
+              proven, {rev.rules === 0 ? "no rules yet" : rev.rules === 1 ? "1 rule holds" : `${rev.rules} rules hold`}
+            </span>
+            {rev.singleFaults > 0
+              ? ` · ${rev.singleFaults} single ${rev.singleFaults === 1 ? "fault defeats a rule" : "faults defeat rules"}`
+              : " · no single fault defeats a rule"}{" "}
+            ·{" "}
+            <HashPrefix hash={rev.contentHash} /> · <When iso={rev.createdAt} />
+          </span>
+        ) : (
+          <span className="text-ink-600">No revision yet</span>
+        )}
+        {d.draft?.changed ? <NotProven check={d.draft.check} /> : null}
+      </div>
+    </li>
   );
 }

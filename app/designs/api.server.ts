@@ -1,0 +1,122 @@
+// Plumbing of the JSON API (/api/v1): the error shape, reading a JSON body safely, and a wrapper
+// that turns anything unexpected into a JSON 500 instead of an HTML page.
+import type { z } from "zod";
+import { formatPath } from "~/engine";
+import type { ApiErrorBody, FieldProblem } from "./types";
+
+export function apiError(
+  status: number,
+  code: string,
+  message: string,
+  fields: FieldProblem[] = [],
+  extra: Record<string, unknown> = {},
+): Response {
+  const body: ApiErrorBody & Record<string, unknown> = { error: { code, message, fields }, ...extra };
+  return Response.json(body, { status });
+}
+
+export function zodFields(error: z.ZodError): FieldProblem[] {
+  return error.issues.map((i) => ({ path: formatPath(i.path), message: i.message }));
+}
+
+/** Runs an API handler; a thrown Response is the answer, anything else becomes a JSON 500. */
+export async function handleApi(run: () => Promise<Response>): Promise<Response> {
+  try {
+    return await run();
+  } catch (e) {
+    if (e instanceof Response) return e;
+    console.error("design API:", e);
+    return apiError(500, "internal", "The server could not complete this request. Nothing was saved; try again.");
+  }
+}
+
+export function requireMethod(request: Request, ...allowed: string[]): void {
+  if (!allowed.includes(request.method)) {
+    throw new Response(
+      JSON.stringify({ error: { code: "method_not_allowed", message: `Use ${allowed.join(" or ")} here.`, fields: [] } }),
+      { status: 405, headers: { "content-type": "application/json", allow: allowed.join(", ") } },
+    );
+  }
+}
+
+/**
+ * Reads the request body as JSON, at most maxBytes. Throws a JSON error Response (415, 413 or 400)
+ * for a body that is not JSON, too large, not UTF-8 or malformed.
+ */
+export async function readJsonBody(request: Request, maxBytes: number): Promise<unknown> {
+  const type = (request.headers.get("content-type") ?? "").split(";")[0]!.trim().toLowerCase();
+  // JSON only: a cross-site HTML form cannot send this content type, which keeps these endpoints out of reach of forged forms.
+  if (type !== "application/json" && !type.endsWith("+json")) {
+    throw apiError(415, "unsupported_media_type", 'Send the body as JSON with the header "Content-Type: application/json".');
+  }
+  const tooLarge = () => apiError(413, "too_large", `The request body is larger than ${maxBytes.toLocaleString("en-US")} bytes.`);
+  const declared = Number(request.headers.get("content-length"));
+  if (Number.isFinite(declared) && declared > maxBytes) throw tooLarge();
+  const bytes = new Uint8Array(await readLimited(request, maxBytes, tooLarge));
+  let text: string;
+  try {
+    text = new TextDecoder("utf-8", { fatal: true }).decode(bytes);
+  } catch {
+    throw apiError(400, "invalid_json", "The request body is not valid UTF-8 text.");
+  }
+  if (text.trim() === "") throw apiError(400, "invalid_json", "The request body is empty; send a JSON object.");
+  try {
+    return JSON.parse(text);
+  } catch (e) {
+    const detail = e instanceof Error ? e.message : "parse error";
+    throw apiError(400, "invalid_json", `The request body is not valid JSON (${detail}).`);
+  }
+}
+
+async function readLimited(request: Request, maxBytes: number, tooLarge: () => Response): Promise<ArrayBuffer> {
+  if (!request.body) return new ArrayBuffer(0);
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > maxBytes) {
+      await reader.cancel().catch(() => {});
+      throw tooLarge();
+    }
+    chunks.push(value);
+  }
+  const out = new Uint8Array(total);
+  let at = 0;
+  for (const c of chunks) {
+    out.set(c, at);
+    at += c.byteLength;
+  }
+  return out.buffer;
+}
+
+const MAX_DEPTH = 64;
+const LONE_SURROGATE = /[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/;
+
+/**
+ * Whether a parsed JSON value can be stored in a jsonb column as it is: PostgreSQL refuses the NUL
+ * character and unpaired surrogates in text, and very deep nesting is refused here as well.
+ * Returns the first problem, its path starting at `root`.
+ */
+export function storableJsonProblem(value: unknown, root: string): FieldProblem | null {
+  const stack: Array<{ v: unknown; path: string; depth: number }> = [{ v: value, path: root, depth: 0 }];
+  const badText = (s: string) => s.includes("\u0000") || LONE_SURROGATE.test(s);
+  while (stack.length > 0) {
+    const { v, path, depth } = stack.pop()!;
+    if (depth > MAX_DEPTH) return { path, message: `nesting deeper than ${MAX_DEPTH} levels` };
+    if (typeof v === "string") {
+      if (badText(v)) return { path, message: "text with a NUL character or a broken surrogate pair" };
+    } else if (Array.isArray(v)) {
+      v.forEach((x, i) => stack.push({ v: x, path: `${path}[${i}]`, depth: depth + 1 }));
+    } else if (v !== null && typeof v === "object") {
+      for (const [k, x] of Object.entries(v)) {
+        const p = path ? `${path}.${k}` : k;
+        if (badText(k)) return { path: p, message: "a key with a NUL character or a broken surrogate pair" };
+        stack.push({ v: x, path: p, depth: depth + 1 });
+      }
+    }
+  }
+  return null;
+}

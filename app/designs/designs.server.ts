@@ -1,0 +1,344 @@
+// Designs, their revisions and drafts. Every query is scoped by workspace id; the engine does all
+// checking and proving (validateDesign, prove), this module only stores what it says.
+import { and, asc, desc, eq, isNull, sql } from "drizzle-orm";
+import { db, schema } from "~/db/client.server";
+import type { DesignRecord } from "~/db/schema.server";
+import { requireMember, requireUser, type Membership } from "~/auth/guard.server";
+import { recordAudit } from "~/audit/audit.server";
+import { getVehicle } from "~/vehicles/vehicles.server";
+import type { Design, Verdict } from "~/engine";
+import type { Role } from "~/lib/roles";
+import { apiError } from "./api.server";
+import { contentHash } from "./content-hash.server";
+import { startingDocument } from "./templates.server";
+import { NO_VEHICLE, type CreateDesignInput, type DesignFilter } from "./forms";
+import { checkDraft } from "./proof";
+import type { DesignStatus, DesignSummary } from "./types";
+
+const { design, designRevision, designDraft, vehicle, user, workspace } = schema;
+
+export function statusOf(latestRevision: number | null | undefined): DesignStatus {
+  return latestRevision ? "proven" : "draft";
+}
+
+// ---------------------------------------------------------------- access
+
+/**
+ * The design named in an API URL, for a member of its workspace with one of the allowed roles.
+ * Signed out: 401. No such design, or not a member of its workspace: 404. Wrong role: 403.
+ */
+export async function requireDesign(
+  request: Request,
+  designId: string,
+  allowed: readonly Role[],
+): Promise<{ member: Membership; design: DesignRecord }> {
+  await requireUser(request, "api");
+  const notFound = apiError(404, "not_found", "No such design.");
+  // The one lookup by id alone: it finds the workspace whose membership is then required.
+  const rows = await db
+    .select({ design, slug: workspace.slug })
+    .from(design)
+    .innerJoin(workspace, eq(design.workspaceId, workspace.id))
+    .where(eq(design.id, designId))
+    .limit(1);
+  const row = rows[0];
+  if (!row) throw notFound;
+  try {
+    const member = await requireMember(request, row.slug, allowed, "api");
+    return { member, design: row.design };
+  } catch (e) {
+    if (e instanceof Response && e.status === 404) throw notFound;
+    throw e;
+  }
+}
+
+export async function getDesign(workspaceId: string, designId: string) {
+  const rows = await db
+    .select({ design, vehicleName: vehicle.name })
+    .from(design)
+    .leftJoin(vehicle, and(eq(vehicle.id, design.vehicleId), eq(vehicle.workspaceId, design.workspaceId)))
+    .where(and(eq(design.id, designId), eq(design.workspaceId, workspaceId)))
+    .limit(1);
+  const row = rows[0];
+  return row ? { ...row.design, vehicleName: row.vehicleName } : null;
+}
+
+// ---------------------------------------------------------------- listing
+
+export async function listDesigns(workspaceId: string, filter: DesignFilter = {}): Promise<DesignSummary[]> {
+  const vehicleCond =
+    filter.vehicle === undefined ? undefined : filter.vehicle === NO_VEHICLE ? isNull(design.vehicleId) : eq(design.vehicleId, filter.vehicle);
+  const [designs, latest, drafts] = await Promise.all([
+    db
+      .select({ id: design.id, name: design.name, vehicleId: design.vehicleId, vehicleName: vehicle.name, createdAt: design.createdAt })
+      .from(design)
+      .leftJoin(vehicle, and(eq(vehicle.id, design.vehicleId), eq(vehicle.workspaceId, design.workspaceId)))
+      .where(and(eq(design.workspaceId, workspaceId), vehicleCond))
+      .orderBy(asc(design.name), asc(design.createdAt)),
+    db
+      .selectDistinctOn([designRevision.designId], {
+        designId: designRevision.designId,
+        number: designRevision.number,
+        contentHash: designRevision.contentHash,
+        createdAt: designRevision.createdAt,
+        authorName: user.name,
+        rules: sql<number>`jsonb_array_length(${designRevision.verdict}->'rules')`,
+        singleFaults: sql<number>`jsonb_array_length(${designRevision.verdict}->'singleFaults')`,
+      })
+      .from(designRevision)
+      .innerJoin(user, eq(user.id, designRevision.authorId))
+      .where(eq(designRevision.workspaceId, workspaceId))
+      .orderBy(designRevision.designId, desc(designRevision.number)),
+    db
+      .select({
+        designId: designDraft.designId,
+        version: designDraft.version,
+        baseRevision: designDraft.baseRevision,
+        updatedAt: designDraft.updatedAt,
+        contentHash: designDraft.contentHash,
+        check: designDraft.check,
+      })
+      .from(designDraft)
+      .where(eq(designDraft.workspaceId, workspaceId)),
+  ]);
+  const latestOf = new Map(latest.map((r) => [r.designId, r]));
+  const draftOf = new Map(drafts.map((r) => [r.designId, r]));
+  const out: DesignSummary[] = designs.map((d) => {
+    const rev = latestOf.get(d.id);
+    const draft = draftOf.get(d.id);
+    return {
+      id: d.id,
+      name: d.name,
+      vehicleId: d.vehicleId,
+      vehicleName: d.vehicleName,
+      status: statusOf(rev?.number),
+      createdAt: d.createdAt.toISOString(),
+      latestRevision: rev
+        ? {
+            number: rev.number,
+            contentHash: rev.contentHash,
+            createdAt: rev.createdAt.toISOString(),
+            authorName: rev.authorName,
+            rules: rev.rules,
+            singleFaults: rev.singleFaults,
+          }
+        : null,
+      draft: draft
+        ? {
+            version: draft.version,
+            baseRevision: draft.baseRevision,
+            updatedAt: draft.updatedAt.toISOString(),
+            changed: !rev || rev.contentHash !== draft.contentHash,
+            check: draft.check,
+          }
+        : null,
+    };
+  });
+  return filter.status ? out.filter((d) => d.status === filter.status) : out;
+}
+
+// ---------------------------------------------------------------- creating
+
+export type CreateOutcome = { ok: true; id: string; draftVersion: number } | { ok: false; fields: Record<string, string> };
+
+export async function createDesign(workspaceId: string, actorId: string, input: CreateDesignInput): Promise<CreateOutcome> {
+  if (input.vehicleId && !(await getVehicle(workspaceId, input.vehicleId))) {
+    return { ok: false, fields: { vehicleId: "Choose a vehicle of this workspace." } };
+  }
+  const document = startingDocument(input.start, input.name);
+  const id = crypto.randomUUID();
+  await db.transaction(async (tx) => {
+    await tx.insert(design).values({ id, workspaceId, vehicleId: input.vehicleId, name: input.name, createdBy: actorId });
+    await tx.insert(designDraft).values({
+      designId: id,
+      workspaceId,
+      version: 1,
+      document,
+      contentHash: contentHash(document),
+      check: checkDraft(document),
+      baseRevision: 0,
+      updatedBy: actorId,
+    });
+    await recordAudit({ workspaceId, actorId, action: "design.created", subject: input.name, detail: { designId: id, start: input.start } }, tx);
+  });
+  return { ok: true, id, draftVersion: 1 };
+}
+
+// ---------------------------------------------------------------- revisions
+
+export type SaveRevisionOutcome =
+  | { kind: "saved"; number: number; contentHash: string }
+  | { kind: "stale"; latestRevision: number }
+  | { kind: "missing" };
+
+function isUniqueViolation(e: unknown): boolean {
+  const code = (x: unknown) => (x && typeof x === "object" && "code" in x ? (x as { code: unknown }).code : undefined);
+  return code(e) === "23505" || code((e as { cause?: unknown } | null)?.cause) === "23505";
+}
+
+async function latestNumber(workspaceId: string, designId: string, executor: Pick<typeof db, "select"> = db): Promise<number> {
+  const rows = await executor
+    .select({ n: sql<number>`coalesce(max(${designRevision.number}), 0)::int` })
+    .from(designRevision)
+    .where(and(eq(designRevision.designId, designId), eq(designRevision.workspaceId, workspaceId)));
+  return rows[0]?.n ?? 0;
+}
+
+/**
+ * Saves a proven document as the next revision, when baseRevision is still the latest number.
+ * One transaction: the design row is locked (FOR UPDATE) so concurrent saves queue up and all but
+ * the first see a newer latest number; the unique (design_id, number) index backs this up.
+ */
+export async function saveRevision(
+  workspaceId: string,
+  designId: string,
+  actorId: string,
+  input: { design: Design; verdict: Verdict; baseRevision: number; message: string },
+): Promise<SaveRevisionOutcome> {
+  const hash = contentHash(input.design);
+  try {
+    return await db.transaction(async (tx) => {
+      const locked = await tx
+        .select({ id: design.id, name: design.name })
+        .from(design)
+        .where(and(eq(design.id, designId), eq(design.workspaceId, workspaceId)))
+        .for("update");
+      if (!locked[0]) return { kind: "missing" } as const;
+      const latest = await latestNumber(workspaceId, designId, tx);
+      if (latest !== input.baseRevision) return { kind: "stale", latestRevision: latest } as const;
+      const number = latest + 1;
+      await tx.insert(designRevision).values({
+        id: crypto.randomUUID(),
+        designId,
+        workspaceId,
+        number,
+        document: input.design,
+        verdict: input.verdict,
+        contentHash: hash,
+        message: input.message,
+        authorId: actorId,
+      });
+      // The working copy now builds on the new revision.
+      await tx
+        .update(designDraft)
+        .set({ baseRevision: number })
+        .where(and(eq(designDraft.designId, designId), eq(designDraft.workspaceId, workspaceId)));
+      await recordAudit(
+        { workspaceId, actorId, action: "design.revision-saved", subject: locked[0].name, detail: { designId, number, contentHash: hash } },
+        tx,
+      );
+      return { kind: "saved", number, contentHash: hash } as const;
+    });
+  } catch (e) {
+    if (isUniqueViolation(e)) return { kind: "stale", latestRevision: await latestNumber(workspaceId, designId) };
+    throw e;
+  }
+}
+
+export async function listRevisions(workspaceId: string, designId: string) {
+  return db
+    .select({
+      number: designRevision.number,
+      contentHash: designRevision.contentHash,
+      message: designRevision.message,
+      createdAt: designRevision.createdAt,
+      authorId: designRevision.authorId,
+      authorName: user.name,
+      singleFaults: sql<number>`jsonb_array_length(${designRevision.verdict}->'singleFaults')`,
+    })
+    .from(designRevision)
+    .innerJoin(user, eq(user.id, designRevision.authorId))
+    .where(and(eq(designRevision.designId, designId), eq(designRevision.workspaceId, workspaceId)))
+    .orderBy(desc(designRevision.number));
+}
+
+/** One revision with its document and verdict; the latest when number is omitted. */
+export async function getRevision(workspaceId: string, designId: string, number?: number) {
+  const rows = await db
+    .select({ revision: designRevision, authorName: user.name })
+    .from(designRevision)
+    .innerJoin(user, eq(user.id, designRevision.authorId))
+    .where(
+      and(
+        eq(designRevision.designId, designId),
+        eq(designRevision.workspaceId, workspaceId),
+        number === undefined ? undefined : eq(designRevision.number, number),
+      ),
+    )
+    .orderBy(desc(designRevision.number))
+    .limit(1);
+  const row = rows[0];
+  return row ? { ...row.revision, authorName: row.authorName } : null;
+}
+
+// ---------------------------------------------------------------- drafts
+
+export async function getDraft(workspaceId: string, designId: string) {
+  const rows = await db
+    .select({ draft: designDraft, updatedByName: user.name })
+    .from(designDraft)
+    .innerJoin(user, eq(user.id, designDraft.updatedBy))
+    .where(and(eq(designDraft.designId, designId), eq(designDraft.workspaceId, workspaceId)))
+    .limit(1);
+  const row = rows[0];
+  return row ? { ...row.draft, updatedByName: row.updatedByName } : null;
+}
+
+export type SaveDraftOutcome = { ok: true; version: number } | { ok: false; currentVersion: number };
+
+/**
+ * Replaces the draft when `version` is the current one (0: there is no draft yet) and bumps the
+ * version; otherwise reports the current version. One conditional statement, so two writers with
+ * the same version cannot both win.
+ */
+export async function saveDraft(
+  workspaceId: string,
+  designId: string,
+  actorId: string,
+  input: { document: Record<string, unknown>; version: number; baseRevision?: number },
+): Promise<SaveDraftOutcome> {
+  const values = {
+    document: input.document,
+    contentHash: contentHash(input.document),
+    check: checkDraft(input.document),
+    updatedBy: actorId,
+    updatedAt: new Date(),
+    ...(input.baseRevision === undefined ? {} : { baseRevision: input.baseRevision }),
+  };
+  const written =
+    input.version === 0
+      ? await db
+          .insert(designDraft)
+          .values({ designId, workspaceId, version: 1, ...values })
+          .onConflictDoNothing()
+          .returning({ version: designDraft.version })
+      : await db
+          .update(designDraft)
+          .set({ ...values, version: sql`${designDraft.version} + 1` })
+          .where(and(eq(designDraft.designId, designId), eq(designDraft.workspaceId, workspaceId), eq(designDraft.version, input.version)))
+          .returning({ version: designDraft.version });
+  if (written[0]) return { ok: true, version: written[0].version };
+  const current = await db
+    .select({ version: designDraft.version })
+    .from(designDraft)
+    .where(and(eq(designDraft.designId, designId), eq(designDraft.workspaceId, workspaceId)));
+  return { ok: false, currentVersion: current[0]?.version ?? 0 };
+}
+
+// ---------------------------------------------------------------- what the editor opens
+
+/**
+ * The document the editor opens: the draft, unless the latest revision is newer than the draft's
+ * last save (then the revision, whose number becomes the base). See docs/decisions/031.
+ */
+export function editorStart(
+  draft: { version: number; baseRevision: number; document: unknown; updatedAt: Date } | null,
+  latest: { number: number; document: unknown; createdAt: Date } | null,
+): { document: unknown; draftVersion: number; baseRevision: number; source: "draft" | "revision" | "none" } {
+  const draftVersion = draft?.version ?? 0;
+  if (draft && (!latest || draft.updatedAt > latest.createdAt)) {
+    return { document: draft.document, draftVersion, baseRevision: draft.baseRevision, source: "draft" };
+  }
+  if (latest) return { document: latest.document, draftVersion, baseRevision: latest.number, source: "revision" };
+  return { document: null, draftVersion, baseRevision: 0, source: "none" };
+}

@@ -1,0 +1,54 @@
+// GET /api/v1/designs/:designId/draft -> { draft: { version, baseRevision, updatedAt, updatedBy, document, check } | null }
+// PUT /api/v1/designs/:designId/draft { document, version, baseRevision? }
+//   200 { version }   409 { error: { code: "stale_draft", ... }, currentVersion }
+// The draft is the working copy: any JSON object (at most DESIGN_BODY_MAX_BYTES), not proven.
+import type { Route } from "./+types/design-draft";
+import { CAN } from "~/lib/roles";
+import { apiError, handleApi, readJsonBody, requireMethod, storableJsonProblem, zodFields } from "~/designs/api.server";
+import { getDraft, requireDesign, saveDraft } from "~/designs/designs.server";
+import { jsonObjectSchema, saveDraftBodySchema } from "~/designs/forms";
+import { DESIGN_BODY_MAX_BYTES } from "~/designs/types";
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  return handleApi(async () => {
+    const { member, design } = await requireDesign(request, params.designId, CAN.view);
+    const d = await getDraft(member.workspace.id, design.id);
+    return Response.json({
+      draft: d
+        ? {
+            version: d.version,
+            baseRevision: d.baseRevision,
+            updatedAt: d.updatedAt.toISOString(),
+            updatedBy: { id: d.updatedBy, name: d.updatedByName },
+            contentHash: d.contentHash,
+            check: d.check,
+            document: d.document,
+          }
+        : null,
+    });
+  });
+}
+
+export async function action({ request, params }: Route.ActionArgs) {
+  return handleApi(async () => {
+    requireMethod(request, "PUT");
+    const { member, design } = await requireDesign(request, params.designId, CAN.editDesigns);
+    const raw = jsonObjectSchema.safeParse(await readJsonBody(request, DESIGN_BODY_MAX_BYTES));
+    if (!raw.success) return apiError(400, "invalid_body", "The request body is a JSON object.", zodFields(raw.error));
+    const body = saveDraftBodySchema.safeParse(raw.data);
+    if (!body.success) return apiError(400, "invalid_body", "The draft request is incomplete.", zodFields(body.error));
+    const unstorable = storableJsonProblem(body.data.document, "document");
+    if (unstorable) return apiError(400, "invalid_body", "The draft holds something that cannot be stored.", [unstorable]);
+    const saved = await saveDraft(member.workspace.id, design.id, member.user.id, body.data);
+    if (!saved.ok) {
+      return apiError(
+        409,
+        "stale_draft",
+        `The draft was saved elsewhere since version ${body.data.version}; it is now at version ${saved.currentVersion}. Reload it before saving again.`,
+        [],
+        { currentVersion: saved.currentVersion },
+      );
+    }
+    return Response.json({ version: saved.version });
+  });
+}

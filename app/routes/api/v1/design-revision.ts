@@ -1,0 +1,25 @@
+// GET /api/v1/designs/:designId/revisions/:number -> { revision: { number, contentHash, message, author, createdAt, document, verdict } }
+import type { Route } from "./+types/design-revision";
+import { CAN } from "~/lib/roles";
+import { apiError, handleApi } from "~/designs/api.server";
+import { getRevision, requireDesign } from "~/designs/designs.server";
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  return handleApi(async () => {
+    const { member, design } = await requireDesign(request, params.designId, CAN.view);
+    const number = /^[1-9][0-9]{0,8}$/.test(params.number) ? Number(params.number) : null;
+    const r = number === null ? null : await getRevision(member.workspace.id, design.id, number);
+    if (!r) return apiError(404, "not_found", `This design has no revision ${params.number}.`);
+    return Response.json({
+      revision: {
+        number: r.number,
+        contentHash: r.contentHash,
+        message: r.message,
+        author: { id: r.authorId, name: r.authorName },
+        createdAt: r.createdAt.toISOString(),
+        document: r.document,
+        verdict: r.verdict,
+      },
+    });
+  });
+}

@@ -1,0 +1,79 @@
+// GET  /api/v1/designs/:designId/revisions -> { revisions: [{ number, contentHash, message, author, createdAt, singleFaults }] }
+// POST /api/v1/designs/:designId/revisions { document, baseRevision, message? }
+//   201 { revision: { number, contentHash, verdict } }
+//   400 { error: { code: "invalid_design" | "invalid_body" | "invalid_json", message, fields } }
+//   409 { error: { code: "stale_revision", ... }, latestRevision }
+//   422 { error: { code: "rules_fail", ... }, verdict }
+import type { Route } from "./+types/design-revisions";
+import { CAN } from "~/lib/roles";
+import { apiError, handleApi, readJsonBody, requireMethod, storableJsonProblem, zodFields } from "~/designs/api.server";
+import { listRevisions, requireDesign, saveRevision } from "~/designs/designs.server";
+import { proveDocument } from "~/designs/proof";
+import { jsonObjectSchema, saveRevisionBodySchema } from "~/designs/forms";
+import { DESIGN_BODY_MAX_BYTES } from "~/designs/types";
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  return handleApi(async () => {
+    const { member, design } = await requireDesign(request, params.designId, CAN.view);
+    const rows = await listRevisions(member.workspace.id, design.id);
+    return Response.json({
+      revisions: rows.map((r) => ({
+        number: r.number,
+        contentHash: r.contentHash,
+        message: r.message,
+        author: { id: r.authorId, name: r.authorName },
+        createdAt: r.createdAt.toISOString(),
+        singleFaults: r.singleFaults,
+      })),
+    });
+  });
+}
+
+export async function action({ request, params }: Route.ActionArgs) {
+  return handleApi(async () => {
+    requireMethod(request, "POST");
+    const { member, design } = await requireDesign(request, params.designId, CAN.editDesigns);
+    const raw = jsonObjectSchema.safeParse(await readJsonBody(request, DESIGN_BODY_MAX_BYTES));
+    if (!raw.success) return apiError(400, "invalid_body", "The request body is a JSON object.", zodFields(raw.error));
+    const body = saveRevisionBodySchema.safeParse(raw.data);
+    if (!body.success) return apiError(400, "invalid_body", "The revision request is incomplete.", zodFields(body.error));
+    const { document, baseRevision, message } = body.data;
+
+    // Before the engine: text jsonb cannot store (NUL, broken surrogates) and nesting too deep to walk.
+    const unstorable = storableJsonProblem(document, "");
+    if (unstorable) return apiError(400, "invalid_design", "The design holds something that cannot be stored; nothing was saved.", [unstorable]);
+    const proof = proveDocument(document);
+    if (!proof.ok) {
+      const n = proof.problems.length;
+      return apiError(400, "invalid_design", `The design breaks the format in ${n} ${n === 1 ? "place" : "places"}; nothing was saved.`, proof.problems);
+    }
+    if (!proof.verdict.ok) {
+      const failing = proof.verdict.rules.filter((r) => !r.holds).map((r) => r.id);
+      return apiError(
+        422,
+        "rules_fail",
+        `${failing.length} of ${proof.verdict.rules.length} rules fail (${failing.join(", ")}); only proven designs are saved as revisions.`,
+        [],
+        { verdict: proof.verdict },
+      );
+    }
+
+    const saved = await saveRevision(member.workspace.id, design.id, member.user.id, {
+      design: proof.design,
+      verdict: proof.verdict,
+      baseRevision,
+      message,
+    });
+    if (saved.kind === "missing") return apiError(404, "not_found", "No such design.");
+    if (saved.kind === "stale") {
+      return apiError(
+        409,
+        "stale_revision",
+        `This change starts from revision ${baseRevision}, but the latest revision is ${saved.latestRevision}. Load the latest revision and apply the change to it.`,
+        [],
+        { latestRevision: saved.latestRevision },
+      );
+    }
+    return Response.json({ revision: { number: saved.number, contentHash: saved.contentHash, verdict: proof.verdict } }, { status: 201 });
+  });
+}

@@ -1,0 +1,30 @@
+// GET /api/v1/designs/:designId -> { design: { id, name, vehicleId, status }, latestRevision, contentHash, document, verdict, draft }
+// document, verdict and contentHash are the latest revision's (null when there is none yet).
+import type { Route } from "./+types/design";
+import { CAN } from "~/lib/roles";
+import { handleApi } from "~/designs/api.server";
+import { getDraft, getRevision, requireDesign, statusOf } from "~/designs/designs.server";
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  return handleApi(async () => {
+    const { member, design } = await requireDesign(request, params.designId, CAN.view);
+    const ws = member.workspace.id;
+    const [latest, draft] = await Promise.all([getRevision(ws, design.id), getDraft(ws, design.id)]);
+    return Response.json({
+      design: { id: design.id, name: design.name, vehicleId: design.vehicleId, status: statusOf(latest?.number) },
+      latestRevision: latest?.number ?? null,
+      contentHash: latest?.contentHash ?? null,
+      document: latest?.document ?? null,
+      verdict: latest?.verdict ?? null,
+      draft: draft
+        ? {
+            version: draft.version,
+            baseRevision: draft.baseRevision,
+            updatedAt: draft.updatedAt.toISOString(),
+            changed: !latest || latest.contentHash !== draft.contentHash,
+            check: draft.check,
+          }
+        : null,
+    });
+  });
+}

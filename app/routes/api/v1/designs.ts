@@ -1,0 +1,45 @@
+// GET  /api/v1/designs?workspace=SLUG[&vehicle=ID|none][&status=draft|proven]  -> { designs: DesignSummary[] }
+// POST /api/v1/designs?workspace=SLUG  { name, vehicleId?, start? }           -> 201 { design, draft: { version } }
+import type { Route } from "./+types/designs";
+import { requireMember } from "~/auth/guard.server";
+import { CAN } from "~/lib/roles";
+import { apiError, handleApi, readJsonBody, requireMethod, zodFields } from "~/designs/api.server";
+import { createDesign, listDesigns } from "~/designs/designs.server";
+import { createDesignBodySchema, designFilterSchema } from "~/designs/forms";
+import { DESIGN_BODY_MAX_BYTES } from "~/designs/types";
+
+function workspaceOf(request: Request): string {
+  const slug = new URL(request.url).searchParams.get("workspace");
+  if (!slug) throw apiError(400, "invalid_query", "Name the workspace: ?workspace=SLUG.", [{ path: "workspace", message: "required" }]);
+  return slug;
+}
+
+export async function loader({ request }: Route.LoaderArgs) {
+  return handleApi(async () => {
+    const m = await requireMember(request, workspaceOf(request), CAN.view, "api");
+    const params = Object.fromEntries(new URL(request.url).searchParams);
+    const filter = designFilterSchema.parse(params);
+    return Response.json({ designs: await listDesigns(m.workspace.id, filter) });
+  });
+}
+
+export async function action({ request }: Route.ActionArgs) {
+  return handleApi(async () => {
+    requireMethod(request, "POST");
+    const m = await requireMember(request, workspaceOf(request), CAN.editDesigns, "api");
+    const body = createDesignBodySchema.safeParse(await readJsonBody(request, DESIGN_BODY_MAX_BYTES));
+    if (!body.success) return apiError(400, "invalid_body", "The new design is incomplete.", zodFields(body.error));
+    const created = await createDesign(m.workspace.id, m.user.id, body.data);
+    if (!created.ok) {
+      const fields = Object.entries(created.fields).map(([path, message]) => ({ path, message }));
+      return apiError(400, "invalid_body", "The new design is incomplete.", fields);
+    }
+    return Response.json(
+      {
+        design: { id: created.id, name: body.data.name, vehicleId: body.data.vehicleId, status: "draft" },
+        draft: { version: created.draftVersion },
+      },
+      { status: 201 },
+    );
+  });
+}

@@ -1,0 +1,272 @@
+import { Link } from "react-router";
+import type { Route } from "./+types/design";
+import { requireMember } from "~/auth/guard.server";
+import { CAN } from "~/lib/roles";
+import { getDesign, getDraft, getRevision, listRevisions, statusOf } from "~/designs/designs.server";
+import { designsPath, editorPath, EDITOR_READY } from "~/designs/paths";
+import { HashPrefix, Holds, NotProven, Section, StatusBadge, When } from "~/designs/design-bits";
+import { proveDocument } from "~/designs/proof";
+import type { Verdict } from "~/designs/types";
+import { PageHeader } from "~/components/page-header";
+import { SafetyNote } from "~/components/safety-note";
+import { buttonClass } from "~/components/ui/form";
+
+type Labelled = { id?: unknown; label?: unknown };
+
+/** id -> label of a list in a stored document (rules or components), for readable verdicts. */
+function labels(document: unknown, key: "rules" | "components"): Record<string, string> {
+  const list = (document as Record<string, unknown> | null)?.[key];
+  const out: Record<string, string> = {};
+  if (Array.isArray(list)) {
+    for (const item of list as Labelled[]) {
+      if (typeof item?.id === "string") out[item.id] = typeof item.label === "string" && item.label ? item.label : item.id;
+    }
+  }
+  return out;
+}
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const m = await requireMember(request, params.ws, CAN.view);
+  const d = await getDesign(m.workspace.id, params.designId);
+  if (!d) throw new Response("Not found", { status: 404 });
+  const [latest, draft, history] = await Promise.all([
+    getRevision(m.workspace.id, d.id),
+    getDraft(m.workspace.id, d.id),
+    listRevisions(m.workspace.id, d.id),
+  ]);
+  // Which rules the draft breaks, when its stored check says some do (small tables only, see decision 031).
+  let draftFailing: string[] = [];
+  if (draft?.check.state === "checked" && !draft.check.ok) {
+    const proof = proveDocument(draft.document);
+    if (proof.ok) {
+      const names = labels(draft.document, "rules");
+      draftFailing = proof.verdict.rules.filter((r) => !r.holds).map((r) => names[r.id] ?? r.id);
+    }
+  }
+  return {
+    canEdit: (CAN.editDesigns as readonly string[]).includes(m.role),
+    slug: m.workspace.slug,
+    design: { id: d.id, name: d.name, vehicleId: d.vehicleId, vehicleName: d.vehicleName, status: statusOf(latest?.number) },
+    latest: latest
+      ? {
+          number: latest.number,
+          contentHash: latest.contentHash,
+          message: latest.message,
+          authorName: latest.authorName,
+          createdAt: latest.createdAt.toISOString(),
+          verdict: latest.verdict,
+          ruleLabels: labels(latest.document, "rules"),
+          componentLabels: labels(latest.document, "components"),
+        }
+      : null,
+    draft: draft
+      ? {
+          version: draft.version,
+          baseRevision: draft.baseRevision,
+          updatedAt: draft.updatedAt.toISOString(),
+          updatedByName: draft.updatedByName,
+          check: draft.check,
+          changed: !latest || latest.contentHash !== draft.contentHash,
+          failing: draftFailing,
+        }
+      : null,
+    history: history.map((h) => ({ ...h, createdAt: h.createdAt.toISOString() })),
+  };
+}
+
+export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.design.name ?? "Design"} · Chainproof` }];
+
+export default function DesignOverview({ loaderData }: Route.ComponentProps) {
+  const { canEdit, slug, design, latest, draft, history } = loaderData;
+  return (
+    <>
+      <p className="mb-2 text-sm">
+        <Link to={designsPath(slug)} className="text-copper-700 underline">
+          All designs
+        </Link>
+      </p>
+      <PageHeader
+        title={design.name}
+        description={
+          <span className="inline-flex flex-wrap items-center gap-2">
+            <StatusBadge status={design.status} />
+            {design.vehicleId ? (
+              <Link to={`/w/${slug}/vehicles/${design.vehicleId}`} className="text-copper-700 underline">
+                {design.vehicleName}
+              </Link>
+            ) : (
+              <span>No vehicle</span>
+            )}
+          </span>
+        }
+        actions={
+          EDITOR_READY ? (
+            <Link to={editorPath(slug, design.id)} className={buttonClass(canEdit ? "primary" : "secondary")}>
+              {canEdit ? "Open the editor" : "View on the canvas"}
+            </Link>
+          ) : null
+        }
+      />
+
+      <div className="grid gap-5 lg:grid-cols-3">
+        <div className="space-y-5 lg:col-span-2">
+          <Section
+            title={latest ? `Latest revision: ${latest.number}` : "No revision yet"}
+            aside={latest ? <HashPrefix hash={latest.contentHash} /> : null}
+          >
+            {latest ? (
+              <>
+                <p className="text-sm text-ink-600">
+                  Saved by {latest.authorName}, <When iso={latest.createdAt} />
+                  {latest.message ? <> — “{latest.message}”</> : null}
+                </p>
+                <VerdictSummary verdict={latest.verdict} ruleLabels={latest.ruleLabels} componentLabels={latest.componentLabels} />
+              </>
+            ) : (
+              <p className="text-sm text-ink-600">
+                {canEdit
+                  ? "Save the draft from the editor once every rule holds; it becomes revision 1."
+                  : "An engineer saves revision 1 once every rule of the draft holds."}
+              </p>
+            )}
+          </Section>
+
+          <Section title="Revision history">
+            {history.length === 0 ? (
+              <p className="text-sm text-ink-600">No revisions yet.</p>
+            ) : (
+              <div className="-mx-5 overflow-x-auto">
+                <table className="min-w-full text-left text-sm">
+                  <thead className="border-b border-ink-200 text-xs uppercase tracking-wide text-ink-500">
+                    <tr>
+                      <th scope="col" className="px-5 py-2 font-medium">Revision</th>
+                      <th scope="col" className="px-3 py-2 font-medium">Author</th>
+                      <th scope="col" className="px-3 py-2 font-medium">Saved</th>
+                      <th scope="col" className="px-3 py-2 font-medium">Message</th>
+                      <th scope="col" className="px-3 py-2 font-medium">Hash</th>
+                      <th scope="col" className="px-5 py-2 font-medium"><span className="sr-only">Open</span></th>
+                    </tr>
+                  </thead>
+                  <tbody className="divide-y divide-ink-100">
+                    {history.map((h) => (
+                      <tr key={h.number}>
+                        <td className="px-5 py-2 font-semibold">{h.number}</td>
+                        <td className="px-3 py-2">{h.authorName}</td>
+                        <td className="whitespace-nowrap px-3 py-2"><When iso={h.createdAt} /></td>
+                        <td className="px-3 py-2 text-ink-700">{h.message || <span className="text-ink-400">—</span>}</td>
+                        <td className="px-3 py-2"><HashPrefix hash={h.contentHash} /></td>
+                        <td className="whitespace-nowrap px-5 py-2">
+                          {EDITOR_READY ? (
+                            <Link to={editorPath(slug, design.id, h.number)} className="text-copper-700 underline">
+                              View<span className="sr-only"> revision {h.number}</span>
+                            </Link>
+                          ) : null}
+                        </td>
+                      </tr>
+                    ))}
+                  </tbody>
+                </table>
+              </div>
+            )}
+          </Section>
+        </div>
+
+        <div className="space-y-5">
+          <Section title="Draft">
+            {draft ? (
+              <div className="space-y-3 text-sm">
+                {draft.changed ? <NotProven check={draft.check} /> : <p className="text-ink-700">Same as revision {latest?.number}; nothing unsaved.</p>}
+                {draft.changed && draft.failing.length > 0 ? (
+                  <ul className="list-inside list-disc text-brick-700" aria-label="Rules the draft breaks">
+                    {draft.failing.map((name) => (
+                      <li key={name}>{name}</li>
+                    ))}
+                  </ul>
+                ) : null}
+                <dl className="grid grid-cols-2 gap-x-3 gap-y-1 text-ink-700">
+                  <dt className="text-ink-500">Last saved</dt>
+                  <dd><When iso={draft.updatedAt} /></dd>
+                  <dt className="text-ink-500">By</dt>
+                  <dd>{draft.updatedByName}</dd>
+                  <dt className="text-ink-500">Builds on</dt>
+                  <dd>{draft.baseRevision ? `revision ${draft.baseRevision}` : "no revision"}</dd>
+                  <dt className="text-ink-500">Version</dt>
+                  <dd>{draft.version}</dd>
+                </dl>
+                <p className="text-ink-600">
+                  The draft is the working copy. It is not proven until it is saved as a revision, which happens only when every rule holds.
+                </p>
+                {canEdit && EDITOR_READY ? (
+                  <Link to={editorPath(slug, design.id)} className={buttonClass("secondary")}>
+                    Continue the draft
+                  </Link>
+                ) : null}
+              </div>
+            ) : (
+              <p className="text-sm text-ink-600">No draft.</p>
+            )}
+          </Section>
+          <SafetyNote />
+        </div>
+      </div>
+    </>
+  );
+}
+
+function VerdictSummary({
+  verdict,
+  ruleLabels,
+  componentLabels,
+}: {
+  verdict: Verdict;
+  ruleLabels: Record<string, string>;
+  componentLabels: Record<string, string>;
+}) {
+  return (
+    <div className="mt-4 space-y-4">
+      <p className="text-sm text-ink-700">
+        {verdict.rows.toLocaleString("en-US")} truth-table rows; the drive is on in {verdict.driveRows.toLocaleString("en-US")}.
+      </p>
+      {verdict.rules.length === 0 ? (
+        <p className="text-sm text-ink-600">This design has no rules yet.</p>
+      ) : (
+        <ul className="divide-y divide-ink-100 rounded-md border border-ink-200" aria-label="Rules">
+          {verdict.rules.map((r) => (
+            <li key={r.id} className="flex flex-wrap items-center justify-between gap-2 px-3 py-2 text-sm">
+              <span>
+                <span className="font-medium">{ruleLabels[r.id] ?? r.id}</span>{" "}
+                <code className="text-xs text-ink-500">{r.id}</code>
+              </span>
+              <span className="flex items-center gap-3">
+                {"unsafeRows" in r ? (
+                  <span className="text-xs text-ink-500">
+                    {r.violatingRows} of {r.unsafeRows} unsafe rows drive
+                  </span>
+                ) : (
+                  <span className="text-xs text-ink-500">every sequence</span>
+                )}
+                <Holds holds={r.holds} />
+              </span>
+            </li>
+          ))}
+        </ul>
+      )}
+      <div>
+        <h3 className="text-sm font-semibold">Single contact faults</h3>
+        {verdict.singleFaults.length === 0 ? (
+          <p className="mt-1 text-sm text-moss-700">No single stuck contact defeats a rule.</p>
+        ) : (
+          <ul className="mt-1 space-y-1 text-sm" aria-label="Single faults">
+            {verdict.singleFaults.map((f) => (
+              <li key={`${f.component}-${f.mode}`}>
+                <span className="font-medium">{componentLabels[f.component] ?? f.component}</span>{" "}
+                <code className="text-xs text-ink-500">{f.component}</code> {f.mode === "stuck-closed" ? "stuck closed" : "stuck open"} defeats{" "}
+                {f.defeats.map((id) => ruleLabels[id] ?? id).join(", ")}
+              </li>
+            ))}
+          </ul>
+        )}
+      </div>
+    </div>
+  );
+}
