@@ -55,9 +55,12 @@ export type EditorState = {
   /** Revision the working copy is based on, and the content key it had then (null: unknown / edited). */
   revision: { number: number; key: string | null };
   loadNotes: string[];
+  /** The server's refusal of the last "Save revision" (400 problems or 422 verdict). */
+  refusal: { kind: "problems"; problems: Problem[] } | { kind: "verdict"; verdict: Verdict } | null;
 
   document(): Design;
-  commit(): void;
+  /** Pushes an undo snapshot. Edits with the same `tag` in quick succession (typing) share one. */
+  commit(tag?: string): void;
   undo(): void;
   redo(): void;
   replace(doc: unknown, opts?: { keepHistory?: boolean }): void;
@@ -68,9 +71,10 @@ export type EditorState = {
   deleteSelected(): void;
   duplicateSelected(): void;
   addBeside(mode: "series" | "parallel", contactId: string): string | null;
-  updateComponent(id: string, data: Partial<CanvasNode["data"]>): void;
+  updateComponent(id: string, data: Partial<CanvasNode["data"]>, tag?: string): void;
   renameComponent(id: string, next: string): string | null;
-  updateRest(fn: (rest: DesignRest) => DesignRest): void;
+  updateRest(fn: (rest: DesignRest) => DesignRest, tag?: string): void;
+  updateDesign(fn: (g: { rest: DesignRest; nodes: CanvasNode[] }) => { rest: DesignRest; nodes: CanvasNode[] }, tag?: string): void;
   setPositions(positions: Record<string, XY>, opts?: { commit?: boolean }): void;
   select(id: string | null): void;
   setPanel(p: Panel): void;
@@ -79,6 +83,7 @@ export type EditorState = {
   setSimView(v: SimView | null): void;
   markRevision(number: number): void;
   requestFit(): void;
+  setRefusal(r: EditorState["refusal"]): void;
 };
 
 export type EditorStore = StoreApi<EditorState>;
@@ -93,6 +98,7 @@ export function createEditorStore(init: { initial: unknown; readOnly: boolean; d
       const g = documentToFlow(doc, get().rest.name);
       return { rest: g.rest, nodes: g.nodes, edges: g.edges };
     };
+    let lastCommit: { tag?: string; at: number } = { at: 0 };
     const editable = () => !get().readOnly && get().simulation === null;
 
     return {
@@ -110,11 +116,18 @@ export function createEditorStore(init: { initial: unknown; readOnly: boolean; d
       fitRequest: 1,
       revision: { number: init.baseRevision, key: init.baseRevision > 0 ? contentKey(loadedDoc) : null },
       loadNotes: loaded.dropped,
+      refusal: null,
 
       document: () => snapshot(get()),
-      commit: () =>
-        set((s) => ({ past: [...s.past.slice(-(HISTORY_LIMIT - 1)), snapshot(s)], future: [] })),
+      commit: (tag) => {
+        const now = Date.now();
+        const same = tag !== undefined && lastCommit.tag === tag && now - lastCommit.at < 1500;
+        lastCommit = { tag, at: now };
+        if (same) return;
+        set((s) => ({ past: [...s.past.slice(-(HISTORY_LIMIT - 1)), snapshot(s)], future: [] }));
+      },
       undo: () => {
+        lastCommit = { at: 0 };
         const s = get();
         if (!editable() || s.past.length === 0) return;
         const prev = s.past[s.past.length - 1];
@@ -208,9 +221,9 @@ export function createEditorStore(init: { initial: unknown; readOnly: boolean; d
         });
         return out.added;
       },
-      updateComponent: (id, data) => {
+      updateComponent: (id, data, tag) => {
         if (!editable()) return;
-        get().commit();
+        get().commit(tag);
         set((s) => ({
           nodes: s.nodes.map((n) => (n.id === id ? ({ ...n, data: dropUndefined({ ...n.data, ...data }) } as CanvasNode) : n)),
         }));
@@ -235,10 +248,15 @@ export function createEditorStore(init: { initial: unknown; readOnly: boolean; d
         }));
         return null;
       },
-      updateRest: (fn) => {
+      updateRest: (fn, tag) => {
         if (!editable()) return;
-        get().commit();
+        get().commit(tag);
         set((s) => ({ rest: fn(s.rest) }));
+      },
+      updateDesign: (fn, tag) => {
+        if (!editable()) return;
+        get().commit(tag);
+        set((s) => fn({ rest: s.rest, nodes: s.nodes }));
       },
       setPositions: (positions, opts) => {
         if (opts?.commit) get().commit();
@@ -254,6 +272,7 @@ export function createEditorStore(init: { initial: unknown; readOnly: boolean; d
       simulate: (simulation) => set({ simulation, ...(simulation ? {} : { simView: null }) }),
       setSimView: (simView) => set({ simView }),
       markRevision: (number) => set((s) => ({ revision: { number, key: contentKey(snapshot(s)) } })),
+      setRefusal: (refusal) => set({ refusal, ...(refusal ? { panel: "problems" as const } : {}) }),
       requestFit: () => set((s) => ({ fitRequest: s.fitRequest + 1 })),
     };
   });

@@ -1,0 +1,27 @@
+// The design editor as the route mounts it. xyflow, elkjs and the proof worker only run in the
+// browser, so the editor module is loaded after mount; the server renders a placeholder.
+import { lazy, Suspense, useEffect, useState } from "react";
+import type { DesignEditorProps } from "./contract";
+
+const Editor = lazy(() => import("./editor"));
+
+function Placeholder() {
+  return (
+    <div role="status" className="flex h-[calc(100dvh-9rem)] min-h-[560px] items-center justify-center rounded-lg border border-ink-200 bg-white text-sm text-ink-500">
+      Opening the canvas…
+    </div>
+  );
+}
+
+export function DesignEditor(props: DesignEditorProps) {
+  const [mounted, setMounted] = useState(false);
+  useEffect(() => setMounted(true), []);
+  if (!mounted) return <Placeholder />;
+  return (
+    <Suspense fallback={<Placeholder />}>
+      <Editor {...props} />
+    </Suspense>
+  );
+}
+
+export type { DesignEditorProps };

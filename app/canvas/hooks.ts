@@ -1,0 +1,177 @@
+// Editor effects: live proof in a worker, the simulation driver, layout requests, autosave.
+import { useEffect, useRef, useState } from "react";
+import { useReactFlow } from "@xyflow/react";
+import { contentKey, flowToDocument } from "./convert";
+import { autoLayout } from "./layout";
+import { proveHere, type ProofReply } from "./proof-protocol";
+import { compiledOf, viewFor } from "./simulation";
+import { useEditor, useEditorStore, type EditorState } from "./store";
+import type { SaveDraftResult } from "./contract";
+
+export const PROOF_DEBOUNCE_MS = 150;
+export const AUTOSAVE_DEBOUNCE_MS = 1000;
+
+const docOf = (s: EditorState) => flowToDocument(s.rest, s.nodes, s.edges);
+
+/** Proves the design on every change of its content (debounced), in a Web Worker when there is one. */
+export function useLiveProof() {
+  const store = useEditorStore();
+  useEffect(() => {
+    let worker: Worker | null = null;
+    try {
+      worker = typeof Worker === "undefined" ? null : new Worker(new URL("./proof.worker.ts", import.meta.url), { type: "module" });
+    } catch {
+      worker = null;
+    }
+    let latest = 0;
+    let timer: ReturnType<typeof setTimeout> | undefined;
+    let lastKey = "";
+    const receive = (reply: ProofReply) => {
+      if (reply.id !== latest) return; // a newer request is on its way
+      const s = store.getState();
+      if (reply.kind === "invalid") s.setProof({ status: "invalid", problems: reply.problems });
+      else if (reply.kind === "verdict") s.setProof({ status: "done", verdict: reply.verdict, ms: reply.ms });
+      else s.setProof({ status: "error", message: reply.message });
+    };
+    if (worker) worker.onmessage = (e: MessageEvent<ProofReply>) => receive(e.data);
+    const schedule = (s: EditorState) => {
+      const doc = docOf(s);
+      const key = contentKey(doc);
+      if (key === lastKey) return;
+      lastKey = key;
+      clearTimeout(timer);
+      if (s.proof.status !== "pending") s.setProof({ status: "pending" });
+      timer = setTimeout(() => {
+        latest += 1;
+        const request = { id: latest, doc };
+        if (worker) worker.postMessage(request);
+        else receive(proveHere(request));
+      }, PROOF_DEBOUNCE_MS);
+    };
+    schedule(store.getState());
+    const unsubscribe = store.subscribe((s, prev) => {
+      if (s.rest !== prev.rest || s.nodes !== prev.nodes || s.edges !== prev.edges) schedule(s);
+    });
+    return () => {
+      unsubscribe();
+      clearTimeout(timer);
+      worker?.terminate();
+    };
+  }, [store]);
+}
+
+/** Keeps `simView` (what nodes and wires draw in simulation) in step with the simulation. */
+export function useSimulationDriver() {
+  const store = useEditorStore();
+  const simulation = useEditor((s) => s.simulation);
+  useEffect(() => {
+    const s = store.getState();
+    if (!simulation) return s.setSimView(null);
+    const c = compiledOf(docOf(s));
+    if (!c) {
+      s.simulate(null);
+      return;
+    }
+    s.setSimView(viewFor(c, simulation));
+  }, [store, simulation]);
+}
+
+/** Runs elk when the store asks for a layout, and fits the view when it asks for a fit. */
+export function useLayoutRequests() {
+  const store = useEditorStore();
+  const layoutRequest = useEditor((s) => s.layoutRequest);
+  const fitRequest = useEditor((s) => s.fitRequest);
+  const { fitView } = useReactFlow();
+  useEffect(() => {
+    if (layoutRequest === 0) return;
+    let cancelled = false;
+    const { nodes, edges } = store.getState();
+    autoLayout(nodes, edges).then((positions) => {
+      if (cancelled) return;
+      store.getState().setPositions(positions);
+      store.getState().requestFit();
+    });
+    return () => {
+      cancelled = true;
+    };
+  }, [store, layoutRequest]);
+  useEffect(() => {
+    const id = requestAnimationFrame(() => fitView({ padding: 0.2, maxZoom: 1.2, duration: 0 }));
+    return () => cancelAnimationFrame(id);
+  }, [fitRequest, fitView]);
+}
+
+export type DraftState =
+  | { kind: "saved" }
+  | { kind: "pending" }
+  | { kind: "saving" }
+  | { kind: "conflict"; currentVersion: number }
+  | { kind: "error"; message: string };
+
+/** Autosaves the working copy (debounced, versioned); a 409 stops autosave until the user picks. */
+export function useAutosave(opts: { enabled: boolean; draftVersion: number; onSaveDraft: (doc: unknown, version: number) => Promise<SaveDraftResult> }) {
+  const store = useEditorStore();
+  const [state, setState] = useState<DraftState>({ kind: "saved" });
+  const ref = useRef({ version: opts.draftVersion, saved: JSON.stringify(docOf(store.getState())), busy: false, stopped: false });
+  const onSave = useRef(opts.onSaveDraft);
+  onSave.current = opts.onSaveDraft;
+  const [kick, setKick] = useState(0);
+
+  useEffect(() => {
+    if (!opts.enabled) return;
+    let timer: ReturnType<typeof setTimeout> | undefined;
+    const r = ref.current;
+    const save = async () => {
+      if (r.busy || r.stopped) return;
+      const doc = docOf(store.getState());
+      const json = JSON.stringify(doc);
+      if (json === r.saved) return setState({ kind: "saved" });
+      r.busy = true;
+      setState({ kind: "saving" });
+      try {
+        const res = await onSave.current(doc, r.version);
+        if (res.ok) {
+          r.version = res.version;
+          r.saved = json;
+          setState(JSON.stringify(docOf(store.getState())) === json ? { kind: "saved" } : { kind: "pending" });
+        } else {
+          r.stopped = true;
+          setState({ kind: "conflict", currentVersion: res.currentVersion });
+        }
+      } catch (e) {
+        setState({ kind: "error", message: e instanceof Error ? e.message : String(e) });
+      } finally {
+        r.busy = false;
+      }
+      if (!r.stopped && JSON.stringify(docOf(store.getState())) !== r.saved) {
+        clearTimeout(timer);
+        timer = setTimeout(save, AUTOSAVE_DEBOUNCE_MS);
+      }
+    };
+    const unsubscribe = store.subscribe((s, prev) => {
+      if (s.rest === prev.rest && s.nodes === prev.nodes && s.edges === prev.edges) return;
+      if (r.stopped) return;
+      if (JSON.stringify(docOf(s)) === r.saved) return;
+      setState((st) => (st.kind === "saving" ? st : { kind: "pending" }));
+      clearTimeout(timer);
+      timer = setTimeout(save, AUTOSAVE_DEBOUNCE_MS);
+    });
+    if (kick > 0) timer = setTimeout(save, 0);
+    return () => {
+      unsubscribe();
+      clearTimeout(timer);
+    };
+  }, [store, opts.enabled, kick]);
+
+  return {
+    state,
+    dirty: state.kind !== "saved",
+    /** After a conflict: take the other tab's version as the base and save this copy over it. */
+    keepMine(currentVersion: number) {
+      ref.current.version = currentVersion;
+      ref.current.stopped = false;
+      setState({ kind: "pending" });
+      setKick((k) => k + 1);
+    },
+  };
+}

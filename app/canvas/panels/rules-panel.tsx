@@ -1,0 +1,136 @@
+// Safety rules: inhibit rules (a visual predicate and what it forbids) and the no-restart rule.
+import type { InhibitRule, Rule } from "../../engine";
+import { useEditor } from "../store";
+import { FieldProblems, Section, Select, Small, Text, problemsUnder, useValidation } from "./common";
+import { PredicateEditor } from "./predicate-editor";
+
+function freshRuleId(rules: readonly Rule[], base: string) {
+  for (let n = 1; ; n++) if (!rules.some((r) => r.id === `${base}${n}`)) return `${base}${n}`;
+}
+
+export function RulesPanel() {
+  const rules = useEditor((s) => s.rest.rules);
+  const conditions = useEditor((s) => s.rest.conditions);
+  const inputs = useEditor((s) => s.nodes.filter((n) => n.type === "input").map((n) => n.id).join("\u0000"));
+  const editable = useEditor((s) => !s.readOnly && s.simulation === null);
+  const updateRest = useEditor((s) => s.updateRest);
+  const problems = useValidation();
+  const noRestart = rules.findIndex((r) => r.type === "no-restart");
+  const inputIds = inputs ? inputs.split("\u0000") : [];
+
+  const setRule = (i: number, r: Rule, tag?: string) => updateRest((rest) => ({ ...rest, rules: rest.rules.map((x, k) => (k === i ? r : x)) }), tag);
+
+  return (
+    <div>
+      <Section
+        title="Inhibit rules"
+        actions={
+          <Small
+            tone="primary"
+            disabled={!editable}
+            onClick={() =>
+              updateRest((rest) => ({
+                ...rest,
+                rules: [
+                  ...rest.rules,
+                  { id: freshRuleId(rest.rules, "R"), label: "", type: "inhibit", when: { cond: rest.conditions[0]?.id ?? "", in: [] }, forbid: "drive" },
+                ],
+              }))
+            }
+          >
+            + Inhibit rule
+          </Small>
+        }
+      >
+        {rules.every((r) => r.type !== "inhibit") ? <p className="text-sm text-ink-500">No inhibit rules yet. An inhibit rule names the situations in which drive (or an input) must be off.</p> : null}
+        {rules.map((r, i) =>
+          r.type === "inhibit" ? (
+            <InhibitRuleForm
+              key={i}
+              index={i}
+              rule={r}
+              editable={editable}
+              conditions={conditions}
+              inputs={inputIds}
+              onChange={(next, tag) => setRule(i, next, tag)}
+              onRemove={() => updateRest((rest) => ({ ...rest, rules: rest.rules.filter((_, k) => k !== i) }))}
+              problems={problemsUnder(problems, `rules[${i}]`)}
+            />
+          ) : null,
+        )}
+      </Section>
+      <Section title="No restart on a held throttle">
+        <label className="flex items-start gap-2 text-sm">
+          <input
+            type="checkbox"
+            className="mt-1"
+            checked={noRestart >= 0}
+            disabled={!editable}
+            onChange={(e) =>
+              updateRest((rest) => ({
+                ...rest,
+                rules: e.target.checked
+                  ? [...rest.rules, { id: freshRuleId(rest.rules, "no-restart-"), label: "No start on a held throttle", type: "no-restart" }]
+                  : rest.rules.filter((x) => x.type !== "no-restart"),
+              }))
+            }
+          />
+          <span>
+            Drive must never come on at a step where the throttle was not released just before: the controller&apos;s lockouts have to
+            catch every way of arriving with the throttle already applied.
+          </span>
+        </label>
+        {noRestart >= 0 ? <FieldProblems problems={problemsUnder(problems, `rules[${noRestart}]`)} /> : null}
+      </Section>
+    </div>
+  );
+}
+
+function InhibitRuleForm({
+  index,
+  rule,
+  editable,
+  conditions,
+  inputs,
+  onChange,
+  onRemove,
+  problems,
+}: {
+  index: number;
+  rule: InhibitRule;
+  editable: boolean;
+  conditions: Parameters<typeof PredicateEditor>[0]["conditions"];
+  inputs: string[];
+  onChange: (r: InhibitRule, tag?: string) => void;
+  onRemove: () => void;
+  problems: ReturnType<typeof problemsUnder>;
+}) {
+  const forbid = rule.forbid === "drive" ? "drive" : typeof rule.forbid === "object" && rule.forbid ? `energized:${rule.forbid.energized}` : "drive";
+  return (
+    <fieldset className="space-y-2 rounded border border-ink-200 bg-white p-2" aria-label={`Rule ${rule.id}`} data-testid={`rule-${rule.id}`}>
+      <div className="grid grid-cols-[6rem_1fr] gap-2">
+        <Text label="Id" value={rule.id} disabled={!editable} onChange={(e) => onChange({ ...rule, id: e.target.value }, `rule:${index}:id`)} invalid={problems.some((p) => p.path === `rules[${index}].id`)} />
+        <Text label="Label" value={rule.label ?? ""} disabled={!editable} onChange={(e) => onChange({ ...rule, label: e.target.value }, `rule:${index}:label`)} />
+      </div>
+      <PredicateEditor value={rule.when ?? { always: true }} onChange={(when) => onChange({ ...rule, when })} conditions={conditions} disabled={!editable} path={`rules[${index}].when`} />
+      <Select
+        label="Then forbid"
+        value={forbid}
+        disabled={!editable}
+        onChange={(e) => onChange({ ...rule, forbid: e.target.value === "drive" ? "drive" : { energized: e.target.value.slice("energized:".length) } })}
+      >
+        <option value="drive">drive</option>
+        {inputs.map((id) => (
+          <option key={id} value={`energized:${id}`}>
+            input {id} energized
+          </option>
+        ))}
+        {forbid !== "drive" && !inputs.includes(forbid.slice(10)) ? <option value={forbid}>{forbid.slice(10)} energized (missing)</option> : null}
+      </Select>
+      <FieldProblems problems={problems} />
+      <Small tone="danger" disabled={!editable} onClick={onRemove}>
+        Remove rule {rule.id}
+      </Small>
+    </fieldset>
+  );
+}

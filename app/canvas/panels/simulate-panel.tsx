@@ -1,0 +1,143 @@
+// Simulation: set the row by clicking each condition's state, see drive and what blocks it
+// (engine diagnose); step through a no-restart counterexample with the lockout latch.
+import { useMemo } from "react";
+import { diagnose, type Diagnosis } from "../../engine";
+import { SafetyNote } from "../../components/safety-note";
+import { compiledOf, restRow } from "../simulation";
+import { useEditor } from "../store";
+import { Section, Small, useDocument } from "./common";
+
+export function SimulatePanel() {
+  const simulation = useEditor((s) => s.simulation);
+  const simView = useEditor((s) => s.simView);
+  const simulate = useEditor((s) => s.simulate);
+  const setPanel = useEditor((s) => s.setPanel);
+  const doc = useDocument();
+  const compiled = useMemo(() => compiledOf(doc), [doc]);
+  const diagnosis = useMemo((): Diagnosis | string | null => {
+    if (!compiled || !simulation) return null;
+    try {
+      const src = simulation.source;
+      if (src.kind === "trace") return diagnose(compiled, src.rows[src.step - 1], { history: src.rows.slice(0, src.step - 1) });
+      if (src.kind === "fault") return null;
+      return diagnose(compiled, simulation.states);
+    } catch (e) {
+      return e instanceof Error ? e.message : String(e);
+    }
+  }, [compiled, simulation]);
+
+  if (!compiled) {
+    return (
+      <Section title="Simulate">
+        <p className="text-sm text-ink-600">Fix the problems listed under Problems first: only a valid design can be simulated.</p>
+      </Section>
+    );
+  }
+  if (!simulation) {
+    return (
+      <Section title="Simulate">
+        <p className="text-sm text-ink-600">Set each condition by hand and watch the wiring: contacts open and close, live wires light up, and the panel says what blocks drive.</p>
+        <Small tone="primary" onClick={() => simulate({ states: restRow(doc), source: { kind: "hand" } })}>
+          Start simulating
+        </Small>
+      </Section>
+    );
+  }
+  const src = simulation.source;
+  const states = src.kind === "trace" ? src.rows[src.step - 1] : simulation.states;
+  const ruleLabel = (id: string) => doc.rules.find((r) => r.id === id)?.label || id;
+
+  return (
+    <div>
+      <Section
+        title="Simulating"
+        actions={
+          <Small
+            onClick={() => {
+              simulate(null);
+              setPanel("properties");
+            }}
+          >
+            Back to editing
+          </Small>
+        }
+      >
+        <p className="text-sm text-ink-700">
+          {src.kind === "hand" ? "By hand." : null}
+          {src.kind === "example" ? `Counterexample of “${ruleLabel(src.ruleId)}”.` : null}
+          {src.kind === "fault" ? `${src.fault.component} ${src.fault.mode.replace("-", " ")} breaks “${ruleLabel(src.ruleId)}” in this row.` : null}
+          {src.kind === "trace" ? `Steps that break “${ruleLabel(src.ruleId)}”.` : null}
+        </p>
+        {src.kind === "trace" ? (
+          <div className="flex items-center gap-2" role="group" aria-label="Trace steps">
+            <Small aria-label="Previous step" disabled={src.step <= 1} onClick={() => simulate({ ...simulation, source: { ...src, step: src.step - 1 } })}>
+              ◀ Back
+            </Small>
+            <span className="text-sm font-semibold" data-testid="trace-step">
+              Step {src.step} of {src.rows.length}
+            </span>
+            <Small aria-label="Next step" disabled={src.step >= src.rows.length} onClick={() => simulate({ ...simulation, source: { ...src, step: src.step + 1 } })}>
+              Forward ▶
+            </Small>
+          </div>
+        ) : null}
+        <div
+          className={`rounded px-3 py-2 text-sm font-bold ${simView?.drive ? "bg-moss-600 text-white" : "bg-ink-800 text-white"}`}
+          data-testid="sim-drive"
+        >
+          Drive {simView?.drive ? "ON" : "OFF"}
+          {simView?.latched !== undefined ? (
+            <span className="ml-2 font-normal">· lockout latch {simView.latched ? "set" : "clear"}{simView.armed?.length ? ` (armed: ${simView.armed.join(", ")})` : ""}</span>
+          ) : null}
+        </div>
+        {simView?.error ? <p className="text-sm text-brick-700">{simView.error}</p> : null}
+      </Section>
+      <Section title="Conditions">
+        {doc.conditions.map((c) => (
+          <div key={c.id}>
+            <div className="text-xs font-medium text-ink-600">{c.label || c.id}</div>
+            <div role="group" aria-label={`State of ${c.label || c.id}`} className="mt-0.5 flex flex-wrap gap-1">
+              {c.states.map((st) => (
+                <button
+                  key={st}
+                  type="button"
+                  aria-pressed={states[c.id] === st}
+                  onClick={() => simulate({ states: { ...states, [c.id]: st }, source: { kind: "hand" } })}
+                  className={`rounded-full border px-2 py-0.5 text-xs font-medium ${states[c.id] === st ? "border-copper-600 bg-copper-600 text-white" : "border-ink-300 bg-white text-ink-700 hover:bg-ink-100"}`}
+                >
+                  {st}
+                </button>
+              ))}
+            </div>
+          </div>
+        ))}
+      </Section>
+      {diagnosis && typeof diagnosis === "object" ? (
+        <Section title={diagnosis.drive ? "Drive is on" : "What blocks drive"}>
+          <ul className="list-disc pl-4 text-sm text-ink-700">
+            {diagnosis.reasons.map((r, i) => (
+              <li key={i}>{r.message}</li>
+            ))}
+          </ul>
+          {diagnosis.inputs
+            .filter((i) => !i.energized)
+            .map((i) => (
+              <div key={i.input} className="text-xs text-ink-600">
+                <span className="font-semibold">{i.label || i.input}</span> is dead
+                {i.unreachable
+                  ? ": no contacts can bring it to a supply."
+                  : i.fixes.length
+                    ? `; closing ${i.fixes[0].map((f) => `${f.contact} (${f.condition} in ${f.closeIn.join("/")})`).join(" and ")} would energize it.`
+                    : "."}
+              </div>
+            ))}
+        </Section>
+      ) : typeof diagnosis === "string" ? (
+        <p className="px-3 text-sm text-brick-700">{diagnosis}</p>
+      ) : null}
+      <div className="p-3">
+        <SafetyNote />
+      </div>
+    </div>
+  );
+}
