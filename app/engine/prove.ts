@@ -4,7 +4,6 @@ import { decodeRow } from "./rows";
 import { summarizeTable } from "./rules";
 import type { Design, RuleVerdict, Verdict } from "./schema";
 import { VERDICT_FORMAT } from "./schema";
-import { singleFaults } from "./faults";
 import { shortestRestart } from "./sequence";
 
 export function isCompiled(d: Design | CompiledDesign): d is CompiledDesign {
@@ -13,15 +12,13 @@ export function isCompiled(d: Design | CompiledDesign): d is CompiledDesign {
 
 export function prove(input: Design | CompiledDesign): Verdict {
   const c = isCompiled(input) ? input : compileDesign(input);
-  const summary = summarizeTable(c);
+  const summary = summarizeTable(c, { faults: true });
   const rules: RuleVerdict[] = [];
-  const holding: number[] = [];
   let restartTrace: number[] | null | undefined;
   for (const r of c.rules) {
     if (r.type === "inhibit") {
       const count = summary.inhibit[r.index]!;
       const holds = count.violating === 0;
-      if (holds) holding.push(r.index);
       rules.push({
         id: r.id,
         holds,
@@ -44,6 +41,6 @@ export function prove(input: Design | CompiledDesign): Verdict {
     rows: c.rows,
     driveRows: summary.driveRows,
     rules,
-    singleFaults: singleFaults(c, holding),
+    singleFaults: summary.singleFaults ?? [],
   };
 }

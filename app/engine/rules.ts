@@ -1,6 +1,9 @@
-// The fault-free pass over the whole table: steady-drive count, per inhibit rule the unsafe and
-// violating counts with a first violating row, and the distinct controller views (for no-restart).
+// The scan over the whole table: steady-drive count, per inhibit rule the unsafe and violating
+// counts with a first violating row, the distinct controller views (for no-restart), and
+// optionally the single-fault checks riding along (faults.ts). One word of rows at a time.
 import type { CompiledDesign } from "./compile";
+import { FaultTracker } from "./faults";
+import type { SingleFault } from "./schema";
 import { lowestBit, popcount, WORD, WordEvaluator } from "./table";
 
 export type InhibitCount = { unsafe: number; violating: number; example: number };
@@ -12,6 +15,8 @@ export type TableSummary = {
   inhibit: (InhibitCount | null)[];
   /** Controller view code (see sequence.ts) -> first row showing that view. */
   views: Map<number, number>;
+  /** Present when requested: faults defeating rules that hold fault-free. */
+  singleFaults?: SingleFault[];
 };
 
 /** Number of distinct controller views: powered x enabled x 4 directions x braking x 3 throttle classes. */
@@ -21,57 +26,74 @@ export function viewCode(powered: number, enabled: number, direction: number, br
   return powered | (enabled << 1) | (direction << 2) | (braking << 4) | (throttle * 32);
 }
 
-export function summarizeTable(c: CompiledDesign, opts: { views?: boolean } = {}): TableSummary {
+export function summarizeTable(c: CompiledDesign, opts: { views?: boolean; faults?: boolean } = {}): TableSummary {
   const ev = new WordEvaluator(c);
-  const inhibit: (InhibitCount | null)[] = c.rules.map((r) =>
-    r.type === "inhibit" ? { unsafe: 0, violating: 0, example: -1 } : null,
-  );
-  const ruleIdx = c.rules.filter((r) => r.type === "inhibit").map((r) => r.index);
+  const ruleIdx = Int32Array.from(c.rules.filter((r) => r.type === "inhibit").map((r) => r.index));
+  const nRules = c.rules.length;
+  const unsafeCount = new Float64Array(nRules);
+  const violating = new Float64Array(nRules);
+  const example = new Float64Array(nRules).fill(-1);
+  const unsafe = new Int32Array(nRules);
   const wantViews = opts.views ?? c.rules.some((r) => r.type === "no-restart");
   const firstRow = new Float64Array(VIEW_CODES).fill(-1);
+  const faults = opts.faults ? new FaultTracker(c, ev) : null;
   let driveRows = 0;
   for (let w = 0; w < ev.wordCount; w++) {
     ev.evalWord(w);
-    const valid = ev.valid;
-    driveRows += popcount(ev.drive & valid);
-    for (const r of ruleIdx) {
-      const unsafe = ev.unsafeWord(r);
-      if (unsafe === 0) continue;
-      const count = inhibit[r]!;
-      count.unsafe += popcount(unsafe);
-      const bad = unsafe & ev.forbiddenWord(r);
+    driveRows += popcount(ev.drive & ev.valid);
+    let anyUnsafe = 0;
+    for (let n = 0; n < ruleIdx.length; n++) {
+      const r = ruleIdx[n];
+      const u = ev.unsafeWord(r);
+      unsafe[r] = u;
+      if (u === 0) continue;
+      anyUnsafe |= u;
+      unsafeCount[r] += popcount(u);
+      const bad = u & ev.forbiddenWord(r);
       if (bad !== 0) {
-        count.violating += popcount(bad);
-        if (count.example < 0) count.example = w * WORD + lowestBit(bad);
+        violating[r] += popcount(bad);
+        if (example[r] < 0) {
+          example[r] = w * WORD + lowestBit(bad);
+          faults?.ruleFails(r);
+        }
       }
     }
     if (wantViews) collectViews(ev, w, firstRow);
+    if (faults && anyUnsafe !== 0 && !faults.done) faults.word(unsafe);
   }
   const views = new Map<number, number>();
   firstRow.forEach((row, code) => {
     if (row >= 0) views.set(code, row);
   });
-  return { rows: c.rows, driveRows, inhibit, views };
+  const inhibit = c.rules.map((r) =>
+    r.type === "inhibit" ? { unsafe: unsafeCount[r.index], violating: violating[r.index], example: example[r.index] } : null,
+  );
+  return {
+    rows: c.rows,
+    driveRows,
+    inhibit,
+    views,
+    ...(faults ? { singleFaults: faults.result((r) => violating[r] === 0) } : {}),
+  };
 }
 
 /** Records the first row of each controller view present in the current word (pruned enumeration). */
 function collectViews(ev: WordEvaluator, w: number, firstRow: Float64Array): void {
-  const dirs = [ev.dirForward, ev.dirNeutral, ev.dirReverse, ev.dirConflict];
-  const thr = [ev.thrReleased, ev.thrApplied, ev.thrFault];
+  const valid = ev.valid;
   for (let p = 0; p < 2; p++) {
-    const mp = (p ? ev.powered : ~ev.powered) & ev.valid;
+    const mp = (p ? ev.powered : ~ev.powered) & valid;
     if (mp === 0) continue;
     for (let e = 0; e < 2; e++) {
       const me = mp & (e ? ev.enabled : ~ev.enabled);
       if (me === 0) continue;
       for (let d = 0; d < 4; d++) {
-        const md = me & dirs[d];
+        const md = me & (d === 0 ? ev.dirForward : d === 1 ? ev.dirNeutral : d === 2 ? ev.dirReverse : ev.dirConflict);
         if (md === 0) continue;
         for (let b = 0; b < 2; b++) {
           const mb = md & (b ? ev.braking : ~ev.braking);
           if (mb === 0) continue;
           for (let t = 0; t < 3; t++) {
-            const mt = mb & thr[t];
+            const mt = mb & (t === 0 ? ev.thrReleased : t === 1 ? ev.thrApplied : ev.thrFault);
             if (mt === 0) continue;
             const code = viewCode(p, e, d, b, t);
             if (firstRow[code] < 0) firstRow[code] = w * WORD + lowestBit(mt);

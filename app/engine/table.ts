@@ -20,18 +20,26 @@ export function lowestBit(x: number): number {
 }
 
 /**
- * Computes literal words for any word of the table. A condition of stride s < 32 repeats with
- * period s*radix, so its words come from a small table indexed by the word's phase; a condition of
- * stride >= 32 changes state at most once inside a word.
+ * Computes literal words for any word of the table into `words`. A condition of stride s < 32
+ * repeats with period s*radix, so its words come from a small table indexed by the word's phase; a
+ * condition of stride >= 32 changes state at most once inside a word, and its words are reused
+ * for as long as its state does not change (sequential scans touch them rarely).
  */
 export class LiteralSource {
-  private readonly small: { period: number; outs: number[]; tables: Int32Array[] }[] = [];
-  private readonly big: { stride: number; radix: number; outs: number[]; masks: number[] }[] = [];
+  readonly words: Int32Array;
+  private readonly small: { period: number; outs: Int32Array; tables: Int32Array[] }[] = [];
+  private readonly big: {
+    stride: number;
+    radix: number;
+    outs: Int32Array;
+    masks: Int32Array;
+    /** Words [from, until) share the literal words last computed. */
+    from: number;
+    until: number;
+  }[] = [];
 
-  constructor(
-    c: CompiledDesign,
-    literals: readonly Literal[],
-  ) {
+  constructor(c: CompiledDesign, literals: readonly Literal[]) {
+    this.words = new Int32Array(literals.length);
     const byCond = new Map<number, number[]>();
     literals.forEach((l, i) => {
       const list = byCond.get(l.cond) ?? [];
@@ -55,32 +63,49 @@ export class LiteralSource {
           }
           return t;
         });
-        this.small.push({ period, outs, tables });
+        this.small.push({ period, outs: Int32Array.from(outs), tables });
       } else {
-        this.big.push({ stride, radix, outs, masks: outs.map((i) => literals[i].mask) });
+        this.big.push({
+          stride,
+          radix,
+          outs: Int32Array.from(outs),
+          masks: Int32Array.from(outs.map((i) => literals[i].mask)),
+          from: 0,
+          until: 0,
+        });
       }
     }
   }
 
-  /** Writes the words of word index `w` into `out` (indexed like the literal list). */
-  load(w: number, out: Int32Array): void {
+  /** Fills `words` for word index `w`. */
+  load(w: number): void {
+    const out = this.words;
     const base = w * WORD;
-    for (const g of this.small) {
+    for (let gi = 0; gi < this.small.length; gi++) {
+      const g = this.small[gi];
       const ph = base % g.period;
-      for (let k = 0; k < g.outs.length; k++) out[g.outs[k]] = g.tables[k][ph];
+      const outs = g.outs;
+      for (let k = 0; k < outs.length; k++) out[outs[k]] = g.tables[k][ph];
     }
-    for (const g of this.big) {
+    for (let gi = 0; gi < this.big.length; gi++) {
+      const g = this.big[gi];
+      if (w >= g.from && w < g.until) continue;
       const q = Math.floor(base / g.stride);
       const n = g.stride - (base - q * g.stride);
       const d0 = q % g.radix;
+      const outs = g.outs;
+      const masks = g.masks;
+      g.from = w;
       if (n >= WORD) {
-        for (let k = 0; k < g.outs.length; k++) out[g.outs[k]] = (g.masks[k] >> d0) & 1 ? -1 : 0;
+        g.until = Math.floor(((q + 1) * g.stride) / WORD);
+        for (let k = 0; k < outs.length; k++) out[outs[k]] = (masks[k] >> d0) & 1 ? -1 : 0;
       } else {
+        g.until = w + 1;
         const d1 = d0 + 1 === g.radix ? 0 : d0 + 1;
         const low = (1 << n) - 1;
-        for (let k = 0; k < g.outs.length; k++) {
-          const m = g.masks[k];
-          out[g.outs[k]] = ((m >> d0) & 1 ? low : 0) | ((m >> d1) & 1 ? ~low : 0);
+        for (let k = 0; k < outs.length; k++) {
+          const m = masks[k];
+          out[outs[k]] = ((m >> d0) & 1 ? low : 0) | ((m >> d1) & 1 ? ~low : 0);
         }
       }
     }
@@ -98,6 +123,7 @@ export class WordEvaluator {
   private readonly source: LiteralSource;
   private readonly faultAnd: Int32Array;
   private readonly faultOr: Int32Array;
+  private readonly contactLit: Int32Array;
   readonly whenOf: (WordPredicate | null)[];
   private readonly flowC: Int32Array;
   private readonly flowNear: Int32Array;
@@ -133,9 +159,10 @@ export class WordEvaluator {
     const rem = c.rows % WORD;
     this.lastValid = rem === 0 ? -1 : (1 << rem) - 1;
     this.source = new LiteralSource(c, c.literals);
-    this.lit = new Int32Array(c.literals.length);
+    this.lit = this.source.words;
     this.cw = new Int32Array(c.contacts.length);
     this.reach = new Int32Array(c.nets.length);
+    this.contactLit = Int32Array.from(c.contacts.map((k) => k.lit));
     this.faultAnd = new Int32Array(c.contacts.length).fill(-1);
     this.faultOr = new Int32Array(c.contacts.length);
     for (const f of faults) {
@@ -170,10 +197,12 @@ export class WordEvaluator {
     this.wordIndex = w;
     this.valid = w === this.wordCount - 1 ? this.lastValid : -1;
     const lit = this.lit;
-    this.source.load(w, lit);
+    this.source.load(w);
     const cw = this.cw;
-    const contacts = this.c.contacts;
-    for (let i = 0; i < contacts.length; i++) cw[i] = (lit[contacts[i].lit] & this.faultAnd[i]) | this.faultOr[i];
+    const contactLit = this.contactLit;
+    const fa = this.faultAnd;
+    const fo = this.faultOr;
+    for (let i = 0; i < cw.length; i++) cw[i] = (lit[contactLit[i]] & fa[i]) | fo[i];
     this.settle(this.reach, false);
     const t = this.c.throttle;
     this.thrReleased = lit[t.released];
@@ -293,10 +322,10 @@ export class ExtraLiterals {
   readonly words: Int32Array;
   private readonly source: LiteralSource;
   constructor(c: CompiledDesign, literals: Literal[]) {
-    this.words = new Int32Array(literals.length);
     this.source = new LiteralSource(c, literals);
+    this.words = this.source.words;
   }
   load(w: number): void {
-    this.source.load(w, this.words);
+    this.source.load(w);
   }
 }

@@ -54,7 +54,10 @@ export const is = (cond: string, ...states: string[]): Predicate => ({ cond, in:
  * any subset of input functions; contacts between random nets (so series, parallel and bridge
  * arrangements), junction chains, unwired terminals, self-wires and duplicate wires all occur.
  */
-export function randomDesign(g: fc.GeneratorValue, opts: { maxContacts?: number; meshed?: boolean } = {}): Design {
+export function randomDesign(
+  g: fc.GeneratorValue,
+  opts: { maxContacts?: number; meshed?: boolean; cutRules?: boolean } = {},
+): Design {
   const int = (min: number, max: number) => g(fc.integer, { min, max });
   const conditions = Array.from({ length: int(1, 4) }, (_, i) => ({
     id: `c${i}`,
@@ -117,16 +120,17 @@ export function randomDesign(g: fc.GeneratorValue, opts: { maxContacts?: number;
     if (kind === 2) return { any: Array.from({ length: int(0, 2) }, () => predicate(depth + 1)) };
     return g(fc.boolean) ? { not: predicate(depth + 1) } : { always: true };
   };
-  const rules: Rule[] = Array.from({ length: int(1, 3) }, (_, i) => {
+  const rules: Rule[] = Array.from({ length: opts.cutRules ? 0 : int(1, 3) }, (_, i) => {
     const target = inputs.length > 0 && g(fc.boolean) ? { energized: inputs[int(0, inputs.length - 1)][0] } : "drive";
     return inhibit(`R${i}`, predicate(0), target);
   });
-  // A rule that holds exactly when one contact cuts every path to an input, so faults matter.
-  if (inputs.length > 0 && g(fc.boolean)) {
+  // Rules that hold exactly when one contact cuts every path to an input, so faults matter.
+  for (let k = opts.cutRules ? int(2, 5) : int(0, 1); k > 0 && inputs.length > 0; k--) {
     const [, cond, closedIn] = contacts[int(0, contacts.length - 1)];
     const target = inputs[int(0, inputs.length - 1)][0];
-    rules.push(inhibit("CUT", { not: { cond, in: closedIn } }, g(fc.boolean) ? "drive" : { energized: target }));
+    rules.push(inhibit(`CUT${k}`, { not: { cond, in: closedIn } }, g(fc.boolean) ? "drive" : { energized: target }));
   }
+  if (rules.length === 0) rules.push(inhibit("R", { always: true }));
   if (g(fc.boolean)) rules.push(noRestart("NR"));
   const lockouts = subset(["power-on", "enable-restore", "direction-engage", "brake-release", "throttle-fault"], 0) as Lockout[];
   return makeDesign({

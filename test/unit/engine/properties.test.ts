@@ -33,6 +33,8 @@ import { refVerdict } from "./reference";
 const designs = fc.gen().map((g) => randomDesign(g));
 /** Fewer nets for the same contacts: more parallel paths and bridges. */
 const meshedDesigns = fc.gen().map((g) => randomDesign(g, { meshed: true, maxContacts: 9 }));
+/** Meshed wiring whose rules are cut rules (hold when one contact cuts the paths), so faults matter. */
+const faultProneDesigns = fc.gen().map((g) => randomDesign(g, { meshed: true, maxContacts: 9, cutRules: true }));
 
 /** Energized inputs of one row by connected components of a terminal graph (wires + closed contacts). */
 function inputsByComponents(d: Design, states: Record<string, string>): Record<string, boolean> {
@@ -184,6 +186,7 @@ describe("random designs", () => {
   it.each([
     ["random", designs],
     ["meshed", meshedDesigns],
+    ["fault-prone", faultProneDesigns],
   ] as const)("get the same verdict as the row-at-a-time reference evaluator (%s wiring)", (_, arb) => {
     fc.assert(
       fc.property(arb, (d) => {
