@@ -10,6 +10,7 @@ import {
   replayTrace,
   type CompiledDesign,
   type Design,
+  type InputFunction,
   type Lockout,
   type Predicate,
   type RowView,
@@ -147,11 +148,9 @@ export function generateBenchPlan(design: Design): BenchPlan {
 
   // ------------------------------------------------------------ rest row and search pool
   const rest = restRow(c, book);
-  const { pool, exhaustive } = searchPool(c, book, rest);
+  const { pool, exhaustive, anchors } = searchPool(c, book, rest);
   const inPool = new Set(pool);
-  const poolNote = exhaustive
-    ? ""
-    : ` (searched ${pool.length} of ${c.rows} rows, those near ${ANCHOR_DRIVE_ROWS} sampled drive rows)`;
+  const poolNote = exhaustive ? "" : ` (searched ${pool.length} of ${c.rows} rows, those near ${anchors} sampled drive rows)`;
 
   const uncovered: BenchPlan["uncovered"] = [];
 
@@ -264,7 +263,12 @@ export function generateBenchPlan(design: Design): BenchPlan {
       if (seq) sequences.push(seq);
       else {
         const steady = pool.some((i) => book.view(i).drive);
-        uncovered.push({ item: `lockout:${l}`, reason: lockoutReason(c, l, steady, drives.length > 0) + poolNote });
+        const live = (fn: InputFunction) => c.inputOf[fn] >= 0 && pool.every((i) => book.view(i).inputs[c.inputs[c.inputOf[fn]].id]);
+        const always = l === "power-on" && live("power") ? "power" : l === "enable-restore" && live("enable") ? "enable" : null;
+        const reason = always
+          ? `the ${always} input ${naming.input(c.inputs[c.inputOf[always]].id)} is live in every row, so it never comes on`
+          : lockoutReason(c, l, steady, drives.length > 0);
+        uncovered.push({ item: `lockout:${l}`, reason: reason + poolNote });
       }
     }
   }
@@ -442,11 +446,11 @@ function restRow(c: CompiledDesign, book: RowBook): number {
   return (best ?? rows[0]).index;
 }
 
-function searchPool(c: CompiledDesign, book: RowBook, rest: number): { pool: number[]; exhaustive: boolean } {
+function searchPool(c: CompiledDesign, book: RowBook, rest: number): { pool: number[]; exhaustive: boolean; anchors: number } {
   if (c.rows <= EXHAUSTIVE_ROWS) {
     const { rows } = pageRows(c, { count: c.rows });
     rows.forEach((v) => book.remember(v));
-    return { pool: rows.map((v) => v.index), exhaustive: true };
+    return { pool: rows.map((v) => v.index), exhaustive: true, anchors: 0 };
   }
   // Large tables: sampled drive rows, their single-condition neighbours, and their variations over
   // each rule's own conditions (so rule test rows and contact pairs near drive are found).
@@ -473,7 +477,7 @@ function searchPool(c: CompiledDesign, book: RowBook, rest: number): { pool: num
       rows.forEach((i) => pool.add(i));
     }
   }
-  return { pool: [...pool].sort((x, y) => x - y), exhaustive: false };
+  return { pool: [...pool].sort((x, y) => x - y), exhaustive: false, anchors: anchors.size - 1 };
 }
 
 // ---------------------------------------------------------------- greedy cover
