@@ -2,8 +2,8 @@
 // rows are produced word by word and never held all at once.
 import type { CompiledDesign } from "./compile";
 import { THROTTLE_CLASSES } from "./compile";
-import { matchingRows, type RowFilter } from "./rows";
-import { WORD, type WordEvaluator } from "./table";
+import { compileFilter, FilterScanner, type RowFilter } from "./rows";
+import { lowestBit, popcount, WORD } from "./table";
 
 const CHUNK_CHARS = 1 << 16;
 
@@ -48,88 +48,112 @@ function columnWidths(c: CompiledDesign): number[] {
   return csvHeader(c).map((h, i) => Math.max(h.length, values[i]));
 }
 
-/** The fields of each matching row from position `from`, at most `count` rows. */
-function* rowFields(
+/**
+ * Lines of the matching rows from position `from`, at most `count`, in chunks. Each column's
+ * possible values are formatted once up front (`cell(column, text)`), so a row is a concatenation.
+ */
+function* rowLines(
   c: CompiledDesign,
   filter: RowFilter | undefined,
   opts: { from?: number; count?: number },
-  stateText: string[][],
-): Generator<string[]> {
+  cell: (column: number, text: string) => string,
+  sep: string,
+  header: string,
+): Generator<string> {
   const from = Math.max(0, Math.floor(opts.from ?? 0));
   const count = opts.count === undefined ? Infinity : Math.max(0, Math.floor(opts.count));
-  if (count === 0) return;
   const inhibit = c.rules.filter((r) => r.type === "inhibit").map((r) => r.index);
-  let ev: WordEvaluator | undefined;
-  let unsafe: number[] = [];
-  let forbidden: number[] = [];
-  const onWord = (e: WordEvaluator) => {
-    ev = e;
-    unsafe = inhibit.map((r) => e.unsafeWord(r));
-    forbidden = inhibit.map((r) => e.forbiddenWord(r));
-  };
+  let col = 1;
+  const states = c.conditions.map((cond) => {
+    const at = col++;
+    return cond.states.map((s) => sep + cell(at, s));
+  });
+  const strides = c.conditions.map((x) => x.stride);
+  const radices = c.conditions.map((x) => x.radix);
+  const bits = (at: number) => [sep + cell(at, "0"), sep + cell(at, "1")];
+  const inputs = c.inputs.map(() => bits(col++));
+  const inputNets = c.inputs.map((x) => x.net);
+  const powered = bits(col++);
+  const enabled = bits(col++);
+  const dirCol = col++;
+  const direction = ["forward", "neutral", "reverse", "conflict"].map((d) => sep + cell(dirCol, d));
+  const braking = bits(col++);
+  const thrCol = col++;
+  const throttle = THROTTLE_CLASSES.map((t) => sep + cell(thrCol, t));
+  const drive = bits(col++);
+  const ruleCells = inhibit.map(() => {
+    const at = col++;
+    return ["-", "unsafe", "violating"].map((v) => sep + cell(at, v));
+  });
+  const unsafe = new Int32Array(inhibit.length);
+  const forbidden = new Int32Array(inhibit.length);
+
+  let chunk = header;
   let position = 0;
   let emitted = 0;
-  for (const index of matchingRows(c, filter, onWord)) {
-    if (position++ < from) continue;
-    const e = ev!;
-    const j = index - e.wordIndex * WORD;
-    const bit = (x: number) => ((x >>> j) & 1 ? "1" : "0");
-    const f: string[] = [String(index)];
-    for (let k = 0; k < c.conditions.length; k++) {
-      const cond = c.conditions[k];
-      f.push(stateText[k][Math.floor(index / cond.stride) % cond.radix]);
+  const scanner = new FilterScanner(c, compileFilter(c, filter));
+  const e = scanner.ev;
+  for (let w = 0; w < e.wordCount && emitted < count; w++) {
+    let m = scanner.word(w);
+    if (m === 0) continue;
+    const n = popcount(m);
+    if (position + n <= from) {
+      position += n;
+      continue;
     }
-    for (const input of c.inputs) f.push(bit(e.reach[input.net]));
-    f.push(
-      bit(e.powered),
-      bit(e.enabled),
-      (e.dirForward >>> j) & 1 ? "forward" : (e.dirReverse >>> j) & 1 ? "reverse" : (e.dirNeutral >>> j) & 1 ? "neutral" : "conflict",
-      bit(e.braking),
-      THROTTLE_CLASSES[(e.thrReleased >>> j) & 1 ? 0 : (e.thrApplied >>> j) & 1 ? 1 : 2],
-      bit(e.drive),
-    );
     for (let k = 0; k < inhibit.length; k++) {
-      f.push(!((unsafe[k] >>> j) & 1) ? "-" : (forbidden[k] >>> j) & 1 ? "violating" : "unsafe");
+      unsafe[k] = e.unsafeWord(inhibit[k]);
+      forbidden[k] = e.forbiddenWord(inhibit[k]);
     }
-    yield f;
-    if (++emitted >= count) return;
-  }
-}
-
-/** CSV: the header line, then matching rows from position `from` (within the filtered rows), `count` at most. */
-export function* csvChunks(
-  c: CompiledDesign,
-  filter?: RowFilter,
-  opts: { from?: number; count?: number } = {},
-): Generator<string> {
-  const stateText = c.conditions.map((cond) => cond.states.map(csvField));
-  let chunk = csvHeader(c).map(csvField).join(",") + "\n";
-  for (const f of rowFields(c, filter, opts, stateText)) {
-    chunk += f.join(",") + "\n";
-    if (chunk.length >= CHUNK_CHARS) {
-      yield chunk;
-      chunk = "";
+    while (m !== 0 && emitted < count) {
+      const j = lowestBit(m);
+      m &= m - 1;
+      if (position++ < from) continue;
+      const index = w * WORD + j;
+      let line = cell(0, String(index));
+      for (let k = 0; k < states.length; k++) line += states[k][Math.floor(index / strides[k]) % radices[k]];
+      for (let k = 0; k < inputs.length; k++) line += inputs[k][(e.reach[inputNets[k]] >>> j) & 1];
+      line +=
+        powered[(e.powered >>> j) & 1] +
+        enabled[(e.enabled >>> j) & 1] +
+        direction[(e.dirForward >>> j) & 1 ? 0 : (e.dirNeutral >>> j) & 1 ? 1 : (e.dirReverse >>> j) & 1 ? 2 : 3] +
+        braking[(e.braking >>> j) & 1] +
+        throttle[(e.thrReleased >>> j) & 1 ? 0 : (e.thrApplied >>> j) & 1 ? 1 : 2] +
+        drive[(e.drive >>> j) & 1];
+      for (let k = 0; k < ruleCells.length; k++) {
+        line += ruleCells[k][(unsafe[k] >>> j) & 1 ? 1 + ((forbidden[k] >>> j) & 1) : 0];
+      }
+      chunk += line + "\n";
+      emitted++;
+      if (chunk.length >= CHUNK_CHARS) {
+        yield chunk;
+        chunk = "";
+      }
     }
   }
   if (chunk.length > 0) yield chunk;
 }
 
+/** CSV: the header line, then matching rows from position `from` (within the filtered rows), `count` at most. */
+export function csvChunks(
+  c: CompiledDesign,
+  filter?: RowFilter,
+  opts: { from?: number; count?: number } = {},
+): Generator<string> {
+  const header = csvHeader(c).map(csvField).join(",") + "\n";
+  return rowLines(c, filter, opts, (_, text) => csvField(text), ",", header);
+}
+
 /** The same rows as an aligned, human-readable text table (header line first). */
-export function* textTableChunks(
+export function textTableChunks(
   c: CompiledDesign,
   filter?: RowFilter,
   opts: { from?: number; count?: number } = {},
 ): Generator<string> {
   const widths = columnWidths(c);
-  const line = (f: string[]) => f.map((x, i) => (i === 0 ? x.padStart(widths[i]) : x.padEnd(widths[i]))).join("  ").trimEnd();
-  const stateText = c.conditions.map((cond) => cond.states.slice());
-  let chunk = line(csvHeader(c)) + "\n";
-  for (const f of rowFields(c, filter, opts, stateText)) {
-    chunk += line(f) + "\n";
-    if (chunk.length >= CHUNK_CHARS) {
-      yield chunk;
-      chunk = "";
-    }
-  }
-  if (chunk.length > 0) yield chunk;
+  const last = widths.length - 1;
+  const cell = (column: number, text: string) =>
+    column === 0 ? text.padStart(widths[0]) : column === last ? text : text.padEnd(widths[column]);
+  const header = csvHeader(c).map((h, i) => cell(i, h)).join("  ") + "\n";
+  return rowLines(c, filter, opts, cell, "  ", header);
 }

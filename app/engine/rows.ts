@@ -140,14 +140,14 @@ export function evaluateRow(c: CompiledDesign, index: number, faults: readonly C
 
 // ---------------------------------------------------------------- filters
 
-type CompiledFilter = {
+export type CompiledFilter = {
   key: string;
   only: RowFilter["only"];
   rules: number[];
   where: Literal[];
 };
 
-function compileFilter(c: CompiledDesign, filter: RowFilter = {}): CompiledFilter {
+export function compileFilter(c: CompiledDesign, filter: RowFilter = {}): CompiledFilter {
   let rules: number[] = [];
   if (filter.rule !== undefined) {
     const r = c.rules.find((x) => x.id === filter.rule);
@@ -177,7 +177,7 @@ function compileFilter(c: CompiledDesign, filter: RowFilter = {}): CompiledFilte
 }
 
 /** Scans matching rows word by word. */
-class FilterScanner {
+export class FilterScanner {
   readonly ev: WordEvaluator;
   private readonly extra: ExtraLiterals | null;
   constructor(
