@@ -82,6 +82,8 @@ export function useLayoutRequests() {
   const layoutRequest = useEditor((s) => s.layoutRequest);
   const fitRequest = useEditor((s) => s.fitRequest);
   const { fitView } = useReactFlow();
+  const fit = useRef(fitView);
+  fit.current = fitView;
   useEffect(() => {
     if (layoutRequest === 0) return;
     let cancelled = false;
@@ -96,9 +98,11 @@ export function useLayoutRequests() {
     };
   }, [store, layoutRequest]);
   useEffect(() => {
-    const id = requestAnimationFrame(() => fitView({ padding: 0.2, maxZoom: 1.2, duration: 0 }));
+    // xyflow queues a fit requested on an empty canvas until the first node appears; don't ask then.
+    if (store.getState().nodes.length === 0) return;
+    const id = requestAnimationFrame(() => void fit.current({ padding: 0.2, maxZoom: 1.2, duration: 0 }));
     return () => cancelAnimationFrame(id);
-  }, [fitRequest, fitView]);
+  }, [store, fitRequest]);
 }
 
 export type DraftState =

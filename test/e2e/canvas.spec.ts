@@ -1,0 +1,143 @@
+// The design editor end to end: build a design by mouse from an empty one, prove it, save it as a
+// revision, have an unsafe save refused with its counterexample, and open it read-only as a reviewer.
+import type { Page } from "@playwright/test";
+import { expect, signIn, test } from "../support/e2e";
+
+const WS = "larkspur";
+test.use({ viewport: { width: 1440, height: 900 } });
+
+async function newDesign(page: Page, name: string): Promise<string> {
+  const res = await page.request.post(`/api/v1/designs?workspace=${WS}`, { data: { name } });
+  expect(res.status()).toBe(201);
+  const body = (await res.json()) as { design: { id: string } };
+  return body.design.id;
+}
+
+const editorUrl = (id: string) => `/w/${WS}/designs/${id}/edit`;
+
+export async function dropFromPalette(page: Page, item: string, x: number, y: number) {
+  await page.getByTestId(`palette-${item}`).dragTo(page.locator(".react-flow__pane"), { targetPosition: { x, y } });
+}
+
+/** Drags a wire from one terminal handle to another, as a person does with the mouse. */
+export async function wire(page: Page, from: string, to: string) {
+  const a = (await page.getByTestId(`handle-${from.replace(".", "-")}`).boundingBox())!;
+  const b = (await page.getByTestId(`handle-${to.replace(".", "-")}`).boundingBox())!;
+  await page.mouse.move(a.x + a.width / 2, a.y + a.height / 2);
+  await page.mouse.down();
+  await page.mouse.move(b.x + b.width / 2 - 6, b.y + b.height / 2, { steps: 8 });
+  await page.mouse.move(b.x + b.width / 2, b.y + b.height / 2, { steps: 2 });
+  await page.mouse.up();
+}
+
+async function addCondition(page: Page, id: string, states: [string, string]) {
+  await page.getByRole("tab", { name: "Conditions" }).click();
+  await page.getByRole("button", { name: "+ Condition" }).click();
+  const card = page.getByRole("group", { name: /^Condition c\d+$/ }).last();
+  await card.getByLabel("State 1 of", { exact: false }).fill(states[0]);
+  await card.getByLabel("State 2 of", { exact: false }).fill(states[1]);
+  await card.getByLabel("Id").fill(id);
+  await expect(page.getByTestId(`condition-${id}`)).toBeVisible();
+}
+
+async function setContact(page: Page, id: string, condition: string, closedIn: string) {
+  await page.getByTestId(`node-${id}`).click();
+  await page.getByRole("tab", { name: "Properties" }).click();
+  await page.getByLabel("Condition", { exact: true }).selectOption(condition);
+  const chips = page.getByRole("group", { name: "Closed in states" });
+  for (const b of await chips.getByRole("button", { pressed: true }).all()) await b.click();
+  await chips.getByRole("button", { name: closedIn }).click();
+}
+
+const status = (page: Page) => page.getByTestId("proof-status");
+
+export async function buildInletDesign(page: Page) {
+  await expect(status(page)).toBeVisible();
+  await addCondition(page, "key", ["off", "on"]);
+  await addCondition(page, "seat", ["empty", "occupied"]);
+  await addCondition(page, "plug", ["free", "inserted"]);
+
+  await dropFromPalette(page, "supply", 60, 120);
+  await dropFromPalette(page, "contact", 230, 120);
+  await dropFromPalette(page, "contact", 440, 120);
+  await dropFromPalette(page, "contact", 650, 120);
+  await dropFromPalette(page, "input-enable", 440, 330);
+  await expect(page.locator(".react-flow__node")).toHaveCount(5);
+  await wire(page, "B1.+", "K1.1");
+  await wire(page, "K1.2", "K2.1");
+  await wire(page, "K2.2", "K3.1");
+  await wire(page, "K3.2", "EN.in");
+  await expect(page.locator(".react-flow__edge")).toHaveCount(4);
+
+  await setContact(page, "K1", "key", "on");
+  await setContact(page, "K2", "seat", "occupied");
+  await setContact(page, "K3", "plug", "free");
+
+  await page.getByRole("tab", { name: "Rules" }).click();
+  await page.getByRole("button", { name: "+ Inhibit rule" }).click();
+  const rule = page.getByTestId("rule-R1");
+  await rule.getByLabel("Label").fill("No drive while charging");
+  await rule.getByLabel("Condition", { exact: true }).selectOption("plug");
+  await rule.getByRole("button", { name: "inserted" }).click();
+}
+
+test("an engineer builds, proves and saves a design from an empty one; an unsafe save is refused", async ({ page }) => {
+  await signIn(page, "engineer");
+  const id = await newDesign(page, `Meadowline deck mower M-11 canvas ${Date.now()}`);
+  await page.goto(editorUrl(id));
+  await buildInletDesign(page);
+  // In series the inlet contact cuts drive while charging.
+  await expect(status(page)).toContainText("Proven");
+
+  // Moved in parallel with the seat switch, it no longer does.
+  await page.getByTestId("node-K3").click();
+  await page.keyboard.press("Delete");
+  await page.getByTestId("node-K2").click();
+  await page.getByRole("button", { name: "Add in parallel" }).first().click();
+  // The id K3 is free again, so the new contact takes it.
+  await setContact(page, "K3", "plug", "free");
+  await wire(page, "K2.2", "EN.in");
+  await expect(status(page)).toContainText("1 of 1 rule fails");
+  await page.getByRole("tab", { name: "Problems" }).click();
+  await expect(page.getByTestId("failing-R1")).toContainText("plug = inserted");
+
+  // Saving the unsafe design is refused with its counterexample.
+  await page.getByLabel("Revision message").fill("Inlet across the seat switch");
+  await page.getByRole("button", { name: "Save revision" }).click();
+  await expect(page.getByText("Revision refused")).toBeVisible();
+  await expect(page.getByText("Not proven: only a design whose every rule holds")).toBeVisible();
+  await page.getByRole("button", { name: "Show this row on the canvas" }).first().click();
+  await expect(page.getByTestId("sim-drive")).toContainText("Drive ON");
+  await page.getByRole("button", { name: "Back to editing" }).click();
+
+  // Back to series (undo the parallel contact and the wire), then save revision 1.
+  for (let i = 0; i < 12 && !(await status(page).textContent())?.includes("Proven"); i++) {
+    await page.getByRole("button", { name: "Undo" }).click();
+    await expect(status(page)).not.toContainText("Checking");
+  }
+  await expect(status(page)).toContainText("Proven");
+  await page.getByLabel("Revision message").fill("Inlet switch in series");
+  await page.getByRole("button", { name: "Save revision" }).click();
+  await expect(page.getByText("Revision 1 saved")).toBeVisible();
+  await expect(page.getByTestId("revision-status")).toHaveText("Revision 1, proven");
+  await expect(page.getByText("Draft saved")).toBeVisible();
+
+  await page.reload();
+  await expect(page.getByTestId("revision-status")).toHaveText("Revision 1, proven");
+  await expect(status(page)).toContainText("Proven");
+  await expect(page.getByTestId("node-K3")).toBeVisible();
+});
+
+test("a reviewer sees the canvas read-only but may simulate", async ({ page }) => {
+  await signIn(page, "engineer");
+  const id = await newDesign(page, `Scree trail bike prototype P2 canvas ${Date.now()}`);
+  await page.context().clearCookies();
+  await signIn(page, "reviewer");
+  await page.goto(editorUrl(id));
+  await expect(page.getByText("Read only")).toBeVisible();
+  await expect(page.getByRole("navigation", { name: "Component palette" })).toHaveCount(0);
+  await expect(page.getByRole("button", { name: "Save revision" })).toHaveCount(0);
+  await expect(page.getByRole("button", { name: "Undo" })).toHaveCount(0);
+  await page.getByRole("tab", { name: "Conditions" }).click();
+  await expect(page.getByRole("button", { name: "+ Condition" })).toBeDisabled();
+});
