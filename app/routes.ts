@@ -28,6 +28,9 @@ export default [
     ]),
   ]),
 
+  // Uploaded files, for members of the workspace (outside the shell: a resource route).
+  route("w/:ws/files/:uploadId", "routes/file.ts"),
+
   // Resource routes.
   route("api/auth/*", "routes/api/auth.ts"),
   route("healthz", "routes/api/healthz.ts"),
