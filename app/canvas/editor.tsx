@@ -494,7 +494,7 @@ function StatusBar({ draft, readOnly }: { draft: DraftState; readOnly: boolean }
     tone = "text-brick-700";
   } else if (proof.status === "done") {
     const failing = proof.verdict.rules.filter((r) => !r.holds).length;
-    proofText = failing === 0 ? "Proven: every rule holds" : `${failing} of ${proof.verdict.rules.length} ${failing === 1 ? "rule fails" : "rules fail"}`;
+    proofText = failing === 0 ? "Proven: every rule holds" : `${failing} of ${proof.verdict.rules.length} ${proof.verdict.rules.length === 1 ? "rule fails" : "rules fail"}`;
     tone = failing === 0 ? "text-moss-700" : "text-brick-700";
     proofText += ` · ${proof.verdict.rows.toLocaleString("en-US")} rows, ${proof.verdict.driveRows.toLocaleString("en-US")} with drive`;
     if (proof.verdict.singleFaults.length) proofText += ` · ${proof.verdict.singleFaults.length} single ${proof.verdict.singleFaults.length === 1 ? "fault defeats" : "faults defeat"} a rule`;
