@@ -1,8 +1,10 @@
 import { defineConfig } from "vitest/config";
+import path from "node:path";
 
 // Two projects: pure unit tests (engine, components) and integration tests
 // that talk to the real PostgreSQL started by scripts/test.sh.
 export default defineConfig({
+  resolve: { alias: { "~": path.resolve(import.meta.dirname, "app") } },
   test: {
     projects: [
       {

@@ -42,6 +42,9 @@ app.all(
 const server = app.listen(port, host, () => {
   console.log(`chainproof: serving on http://${host}:${port}`);
 });
+// Longer than clients' idle pools, so a reused keep-alive connection is not closed under a request.
+server.keepAliveTimeout = 65_000;
+server.headersTimeout = 66_000;
 const stop = () => server.close(() => process.exit(0));
 process.on("SIGTERM", stop);
 process.on("SIGINT", stop);

@@ -4,3 +4,4 @@ export * from "./schema/workspace.server";
 export * from "./schema/mail.server";
 export * from "./schema/vehicle.server";
 export * from "./schema/design.server";
+export * from "./schema/upload.server";

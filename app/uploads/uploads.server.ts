@@ -1,0 +1,139 @@
+// Receiving, checking, storing and serving uploaded files. A failed upload leaves nothing behind.
+import { createHash } from "node:crypto";
+import { and, asc, eq } from "drizzle-orm";
+import { fileTypeFromBuffer } from "file-type";
+import { db, schema } from "~/db/client.server";
+import { recordAudit } from "~/audit/audit.server";
+import { deleteObject, getObject, putObject } from "./storage.server";
+
+export const MAX_UPLOAD_BYTES = 20 * 1024 * 1024;
+export const ACCEPTED_TYPES: Record<string, string> = {
+  "image/jpeg": "JPEG photo",
+  "image/png": "PNG image",
+  "image/webp": "WebP image",
+  "application/pdf": "PDF document",
+};
+
+export class UploadError extends Error {
+  constructor(
+    public readonly field: string,
+    message: string,
+    public readonly status = 400,
+  ) {
+    super(message);
+  }
+}
+
+/**
+ * Reads a multipart body with a hard size cap, so a huge upload is refused before it is buffered.
+ * The cap covers the whole request (file plus a little form overhead).
+ */
+export async function readCappedFormData(request: Request, cap = MAX_UPLOAD_BYTES + 64 * 1024): Promise<FormData> {
+  const declared = Number(request.headers.get("content-length") ?? "0");
+  if (declared > cap) throw new UploadError("file", `The file is too large: the limit is ${MAX_UPLOAD_BYTES / 1024 / 1024} MB.`, 413);
+  if (!request.body) throw new UploadError("file", "Choose a file to upload.");
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    let result: ReadableStreamReadResult<Uint8Array>;
+    try {
+      result = await reader.read();
+    } catch {
+      throw new UploadError("file", "The upload was interrupted. Nothing was saved; try again.");
+    }
+    if (result.done) break;
+    total += result.value.byteLength;
+    if (total > cap) {
+      await reader.cancel().catch(() => {});
+      throw new UploadError("file", `The file is too large: the limit is ${MAX_UPLOAD_BYTES / 1024 / 1024} MB.`, 413);
+    }
+    chunks.push(result.value);
+  }
+  const body = new Uint8Array(total);
+  let at = 0;
+  for (const c of chunks) {
+    body.set(c, at);
+    at += c.byteLength;
+  }
+  try {
+    return await new Request(request.url, { method: "POST", headers: request.headers, body }).formData();
+  } catch {
+    throw new UploadError("file", "The form could not be read. Choose the file again and retry.");
+  }
+}
+
+/** Checks the file by its content (never by its name), stores it, then records it; undoes the store if recording fails. */
+export async function saveUpload(opts: {
+  workspaceId: string;
+  subjectKind: string;
+  subjectId: string;
+  file: FormDataEntryValue | null;
+  userId: string;
+}) {
+  const file = opts.file;
+  if (!(file instanceof File) || file.size === 0) throw new UploadError("file", "Choose a file to upload.");
+  if (file.size > MAX_UPLOAD_BYTES) throw new UploadError("file", `The file is too large: the limit is ${MAX_UPLOAD_BYTES / 1024 / 1024} MB.`, 413);
+  const bytes = new Uint8Array(await file.arrayBuffer());
+  const detected = await fileTypeFromBuffer(bytes);
+  if (!detected || !(detected.mime in ACCEPTED_TYPES)) {
+    throw new UploadError("file", "Only JPEG, PNG or WebP photos and PDF documents are accepted (checked by the file's content).", 415);
+  }
+  const sha256 = createHash("sha256").update(bytes).digest("hex");
+  const id = crypto.randomUUID();
+  const storageKey = `${opts.workspaceId}/${opts.subjectKind}/${id}`;
+  const filename = (file.name || `upload.${detected.ext}`).replace(/[\r\n"\\/]/g, "_").slice(0, 200);
+  await putObject(storageKey, bytes, detected.mime, sha256);
+  try {
+    await db.transaction(async (tx) => {
+      await tx.insert(schema.upload).values({
+        id,
+        workspaceId: opts.workspaceId,
+        subjectKind: opts.subjectKind,
+        subjectId: opts.subjectId,
+        storageKey,
+        filename,
+        contentType: detected.mime,
+        size: bytes.byteLength,
+        sha256,
+        uploadedBy: opts.userId,
+      });
+      await recordAudit({ workspaceId: opts.workspaceId, actorId: opts.userId, action: "upload.created", subject: filename, detail: { subjectKind: opts.subjectKind, subjectId: opts.subjectId, sha256 } }, tx);
+    });
+  } catch (err) {
+    await deleteObject(storageKey).catch(() => {});
+    throw err;
+  }
+  return { id, filename, contentType: detected.mime, size: bytes.byteLength, sha256 };
+}
+
+export async function listUploads(workspaceId: string, subjectKind: string, subjectId: string) {
+  return db
+    .select({ id: schema.upload.id, filename: schema.upload.filename, contentType: schema.upload.contentType, size: schema.upload.size, sha256: schema.upload.sha256, createdAt: schema.upload.createdAt })
+    .from(schema.upload)
+    .where(and(eq(schema.upload.workspaceId, workspaceId), eq(schema.upload.subjectKind, subjectKind), eq(schema.upload.subjectId, subjectId)))
+    .orderBy(asc(schema.upload.createdAt));
+}
+
+/** The file as an HTTP response, for members of its workspace only (the caller has checked membership). */
+export async function uploadResponse(workspaceId: string, uploadId: string): Promise<Response> {
+  const rows = await db
+    .select()
+    .from(schema.upload)
+    .where(and(eq(schema.upload.id, uploadId), eq(schema.upload.workspaceId, workspaceId)))
+    .limit(1);
+  const row = rows[0];
+  if (!row) throw new Response("Not found", { status: 404 });
+  const obj = await getObject(row.storageKey);
+  const inline = row.contentType.startsWith("image/") || row.contentType === "application/pdf";
+  return new Response(obj.body, {
+    headers: {
+      "content-type": row.contentType,
+      "content-length": String(row.size),
+      "content-disposition": `${inline ? "inline" : "attachment"}; filename="${row.filename}"`,
+      "cache-control": "private, max-age=3600",
+      "x-content-sha256": row.sha256,
+      "content-security-policy": "default-src 'none'; img-src 'self'; style-src 'unsafe-inline'; sandbox",
+    },
+  });
+}
