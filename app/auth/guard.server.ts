@@ -4,8 +4,11 @@ import { redirect } from "react-router";
 import { auth } from "./auth.server";
 import { db, schema } from "~/db/client.server";
 import type { Role } from "~/lib/roles";
+import { env } from "~/env.server";
+import { resolveApiKey } from "./api-keys.server";
 
-export type SignedIn = { user: { id: string; email: string; name: string }; sessionId: string };
+/** Who is asking: a browser session, or a personal API key bound to one workspace. */
+export type SignedIn = { user: { id: string; email: string; name: string }; sessionId: string; apiKeyWorkspaceId?: string };
 export type Membership = SignedIn & { workspace: { id: string; slug: string; name: string }; role: Role };
 
 type Kind = "page" | "api";
@@ -14,7 +17,15 @@ function apiError(status: number, code: string, message: string): Response {
   return Response.json({ error: { code, message, fields: [] } }, { status });
 }
 
+const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
+
 export async function getSignedIn(request: Request): Promise<SignedIn | null> {
+  const authorization = request.headers.get("authorization");
+  if (authorization?.toLowerCase().startsWith("bearer ")) {
+    const key = await resolveApiKey(authorization.slice(7).trim());
+    if (!key) return null;
+    return { user: { id: key.userId, email: key.email, name: key.name }, sessionId: `key:${key.id}`, apiKeyWorkspaceId: key.workspaceId };
+  }
   const found = await auth.api.getSession({ headers: request.headers });
   if (!found) return null;
   return { user: { id: found.user.id, email: found.user.email, name: found.user.name }, sessionId: found.session.id };
@@ -22,8 +33,18 @@ export async function getSignedIn(request: Request): Promise<SignedIn | null> {
 
 export async function requireUser(request: Request, kind: Kind = "page"): Promise<SignedIn> {
   const signedIn = await getSignedIn(request);
-  if (signedIn) return signedIn;
-  if (kind === "api") throw apiError(401, "unauthenticated", "Sign in first.");
+  if (signedIn) {
+    // A cookie-authenticated API mutation must come from our own pages (keys are not sent by browsers on their own).
+    if (kind === "api" && !signedIn.apiKeyWorkspaceId && !SAFE_METHODS.has(request.method.toUpperCase())) {
+      const origin = request.headers.get("origin");
+      if (origin !== new URL(env.APP_URL).origin) throw apiError(403, "bad_origin", "This request must come from Chainproof's own pages, or carry an API key.");
+    }
+    return signedIn;
+  }
+  if (kind === "api") {
+    const withKey = request.headers.get("authorization")?.toLowerCase().startsWith("bearer ");
+    throw apiError(401, "unauthenticated", withKey ? "This API key is not valid or was revoked." : "Sign in, or send a personal API key as Authorization: Bearer <key>.");
+  }
   const url = new URL(request.url);
   throw redirect(`/sign-in?next=${encodeURIComponent(url.pathname + url.search)}`);
 }
@@ -46,7 +67,8 @@ export async function requireMember(
     .where(and(eq(schema.workspace.slug, slug ?? ""), eq(schema.member.userId, signedIn.user.id)))
     .limit(1);
   const row = rows[0];
-  if (!row) {
+  // A key works only in the workspace it was made for.
+  if (!row || (signedIn.apiKeyWorkspaceId && signedIn.apiKeyWorkspaceId !== row.id)) {
     if (kind === "api") throw apiError(404, "not_found", "No such workspace.");
     throw new Response("Not found", { status: 404, statusText: "Not found" });
   }

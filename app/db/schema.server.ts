@@ -5,3 +5,4 @@ export * from "./schema/mail.server";
 export * from "./schema/vehicle.server";
 export * from "./schema/design.server";
 export * from "./schema/upload.server";
+export * from "./schema/api-key.server";
