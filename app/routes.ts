@@ -22,6 +22,7 @@ export default [
       route("designs", "routes/designs.tsx"),
       route("designs/new", "routes/design-new.tsx"),
       route("designs/:designId", "routes/design.tsx"),
+      route("designs/:designId/edit", "routes/design-editor.tsx"),
       route("reviews", "routes/reviews.tsx"),
       route("bench-tests", "routes/bench-tests.tsx"),
       route("settings", "routes/settings.tsx"),

@@ -4,5 +4,3 @@ export const designPath = (ws: string, designId: string) => `${designsPath(ws)}/
 /** The canvas editor; with a revision number it shows that revision, read-only. */
 export const editorPath = (ws: string, designId: string, revision?: number) =>
   `${designPath(ws, designId)}/edit${revision ? `?revision=${revision}` : ""}`;
-/** The canvas editor route is mounted once the canvas component exists. */
-export const EDITOR_READY = false;

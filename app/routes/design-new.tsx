@@ -6,7 +6,7 @@ import { fieldErrors, formObject } from "~/lib/forms";
 import { useFormCheck } from "~/lib/use-form-check";
 import { createDesign } from "~/designs/designs.server";
 import { createDesignSchema, STARTS } from "~/designs/forms";
-import { designPath, editorPath, EDITOR_READY } from "~/designs/paths";
+import { editorPath } from "~/designs/paths";
 import { listVehicles } from "~/vehicles/vehicles.server";
 import { PageHeader } from "~/components/page-header";
 import { Button, SelectField, TextField } from "~/components/ui/form";
@@ -29,7 +29,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   if (!parsed.success) return data({ fields: fieldErrors(parsed.error) }, { status: 400 });
   const created = await createDesign(m.workspace.id, m.user.id, parsed.data);
   if (!created.ok) return data({ fields: created.fields }, { status: 400 });
-  return redirect(EDITOR_READY ? editorPath(m.workspace.slug, created.id) : designPath(m.workspace.slug, created.id));
+  return redirect(editorPath(m.workspace.slug, created.id));
 }
 
 export default function NewDesign({ loaderData, actionData }: Route.ComponentProps) {
@@ -74,7 +74,7 @@ export default function NewDesign({ loaderData, actionData }: Route.ComponentPro
             ) : null}
           </fieldset>
           <Button type="submit" disabled={busy}>
-            {busy ? "Creating…" : "Create the design"}
+            {busy ? "Creating…" : "Create and open the editor"}
           </Button>
         </Form>
       </section>

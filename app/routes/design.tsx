@@ -3,7 +3,7 @@ import type { Route } from "./+types/design";
 import { requireMember } from "~/auth/guard.server";
 import { CAN } from "~/lib/roles";
 import { getDesign, getDraft, getRevision, listRevisions, statusOf } from "~/designs/designs.server";
-import { designsPath, editorPath, EDITOR_READY } from "~/designs/paths";
+import { designsPath, editorPath } from "~/designs/paths";
 import { HashPrefix, Holds, NotProven, Section, StatusBadge, When } from "~/designs/design-bits";
 import { proveDocument } from "~/designs/proof";
 import type { Verdict } from "~/designs/types";
@@ -100,16 +100,14 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
           </span>
         }
         actions={
-          EDITOR_READY ? (
-            <Link to={editorPath(slug, design.id)} className={buttonClass(canEdit ? "primary" : "secondary")}>
-              {canEdit ? "Open the editor" : "View on the canvas"}
-            </Link>
-          ) : null
+          <Link to={editorPath(slug, design.id)} className={buttonClass(canEdit ? "primary" : "secondary")}>
+            {canEdit ? "Open the editor" : "View on the canvas"}
+          </Link>
         }
       />
 
-      <div className="grid gap-5 lg:grid-cols-3">
-        <div className="space-y-5 lg:col-span-2">
+      <div className="grid grid-cols-1 gap-5 lg:grid-cols-3">
+        <div className="min-w-0 space-y-5 lg:col-span-2">
           <Section
             title={latest ? `Latest revision: ${latest.number}` : "No revision yet"}
             aside={latest ? <HashPrefix hash={latest.contentHash} /> : null}
@@ -135,7 +133,7 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
             {history.length === 0 ? (
               <p className="text-sm text-ink-600">No revisions yet.</p>
             ) : (
-              <div className="-mx-5 overflow-x-auto">
+              <div className="relative -mx-5 overflow-x-auto">
                 <table className="min-w-full text-left text-sm">
                   <thead className="border-b border-ink-200 text-xs uppercase tracking-wide text-ink-500">
                     <tr>
@@ -156,11 +154,9 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
                         <td className="px-3 py-2 text-ink-700">{h.message || <span className="text-ink-400">—</span>}</td>
                         <td className="px-3 py-2"><HashPrefix hash={h.contentHash} /></td>
                         <td className="whitespace-nowrap px-5 py-2">
-                          {EDITOR_READY ? (
-                            <Link to={editorPath(slug, design.id, h.number)} className="text-copper-700 underline">
-                              View<span className="sr-only"> revision {h.number}</span>
-                            </Link>
-                          ) : null}
+                          <Link to={editorPath(slug, design.id, h.number)} className="text-copper-700 underline">
+                            View<span className="sr-only"> revision {h.number}</span>
+                          </Link>
                         </td>
                       </tr>
                     ))}
@@ -171,7 +167,7 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
           </Section>
         </div>
 
-        <div className="space-y-5">
+        <div className="min-w-0 space-y-5">
           <Section title="Draft">
             {draft ? (
               <div className="space-y-3 text-sm">
@@ -196,7 +192,7 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
                 <p className="text-ink-600">
                   The draft is the working copy. It is not proven until it is saved as a revision, which happens only when every rule holds.
                 </p>
-                {canEdit && EDITOR_READY ? (
+                {canEdit ? (
                   <Link to={editorPath(slug, design.id)} className={buttonClass("secondary")}>
                     Continue the draft
                   </Link>

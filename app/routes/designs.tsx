@@ -7,7 +7,7 @@ import { listVehicles } from "~/vehicles/vehicles.server";
 import { designFilterSchema, NO_VEHICLE } from "~/designs/forms";
 import { DESIGN_STATUSES, STATUS_LABELS, type DesignSummary } from "~/designs/types";
 import { HashPrefix, NotProven, StatusBadge, When } from "~/designs/design-bits";
-import { EDITOR_READY } from "~/designs/paths";
+import { designPath, editorPath } from "~/designs/paths";
 import { PageHeader } from "~/components/page-header";
 import { EmptyState } from "~/components/empty-state";
 import { buttonClass } from "~/components/ui/form";
@@ -20,6 +20,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const [designs, vehicles] = await Promise.all([listDesigns(m.workspace.id, filter), listVehicles(m.workspace.id)]);
   return {
     canEdit: (CAN.editDesigns as readonly string[]).includes(m.role),
+    slug: m.workspace.slug,
     filter,
     designs,
     vehicles: vehicles.map((v) => ({ id: v.id, name: v.name })),
@@ -30,7 +31,7 @@ const selectClass =
   "mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2 text-base sm:text-sm focus:border-copper-500 focus:outline-none focus:ring-2 focus:ring-copper-500/40";
 
 export default function Designs({ loaderData }: Route.ComponentProps) {
-  const { canEdit, filter, designs, vehicles } = loaderData;
+  const { canEdit, filter, designs, vehicles, slug } = loaderData;
   const submit = useSubmit();
   const filtered = filter.vehicle !== undefined || filter.status !== undefined;
   return (
@@ -109,7 +110,7 @@ export default function Designs({ loaderData }: Route.ComponentProps) {
       ) : (
         <ul className="space-y-3" aria-label="Designs">
           {designs.map((d) => (
-            <DesignRow key={d.id} d={d} canEdit={canEdit} />
+            <DesignRow key={d.id} d={d} canEdit={canEdit} slug={slug} />
           ))}
         </ul>
       )}
@@ -117,24 +118,22 @@ export default function Designs({ loaderData }: Route.ComponentProps) {
   );
 }
 
-function DesignRow({ d, canEdit }: { d: DesignSummary; canEdit: boolean }) {
+function DesignRow({ d, canEdit, slug }: { d: DesignSummary; canEdit: boolean; slug: string }) {
   const rev = d.latestRevision;
   return (
     <li className="rounded-lg border border-ink-200 bg-white p-4">
       <div className="flex flex-wrap items-start justify-between gap-3">
         <div className="min-w-0">
-          <Link to={d.id} className="text-base font-semibold text-ink-900 hover:text-copper-700 hover:underline">
+          <Link to={designPath(slug, d.id)} className="text-base font-semibold text-ink-900 hover:text-copper-700 hover:underline">
             {d.name}
           </Link>
           <p className="text-sm text-ink-600">{d.vehicleName ?? "No vehicle"}</p>
         </div>
         <div className="flex items-center gap-2">
           <StatusBadge status={d.status} />
-          {EDITOR_READY ? (
-            <Link to={`${d.id}/edit`} className={buttonClass("secondary", "min-h-9 px-3 py-1.5")}>
-              {canEdit ? "Edit" : "View canvas"}
-            </Link>
-          ) : null}
+          <Link to={editorPath(slug, d.id)} className={buttonClass("secondary", "min-h-9 px-3 py-1.5")}>
+            {canEdit ? "Edit" : "View canvas"}
+          </Link>
         </div>
       </div>
       <div className="mt-3 flex flex-wrap items-center gap-x-5 gap-y-2 text-sm">

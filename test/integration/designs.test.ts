@@ -395,7 +395,9 @@ describe("design pages", () => {
     expect(empty.status).toBe(400);
     const made = await engineer.fetch(`/w/${WS}/designs/new`, formBody({ name: "Test: made by form", vehicleId: "", start: "meadowline" }));
     expect(made.status).toBe(302);
-    const newId = (made.headers.get("location") ?? "").match(/designs\/([0-9a-f-]{36})/)?.[1];
+    const location = made.headers.get("location") ?? "";
+    expect(location).toMatch(new RegExp(`^/w/${WS}/designs/[0-9a-f-]{36}/edit$`));
+    const newId = location.match(/designs\/([0-9a-f-]{36})/)?.[1];
     expect(newId).toBeTruthy();
     created.push(newId!);
     const row = await db.query<{ version: number; base_revision: number; name: string }>(
@@ -403,5 +405,21 @@ describe("design pages", () => {
       [newId],
     );
     expect(row.rows).toEqual([{ version: 1, base_revision: 0, name: "Test: made by form" }]);
+  });
+
+  it("the editor page opens for every member, a saved revision read-only, and 404 for what is not there", async () => {
+    const id = await newDesign("Test: editor page", "haybarn");
+    expect((await saveRevision(engineer, id, PROVEN, 0)).status).toBe(201);
+    for (const c of [engineer, technician, reviewer, admin]) {
+      const res = await c.fetch(`/w/${WS}/designs/${id}/edit`);
+      expect(res.status).toBe(200);
+      expect(await res.text()).toContain("Safety caution");
+    }
+    const rev = await reviewer.fetch(`/w/${WS}/designs/${id}/edit?revision=1`);
+    expect(rev.status).toBe(200);
+    expect(await rev.text()).toContain("Opened revision 1, read-only");
+    expect((await reviewer.fetch(`/w/${WS}/designs/${id}/edit?revision=2`)).status).toBe(404);
+    expect((await reviewer.fetch(`/w/${WS}/designs/${id}/edit?revision=first`)).status).toBe(404);
+    expect((await reviewer.fetch(`/w/${WS}/designs/${crypto.randomUUID()}/edit`)).status).toBe(404);
   });
 });
