@@ -6,3 +6,5 @@ export * from "./schema/vehicle.server";
 export * from "./schema/design.server";
 export * from "./schema/upload.server";
 export * from "./schema/api-key.server";
+export * from "./schema/release.server";
+export * from "./schema/bench-run.server";
