@@ -7,6 +7,7 @@ import { fieldErrors, formObject, inviteSchema, roleChangeSchema } from "~/lib/f
 import { useFormCheck } from "~/lib/use-form-check";
 import { changeRole, inviteMember, listMembers, listOpenInvitations, removeMember, revokeInvitation } from "~/workspace/workspace.server";
 import { recentAudit } from "~/audit/audit.server";
+import { createApiKey, listApiKeys, revokeApiKey } from "~/auth/api-keys.server";
 import { PageHeader } from "~/components/page-header";
 import { Button, Notice, SelectField, TextField } from "~/components/ui/form";
 
@@ -15,10 +16,11 @@ export const meta: Route.MetaFunction = () => [{ title: "Settings · Chainproof"
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, params.ws, CAN.view);
   const isAdmin = m.role === "admin";
-  const [members, invitations, audit] = await Promise.all([
+  const [members, invitations, audit, keys] = await Promise.all([
     listMembers(m.workspace.id),
     isAdmin ? listOpenInvitations(m.workspace.id) : Promise.resolve([]),
     isAdmin ? recentAudit(m.workspace.id, 30) : Promise.resolve([]),
+    listApiKeys(m.workspace.id, m.user.id),
   ]);
   return {
     isAdmin,
@@ -26,44 +28,60 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     members,
     invitations: invitations.map((i) => ({ ...i, expiresAt: i.expiresAt.toISOString() })),
     audit: audit.map((a) => ({ ...a, at: a.at.toISOString() })),
+    keys: keys.map((k) => ({ id: k.id, name: k.name, prefix: k.prefix, createdAt: k.createdAt.toISOString(), lastUsedAt: k.lastUsedAt?.toISOString() ?? null })),
   };
 }
 
 const idSchema = z.object({ id: z.string().min(1, "Missing id.") });
+const keyNameSchema = z.object({ name: z.string().trim().min(1, "Name the key, e.g. after the script that uses it.").max(80, "Use at most 80 characters.") });
 
 export async function action({ request, params }: Route.ActionArgs) {
-  const m = await requireMember(request, params.ws, CAN.manageMembers);
   const form = await request.formData();
   const values = formObject(form);
+  // Personal API keys: every member manages their own.
+  if (values.intent === "create-key" || values.intent === "revoke-key") {
+    const me = await requireMember(request, params.ws, CAN.view);
+    if (values.intent === "create-key") {
+      const parsed = keyNameSchema.safeParse(values);
+      if (!parsed.success) return data({ intent: "create-key", ok: false, fields: fieldErrors(parsed.error), message: null, newKey: null }, { status: 400 });
+      const created = await createApiKey(me.workspace.id, me.user.id, parsed.data.name);
+      return { intent: "create-key", ok: true, fields: {}, message: "Key created. Copy it now: it is shown only once.", newKey: created.key };
+    }
+    const parsed = idSchema.safeParse(values);
+    if (!parsed.success || !(await revokeApiKey(me.workspace.id, me.user.id, parsed.data.id)))
+      return data({ intent: "revoke-key", ok: false, fields: {}, message: "No such key.", newKey: null }, { status: 400 });
+    return { intent: "revoke-key", ok: true, fields: {}, message: "Key revoked.", newKey: null };
+  }
+  const m = await requireMember(request, params.ws, CAN.manageMembers);
   switch (values.intent) {
     case "invite": {
       const parsed = inviteSchema.safeParse(values);
-      if (!parsed.success) return data({ intent: "invite", ok: false, fields: fieldErrors(parsed.error), message: null }, { status: 400 });
+      if (!parsed.success) return data({ intent: "invite", ok: false, fields: fieldErrors(parsed.error), message: null, newKey: null }, { status: 400 });
       await inviteMember(m.workspace, m.user, parsed.data.email, parsed.data.role);
-      return { intent: "invite", ok: true, fields: {}, message: `Invitation sent to ${parsed.data.email}.` };
+      return { intent: "invite", ok: true, fields: {}, message: `Invitation sent to ${parsed.data.email}.`, newKey: null };
     }
     case "change-role": {
       const parsed = roleChangeSchema.safeParse(values);
-      if (!parsed.success) return data({ intent: "change-role", ok: false, fields: fieldErrors(parsed.error), message: null }, { status: 400 });
+      if (!parsed.success) return data({ intent: "change-role", ok: false, fields: fieldErrors(parsed.error), message: null, newKey: null }, { status: 400 });
       const r = await changeRole(m.workspace.id, m.user.id, parsed.data.memberId, parsed.data.role);
-      if (!r.ok) return data({ intent: "change-role", ok: false, fields: {}, message: r.message }, { status: 400 });
-      return { intent: "change-role", ok: true, fields: {}, message: "Role changed." };
+      if (!r.ok) return data({ intent: "change-role", ok: false, fields: {}, message: r.message, newKey: null }, { status: 400 });
+      return { intent: "change-role", ok: true, fields: {}, message: "Role changed.", newKey: null };
     }
     case "remove": {
       const parsed = idSchema.safeParse(values);
-      if (!parsed.success) return data({ intent: "remove", ok: false, fields: fieldErrors(parsed.error), message: null }, { status: 400 });
+      if (!parsed.success) return data({ intent: "remove", ok: false, fields: fieldErrors(parsed.error), message: null, newKey: null }, { status: 400 });
       const r = await removeMember(m.workspace.id, m.user.id, parsed.data.id);
-      if (!r.ok) return data({ intent: "remove", ok: false, fields: {}, message: r.message }, { status: 400 });
-      return { intent: "remove", ok: true, fields: {}, message: "Member removed." };
+      if (!r.ok) return data({ intent: "remove", ok: false, fields: {}, message: r.message, newKey: null }, { status: 400 });
+      return { intent: "remove", ok: true, fields: {}, message: "Member removed.", newKey: null };
     }
     case "revoke": {
       const parsed = idSchema.safeParse(values);
-      if (!parsed.success) return data({ intent: "revoke", ok: false, fields: fieldErrors(parsed.error), message: null }, { status: 400 });
+      if (!parsed.success) return data({ intent: "revoke", ok: false, fields: fieldErrors(parsed.error), message: null, newKey: null }, { status: 400 });
       await revokeInvitation(m.workspace.id, m.user.id, parsed.data.id);
-      return { intent: "revoke", ok: true, fields: {}, message: "Invitation withdrawn." };
+      return { intent: "revoke", ok: true, fields: {}, message: "Invitation withdrawn.", newKey: null };
     }
     default:
-      return data({ intent: "unknown", ok: false, fields: { intent: "Unknown action." }, message: "Unknown action." }, { status: 400 });
+      return data({ intent: "unknown", ok: false, fields: { intent: "Unknown action." }, message: "Unknown action.", newKey: null }, { status: 400 });
   }
 }
 
@@ -108,6 +126,45 @@ export default function Settings({ loaderData, actionData }: Route.ComponentProp
             </li>
           ))}
         </ul>
+      </section>
+      <section className="mt-6 max-w-xl rounded-lg border border-ink-200 bg-white p-5">
+        <h2 className="font-semibold">Your API keys</h2>
+        <p className="mt-1 text-sm text-ink-600">
+          A key acts for you, with your role, in this workspace only. Send it as <code>Authorization: Bearer …</code>; the API is described at{" "}
+          <a className="text-copper-700 underline" href="/api/v1/docs">/api/v1/docs</a>.
+        </p>
+        {actionData?.newKey ? (
+          <div className="mt-3 rounded-md border border-moss-600 bg-moss-50 p-3">
+            <p className="text-sm font-medium text-moss-700">Your new key (shown once):</p>
+            <code className="mt-1 block break-all text-sm" data-testid="new-api-key">{actionData.newKey}</code>
+          </div>
+        ) : null}
+        {loaderData.keys.length > 0 ? (
+          <ul className="mt-3 divide-y divide-ink-100 text-sm">
+            {loaderData.keys.map((k) => (
+              <li key={k.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
+                <span>
+                  <span className="font-medium">{k.name}</span> <code className="text-ink-600">{k.prefix}…</code>
+                  <span className="block text-xs text-ink-500">
+                    created {k.createdAt.slice(0, 10)}{k.lastUsedAt ? `, last used ${k.lastUsedAt.slice(0, 16).replace("T", " ")}` : ", never used"}
+                  </span>
+                </span>
+                <Form method="post">
+                  <input type="hidden" name="intent" value="revoke-key" />
+                  <input type="hidden" name="id" value={k.id} />
+                  <Button tone="ghost" type="submit" aria-label={`Revoke key ${k.name}`}>Revoke</Button>
+                </Form>
+              </li>
+            ))}
+          </ul>
+        ) : null}
+        <Form method="post" className="mt-4 flex flex-wrap items-end gap-3">
+          <input type="hidden" name="intent" value="create-key" />
+          <div className="min-w-56 flex-1">
+            <TextField label="Key name" name="name" required error={actionData?.intent === "create-key" ? (actionData.fields as Record<string, string>).name : undefined} />
+          </div>
+          <Button type="submit" tone="secondary">Create key</Button>
+        </Form>
       </section>
       {loaderData.isAdmin ? (
         <>
