@@ -8,3 +8,4 @@ export * from "./schema/upload.server";
 export * from "./schema/api-key.server";
 export * from "./schema/release.server";
 export * from "./schema/bench-run.server";
+export * from "./schema/review.server";
