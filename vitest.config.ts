@@ -24,6 +24,16 @@ export default defineConfig({
           hookTimeout: 60_000,
         },
       },
+      {
+        // Stops and starts the test database: run on its own, after the integration tests.
+        test: {
+          name: "fault",
+          include: ["test/fault/**/*.test.ts"],
+          environment: "node",
+          fileParallelism: false,
+          testTimeout: 60_000,
+        },
+      },
     ],
   },
 });

@@ -76,6 +76,17 @@ try {
     await run("npx", ["vitest", "run", "--project", "integration", "--reporter=default", "--reporter=json", `--outputFile.json=${results}/integration.json`], testEnv),
   );
 
+  say("test", "fault tests (the database stopped and started under traffic)");
+  addVitest(
+    `${results}/fault.json`,
+    "fault",
+    await run("npx", ["vitest", "run", "--project", "fault", "--reporter=default", "--reporter=json", `--outputFile.json=${results}/fault.json`], {
+      ...testEnv,
+      CHAINPROOF_PG_DIR: ".data/test/postgres",
+      CHAINPROOF_PG_PORT: String(stack.pg.port),
+    }),
+  );
+
   say("test", "end-to-end tests (Chromium)");
   addPlaywright(`${results}/e2e.json`, await run("npx", ["playwright", "test"], { ...testEnv, PLAYWRIGHT_JSON_OUTPUT_NAME: `${results}/e2e.json` }));
 } catch (err) {

@@ -6,6 +6,17 @@ import { db, schema } from "~/db/client.server";
 import type { Role } from "~/lib/roles";
 import { env } from "~/env.server";
 import { resolveApiKey } from "./api-keys.server";
+import { databaseDownResponse, isDatabaseDown } from "~/db/unavailable.server";
+
+/** Runs a lookup; a database outage becomes a clean 503 for the caller instead of a 500. */
+async function orUnavailable<T>(kind: Kind, run: () => Promise<T>): Promise<T> {
+  try {
+    return await run();
+  } catch (err) {
+    if (isDatabaseDown(err)) throw databaseDownResponse(kind);
+    throw err;
+  }
+}
 
 /** Who is asking: a browser session, or a personal API key bound to one workspace. */
 export type SignedIn = { user: { id: string; email: string; name: string }; sessionId: string; apiKeyWorkspaceId?: string };
@@ -32,7 +43,7 @@ export async function getSignedIn(request: Request): Promise<SignedIn | null> {
 }
 
 export async function requireUser(request: Request, kind: Kind = "page"): Promise<SignedIn> {
-  const signedIn = await getSignedIn(request);
+  const signedIn = await orUnavailable(kind, () => getSignedIn(request));
   if (signedIn) {
     // A cookie-authenticated API mutation must come from our own pages (keys are not sent by browsers on their own).
     if (kind === "api" && !signedIn.apiKeyWorkspaceId && !SAFE_METHODS.has(request.method.toUpperCase())) {
@@ -60,12 +71,14 @@ export async function requireMember(
   kind: Kind = "page",
 ): Promise<Membership> {
   const signedIn = await requireUser(request, kind);
-  const rows = await db
-    .select({ id: schema.workspace.id, slug: schema.workspace.slug, name: schema.workspace.name, role: schema.member.role })
-    .from(schema.member)
-    .innerJoin(schema.workspace, eq(schema.member.workspaceId, schema.workspace.id))
-    .where(and(eq(schema.workspace.slug, slug ?? ""), eq(schema.member.userId, signedIn.user.id)))
-    .limit(1);
+  const rows = await orUnavailable(kind, () =>
+    db
+      .select({ id: schema.workspace.id, slug: schema.workspace.slug, name: schema.workspace.name, role: schema.member.role })
+      .from(schema.member)
+      .innerJoin(schema.workspace, eq(schema.member.workspaceId, schema.workspace.id))
+      .where(and(eq(schema.workspace.slug, slug ?? ""), eq(schema.member.userId, signedIn.user.id)))
+      .limit(1),
+  );
   const row = rows[0];
   // A key works only in the workspace it was made for.
   if (!row || (signedIn.apiKeyWorkspaceId && signedIn.apiKeyWorkspaceId !== row.id)) {
