@@ -35,6 +35,7 @@ export default [
   // Resource routes.
   route("api/auth/*", "routes/api/auth.ts"),
   route("healthz", "routes/api/healthz.ts"),
+  route("api/v1/outbox", "routes/api/outbox.ts"),
   // The design API (JSON in, JSON out; docs/decisions/030).
   ...prefix("api/v1", [
     route("designs", "routes/api/v1/designs.ts"),

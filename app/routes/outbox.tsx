@@ -1,4 +1,5 @@
-import { Link, useRevalidator } from "react-router";
+import { Link } from "react-router";
+import useSWR from "swr";
 import type { Route } from "./+types/outbox";
 import { env } from "~/env.server";
 import { recentMail } from "~/mail/outbox.server";
@@ -35,25 +36,30 @@ function Body({ text }: { text: string }) {
   );
 }
 
+type OutboxData = Route.ComponentProps["loaderData"];
+const fetchJson = (url: string) => fetch(url).then((r) => r.json() as Promise<OutboxData>);
+
 export default function Outbox({ loaderData }: Route.ComponentProps) {
-  const revalidator = useRevalidator();
+  // Live: new mail appears without a reload (every 3 s, and when the tab regains focus).
+  const { data, mutate } = useSWR("/api/v1/outbox", fetchJson, { fallbackData: loaderData, refreshInterval: 3000, revalidateOnFocus: true });
+  const mail = data?.mail ?? loaderData.mail;
   return (
     <main className="mx-auto max-w-3xl px-4 py-8">
       <div className="flex items-center justify-between">
         <Link to="/" className="text-ink-800">
           <Logo />
         </Link>
-        <Button tone="secondary" onClick={() => revalidator.revalidate()}>Refresh</Button>
+        <Button tone="secondary" onClick={() => void mutate()}>Refresh</Button>
       </div>
       <h1 className="mt-6 text-2xl font-semibold">Outbox</h1>
       <p className="mt-1 text-sm text-ink-600">
         Every message Chainproof sent while running locally, newest first. In production, mail goes to a real relay and this page does not exist.
       </p>
-      {loaderData.mail.length === 0 ? (
+      {mail.length === 0 ? (
         <p className="mt-8 rounded-md border border-dashed border-ink-300 bg-white p-6 text-center text-sm text-ink-600">No mail yet.</p>
       ) : (
         <ul className="mt-6 space-y-4">
-          {loaderData.mail.map((m) => (
+          {mail.map((m) => (
             <li key={m.id} className="rounded-lg border border-ink-200 bg-white p-4" data-testid="mail">
               <div className="flex flex-wrap items-baseline justify-between gap-2">
                 <h2 className="font-semibold">{m.subject}</h2>
