@@ -23,5 +23,7 @@ export const CAN = {
   editDesigns: ["engineer"],
   manageVehicles: ["admin", "engineer", "technician"],
   runBenchTests: ["technician"],
+  // Putting an approved revision on a vehicle is an engineering decision (docs/decisions/070).
+  releaseRevisions: ["admin", "engineer"],
   review: ["reviewer"],
 } as const satisfies Record<string, readonly Role[]>;

@@ -16,7 +16,14 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const vehicles = await listVehicles(m.workspace.id);
   return {
     canAdd: (CAN.manageVehicles as readonly string[]).includes(m.role),
-    vehicles: vehicles.map((v) => ({ id: v.id, name: v.name, serial: v.serial, model: v.model })),
+    vehicles: vehicles.map((v) => ({
+      id: v.id,
+      name: v.name,
+      serial: v.serial,
+      model: v.model,
+      needsAttention: v.needsAttention,
+      release: v.release ? { designName: v.release.designName, number: v.release.number } : null,
+    })),
   };
 }
 
@@ -45,6 +52,12 @@ export default function Vehicles({ loaderData, actionData }: Route.ComponentProp
               <Link to={v.id} className="block min-h-20 rounded-lg border border-ink-200 bg-white p-4 hover:border-copper-500">
                 <span className="block font-semibold">{v.name}</span>
                 <span className="block text-sm text-ink-600">{[v.model, v.serial].filter(Boolean).join(" · ") || "No model or serial yet"}</span>
+                <span className="mt-2 block text-xs text-ink-600">
+                  {v.release ? `Released: ${v.release.designName}, revision ${v.release.number}` : "No revision released"}
+                </span>
+                {v.needsAttention ? (
+                  <span className="mt-2 inline-block rounded-full bg-brick-600 px-2 py-0.5 text-xs font-semibold text-white">Needs attention</span>
+                ) : null}
               </Link>
             </li>
           ))}

@@ -1,0 +1,377 @@
+// Bench-test runs: started from the revision released to a vehicle (the generated procedure is
+// frozen into the run), one saved result per step, a failed step flags the vehicle and tells the
+// revision's author, and a completed run becomes a signed, hashed record (decisions 071-072).
+import { and, asc, desc, eq, inArray, sql } from "drizzle-orm";
+import { db, schema } from "~/db/client.server";
+import { recordAudit } from "~/audit/audit.server";
+import { env } from "~/env.server";
+import { composeMail, sendMail } from "~/mail/mailer.server";
+import { contentHash } from "~/designs/content-hash.server";
+import { validateDesign } from "~/engine";
+import { generateBenchPlan, type BenchPlan } from "~/bench-tests/generate";
+import { saveUpload } from "~/uploads/uploads.server";
+import { currentRelease, raiseAttention } from "~/vehicles/vehicles.server";
+import type { StepOutcome } from "./outcomes";
+
+const { benchRun, benchStepResult, vehicle, designRevision, design, user, workspace, upload } = schema;
+
+export const STEP_PHOTO_KIND = "bench-step";
+
+export class BenchRunError extends Error {
+  constructor(
+    public readonly field: string,
+    message: string,
+    public readonly status = 400,
+  ) {
+    super(message);
+  }
+}
+
+// ---------------------------------------------------------------- starting
+
+/** Starts a run on the revision released to the vehicle now. */
+export async function startRun(workspaceId: string, vehicleId: string, actorId: string): Promise<string> {
+  const release = await currentRelease(workspaceId, vehicleId);
+  if (!release) throw new BenchRunError("vehicle", "No revision is released to this vehicle, so there is no procedure to run.", 409);
+  const valid = validateDesign(release.document);
+  // Revisions are stored proven, so this only fails if the stored document was damaged.
+  if (!valid.ok) throw new BenchRunError("revision", `The released revision's document is not valid: ${valid.problems[0]?.message ?? "unknown problem"}.`, 409);
+  const plan = generateBenchPlan(valid.design);
+  if (plan.steps.length === 0) throw new BenchRunError("revision", "The released revision gives no bench steps (nothing in it can be checked from the controller inputs).", 409);
+  const id = crypto.randomUUID();
+  await db.transaction(async (tx) => {
+    await tx.insert(benchRun).values({
+      id,
+      workspaceId,
+      vehicleId,
+      revisionId: release.revisionId,
+      revisionHash: release.contentHash,
+      plan,
+      startedBy: actorId,
+    });
+    await tx.insert(benchStepResult).values(plan.steps.map((s) => ({ id: crypto.randomUUID(), workspaceId, runId: id, n: s.n })));
+    await recordAudit(
+      { workspaceId, actorId, action: "bench-run.started", subject: release.designName, detail: { runId: id, vehicleId, revisionId: release.revisionId, steps: plan.steps.length } },
+      tx,
+    );
+  });
+  return id;
+}
+
+// ---------------------------------------------------------------- reading
+
+export type RunFilter = { vehicleId?: string; status?: "in-progress" | "completed" | "failures" };
+
+/** Runs of the workspace (optionally of one vehicle), newest first, with their step counts. */
+export async function listRuns(workspaceId: string, filter: RunFilter = {}) {
+  const counts = db
+    .select({
+      runId: benchStepResult.runId,
+      total: sql<number>`count(*)::int`.as("total"),
+      done: sql<number>`count(${benchStepResult.outcome})::int`.as("done"),
+      failed: sql<number>`count(*) filter (where ${benchStepResult.outcome} = 'fail')::int`.as("failed"),
+      skipped: sql<number>`count(*) filter (where ${benchStepResult.outcome} = 'skip')::int`.as("skipped"),
+    })
+    .from(benchStepResult)
+    .where(eq(benchStepResult.workspaceId, workspaceId))
+    .groupBy(benchStepResult.runId)
+    .as("counts");
+  const rows = await db
+    .select({
+      id: benchRun.id,
+      status: benchRun.status,
+      startedAt: benchRun.startedAt,
+      completedAt: benchRun.completedAt,
+      vehicleId: vehicle.id,
+      vehicleName: vehicle.name,
+      designName: design.name,
+      number: designRevision.number,
+      startedByName: user.name,
+      total: counts.total,
+      done: counts.done,
+      failed: counts.failed,
+      skipped: counts.skipped,
+    })
+    .from(benchRun)
+    .innerJoin(vehicle, and(eq(vehicle.id, benchRun.vehicleId), eq(vehicle.workspaceId, benchRun.workspaceId)))
+    .innerJoin(designRevision, and(eq(designRevision.id, benchRun.revisionId), eq(designRevision.workspaceId, benchRun.workspaceId)))
+    .innerJoin(design, and(eq(design.id, designRevision.designId), eq(design.workspaceId, benchRun.workspaceId)))
+    .innerJoin(user, eq(user.id, benchRun.startedBy))
+    .innerJoin(counts, eq(counts.runId, benchRun.id))
+    .where(
+      and(
+        eq(benchRun.workspaceId, workspaceId),
+        filter.vehicleId ? eq(benchRun.vehicleId, filter.vehicleId) : undefined,
+        filter.status === "in-progress" || filter.status === "completed" ? eq(benchRun.status, filter.status) : undefined,
+        filter.status === "failures" ? sql`${counts.failed} > 0` : undefined,
+      ),
+    )
+    .orderBy(desc(benchRun.startedAt))
+    .limit(200);
+  return rows;
+}
+
+export type RunSummary = Awaited<ReturnType<typeof listRuns>>[number];
+
+/** One run with its plan, every step's result and photos; null when not in this workspace. */
+export async function getRun(workspaceId: string, runId: string) {
+  const rows = await db
+    .select({
+      run: benchRun,
+      vehicleName: vehicle.name,
+      vehicleSerial: vehicle.serial,
+      designId: design.id,
+      designName: design.name,
+      number: designRevision.number,
+      authorId: designRevision.authorId,
+      startedByName: user.name,
+      startedByEmail: user.email,
+    })
+    .from(benchRun)
+    .innerJoin(vehicle, and(eq(vehicle.id, benchRun.vehicleId), eq(vehicle.workspaceId, benchRun.workspaceId)))
+    .innerJoin(designRevision, and(eq(designRevision.id, benchRun.revisionId), eq(designRevision.workspaceId, benchRun.workspaceId)))
+    .innerJoin(design, and(eq(design.id, designRevision.designId), eq(design.workspaceId, benchRun.workspaceId)))
+    .innerJoin(user, eq(user.id, benchRun.startedBy))
+    .where(and(eq(benchRun.id, runId), eq(benchRun.workspaceId, workspaceId)))
+    .limit(1);
+  const row = rows[0];
+  if (!row) return null;
+  const results = await db
+    .select({ id: benchStepResult.id, n: benchStepResult.n, outcome: benchStepResult.outcome, note: benchStepResult.note, updatedAt: benchStepResult.updatedAt, updatedByName: user.name })
+    .from(benchStepResult)
+    .leftJoin(user, eq(user.id, benchStepResult.updatedBy))
+    .where(and(eq(benchStepResult.runId, runId), eq(benchStepResult.workspaceId, workspaceId)))
+    .orderBy(asc(benchStepResult.n));
+  const photos = results.length
+    ? await db
+        .select({ id: upload.id, subjectId: upload.subjectId, filename: upload.filename, contentType: upload.contentType, sha256: upload.sha256, createdAt: upload.createdAt })
+        .from(upload)
+        .where(
+          and(
+            eq(upload.workspaceId, workspaceId),
+            eq(upload.subjectKind, STEP_PHOTO_KIND),
+            inArray(
+              upload.subjectId,
+              results.map((r) => r.id),
+            ),
+          ),
+        )
+        .orderBy(asc(upload.createdAt), asc(upload.id))
+    : [];
+  let completedBy: { name: string; email: string } | null = null;
+  if (row.run.completedBy) {
+    const u = await db.select({ name: user.name, email: user.email }).from(user).where(eq(user.id, row.run.completedBy)).limit(1);
+    completedBy = u[0] ?? null;
+  }
+  return {
+    ...row,
+    completedBy,
+    results: results.map((r) => ({ ...r, photos: photos.filter((p) => p.subjectId === r.id) })),
+  };
+}
+
+export type RunDetail = NonNullable<Awaited<ReturnType<typeof getRun>>>;
+
+// ---------------------------------------------------------------- recording
+
+type LockedRun = { id: string; status: string; vehicleId: string; revisionId: string; plan: BenchPlan };
+
+async function lockRun(tx: Pick<typeof db, "select">, workspaceId: string, runId: string): Promise<LockedRun> {
+  const rows = await tx
+    .select({ id: benchRun.id, status: benchRun.status, vehicleId: benchRun.vehicleId, revisionId: benchRun.revisionId, plan: benchRun.plan })
+    .from(benchRun)
+    .where(and(eq(benchRun.id, runId), eq(benchRun.workspaceId, workspaceId)))
+    .for("update");
+  const run = rows[0];
+  if (!run) throw new BenchRunError("run", "No such bench run.", 404);
+  if (run.status === "completed") throw new BenchRunError("run", "This run is completed and signed; its results can no longer change.", 409);
+  return run;
+}
+
+function checkStep(run: LockedRun, n: number): void {
+  if (!Number.isInteger(n) || n < 1 || n > run.plan.steps.length) {
+    throw new BenchRunError("step", `There is no step ${n} in this run (it has steps 1 to ${run.plan.steps.length}).`);
+  }
+}
+
+/**
+ * Saves a step's outcome (null clears it). A step turning to "fail" flags the vehicle and mails the
+ * revision's author after the transaction commits; the result is saved even if the mail cannot go.
+ */
+export async function setStepOutcome(
+  workspaceId: string,
+  runId: string,
+  n: number,
+  outcome: StepOutcome | null,
+  actorId: string,
+): Promise<{ mailed: boolean }> {
+  const newlyFailed = await db.transaction(async (tx) => {
+    const run = await lockRun(tx, workspaceId, runId);
+    checkStep(run, n);
+    const before = await tx
+      .select({ outcome: benchStepResult.outcome })
+      .from(benchStepResult)
+      .where(and(eq(benchStepResult.runId, runId), eq(benchStepResult.workspaceId, workspaceId), eq(benchStepResult.n, n)));
+    await tx
+      .update(benchStepResult)
+      .set({ outcome, updatedBy: actorId, updatedAt: new Date() })
+      .where(and(eq(benchStepResult.runId, runId), eq(benchStepResult.workspaceId, workspaceId), eq(benchStepResult.n, n)));
+    await recordAudit({ workspaceId, actorId, action: "bench-run.step-recorded", detail: { runId, step: n, outcome } }, tx);
+    if (outcome !== "fail" || before[0]?.outcome === "fail") return false;
+    await raiseAttention(tx, {
+      workspaceId,
+      vehicleId: run.vehicleId,
+      reason: `Bench step ${n} failed`,
+      benchRunId: runId,
+      stepNumber: n,
+      actorId,
+    });
+    return true;
+  });
+  if (!newlyFailed) return { mailed: false };
+  return { mailed: await mailFailure(workspaceId, runId, n, actorId) };
+}
+
+async function mailFailure(workspaceId: string, runId: string, n: number, actorId: string): Promise<boolean> {
+  const rows = await db
+    .select({
+      authorEmail: user.email,
+      authorName: user.name,
+      vehicleName: vehicle.name,
+      designName: design.name,
+      number: designRevision.number,
+      slug: workspace.slug,
+      plan: benchRun.plan,
+    })
+    .from(benchRun)
+    .innerJoin(designRevision, and(eq(designRevision.id, benchRun.revisionId), eq(designRevision.workspaceId, benchRun.workspaceId)))
+    .innerJoin(design, and(eq(design.id, designRevision.designId), eq(design.workspaceId, benchRun.workspaceId)))
+    .innerJoin(user, eq(user.id, designRevision.authorId))
+    .innerJoin(vehicle, and(eq(vehicle.id, benchRun.vehicleId), eq(vehicle.workspaceId, benchRun.workspaceId)))
+    .innerJoin(workspace, eq(workspace.id, benchRun.workspaceId))
+    .where(and(eq(benchRun.id, runId), eq(benchRun.workspaceId, workspaceId)))
+    .limit(1);
+  const r = rows[0];
+  if (!r) return false;
+  const tech = (await db.select({ name: user.name }).from(user).where(eq(user.id, actorId)).limit(1))[0];
+  const step = r.plan.steps.find((s) => s.n === n);
+  const url = `${env.APP_URL}/w/${r.slug}/bench-tests/${runId}#step-${n}`;
+  try {
+    await sendMail(
+      composeMail(
+        r.authorEmail,
+        `Bench step ${n} failed on ${r.vehicleName}`,
+        [
+          `Hello ${r.authorName},`,
+          `${tech?.name ?? "A technician"} marked step ${n} as failed while bench-testing ${r.vehicleName} against revision ${r.number} of "${r.designName}", which you saved.`,
+          ...(step ? [`The step: ${step.instruction}`] : []),
+          "The vehicle is flagged as needing attention until someone clears it.",
+        ],
+        { label: "Open the bench run", url },
+      ),
+    );
+    return true;
+  } catch (err) {
+    console.error("bench failure mail could not be sent", err);
+    await recordAudit({ workspaceId, actorId, action: "bench-run.mail-failed", detail: { runId, step: n, to: r.authorEmail } });
+    return false;
+  }
+}
+
+export const NOTE_MAX = 2000;
+
+export async function setStepNote(workspaceId: string, runId: string, n: number, note: string, actorId: string): Promise<void> {
+  if (note.length > NOTE_MAX) throw new BenchRunError("note", `Use at most ${NOTE_MAX} characters.`);
+  await db.transaction(async (tx) => {
+    const run = await lockRun(tx, workspaceId, runId);
+    checkStep(run, n);
+    await tx
+      .update(benchStepResult)
+      .set({ note, updatedBy: actorId, updatedAt: new Date() })
+      .where(and(eq(benchStepResult.runId, runId), eq(benchStepResult.workspaceId, workspaceId), eq(benchStepResult.n, n)));
+  });
+}
+
+/** Attaches a photo to a step of a run in progress (stored through the shared upload module). */
+export async function addStepPhoto(workspaceId: string, runId: string, n: number, file: FormDataEntryValue | null, actorId: string) {
+  const step = await db.transaction(async (tx) => {
+    const run = await lockRun(tx, workspaceId, runId);
+    checkStep(run, n);
+    const rows = await tx
+      .select({ id: benchStepResult.id })
+      .from(benchStepResult)
+      .where(and(eq(benchStepResult.runId, runId), eq(benchStepResult.workspaceId, workspaceId), eq(benchStepResult.n, n)));
+    return rows[0]!;
+  });
+  return saveUpload({ workspaceId, subjectKind: STEP_PHOTO_KIND, subjectId: step.id, file, userId: actorId });
+}
+
+// ---------------------------------------------------------------- the signed record
+
+export const RECORD_FORMAT = "chainproof/bench-record@1";
+
+/**
+ * The content of a completed run that its results hash covers (decision 072): only what never
+ * changes afterwards (ids, not names), and the photos stored up to the moment of completion.
+ */
+export function recordOf(run: RunDetail, completed: { by: string; at: Date }) {
+  return {
+    format: RECORD_FORMAT,
+    run: run.run.id,
+    workspace: run.run.workspaceId,
+    vehicle: run.run.vehicleId,
+    revision: { id: run.run.revisionId, contentHash: run.run.revisionHash },
+    startedBy: run.run.startedBy,
+    startedAt: run.run.startedAt.toISOString(),
+    completedBy: completed.by,
+    completedAt: completed.at.toISOString(),
+    steps: run.run.plan.steps.map((s) => {
+      const r = run.results.find((x) => x.n === s.n);
+      return {
+        n: s.n,
+        set: s.set,
+        expect: s.expect,
+        outcome: r?.outcome ?? null,
+        note: r?.note ?? "",
+        photos: (r?.photos ?? []).filter((p) => p.createdAt <= completed.at).map((p) => p.sha256),
+      };
+    }),
+  };
+}
+
+export function recordHash(record: ReturnType<typeof recordOf>): string {
+  return contentHash(record);
+}
+
+/** Completes a run when every step has an outcome: fixes who and when and the hash of the record. */
+export async function completeRun(workspaceId: string, runId: string, actorId: string): Promise<string> {
+  return db.transaction(async (tx) => {
+    const run = await lockRun(tx, workspaceId, runId);
+    const open = await tx
+      .select({ n: benchStepResult.n })
+      .from(benchStepResult)
+      .where(and(eq(benchStepResult.runId, runId), eq(benchStepResult.workspaceId, workspaceId), sql`${benchStepResult.outcome} is null`))
+      .orderBy(asc(benchStepResult.n));
+    if (open.length > 0) {
+      throw new BenchRunError(
+        "run",
+        `Mark every step before completing: step${open.length > 1 ? "s" : ""} ${open.map((o) => o.n).join(", ")} ${open.length > 1 ? "have" : "has"} no result yet (skip a step you cannot do).`,
+        409,
+      );
+    }
+    // Read inside the lock, so the hash covers exactly what is stored.
+    const detail = await getRun(workspaceId, run.id);
+    const at = new Date();
+    const hash = recordHash(recordOf(detail!, { by: actorId, at }));
+    await tx.update(benchRun).set({ status: "completed", completedBy: actorId, completedAt: at, resultsHash: hash }).where(and(eq(benchRun.id, runId), eq(benchRun.workspaceId, workspaceId)));
+    await recordAudit({ workspaceId, actorId, action: "bench-run.completed", detail: { runId, resultsHash: hash } }, tx);
+    return hash;
+  });
+}
+
+/** Recomputes the hash of a completed run from what is stored, to show that the record is intact. */
+export function verifyRecord(run: RunDetail): boolean | null {
+  if (run.run.status !== "completed" || !run.run.completedAt || !run.run.completedBy) return null;
+  const hash = recordHash(recordOf(run, { by: run.run.completedBy, at: run.run.completedAt }));
+  return hash === run.run.resultsHash;
+}

@@ -1,0 +1,58 @@
+// A list of bench-test runs with their state: in progress, completed, with failures.
+import { Link } from "react-router";
+import { When } from "~/designs/design-bits";
+
+export type RunRow = {
+  id: string;
+  status: "in-progress" | "completed";
+  startedAt: string;
+  completedAt: string | null;
+  vehicleId: string;
+  vehicleName: string;
+  designName: string;
+  number: number;
+  startedByName: string;
+  total: number;
+  done: number;
+  failed: number;
+  skipped: number;
+};
+
+export function RunBadge({ run }: { run: Pick<RunRow, "status" | "failed"> }) {
+  if (run.failed > 0) return <span className="rounded-full bg-brick-600 px-2 py-0.5 text-xs font-semibold text-white">{run.failed} failed</span>;
+  if (run.status === "completed") return <span className="rounded-full bg-moss-600 px-2 py-0.5 text-xs font-semibold text-white">Completed</span>;
+  return <span className="rounded-full bg-copper-100 px-2 py-0.5 text-xs font-semibold text-copper-700">In progress</span>;
+}
+
+export function RunList({ slug, runs, showVehicle = true, empty }: { slug: string; runs: RunRow[]; showVehicle?: boolean; empty: string }) {
+  if (runs.length === 0) return <p className="mt-2 text-sm text-ink-600">{empty}</p>;
+  return (
+    <ul className="mt-3 divide-y divide-ink-200" data-testid="run-list">
+      {runs.map((r) => (
+        <li key={r.id}>
+          <Link to={`/w/${slug}/bench-tests/${r.id}`} className="flex min-h-14 flex-wrap items-center justify-between gap-2 py-3 hover:bg-ink-50">
+            <span>
+              <span className="block font-medium">
+                {showVehicle ? `${r.vehicleName} · ` : ""}
+                {r.designName}, revision {r.number}
+              </span>
+              <span className="block text-sm text-ink-600">
+                {r.startedByName}, started <When iso={r.startedAt} />
+                {r.completedAt ? (
+                  <>
+                    , completed <When iso={r.completedAt} />
+                  </>
+                ) : null}{" "}
+                · {r.done} of {r.total} steps{r.skipped ? `, ${r.skipped} skipped` : ""}
+              </span>
+            </span>
+            <span className="flex gap-2">
+              {r.failed > 0 && r.status === "completed" ? <span className="rounded-full bg-moss-600 px-2 py-0.5 text-xs font-semibold text-white">Completed</span> : null}
+              <RunBadge run={r} />
+            </span>
+          </Link>
+        </li>
+      ))}
+    </ul>
+  );
+}

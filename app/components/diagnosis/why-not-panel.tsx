@@ -1,0 +1,273 @@
+// The phone page of "Why won't it drive?": tap each condition's state, see at once whether the drive
+// should run and, when not, what to check in order; optionally enter live/dead meter readings of the
+// controller inputs and see which stuck contact would explain them. Runs the engine in the browser.
+import { useMemo, useState } from "react";
+import { compileDesign, type CompiledDesign, type Design } from "~/engine";
+import { explainMeasured, restingStates, whyNot, type Blocker, type ContactCheck, type WireEnd } from "~/vehicles/why-not";
+import { WiringDiagram } from "./wiring-diagram";
+
+const MAX_HISTORY = 1000;
+
+type Reading = "unmeasured" | "live" | "dead";
+
+const FUNCTION_WORDS: Record<string, string> = { power: "power", enable: "enable", forward: "forward", reverse: "reverse", brake: "brake" };
+
+function Terminals({ ends }: { ends: WireEnd[] }) {
+  return (
+    <ul className="mt-1 space-y-0.5 text-xs text-ink-600">
+      {ends.map((e) => (
+        <li key={e.terminal}>
+          <span className="font-mono font-semibold text-ink-800">{e.terminal}</span>
+          {e.to.length ? <> wired to {e.to.join(", ")}</> : <> not wired</>}
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+function ContactLine({ k, onSet }: { k: ContactCheck; onSet: (cond: string, state: string) => void }) {
+  return (
+    <div data-testid="contact-check" data-contact={k.contact}>
+      <p className="font-medium">
+        <span className="font-mono">{k.contact}</span> {k.label !== k.contact ? <span>· {k.label}</span> : null}
+      </p>
+      <p className="text-sm text-ink-700">
+        {k.want === "close" ? "Open now; it closes" : "Closed now; it opens"} when {k.conditionLabel} is {k.targetStates.join(" or ")} (now {k.state}).
+        {k.part ? <span className="text-ink-500"> Part: {k.part}.</span> : null}
+      </p>
+      <Terminals ends={k.terminals} />
+      <div className="mt-2 flex flex-wrap gap-2">
+        {k.targetStates.map((s) => (
+          <button
+            key={s}
+            type="button"
+            onClick={() => onSet(k.condition, s)}
+            className="min-h-11 rounded-md border border-ink-300 bg-white px-3 text-sm font-medium hover:bg-ink-100"
+          >
+            Set {k.conditionLabel} to {s}
+          </button>
+        ))}
+      </div>
+    </div>
+  );
+}
+
+function BlockerCard({ b, n, onSet }: { b: Blocker; n: number; onSet: (cond: string, state: string) => void }) {
+  return (
+    <li className="rounded-lg border border-ink-200 bg-white p-4" data-testid="blocker" data-code={b.code}>
+      <h3 className="font-semibold">
+        <span className="mr-2 inline-flex h-7 w-7 items-center justify-center rounded-full bg-brick-600 text-sm text-white">{n}</span>
+        {b.title}
+      </h3>
+      <p className="mt-1 text-sm text-ink-700">{b.advice}</p>
+      {b.unreachable ? <p className="mt-2 text-sm text-brick-700">No contact change can bring this input live: it is not wired towards a supply. Check the drawing against the vehicle.</p> : null}
+      {b.contactSets.length > 0 ? (
+        <ul className="mt-3 space-y-3">
+          {b.contactSets.map((set, i) => (
+            <li key={i} className="rounded-md border border-ink-200 bg-ink-50 p-3">
+              {set.length > 1 ? <p className="mb-2 text-sm font-semibold text-brick-700">These {set.length} contacts must all change together:</p> : null}
+              <div className="space-y-3">
+                {set.map((k) => (
+                  <ContactLine key={k.contact} k={k} onSet={onSet} />
+                ))}
+              </div>
+              {i < b.contactSets.length - 1 ? <p className="mt-2 text-xs font-semibold uppercase text-ink-500">or</p> : null}
+            </li>
+          ))}
+        </ul>
+      ) : null}
+      {b.truncated ? <p className="mt-2 text-xs text-ink-500">Only the first of many ways are listed.</p> : null}
+    </li>
+  );
+}
+
+export function WhyNotPanel({ document, vehicleName }: { document: unknown; vehicleName: string }) {
+  const compiled = useMemo<CompiledDesign | null>(() => {
+    try {
+      return compileDesign(document as Design);
+    } catch {
+      return null;
+    }
+  }, [document]);
+  if (!compiled) {
+    return <p className="text-brick-700">The released revision cannot be read by this version of the engine. Ask the design's engineer.</p>;
+  }
+  return <Panel c={compiled} vehicleName={vehicleName} />;
+}
+
+function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
+  const [states, setStates] = useState<Record<string, string>>(() => restingStates(c));
+  const [history, setHistory] = useState<Array<Record<string, string>>>([]);
+  const [inOrder, setInOrder] = useState(true);
+  const [readings, setReadings] = useState<Record<string, Reading>>({});
+
+  const set = (cond: string, state: string) => {
+    if (states[cond] === state) return;
+    setHistory((h) => [...h, states].slice(-MAX_HISTORY));
+    setStates({ ...states, [cond]: state });
+  };
+  const restart = () => {
+    setHistory([]);
+    setStates(restingStates(c));
+  };
+
+  const result = useMemo(() => whyNot(c, states, inOrder ? history : undefined), [c, states, history, inOrder]);
+  const measured = useMemo(() => {
+    const m: Record<string, boolean> = {};
+    for (const [id, r] of Object.entries(readings)) if (r !== "unmeasured") m[id] = r === "live";
+    return m;
+  }, [readings]);
+  const readingsVerdict = useMemo(() => explainMeasured(c, states, measured), [c, states, measured]);
+
+  const highlight = result.blockers.flatMap((b) => b.contactSets.flat().map((k) => k.contact));
+  const suspects = readingsVerdict.kind === "faults" ? readingsVerdict.suspects.map((s) => s.contact) : [];
+  const inputLabel = (id: string) => {
+    const x = c.inputs[c.inputIndex[id]];
+    return x.label !== x.id ? `${x.label} (${x.id})` : x.id;
+  };
+
+  return (
+    <div className="space-y-6">
+      <div
+        role="status"
+        aria-live="polite"
+        data-testid="verdict"
+        data-drive={result.drive ? "yes" : "no"}
+        className={`sticky top-16 z-10 rounded-lg px-4 py-3 md:top-2 text-lg font-semibold shadow-sm ${result.drive ? "bg-moss-600 text-white" : "bg-brick-600 text-white"}`}
+      >
+        {result.drive ? "Drive should run" : "Drive should not run"}
+        {!result.drive && result.blockers.length > 0 ? (
+          <span className="block text-sm font-normal">
+            {result.blockers.length === 1 ? "One thing blocks it" : `${result.blockers.length} things block it`}; check them in the order below.
+          </span>
+        ) : null}
+        {result.drive ? <span className="block text-sm font-normal">With these conditions the design lets {vehicleName} drive.</span> : null}
+      </div>
+
+      <section aria-labelledby="conditions-h">
+        <h2 id="conditions-h" className="text-lg font-semibold">
+          Set each condition as it is on the vehicle
+        </h2>
+        <div className="mt-3 space-y-4">
+          {c.conditions.map((k) => (
+            <fieldset key={k.id} data-condition={k.id}>
+              <legend className="text-sm font-medium text-ink-700">{k.label}</legend>
+              <div className="mt-1 flex flex-wrap gap-2">
+                {k.states.map((s) => {
+                  const on = states[k.id] === s;
+                  return (
+                    <button
+                      key={s}
+                      type="button"
+                      aria-pressed={on}
+                      onClick={() => set(k.id, s)}
+                      className={`min-h-12 min-w-20 rounded-md border px-4 text-base font-medium ${
+                        on ? "border-copper-600 bg-copper-600 text-white" : "border-ink-300 bg-white text-ink-800 hover:bg-ink-100"
+                      }`}
+                    >
+                      {s}
+                    </button>
+                  );
+                })}
+              </div>
+            </fieldset>
+          ))}
+        </div>
+        <div className="mt-4 flex flex-wrap items-center gap-3">
+          <label className="flex min-h-11 items-center gap-2 text-sm">
+            <input type="checkbox" className="h-5 w-5" checked={inOrder} onChange={(e) => setInOrder(e.target.checked)} />
+            Follow my taps in order, so lockouts latch as on the vehicle
+          </label>
+          <button type="button" onClick={restart} className="min-h-11 rounded-md border border-ink-300 bg-white px-3 text-sm font-medium hover:bg-ink-100">
+            Start over from switched off
+          </button>
+        </div>
+      </section>
+
+      {result.blockers.length > 0 ? (
+        <section aria-labelledby="blockers-h">
+          <h2 id="blockers-h" className="text-lg font-semibold">
+            What blocks the drive, in the order to check
+          </h2>
+          <ol className="mt-3 space-y-3">
+            {result.blockers.map((b, i) => (
+              <BlockerCard key={b.code} b={b} n={i + 1} onSet={set} />
+            ))}
+          </ol>
+        </section>
+      ) : null}
+
+      <WiringDiagram c={c} row={result.row} highlight={highlight} suspects={suspects} title={`Wiring of ${vehicleName} in the present conditions`} />
+
+      <section aria-labelledby="measured-h" className="rounded-lg border border-ink-200 bg-white p-4">
+        <h2 id="measured-h" className="text-lg font-semibold">
+          Measured mode
+        </h2>
+        <p className="mt-1 text-sm text-ink-600">
+          With the conditions above set on the vehicle, enter what the meter reads at each controller input. Leave an input unmeasured if you have not checked it.
+        </p>
+        <div className="mt-3 space-y-3">
+          {c.inputs.map((x) => {
+            const r = readings[x.id] ?? "unmeasured";
+            return (
+              <fieldset key={x.id} data-input={x.id}>
+                <legend className="text-sm font-medium text-ink-700">
+                  {inputLabel(x.id)} · {FUNCTION_WORDS[x.fn]} input · design says {result.row.inputs[x.id] ? "live" : "dead"}
+                </legend>
+                <div className="mt-1 flex flex-wrap gap-2">
+                  {(["unmeasured", "live", "dead"] as const).map((v) => (
+                    <button
+                      key={v}
+                      type="button"
+                      aria-pressed={r === v}
+                      aria-label={`${x.id} ${v === "unmeasured" ? "not measured" : `reads ${v}`}`}
+                      onClick={() => setReadings({ ...readings, [x.id]: v })}
+                      className={`min-h-11 min-w-20 rounded-md border px-3 text-sm font-medium ${
+                        r === v ? "border-ink-800 bg-ink-800 text-white" : "border-ink-300 bg-white text-ink-800 hover:bg-ink-100"
+                      }`}
+                    >
+                      {v === "unmeasured" ? "Not measured" : v === "live" ? "Reads live" : "Reads dead"}
+                    </button>
+                  ))}
+                </div>
+              </fieldset>
+            );
+          })}
+        </div>
+        <div className="mt-4" data-testid="readings-verdict" data-kind={readingsVerdict.kind}>
+          {readingsVerdict.kind === "consistent" ? (
+            <p className="rounded-md bg-moss-50 px-3 py-2 text-sm text-moss-700">The readings match the design in these conditions: the wiring behaves as drawn.</p>
+          ) : null}
+          {readingsVerdict.kind === "unexplained" ? (
+            <p className="rounded-md bg-brick-50 px-3 py-2 text-sm text-brick-700">
+              {readingsVerdict.mismatched.map(inputLabel).join(", ")} {readingsVerdict.mismatched.length > 1 ? "do" : "does"} not read as the design says, and no single stuck contact explains it. Look for a
+              broken or misrouted wire, a short between lines, or more than one fault.
+            </p>
+          ) : null}
+          {readingsVerdict.kind === "faults" ? (
+            <div>
+              <p className="rounded-md bg-brick-50 px-3 py-2 text-sm text-brick-700">
+                {readingsVerdict.mismatched.map(inputLabel).join(", ")} cannot read like this in the fault-free design. Contacts that would explain it, most likely first:
+              </p>
+              <ol className="mt-3 space-y-3">
+                {readingsVerdict.suspects.map((s) => (
+                  <li key={`${s.contact}-${s.mode}`} className="rounded-md border border-ink-200 p-3" data-testid="suspect" data-contact={s.contact} data-mode={s.mode}>
+                    <p className="font-medium">
+                      <span className="font-mono">{s.contact}</span> {s.label !== s.contact ? <>· {s.label}</> : null} may be{" "}
+                      <strong>{s.mode === "stuck-closed" ? "stuck closed" : "stuck open"}</strong>
+                    </p>
+                    <p className="text-sm text-ink-700">{s.check}</p>
+                    {s.otherInputsChanged.length > 0 ? (
+                      <p className="mt-1 text-sm text-ink-600">It would also change {s.otherInputsChanged.map(inputLabel).join(", ")}: measure {s.otherInputsChanged.length > 1 ? "them" : "it"} to tell.</p>
+                    ) : null}
+                    <Terminals ends={s.terminals} />
+                  </li>
+                ))}
+              </ol>
+            </div>
+          ) : null}
+        </div>
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,11 @@
+// Forms of the vehicle page, shared by the page (instant feedback) and its action.
+import { z } from "zod";
+
+export const releaseSchema = z.object({
+  revisionId: z.string().trim().min(1, "Choose a revision to release."),
+  note: z.string().trim().max(1000, "Use at most 1000 characters.").default(""),
+});
+
+export const clearAttentionSchema = z.object({
+  note: z.string().trim().min(1, "Say what was done about it.").max(1000, "Use at most 1000 characters."),
+});
