@@ -24,12 +24,18 @@ export default [
       route("designs/new", "routes/design-new.tsx"),
       route("designs/:designId", "routes/design.tsx"),
       route("designs/:designId/edit", "routes/design-editor.tsx"),
+      route("designs/:designId/revisions/:number/table", "routes/revision-table.tsx"),
+      route("designs/:designId/revisions/:number/review", "routes/review.tsx"),
       route("reviews", "routes/reviews.tsx"),
       route("bench-tests", "routes/bench-tests.tsx"),
       route("bench-tests/:runId", "routes/bench-run.tsx"),
       route("settings", "routes/settings.tsx"),
     ]),
   ]),
+
+  // The printable report of a revision and its PDF (outside the shell: paper, not screen).
+  route("w/:ws/designs/:designId/revisions/:number/report", "routes/report.tsx"),
+  route("w/:ws/designs/:designId/revisions/:number/report.pdf", "routes/report-pdf.ts"),
 
   // Uploaded files, for members of the workspace (outside the shell: a resource route).
   route("w/:ws/files/:uploadId", "routes/file.ts"),
@@ -45,6 +51,9 @@ export default [
     route("designs/:designId/draft", "routes/api/v1/design-draft.ts"),
     route("designs/:designId/revisions", "routes/api/v1/design-revisions.ts"),
     route("designs/:designId/revisions/:number", "routes/api/v1/design-revision.ts"),
+    route("designs/:designId/revisions/:number/rows", "routes/api/v1/revision-rows.ts"),
+    route("designs/:designId/revisions/:number/rows/:index", "routes/api/v1/revision-row.ts"),
+    route("designs/:designId/revisions/:number/table.csv", "routes/api/v1/revision-table-csv.ts"),
     route("proofs", "routes/api/v1/proofs.ts"),
   ]),
 ] satisfies RouteConfig;

@@ -1,25 +1,106 @@
+// The review inbox: for a reviewer, the revisions they were asked to review; for everyone else,
+// every review request of the workspace. Each with its revision's status and a link to the review.
+import { Link } from "react-router";
 import type { Route } from "./+types/reviews";
 import { requireMember } from "~/auth/guard.server";
 import { CAN } from "~/lib/roles";
+import { reviewInbox } from "~/reviews/reviews.server";
+import { reviewPath } from "~/reviews/paths";
+import { VERDICT_LABELS } from "~/reviews/status";
 import { PageHeader } from "~/components/page-header";
 import { EmptyState } from "~/components/empty-state";
+import { HashPrefix, When } from "~/designs/design-bits";
+import { ReviewStatusBadge } from "~/components/truth-table/review-status";
 
 export const meta: Route.MetaFunction = () => [{ title: "Reviews · Chainproof" }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, params.ws, CAN.view);
-  return { isReviewer: m.role === "reviewer" };
+  const isReviewer = m.role === "reviewer";
+  const items = await reviewInbox(m.workspace.id, isReviewer ? m.user.id : undefined);
+  return {
+    slug: m.workspace.slug,
+    isReviewer,
+    items: items.map((i) => ({
+      ...i,
+      requestedAt: i.requestedAt.toISOString(),
+      reviewerDecision: i.reviewerDecision ? { ...i.reviewerDecision, decidedAt: i.reviewerDecision.decidedAt.toISOString() } : null,
+    })),
+  };
 }
 
 export default function Reviews({ loaderData }: Route.ComponentProps) {
+  const { slug, isReviewer, items } = loaderData;
+  const waiting = isReviewer ? items.filter((i) => !i.reviewerDecision) : [];
+  const rest = isReviewer ? items.filter((i) => i.reviewerDecision) : items;
   return (
     <>
-      <PageHeader title="Reviews" description="Revisions waiting for a reviewer's decision, and the decisions already taken." />
-      <EmptyState title="Nothing to review">
-        {loaderData.isReviewer
-          ? "When an engineer asks you to review a revision, it appears here and you get an e-mail."
-          : "An engineer asks reviewers to sign off a proven revision; the requests and decisions appear here."}
-      </EmptyState>
+      <PageHeader
+        title="Reviews"
+        description={
+          isReviewer
+            ? "Revisions you were asked to review: the ones waiting for your decision first."
+            : "Every review request of this workspace, newest first, with where each revision stands."
+        }
+      />
+      {items.length === 0 ? (
+        <EmptyState title="Nothing to review">
+          {isReviewer
+            ? "When an engineer asks you to review a revision, it appears here and you get an e-mail."
+            : "An engineer asks reviewers to sign off a proven revision from its review page; the requests and decisions appear here."}
+        </EmptyState>
+      ) : (
+        <div className="space-y-6">
+          {isReviewer ? (
+            <section aria-labelledby="waiting">
+              <h2 id="waiting" className="mb-2 font-semibold">
+                Waiting for your decision ({waiting.length})
+              </h2>
+              {waiting.length === 0 ? <p className="text-sm text-ink-600">Nothing is waiting for you.</p> : <Items slug={slug} items={waiting} showReviewer={false} />}
+            </section>
+          ) : null}
+          {rest.length > 0 ? (
+            <section aria-labelledby="others">
+              <h2 id="others" className="mb-2 font-semibold">
+                {isReviewer ? "Decided" : "Requests"}
+              </h2>
+              <Items slug={slug} items={rest} showReviewer={!isReviewer} />
+            </section>
+          ) : null}
+        </div>
+      )}
     </>
+  );
+}
+
+function Items({ slug, items, showReviewer }: { slug: string; items: Route.ComponentProps["loaderData"]["items"]; showReviewer: boolean }) {
+  return (
+    <ul className="space-y-2" aria-label="Review requests">
+      {items.map((i) => (
+        <li key={i.requestId} className="rounded-lg border border-ink-200 bg-white p-4" data-testid="review-item">
+          <div className="flex flex-wrap items-start justify-between gap-2">
+            <div className="min-w-0">
+              <Link to={reviewPath(slug, i.designId, i.number)} className="font-semibold text-ink-900 hover:text-copper-700 hover:underline">
+                {i.designName}, revision {i.number}
+              </Link>
+              <p className="text-sm text-ink-600">
+                Asked by {i.requestedByName}
+                {showReviewer ? ` of ${i.reviewerName}` : ""}, <When iso={i.requestedAt} /> · <HashPrefix hash={i.contentHash} />
+              </p>
+              {i.note ? <p className="mt-1 text-sm text-ink-700">“{i.note}”</p> : null}
+            </div>
+            <div className="flex flex-col items-end gap-1">
+              <ReviewStatusBadge status={i.status} />
+              {i.reviewerDecision ? (
+                <span className="text-xs text-ink-600">
+                  {showReviewer ? `${i.reviewerName}: ` : "You: "}
+                  {VERDICT_LABELS[i.reviewerDecision.verdict]}
+                </span>
+              ) : null}
+            </div>
+          </div>
+        </li>
+      ))}
+    </ul>
   );
 }

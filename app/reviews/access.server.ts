@@ -1,0 +1,30 @@
+// Finding a revision named in a URL, for a member of its workspace with the needed role.
+import { requireMember, type Membership } from "~/auth/guard.server";
+import { apiError } from "~/designs/api.server";
+import { getDesign, requireDesign } from "~/designs/designs.server";
+import type { Role } from "~/lib/roles";
+import { compiledRevision, revisionNumber, revisionRef, type RevisionRef } from "./compiled.server";
+
+/** API routes (/api/v1/designs/:designId/revisions/:number/...): 401 / 404 / 403 as JSON. */
+export async function requireRevisionApi(request: Request, designId: string, number: string, allowed: readonly Role[]) {
+  const { member, design } = await requireDesign(request, designId, allowed);
+  const n = revisionNumber(number);
+  const ref = n === null ? null : await revisionRef(member.workspace.id, design.id, n);
+  if (!ref) throw apiError(404, "not_found", `This design has no revision ${number}.`);
+  const compiled = await compiledRevision(member.workspace.id, ref);
+  return { member, design, ref, compiled };
+}
+
+/** Pages (/w/:ws/designs/:designId/revisions/:number/...): redirect to sign-in, 404, 403. */
+export async function requireRevisionPage(
+  request: Request,
+  params: { ws?: string; designId?: string; number?: string },
+  allowed: readonly Role[],
+): Promise<{ member: Membership; design: NonNullable<Awaited<ReturnType<typeof getDesign>>>; ref: RevisionRef }> {
+  const member = await requireMember(request, params.ws, allowed);
+  const design = await getDesign(member.workspace.id, params.designId ?? "");
+  const n = revisionNumber(params.number);
+  const ref = design && n !== null ? await revisionRef(member.workspace.id, design.id, n) : null;
+  if (!design || !ref) throw new Response("Not found", { status: 404, statusText: "Not found" });
+  return { member, design, ref };
+}

@@ -1,0 +1,44 @@
+// Form schemas of the review page, shared by the page and the action (the authority).
+import { z } from "zod";
+
+const comment = (what: string) =>
+  z.string().trim().min(1, `Write ${what}.`).max(4000, "Use at most 4000 characters.");
+
+export const requestReviewSchema = z.object({
+  intent: z.literal("request"),
+  reviewers: z.array(z.string().min(1)).min(1, "Choose at least one reviewer."),
+  note: z.string().trim().max(2000, "Use at most 2000 characters.").default(""),
+});
+
+export const commentSchema = z.discriminatedUnion("anchor", [
+  z.object({ intent: z.literal("comment"), anchor: z.literal("revision"), body: comment("a comment") }),
+  z.object({
+    intent: z.literal("comment"),
+    anchor: z.literal("row"),
+    row: z.coerce.number({ message: "Enter a row number." }).int("Enter a whole row number.").min(0, "Rows start at 0."),
+    body: comment("a comment"),
+  }),
+  z.object({
+    intent: z.literal("comment"),
+    anchor: z.literal("component"),
+    component: z.string().trim().min(1, "Choose a component."),
+    body: comment("a comment"),
+  }),
+]);
+
+export const decisionSchema = z.object({
+  intent: z.literal("decide"),
+  verdict: z.enum(["approved", "changes-requested"], { message: "Choose approve or request changes." }),
+  comment: comment("a comment with your decision"),
+});
+
+/** FormData to a plain object; `reviewers` may repeat. */
+export function reviewFormObject(form: FormData): Record<string, unknown> {
+  const out: Record<string, unknown> = {};
+  for (const [k, v] of form) {
+    if (typeof v !== "string") continue;
+    if (k === "reviewers") (out.reviewers as string[] | undefined)?.push(v) ?? (out.reviewers = [v]);
+    else out[k] = v;
+  }
+  return out;
+}

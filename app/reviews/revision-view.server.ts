@@ -1,0 +1,62 @@
+// What the review page and the report show about one revision, computed from its stored document
+// and verdict with the engine: labels, replayed counterexamples, and the comparison with the last
+// approved revision of the same design.
+import { replayTrace, type CompiledDesign, type Design, type Verdict } from "~/engine";
+import { getRevision } from "~/designs/designs.server";
+import type { TraceStepView } from "~/components/truth-table/verdict-summary";
+import { compiledFor } from "./compiled.server";
+import { rowDiff, structuralDiff, type RowDiff, type StructuralDiff } from "./diff";
+import { lastApprovedBefore } from "./reviews.server";
+
+export function labelsOf(design: Design) {
+  const rules: Record<string, string> = {};
+  const components: Record<string, string> = {};
+  for (const r of design.rules) rules[r.id] = r.label || r.id;
+  for (const c of design.components) components[c.id] = ("label" in c && c.label) || c.id;
+  return { rules, components };
+}
+
+/** The counterexample of each failing no-restart rule, replayed step by step by the engine. */
+export function tracesOf(c: CompiledDesign, verdict: Verdict): Record<string, TraceStepView[]> {
+  const out: Record<string, TraceStepView[]> = {};
+  for (const r of verdict.rules) {
+    if ("trace" in r && r.trace) {
+      out[r.id] = replayTrace(c, r.trace).map((s) => ({ step: s.step, states: s.row.states, drive: s.drive, restart: s.restart, armed: s.armed }));
+    }
+  }
+  return out;
+}
+
+/** A full revision (document, verdict, author) with its compiled design. */
+export async function loadRevision(workspaceId: string, designId: string, number: number) {
+  const rev = await getRevision(workspaceId, designId, number);
+  if (!rev) return null;
+  const compiled = compiledFor(rev.id, rev.document);
+  return { rev, compiled, design: compiled.design, verdict: rev.verdict };
+}
+
+export type Comparison =
+  | { baseline: null }
+  | { baseline: { number: number }; structural: StructuralDiff; rows: RowDiff };
+
+const comparisons = new Map<string, Comparison>();
+const MAX_COMPARISONS = 16;
+
+/** The diff against the newest approved revision numbered below this one (cached: revisions never change). */
+export async function compareWithLastApproved(workspaceId: string, designId: string, number: number, current: CompiledDesign): Promise<Comparison> {
+  const base = await lastApprovedBefore(workspaceId, designId, number);
+  if (!base) return { baseline: null };
+  const key = `${base.id}:${designId}:${number}`;
+  const hit = comparisons.get(key);
+  if (hit) return hit;
+  const before = await loadRevision(workspaceId, designId, base.number);
+  if (!before) return { baseline: null };
+  const result: Comparison = {
+    baseline: { number: base.number },
+    structural: structuralDiff(before.design, current.design),
+    rows: rowDiff(before.compiled, current),
+  };
+  comparisons.set(key, result);
+  while (comparisons.size > MAX_COMPARISONS) comparisons.delete(comparisons.keys().next().value!);
+  return result;
+}

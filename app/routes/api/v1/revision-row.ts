@@ -1,0 +1,21 @@
+// GET /api/v1/designs/:designId/revisions/:number/rows/:index
+//   -> { row: TableRow, energizedTerminals, diagnosis }   (the engine's diagnosis of that row; any member)
+import type { Route } from "./+types/revision-row";
+import { CAN } from "~/lib/roles";
+import { apiError, handleApi, requireMethod } from "~/designs/api.server";
+import { requireRevisionApi } from "~/reviews/access.server";
+import { rowDetail } from "~/reviews/truth-table.server";
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  return handleApi(async () => {
+    requireMethod(request, "GET");
+    const { compiled } = await requireRevisionApi(request, params.designId, params.number, CAN.view);
+    const index = /^[0-9]{1,10}$/.test(params.index) ? Number(params.index) : -1;
+    if (index < 0 || index >= compiled.rows) {
+      return apiError(404, "not_found", `This truth table has rows 0 to ${compiled.rows - 1}.`, [
+        { path: "index", message: `a row from 0 to ${compiled.rows - 1}` },
+      ]);
+    }
+    return Response.json(rowDetail(compiled, index), { headers: { "cache-control": "private, max-age=300" } });
+  });
+}

@@ -1,0 +1,17 @@
+// GET /api/v1/designs/:designId/revisions/:number/rows?from=&count=&only=&rule=&where=COND:STATE
+//   -> { total, from, rows: TableRow[] }   (total: rows matching the filter; any member)
+import type { Route } from "./+types/revision-rows";
+import { CAN } from "~/lib/roles";
+import { handleApi, requireMethod } from "~/designs/api.server";
+import { requireRevisionApi } from "~/reviews/access.server";
+import { rowsPage } from "~/reviews/truth-table.server";
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  return handleApi(async () => {
+    requireMethod(request, "GET");
+    const { compiled } = await requireRevisionApi(request, params.designId, params.number, CAN.view);
+    return Response.json(rowsPage(compiled, new URL(request.url).searchParams), {
+      headers: { "cache-control": "private, max-age=300" },
+    });
+  });
+}

@@ -1,0 +1,26 @@
+// GET /w/:ws/designs/:designId/revisions/:number/report.pdf?size=a4|letter -> the printed report (members only).
+import type { Route } from "./+types/report-pdf";
+import { CAN } from "~/lib/roles";
+import { requireRevisionPage } from "~/reviews/access.server";
+import { printPdf } from "~/reviews/pdf.server";
+import { reportPath } from "~/reviews/paths";
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const { member, design, ref } = await requireRevisionPage(request, params, CAN.view);
+  const size = new URL(request.url).searchParams.get("size") === "letter" ? "letter" : "a4";
+  let pdf: Buffer;
+  try {
+    pdf = await printPdf(reportPath(member.workspace.slug, design.id, ref.number, size), request.headers.get("cookie") ?? "", size === "letter" ? "Letter" : "A4");
+  } catch (e) {
+    console.error("report PDF:", e);
+    throw new Response("The PDF could not be made just now. Print the report page from the browser instead, or try again.", { status: 503 });
+  }
+  const base = design.name.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "").slice(0, 60) || "design";
+  return new Response(new Uint8Array(pdf), {
+    headers: {
+      "content-type": "application/pdf",
+      "content-disposition": `attachment; filename="${base}-r${ref.number}-report-${size}.pdf"`,
+      "cache-control": "private, no-store",
+    },
+  });
+}

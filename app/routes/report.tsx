@@ -1,0 +1,300 @@
+// The printable report of one revision (A4 or Letter through @page): cover with sign-offs, wiring
+// diagram and list, conditions and contacts, rules and their results, single faults, the
+// no-restart result, the truth-table summary, and the caution. The PDF route prints this page.
+import { Link } from "react-router";
+import type { Route } from "./+types/report";
+import { CAN } from "~/lib/roles";
+import { requireRevisionPage } from "~/reviews/access.server";
+import { getReview } from "~/reviews/reviews.server";
+import { labelsOf, loadRevision, tracesOf } from "~/reviews/revision-view.server";
+import { tableColumns } from "~/reviews/truth-table.server";
+import { tableRow } from "~/reviews/truth-table";
+import { REVIEW_STATUS_LABELS, VERDICT_LABELS } from "~/reviews/status";
+import { csvApiPath, reportPath, reportPdfPath, reviewPath } from "~/reviews/paths";
+import { pageRows, type Design, type Predicate } from "~/engine";
+import { SAFETY_TEXT } from "~/components/safety-note";
+import { VerdictSummary } from "~/components/truth-table/verdict-summary";
+import { TruthTableGrid } from "~/components/truth-table/grid";
+import { WiringDiagram } from "~/components/truth-table/wiring-diagram";
+import { Logo } from "~/components/logo";
+
+/** Tables up to this many rows are printed in full; larger ones point to the CSV. */
+const INLINE_ROWS = 256;
+const SIZES = { a4: "A4", letter: "Letter" } as const;
+type Size = keyof typeof SIZES;
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const { member, design, ref } = await requireRevisionPage(request, params, CAN.view);
+  const loaded = await loadRevision(member.workspace.id, design.id, ref.number);
+  const review = await getReview(member.workspace.id, ref.id);
+  if (!loaded || !review) throw new Response("Not found", { status: 404 });
+  const sizeParam = new URL(request.url).searchParams.get("size");
+  const size: Size = sizeParam === "letter" ? "letter" : "a4";
+  const c = loaded.compiled;
+  const columns = tableColumns(c);
+  const wiring = loaded.design.wires.map((w) => ({ from: w.from, to: w.to, net: c.terminalNet[w.from] ?? -1 }));
+  return {
+    size,
+    slug: member.workspace.slug,
+    workspaceName: member.workspace.name,
+    design: { id: design.id, name: design.name, vehicleName: design.vehicleName },
+    revision: {
+      number: ref.number,
+      contentHash: ref.contentHash,
+      message: loaded.rev.message,
+      authorName: loaded.rev.authorName,
+      createdAt: loaded.rev.createdAt.toISOString(),
+    },
+    document: loaded.design,
+    verdict: loaded.verdict,
+    labels: labelsOf(loaded.design),
+    traces: tracesOf(c, loaded.verdict),
+    status: review.status,
+    decisions: review.decisions.map((d) => ({
+      id: d.id,
+      reviewerName: d.reviewerName,
+      verdict: d.verdict,
+      comment: d.comment,
+      contentHash: d.contentHash,
+      decidedAt: d.decidedAt.toISOString(),
+    })),
+    wiring,
+    nets: c.nets,
+    columns,
+    table: c.rows <= INLINE_ROWS ? pageRows(c, { from: 0, count: c.rows }).rows.map((v) => tableRow(columns, v)) : null,
+    rows: c.rows,
+    generatedAt: new Date().toISOString(),
+  };
+}
+
+export const meta: Route.MetaFunction = ({ data }) => [{ title: `Report · ${data?.design.name ?? "Design"} r${data?.revision.number ?? ""} · Chainproof` }];
+
+function predicateText(p: Predicate): string {
+  if ("cond" in p) return `${p.cond} is ${p.in.join(" or ")}`;
+  if ("all" in p) return p.all.length === 0 ? "always" : p.all.map((x) => `(${predicateText(x)})`).join(" and ");
+  if ("any" in p) return p.any.length === 0 ? "never" : p.any.map((x) => `(${predicateText(x)})`).join(" or ");
+  if ("not" in p) return `not (${predicateText(p.not)})`;
+  return "always";
+}
+
+function ruleText(r: Design["rules"][number]): string {
+  if (r.type === "no-restart") return "The drive never comes on while the throttle was already held (any sequence of steps from power-up).";
+  const forbid = r.forbid === "drive" ? "the drive" : `input ${r.forbid.energized} energized`;
+  return `When ${predicateText(r.when)}: no ${forbid}.`;
+}
+
+const iso = (s: string) => `${s.slice(0, 10)} ${s.slice(11, 16)} UTC`;
+const h2 = "mt-8 break-after-avoid border-b-2 border-ink-800 pb-1 text-lg font-semibold";
+
+export default function Report({ loaderData }: Route.ComponentProps) {
+  const d = loaderData;
+  const doc = d.document;
+  const approvals = d.decisions.filter((x) => x.verdict === "approved");
+  return (
+    <div className="report bg-white text-ink-900">
+      <style>{`@page { size: ${SIZES[d.size]}; margin: 14mm 12mm; }
+@media print { .report-toolbar { display: none !important; } body { background: white; } .report-page { padding: 0 !important; max-width: none !important; } .break-before { break-before: page; } }
+.report table { border-collapse: collapse; }
+.report th, .report td { vertical-align: top; }`}</style>
+      <div className="report-toolbar sticky top-0 z-10 flex flex-wrap items-center gap-3 border-b border-ink-200 bg-ink-50 px-4 py-2 text-sm">
+        <Link to={reviewPath(d.slug, d.design.id, d.revision.number)} className="font-semibold text-copper-700 underline">
+          Back to the review
+        </Link>
+        <span className="text-ink-500">Paper:</span>
+        {(Object.keys(SIZES) as Size[]).map((s) =>
+          s === d.size ? (
+            <strong key={s} aria-current="true">
+              {SIZES[s]}
+            </strong>
+          ) : (
+            <Link key={s} to={reportPath(d.slug, d.design.id, d.revision.number, s)} className="text-copper-700 underline">
+              {SIZES[s]}
+            </Link>
+          ),
+        )}
+        <a href={reportPdfPath(d.slug, d.design.id, d.revision.number, d.size)} className="ml-auto rounded-md bg-copper-600 px-3 py-1.5 font-semibold text-white">
+          Download PDF ({SIZES[d.size]})
+        </a>
+      </div>
+
+      <main className="report-page mx-auto max-w-[190mm] px-6 py-8 text-sm leading-snug">
+        {/* Cover */}
+        <section aria-label="Cover" data-testid="report-cover">
+          <div className="flex items-center justify-between">
+            <Logo />
+            <span className="text-xs text-ink-500">{d.workspaceName}</span>
+          </div>
+          <h1 className="mt-10 text-3xl font-semibold tracking-tight">{d.design.name}</h1>
+          <p className="mt-1 text-lg text-ink-700">Drive-inhibit design report, revision {d.revision.number}</p>
+          <dl className="mt-8 grid grid-cols-[10rem_1fr] gap-x-4 gap-y-2">
+            <dt className="text-ink-500">Vehicle</dt>
+            <dd>{d.design.vehicleName ?? "No vehicle"}</dd>
+            <dt className="text-ink-500">Design</dt>
+            <dd>{d.design.name}</dd>
+            <dt className="text-ink-500">Revision</dt>
+            <dd>
+              {d.revision.number}, saved by {d.revision.authorName} on {iso(d.revision.createdAt)}
+              {d.revision.message ? ` — “${d.revision.message}”` : ""}
+            </dd>
+            <dt className="text-ink-500">Content hash</dt>
+            <dd className="break-all font-mono text-xs">SHA-256 {d.revision.contentHash}</dd>
+            <dt className="text-ink-500">Review status</dt>
+            <dd className="font-semibold" data-testid="report-status">
+              {REVIEW_STATUS_LABELS[d.status]}
+            </dd>
+            <dt className="text-ink-500">Verdict</dt>
+            <dd>{d.verdict.ok ? "Every rule holds" : "Some rules fail"}</dd>
+          </dl>
+          <h2 className={h2}>Sign-offs</h2>
+          {d.decisions.length === 0 ? (
+            <p className="mt-2 text-ink-600">No reviewer has decided on this revision.</p>
+          ) : (
+            <table className="mt-2 w-full text-left" data-testid="signoffs">
+              <thead className="text-xs uppercase text-ink-500">
+                <tr>
+                  <th className="py-1 pr-2">Reviewer</th>
+                  <th className="py-1 pr-2">Decision</th>
+                  <th className="py-1 pr-2">When</th>
+                  <th className="py-1 pr-2">Content hash signed</th>
+                  <th className="py-1">Comment</th>
+                </tr>
+              </thead>
+              <tbody>
+                {d.decisions.map((x) => (
+                  <tr key={x.id} className="border-t border-ink-200" data-testid="signoff">
+                    <td className="py-1 pr-2 font-medium">{x.reviewerName}</td>
+                    <td className="py-1 pr-2">
+                      {x.verdict === "approved" ? "✓ " : "✕ "}
+                      {VERDICT_LABELS[x.verdict]}
+                    </td>
+                    <td className="whitespace-nowrap py-1 pr-2">{iso(x.decidedAt)}</td>
+                    <td className="py-1 pr-2 font-mono text-xs">{x.contentHash.slice(0, 16)}…</td>
+                    <td className="py-1">{x.comment}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          )}
+          {approvals.length === 0 ? <p className="mt-2 font-semibold">This revision is not approved.</p> : null}
+          <aside className="mt-6 border-l-4 border-copper-500 bg-copper-50 px-3 py-2 text-copper-700" aria-label="Safety caution">
+            <strong>Caution.</strong> {SAFETY_TEXT}
+          </aside>
+          <p className="mt-4 text-xs text-ink-500">Generated {iso(d.generatedAt)} by Chainproof.</p>
+        </section>
+
+        <section className="break-before" aria-label="Wiring">
+          <h2 className={h2}>Wiring diagram</h2>
+          <div className="mt-3 rounded border border-ink-200 p-2">
+            <WiringDiagram design={doc} />
+          </div>
+          <h2 className={h2}>Wiring list</h2>
+          <table className="mt-2 w-full text-left" data-testid="wiring-list">
+            <thead className="text-xs uppercase text-ink-500">
+              <tr>
+                <th className="py-1 pr-2">#</th>
+                <th className="py-1 pr-2">From terminal</th>
+                <th className="py-1 pr-2">To terminal</th>
+                <th className="py-1">Net</th>
+              </tr>
+            </thead>
+            <tbody className="font-mono text-xs">
+              {d.wiring.map((w, i) => (
+                <tr key={i} className="border-t border-ink-100">
+                  <td className="py-0.5 pr-2">{i + 1}</td>
+                  <td className="py-0.5 pr-2">{w.from}</td>
+                  <td className="py-0.5 pr-2">{w.to}</td>
+                  <td className="py-0.5">
+                    N{w.net} <span className="text-ink-500">({d.nets[w.net]?.join(", ")})</span>
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </section>
+
+        <section aria-label="Conditions and contacts">
+          <h2 className={h2}>Conditions and contacts</h2>
+          <table className="mt-2 w-full text-left">
+            <thead className="text-xs uppercase text-ink-500">
+              <tr>
+                <th className="py-1 pr-2">Condition</th>
+                <th className="py-1 pr-2">States</th>
+                <th className="py-1">Contacts (closed in; part)</th>
+              </tr>
+            </thead>
+            <tbody>
+              {doc.conditions.map((cond) => (
+                <tr key={cond.id} className="border-t border-ink-200">
+                  <td className="py-1 pr-2">
+                    {cond.label || cond.id} <code className="text-xs text-ink-500">{cond.id}</code>
+                  </td>
+                  <td className="py-1 pr-2">{cond.states.join(", ")}</td>
+                  <td className="py-1">
+                    {doc.components
+                      .filter((k) => k.type === "contact" && k.condition === cond.id)
+                      .map((k) =>
+                        k.type === "contact" ? (
+                          <div key={k.id}>
+                            <strong>{k.id}</strong> {k.label && k.label !== k.id ? `${k.label} ` : ""}— closed in {k.closedIn.join(", ")}
+                            {k.part ? `; part ${k.part}` : ""}
+                          </div>
+                        ) : null,
+                      )}
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+          <p className="mt-2 text-xs text-ink-600">
+            Controller: throttle on {doc.controller.throttle.condition} (released: {doc.controller.throttle.released.join(", ") || "—"}; applied:{" "}
+            {doc.controller.throttle.applied.join(", ") || "—"}; fault: {(doc.controller.throttle.fault ?? []).join(", ") || "—"}); brake{" "}
+            {doc.controller.brakeCutsDrive === false ? "does not cut" : "cuts"} the drive; lockouts: {(doc.controller.lockouts ?? []).join(", ") || "none"}.
+          </p>
+        </section>
+
+        <section aria-label="Rules and results">
+          <h2 className={h2}>Rules</h2>
+          <ul className="mt-2 space-y-1">
+            {doc.rules.map((r) => (
+              <li key={r.id}>
+                <strong>{r.id}</strong> {r.label ? `${r.label}: ` : ""}
+                {ruleText(r)}
+              </li>
+            ))}
+          </ul>
+          <h2 className={h2}>Results, single faults and no restart</h2>
+          <div className="mt-2">
+            <VerdictSummary verdict={d.verdict} ruleLabels={d.labels.rules} componentLabels={d.labels.components} traces={d.traces} />
+          </div>
+        </section>
+
+        <section aria-label="Truth table">
+          <h2 className={h2}>Truth table</h2>
+          <p className="mt-2">
+            {d.rows.toLocaleString("en-US")} rows; the drive is on in {d.verdict.driveRows.toLocaleString("en-US")}.{" "}
+            {d.verdict.rules
+              .filter((r) => "unsafeRows" in r)
+              .map((r) => ("unsafeRows" in r ? `${r.id}: ${r.unsafeRows} unsafe, ${r.violatingRows} violating` : ""))
+              .join("; ")}
+          </p>
+          {d.table ? (
+            <div className="mt-2 overflow-x-auto">
+              <TruthTableGrid columns={d.columns} rows={d.table} sticky={false} caption="Full truth table" />
+            </div>
+          ) : (
+            <p className="mt-2">
+              The full table is too long to print ({d.rows.toLocaleString("en-US")} rows, more than {INLINE_ROWS}). Download it as CSV:{" "}
+              <a href={csvApiPath(d.design.id, d.revision.number)} className="break-all text-copper-700 underline">
+                {csvApiPath(d.design.id, d.revision.number)}
+              </a>
+            </p>
+          )}
+        </section>
+
+        <aside className="mt-8 border-l-4 border-copper-500 bg-copper-50 px-3 py-2 text-copper-700" aria-label="Safety caution">
+          <strong>Caution.</strong> {SAFETY_TEXT}
+        </aside>
+      </main>
+    </div>
+  );
+}

@@ -1,0 +1,519 @@
+// The review of one revision: verdict, changes since the last approved revision, comments (on the
+// revision, a truth-table row or a component), the request for review and the decision.
+import { Form, Link, data, useActionData, useNavigation, useSearchParams } from "react-router";
+import type { Route } from "./+types/review";
+import { CAN, type Role } from "~/lib/roles";
+import { fieldErrors, type FieldErrors } from "~/lib/forms";
+import { requireRevisionPage } from "~/reviews/access.server";
+import { addComment, decide, getReview, listReviewers, requestReview, reviewStatusOf } from "~/reviews/reviews.server";
+import { compareWithLastApproved, labelsOf, loadRevision, tracesOf } from "~/reviews/revision-view.server";
+import { commentSchema, decisionSchema, requestReviewSchema, reviewFormObject } from "~/reviews/forms";
+import { VERDICT_LABELS } from "~/reviews/status";
+import { reportPath, reviewPath, truthTablePath } from "~/reviews/paths";
+import { designPath, editorPath } from "~/designs/paths";
+import { HashPrefix, Section, When } from "~/designs/design-bits";
+import type { Comparison } from "~/reviews/revision-view.server";
+import { PageHeader } from "~/components/page-header";
+import { SafetyNote } from "~/components/safety-note";
+import { Button, buttonClass, Notice, SelectField, TextArea, TextField } from "~/components/ui/form";
+import { VerdictSummary } from "~/components/truth-table/verdict-summary";
+import { ReviewStatusBadge } from "~/components/truth-table/review-status";
+import type { ListDiff } from "~/reviews/diff";
+
+const has = (roles: readonly Role[], role: Role) => roles.includes(role);
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const { member, design, ref } = await requireRevisionPage(request, params, CAN.view);
+  const loaded = await loadRevision(member.workspace.id, design.id, ref.number);
+  const review = await getReview(member.workspace.id, ref.id);
+  if (!loaded || !review) throw new Response("Not found", { status: 404 });
+  const [reviewers, comparison, statuses] = await Promise.all([
+    listReviewers(member.workspace.id),
+    compareWithLastApproved(member.workspace.id, design.id, ref.number, loaded.compiled),
+    reviewStatusOf(member.workspace.id, [design.id]),
+  ]);
+  const latestNumber = statuses.get(design.id)?.latest?.number ?? ref.number;
+  const iso = (d: Date) => d.toISOString();
+  return {
+    slug: member.workspace.slug,
+    me: { id: member.user.id, role: member.role },
+    design: { id: design.id, name: design.name, vehicleName: design.vehicleName },
+    revision: {
+      number: ref.number,
+      contentHash: ref.contentHash,
+      message: loaded.rev.message,
+      authorId: loaded.rev.authorId,
+      authorName: loaded.rev.authorName,
+      createdAt: iso(loaded.rev.createdAt),
+      rows: loaded.compiled.rows,
+      latestNumber,
+    },
+    verdict: loaded.verdict,
+    labels: labelsOf(loaded.design),
+    traces: tracesOf(loaded.compiled, loaded.verdict),
+    components: loaded.design.components.map((c) => ({ id: c.id, label: ("label" in c && c.label) || c.id, type: c.type })),
+    comparison,
+    status: review.status,
+    requests: review.requests.map((r) => ({ ...r, requestedAt: iso(r.requestedAt) })),
+    decisions: review.decisions.map((d) => ({ ...d, decidedAt: iso(d.decidedAt) })),
+    comments: review.comments.map((c) => ({ ...c, createdAt: iso(c.createdAt) })),
+    reviewers: reviewers.filter((r) => r.id !== loaded.rev.authorId),
+    can: {
+      request: has(CAN.editDesigns, member.role),
+      decide: has(CAN.review, member.role) && member.user.id !== loaded.rev.authorId,
+      comment: true,
+    },
+    authored: member.user.id === loaded.rev.authorId,
+  };
+}
+
+type ActionResult = { intent: string; ok: boolean; errors?: FieldErrors; message?: string };
+
+export async function action({ request, params }: Route.ActionArgs) {
+  const form = reviewFormObject(await request.formData());
+  const intent = String(form.intent ?? "");
+  const allowed = intent === "request" ? CAN.editDesigns : intent === "decide" ? CAN.review : CAN.view;
+  // The role is checked first (requireMember inside), so a technician's forged decision is 403 whatever the body says.
+  const { member, ref } = await requireRevisionPage(request, params, allowed);
+  const fail = (status: number, errors: FieldErrors) => data<ActionResult>({ intent, ok: false, errors }, { status });
+  if (intent === "request") {
+    const parsed = requestReviewSchema.safeParse(form);
+    if (!parsed.success) return fail(400, fieldErrors(parsed.error));
+    const out = await requestReview(member, ref.id, { reviewerIds: parsed.data.reviewers, note: parsed.data.note });
+    if (!out.ok) return fail(out.status, out.fields);
+    return { intent, ok: true, message: "Review requested; each reviewer got an e-mail." } satisfies ActionResult;
+  }
+  if (intent === "comment") {
+    const parsed = commentSchema.safeParse(form);
+    if (!parsed.success) return fail(400, fieldErrors(parsed.error));
+    const loaded = await loadRevision(member.workspace.id, ref.designId, ref.number);
+    const out = await addComment(member, ref.id, loaded?.rev.document, parsed.data);
+    if (!out.ok) return fail(out.status, out.fields);
+    return { intent, ok: true, message: "Comment added." } satisfies ActionResult;
+  }
+  if (intent === "decide") {
+    const parsed = decisionSchema.safeParse(form);
+    if (!parsed.success) return fail(400, fieldErrors(parsed.error));
+    const out = await decide(member, ref.id, { verdict: parsed.data.verdict, comment: parsed.data.comment });
+    if (!out.ok) return fail(out.status, out.fields);
+    return { intent, ok: true, message: `${VERDICT_LABELS[parsed.data.verdict]}; the author got an e-mail.` } satisfies ActionResult;
+  }
+  return fail(400, { intent: "Unknown action." });
+}
+
+export const meta: Route.MetaFunction = ({ data }) => [{ title: `Review · ${data?.design.name ?? "Design"} r${data?.revision.number ?? ""} · Chainproof` }];
+
+export default function Review({ loaderData }: Route.ComponentProps) {
+  const { slug, design, revision, verdict, labels, traces, comparison, status, requests, decisions, comments, can, authored } = loaderData;
+  const result = useActionData<typeof action>() as ActionResult | undefined;
+  return (
+    <>
+      <p className="mb-2 text-sm">
+        <Link to={designPath(slug, design.id)} className="text-copper-700 underline">
+          {design.name}
+        </Link>
+        {design.vehicleName ? <span className="text-ink-500"> · {design.vehicleName}</span> : null}
+      </p>
+      <PageHeader
+        title={`Review of revision ${revision.number}`}
+        description={
+          <span className="inline-flex flex-wrap items-center gap-2">
+            <ReviewStatusBadge status={status} /> Saved by {revision.authorName}, <When iso={revision.createdAt} /> · <HashPrefix hash={revision.contentHash} />
+          </span>
+        }
+        actions={
+          <>
+            <Link to={truthTablePath(slug, design.id, revision.number)} className={buttonClass("secondary")}>
+              Truth table
+            </Link>
+            <a href={reportPath(slug, design.id, revision.number)} className={buttonClass("secondary")}>
+              Report
+            </a>
+            <Link to={editorPath(slug, design.id, revision.number)} className={buttonClass("secondary")}>
+              Canvas
+            </Link>
+          </>
+        }
+      />
+      {revision.latestNumber > revision.number ? (
+        <div className="mb-4">
+          <Notice tone="warning">
+            Revision {revision.latestNumber} is newer.{" "}
+            <Link to={reviewPath(slug, design.id, revision.latestNumber)} className="font-semibold underline">
+              Review revision {revision.latestNumber}
+            </Link>
+            ; a decision here applies to revision {revision.number} only.
+          </Notice>
+        </div>
+      ) : null}
+      {result?.ok && result.message ? (
+        <div className="mb-4">
+          <Notice tone="success">{result.message}</Notice>
+        </div>
+      ) : null}
+      {result && !result.ok && result.errors?.form ? (
+        <div className="mb-4">
+          <Notice tone="error">{result.errors.form}</Notice>
+        </div>
+      ) : null}
+
+      <div className="grid grid-cols-1 gap-5 lg:grid-cols-3">
+        <div className="min-w-0 space-y-5 lg:col-span-2">
+          {revision.message ? (
+            <p className="rounded-md border border-ink-200 bg-white px-4 py-3 text-sm">
+              <span className="text-ink-500">Revision message:</span> “{revision.message}”
+            </p>
+          ) : null}
+          <Section title="Verdict">
+            <VerdictSummary verdict={verdict} ruleLabels={labels.rules} componentLabels={labels.components} traces={traces} />
+          </Section>
+          <Section title="Changes">
+            <ChangesView comparison={comparison} slug={slug} designId={design.id} number={revision.number} />
+          </Section>
+          <Section title={`Comments (${comments.length})`}>
+            <CommentsView comments={comments} slug={slug} designId={design.id} number={revision.number} labels={labels.components} />
+            <CommentForm key={`comment-form-${comments.length}`} result={result} components={loaderData.components} rows={revision.rows} />
+          </Section>
+        </div>
+        <div className="min-w-0 space-y-5">
+          <Section title="Decision">
+            <DecisionsView decisions={decisions} />
+            {can.decide ? (
+              <DecisionForm result={result} />
+            ) : (
+              <p className="mt-3 text-sm text-ink-600">
+                {authored
+                  ? "You authored this revision, so another reviewer decides on it."
+                  : "Only workspace members with the reviewer role approve a revision or request changes."}
+              </p>
+            )}
+          </Section>
+          <Section title="Reviewers asked">
+            {requests.length === 0 ? (
+              <p className="text-sm text-ink-600">Nobody has been asked to review this revision yet.</p>
+            ) : (
+              <ul className="space-y-1 text-sm" aria-label="Reviewers asked">
+                {requests.map((r) => (
+                  <li key={r.id}>
+                    <span className="font-medium">{r.reviewerName}</span>, <When iso={r.requestedAt} />
+                    {r.note ? <span className="block text-ink-600">“{r.note}”</span> : null}
+                  </li>
+                ))}
+              </ul>
+            )}
+            {can.request ? <RequestForm result={result} reviewers={loaderData.reviewers} /> : null}
+          </Section>
+          <SafetyNote />
+        </div>
+      </div>
+    </>
+  );
+}
+
+function ListChanges({ title, diff, labels }: { title: string; diff: ListDiff; labels?: Record<string, string> }) {
+  const n = diff.added.length + diff.removed.length + diff.changed.length;
+  if (n === 0) return null;
+  const name = (id: string) => (labels?.[id] && labels[id] !== id ? `${labels[id]} (${id})` : id);
+  return (
+    <div>
+      <h3 className="font-semibold">{title}</h3>
+      <ul className="mt-1 space-y-0.5">
+        {diff.added.map((id) => (
+          <li key={`a${id}`}>
+            <span className="font-mono text-moss-700">+ added</span> {name(id)}
+          </li>
+        ))}
+        {diff.removed.map((id) => (
+          <li key={`r${id}`}>
+            <span className="font-mono text-brick-700">− removed</span> {name(id)}
+          </li>
+        ))}
+        {diff.changed.map((c) => (
+          <li key={`c${c.id}`}>
+            <span className="font-mono text-copper-700">~ changed</span> {name(c.id)}: {c.fields.join(", ")}
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
+}
+
+function ChangesView({ comparison, slug, designId, number }: { comparison: Comparison; slug: string; designId: string; number: number }) {
+  if (comparison.baseline === null) {
+    return <p className="text-sm text-ink-600">No earlier revision of this design is approved, so there is nothing to compare with: review the whole design.</p>;
+  }
+  const { structural: s, rows } = comparison;
+  return (
+    <div className="space-y-4 text-sm" data-testid="review-diff">
+      <p>
+        Compared with revision {comparison.baseline.number}, the last approved one.
+        {s.empty ? " The structure is the same." : ""}
+      </p>
+      {s.name ? (
+        <p>
+          Renamed from “{s.name.before}” to “{s.name.after}”.
+        </p>
+      ) : null}
+      <ListChanges title="Components" diff={s.components} />
+      {s.wires.added.length + s.wires.removed.length > 0 ? (
+        <div>
+          <h3 className="font-semibold">Wires</h3>
+          <ul className="mt-1 space-y-0.5 font-mono text-xs">
+            {s.wires.added.map((w) => (
+              <li key={`a${w}`}>
+                <span className="text-moss-700">+ added</span> {w}
+              </li>
+            ))}
+            {s.wires.removed.map((w) => (
+              <li key={`r${w}`}>
+                <span className="text-brick-700">− removed</span> {w}
+              </li>
+            ))}
+          </ul>
+        </div>
+      ) : null}
+      <ListChanges title="Conditions" diff={s.conditions} />
+      <ListChanges title="Rules" diff={s.rules} />
+      {s.controller.length > 0 ? <p>Controller settings changed: {s.controller.join(", ")}.</p> : null}
+      <div>
+        <h3 className="font-semibold">Truth-table rows</h3>
+        {!rows.comparable ? (
+          <p className="mt-1 text-ink-700">{rows.reason}</p>
+        ) : rows.changedRows === 0 ? (
+          <p className="mt-1 text-moss-700">No row changed its drive or the rules it violates ({rows.rows.toLocaleString("en-US")} rows compared).</p>
+        ) : (
+          <>
+            <p className="mt-1">
+              {rows.changedRows.toLocaleString("en-US")} of {rows.rows.toLocaleString("en-US")} rows changed their drive or violated rules
+              {rows.truncated ? `; the first ${rows.listed.length} are listed` : ""}.
+            </p>
+            <div className="mt-2 max-h-80 overflow-auto rounded border border-ink-200">
+              <table className="min-w-full text-left text-xs">
+                <thead className="sticky top-0 bg-ink-50 text-ink-600">
+                  <tr>
+                    <th scope="col" className="px-2 py-1">Row</th>
+                    <th scope="col" className="px-2 py-1">States</th>
+                    <th scope="col" className="px-2 py-1">Before (r{comparison.baseline.number})</th>
+                    <th scope="col" className="px-2 py-1">Now (r{number})</th>
+                  </tr>
+                </thead>
+                <tbody className="divide-y divide-ink-100">
+                  {rows.listed.map((r) => (
+                    <tr key={r.index}>
+                      <td className="px-2 py-1">
+                        <Link to={`${truthTableRowHref(slug, designId, number, r.index)}`} className="text-copper-700 underline">
+                          {r.index}
+                        </Link>
+                      </td>
+                      <td className="px-2 py-1 font-mono">
+                        {Object.entries(r.states)
+                          .map(([k, v]) => `${k}=${v}`)
+                          .join(" ")}
+                      </td>
+                      <td className="px-2 py-1">{outcomeText(r.before)}</td>
+                      <td className="px-2 py-1">{outcomeText(r.after)}</td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            </div>
+          </>
+        )}
+      </div>
+    </div>
+  );
+}
+
+function outcomeText(o: { drive: boolean; violated: string[] }) {
+  return (
+    <span>
+      {o.drive ? "▶ drive" : "■ no drive"}
+      {o.violated.length > 0 ? <span className="font-semibold text-brick-700"> · ✕ violates {o.violated.join(", ")}</span> : null}
+    </span>
+  );
+}
+
+const truthTableRowHref = (slug: string, designId: string, number: number, row: number) =>
+  `${truthTablePath(slug, designId, number)}?from=${Math.floor(row / 100) * 100}&row=${row}`;
+
+type CommentView = Route.ComponentProps["loaderData"]["comments"][number];
+
+function CommentsView({
+  comments,
+  slug,
+  designId,
+  number,
+  labels,
+}: {
+  comments: CommentView[];
+  slug: string;
+  designId: string;
+  number: number;
+  labels: Record<string, string>;
+}) {
+  if (comments.length === 0) return <p className="text-sm text-ink-600">No comments yet.</p>;
+  return (
+    <ul className="space-y-3" aria-label="Comments">
+      {comments.map((c) => (
+        <li key={c.id} className="rounded-md border border-ink-200 p-3 text-sm" data-testid="comment">
+          <p className="text-xs text-ink-500">
+            <span className="font-semibold text-ink-700">{c.authorName}</span>, <When iso={c.createdAt} />
+            {c.anchor === "row" && c.rowIndex !== null ? (
+              <>
+                {" "}
+                · on{" "}
+                <Link to={truthTableRowHref(slug, designId, number, c.rowIndex)} className="text-copper-700 underline">
+                  row {c.rowIndex}
+                </Link>{" "}
+                <span className="font-mono">
+                  (
+                  {Object.entries(c.rowStates ?? {})
+                    .map(([k, v]) => `${k}=${v}`)
+                    .join(", ")}
+                  )
+                </span>
+              </>
+            ) : null}
+            {c.anchor === "component" && c.componentId ? (
+              <>
+                {" "}
+                · on component <span className="font-medium">{labels[c.componentId] ?? c.componentId}</span> <code>{c.componentId}</code>
+              </>
+            ) : null}
+          </p>
+          <p className="mt-1 whitespace-pre-wrap text-ink-900">{c.body}</p>
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+function errorsOf(result: ActionResult | undefined, intent: string): FieldErrors {
+  return result && !result.ok && result.intent === intent ? (result.errors ?? {}) : {};
+}
+
+function CommentForm({ result, components, rows }: { result?: ActionResult; components: Array<{ id: string; label: string; type: string }>; rows: number }) {
+  const [params] = useSearchParams();
+  const presetRow = params.get("row");
+  const nav = useNavigation();
+  const errors = errorsOf(result, "comment");
+  const busy = nav.state !== "idle" && nav.formData?.get("intent") === "comment";
+  return (
+    <Form method="post" className="mt-4 space-y-3 border-t border-ink-200 pt-4" id="comment" aria-label="Add a comment">
+      <input type="hidden" name="intent" value="comment" />
+      <fieldset>
+        <legend className="text-sm font-medium text-ink-700">Pin the comment to</legend>
+        <div className="mt-1 grid gap-3 sm:grid-cols-3">
+          <SelectField label="Anchor" name="anchor" defaultValue={presetRow !== null ? "row" : "revision"} error={errors.anchor}>
+            <option value="revision">The revision</option>
+            <option value="row">A truth-table row</option>
+            <option value="component">A component</option>
+          </SelectField>
+          <TextField
+            label={`Row (0 – ${(rows - 1).toLocaleString("en-US")})`}
+            name="row"
+            inputMode="numeric"
+            defaultValue={presetRow ?? ""}
+            error={errors.row}
+            hint="Used when the anchor is a row."
+          />
+          <SelectField label="Component" name="component" defaultValue="" error={errors.component}>
+            <option value="">—</option>
+            {components
+              .filter((c) => c.type !== "junction")
+              .map((c) => (
+                <option key={c.id} value={c.id}>
+                  {c.label} ({c.id})
+                </option>
+              ))}
+          </SelectField>
+        </div>
+      </fieldset>
+      <TextArea label="Comment" name="body" rows={3} error={errors.body} required maxLength={4000} />
+      <Button type="submit" tone="secondary" disabled={busy}>
+        {busy ? "Adding…" : "Add comment"}
+      </Button>
+    </Form>
+  );
+}
+
+function DecisionsView({ decisions }: { decisions: Route.ComponentProps["loaderData"]["decisions"] }) {
+  if (decisions.length === 0) return <p className="text-sm text-ink-600">No decision yet.</p>;
+  return (
+    <ul className="space-y-2 text-sm" aria-label="Decisions">
+      {decisions.map((d) => (
+        <li key={d.id} className="rounded-md border border-ink-200 p-2" data-testid="decision">
+          <p>
+            <strong className={d.verdict === "approved" ? "text-moss-700" : "text-brick-700"}>
+              <span aria-hidden="true">{d.verdict === "approved" ? "✓ " : "✕ "}</span>
+              {VERDICT_LABELS[d.verdict]}
+            </strong>{" "}
+            by {d.reviewerName}, <When iso={d.decidedAt} />
+          </p>
+          <p className="text-xs text-ink-500">
+            Signed content hash <HashPrefix hash={d.contentHash} />
+          </p>
+          <p className="mt-1 whitespace-pre-wrap">{d.comment}</p>
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+function DecisionForm({ result }: { result?: ActionResult }) {
+  const nav = useNavigation();
+  const errors = errorsOf(result, "decide");
+  const busy = nav.state !== "idle" && nav.formData?.get("intent") === "decide";
+  return (
+    <Form method="post" className="mt-4 space-y-3 border-t border-ink-200 pt-4" aria-label="Decide">
+      <input type="hidden" name="intent" value="decide" />
+      <TextArea label="Comment with your decision" name="comment" rows={3} error={errors.comment} required maxLength={4000} />
+      {errors.verdict ? <p className="text-sm text-brick-700">{errors.verdict}</p> : null}
+      <div className="flex flex-wrap gap-2">
+        <Button type="submit" name="verdict" value="approved" disabled={busy}>
+          Approve revision
+        </Button>
+        <Button type="submit" name="verdict" value="changes-requested" tone="danger" disabled={busy}>
+          Request changes
+        </Button>
+      </div>
+      <p className="text-xs text-ink-500">Your decision records your name, the time and this revision's content hash. A later revision needs its own review.</p>
+    </Form>
+  );
+}
+
+function RequestForm({ result, reviewers }: { result?: ActionResult; reviewers: Array<{ id: string; name: string; email: string }> }) {
+  const nav = useNavigation();
+  const errors = errorsOf(result, "request");
+  const busy = nav.state !== "idle" && nav.formData?.get("intent") === "request";
+  if (reviewers.length === 0) {
+    return <p className="mt-3 text-sm text-ink-600">This workspace has no member with the reviewer role; an admin can invite one in Settings.</p>;
+  }
+  return (
+    <Form method="post" className="mt-4 space-y-3 border-t border-ink-200 pt-4" aria-label="Request review">
+      <input type="hidden" name="intent" value="request" />
+      <fieldset aria-describedby={errors.reviewers ? "reviewers-error" : undefined}>
+        <legend className="text-sm font-medium text-ink-700">Ask for a review from</legend>
+        <ul className="mt-1 space-y-1">
+          {reviewers.map((r) => (
+            <li key={r.id}>
+              <label className="flex min-h-10 items-center gap-2 text-sm">
+                <input type="checkbox" name="reviewers" value={r.id} className="h-4 w-4" />
+                {r.name} <span className="text-ink-500">{r.email}</span>
+              </label>
+            </li>
+          ))}
+        </ul>
+        {errors.reviewers ? (
+          <p id="reviewers-error" className="text-sm text-brick-700" role="alert">
+            {errors.reviewers}
+          </p>
+        ) : null}
+      </fieldset>
+      <TextArea label="Note for the reviewers (optional)" name="note" rows={2} error={errors.note} maxLength={2000} />
+      <Button type="submit" disabled={busy}>
+        {busy ? "Sending…" : "Request review"}
+      </Button>
+    </Form>
+  );
+}
