@@ -22,6 +22,13 @@ app.use((req, res, next) => {
   // The client address is ours to set: a client-sent value is always replaced.
   const forwarded = trustProxy ? String(req.headers["x-forwarded-for"] ?? "").split(",")[0]?.trim() : "";
   req.headers[CLIENT_IP_HEADER] = forwarded || req.socket.remoteAddress || "unknown";
+  // A response sent before the request body was read (too large, wrong type) closes the connection,
+  // so a client never reuses a socket that still carries the rest of that body.
+  const writeHead = res.writeHead;
+  res.writeHead = function (this: typeof res, ...args: Parameters<typeof writeHead>) {
+    if (!req.complete) res.setHeader("Connection", "close");
+    return writeHead.apply(this, args);
+  } as typeof writeHead;
   res.setHeader("X-Content-Type-Options", "nosniff");
   res.setHeader("Referrer-Policy", "same-origin");
   res.setHeader("X-Frame-Options", "DENY");

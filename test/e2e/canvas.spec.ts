@@ -1,13 +1,13 @@
 // The design editor end to end: build a design by mouse from an empty one, prove it, save it as a
 // revision, have an unsafe save refused with its counterexample, and open it read-only as a reviewer.
 import type { Page } from "@playwright/test";
-import { expect, signIn, test } from "../support/e2e";
+import { APP_ORIGIN, expect, signIn, test } from "../support/e2e";
 
 const WS = "larkspur";
 test.use({ viewport: { width: 1440, height: 900 } });
 
 async function newDesign(page: Page, name: string): Promise<string> {
-  const res = await page.request.post(`/api/v1/designs?workspace=${WS}`, { data: { name } });
+  const res = await page.request.post(`/api/v1/designs?workspace=${WS}`, { data: { name }, headers: { origin: APP_ORIGIN } });
   expect(res.status()).toBe(201);
   const body = (await res.json()) as { design: { id: string } };
   return body.design.id;

@@ -39,3 +39,6 @@ export async function signIn(page: Page, role: DemoRole | { email: string; passw
   await page.getByRole("button", { name: "Sign in" }).click();
   await page.waitForURL((url) => !url.pathname.startsWith("/sign-in"));
 }
+
+/** Our origin, for API calls made with page.request (browsers add it to their own POSTs). */
+export const APP_ORIGIN = new URL(process.env.CHAINPROOF_URL ?? process.env.BASE_URL ?? "http://127.0.0.1:3100").origin;
