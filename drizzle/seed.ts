@@ -1,7 +1,7 @@
 // Demo data of our own invented scenario: Larkspur Light Vehicles, a small maker of electric utility
 // vehicles, with four people (one per role), three vehicles and a design for each. Runs only on an
 // empty database; `tsx drizzle/seed.ts --designs` adds the demo designs to an existing demo
-// workspace that has none.
+// workspace that has none, and `--release` approves and releases the demo revision to its vehicle.
 import { readFileSync } from "node:fs";
 import { and, eq, sql } from "drizzle-orm";
 import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
@@ -63,6 +63,7 @@ export async function seed(databaseUrl: string, log: (s: string) => void = conso
       }
       for (const v of VEHICLES) await tx.insert(schema.vehicle).values({ id: crypto.randomUUID(), workspaceId, ...v });
       await seedDemoDesigns(tx, workspaceId);
+      await seedDemoRelease(tx, workspaceId);
     });
     log(`seeded the demo workspace "${DEMO_WORKSPACE.name}"`);
     return true;
@@ -169,6 +170,79 @@ export async function seedDesignsOnly(databaseUrl: string, log: (s: string) => v
   }
 }
 
+// The proven Haybarn revision, approved by the demo reviewer and released to its vehicle, so the
+// technician pages (diagnosis, bench tests) have something to work on (docs/decisions/074).
+const DEMO_RELEASE = { design: "Haybarn hauler #3, drive inhibit", vehicle: "Haybarn campus hauler #3", number: 1 };
+
+/** Approves and releases the demo revision when the vehicle has no release yet; returns whether it did. */
+export async function seedDemoRelease(db: Seeder, workspaceId: string): Promise<boolean> {
+  const rows = await db
+    .select({ revisionId: schema.designRevision.id, designId: schema.design.id, contentHash: schema.designRevision.contentHash, vehicleId: schema.vehicle.id })
+    .from(schema.designRevision)
+    .innerJoin(schema.design, eq(schema.design.id, schema.designRevision.designId))
+    .innerJoin(schema.vehicle, and(eq(schema.vehicle.workspaceId, workspaceId), eq(schema.vehicle.name, DEMO_RELEASE.vehicle)))
+    .where(and(eq(schema.design.workspaceId, workspaceId), eq(schema.design.name, DEMO_RELEASE.design), eq(schema.designRevision.number, DEMO_RELEASE.number)))
+    .limit(1);
+  const r = rows[0];
+  if (!r) return false;
+  const released = await db.select({ id: schema.vehicleRelease.id }).from(schema.vehicleRelease).where(eq(schema.vehicleRelease.vehicleId, r.vehicleId)).limit(1);
+  if (released[0]) return false;
+  const people = await db
+    .select({ id: schema.user.id, email: schema.user.email })
+    .from(schema.member)
+    .innerJoin(schema.user, eq(schema.member.userId, schema.user.id))
+    .where(eq(schema.member.workspaceId, workspaceId));
+  const reviewer = people.find((p) => p.email === DEMO_USERS[3].email);
+  const engineer = people.find((p) => p.email === DEMO_USERS[1].email);
+  if (!reviewer || !engineer) throw new Error("the demo reviewer and engineer must be members of the workspace");
+  const hour = 3600 * 1000;
+  const now = Date.now();
+  await db.insert(schema.reviewRequest).values({
+    id: crypto.randomUUID(),
+    workspaceId,
+    designId: r.designId,
+    revisionId: r.revisionId,
+    reviewerId: reviewer.id,
+    requestedBy: engineer.id,
+    requestedAt: new Date(now - 30 * hour),
+  });
+  await db.insert(schema.reviewDecision).values({
+    id: crypto.randomUUID(),
+    workspaceId,
+    designId: r.designId,
+    revisionId: r.revisionId,
+    reviewerId: reviewer.id,
+    verdict: "approved",
+    comment: "Checked the enable chain and the lockouts against the cart's wiring loom.",
+    contentHash: r.contentHash,
+    decidedAt: new Date(now - 26 * hour),
+  });
+  await db.insert(schema.vehicleRelease).values({
+    id: crypto.randomUUID(),
+    workspaceId,
+    vehicleId: r.vehicleId,
+    revisionId: r.revisionId,
+    releasedBy: engineer.id,
+    at: new Date(now - 24 * hour),
+    note: "Loom rebuilt to revision 1.",
+  });
+  return true;
+}
+
+/** For an installation seeded before releases existed: approves and releases the demo revision. */
+export async function seedReleaseOnly(databaseUrl: string, log: (s: string) => void = console.log) {
+  const pool = new pg.Pool({ connectionString: databaseUrl, max: 2 });
+  const db = drizzle(pool, { schema });
+  try {
+    const ws = await db.select({ id: schema.workspace.id }).from(schema.workspace).where(eq(schema.workspace.slug, DEMO_WORKSPACE.slug));
+    if (!ws[0]) return log(`no workspace "${DEMO_WORKSPACE.slug}"; nothing to do`);
+    const done = await db.transaction((tx) => seedDemoRelease(tx, ws[0]!.id));
+    log(done ? "approved and released the demo revision" : "the demo vehicle already has a release (or no demo design); nothing done");
+  } finally {
+    await pool.end();
+  }
+}
+
 if (import.meta.url === `file://${process.argv[1]}`) {
   const url = process.env.DATABASE_URL;
   if (!url) {
@@ -176,5 +250,6 @@ if (import.meta.url === `file://${process.argv[1]}`) {
     process.exit(2);
   }
   if (process.argv.includes("--designs")) await seedDesignsOnly(url);
+  else if (process.argv.includes("--release")) await seedReleaseOnly(url);
   else await seed(url);
 }

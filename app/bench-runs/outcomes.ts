@@ -12,7 +12,7 @@ export const outcomeSchema = z.object({
   intent: z.literal("outcome"),
   step,
   // An empty outcome clears the step.
-  outcome: z.union([z.enum(STEP_OUTCOMES, { message: "Choose pass, fail or skip." }), z.literal("")]),
+  outcome: z.enum([...STEP_OUTCOMES, ""], { message: "Choose pass, fail or skip." }),
 });
 
 export const noteSchema = z.object({

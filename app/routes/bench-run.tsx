@@ -2,7 +2,7 @@
 // happen; every tap (pass, fail, skip), note and photo is saved at once through a fetcher, so a
 // reload or a phone that slept shows the same progress. A completed run is a signed, printable record.
 import "~/components/diagnosis/bench-print.css";
-import { useEffect, useRef, useState } from "react";
+import { useEffect, useState } from "react";
 import { data, Form, Link, useFetcher, useNavigation } from "react-router";
 import type { Route } from "./+types/bench-run";
 import { requireMember } from "~/auth/guard.server";
@@ -139,12 +139,13 @@ function StepCard({ step, slug, canRecord }: { step: Step; slug: string; canReco
   const pending = outcomeFetcher.formData?.get("outcome");
   const outcome = (typeof pending === "string" ? (pending === "" ? null : pending) : step.outcome) as StepOutcome | null;
   const [note, setNote] = useState(step.note);
-  const savedNote = useRef(step.note);
-  useEffect(() => {
-    savedNote.current = step.note;
-  }, [step.note]);
+  // What the server holds; a pending save counts as saved so the button does not invite a second one.
+  const pendingNote = noteFetcher.formData?.get("note");
+  const [savedNote, setSavedNote] = useState(step.note);
+  useEffect(() => setSavedNote(step.note), [step.note]);
+  const noteSaved = note === (typeof pendingNote === "string" ? pendingNote : savedNote);
   const saveNote = () => {
-    if (note === savedNote.current) return;
+    if (noteSaved) return;
     noteFetcher.submit({ intent: "note", step: String(step.n), note }, { method: "post" });
   };
   const error = outcomeFetcher.data?.ok === false ? Object.values(outcomeFetcher.data.fields)[0] : null;
@@ -218,7 +219,7 @@ function StepCard({ step, slug, canRecord }: { step: Step; slug: string; canReco
             maxLength={2000}
             className="mt-1 block w-full rounded-md border border-ink-300 px-3 py-2 text-base"
           />
-          <Button type="button" tone="secondary" className="mt-2" onClick={saveNote} disabled={note === savedNote.current}>
+          <Button type="button" tone="secondary" className="mt-2" onClick={saveNote} disabled={noteSaved}>
             Save note
           </Button>
           {noteError ? <p className="mt-1 text-sm text-brick-700">{noteError}</p> : null}

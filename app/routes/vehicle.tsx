@@ -302,23 +302,20 @@ type Releasable = Route.ComponentProps["loaderData"]["releasable"][number];
 
 function ReleaseForm({ releasable, errors, busy }: { releasable: Releasable[]; errors?: FieldErrors; busy: boolean }) {
   const { errors: shown, onSubmit } = useFormCheck(releaseSchema, errors);
-  const unavailable = releasable.some((r) => r.approval === "unavailable");
   if (releasable.length === 0) return <p className="mt-4 text-sm text-ink-600">No design in this workspace has a saved revision to release yet.</p>;
   return (
     <Form method="post" className="mt-5 space-y-3 border-t border-ink-200 pt-4" onSubmit={onSubmit} noValidate>
       <input type="hidden" name="intent" value="release" />
       <h3 className="text-sm font-semibold">Release a revision to this vehicle</h3>
-      {unavailable ? (
-        <Notice tone="warning">Approvals are not available in this installation yet, so no revision can be released.</Notice>
-      ) : null}
+      <p className="text-xs text-ink-600">Only a revision a reviewer has approved can be released.</p>
       <SelectField label="Revision" name="revisionId" defaultValue="" error={shown.revisionId}>
         <option value="" disabled>
           Choose a revision
         </option>
         {releasable.map((r) => (
-          <option key={r.id} value={r.id}>
+          <option key={r.id} value={r.id} disabled={r.approval !== "approved"}>
             {r.designName} · revision {r.number}
-            {r.approval === "approved" ? " · approved" : r.approval === "not-approved" ? " · not approved" : ""}
+            {r.approval === "approved" ? " · approved" : " · not approved"}
             {r.forThisVehicle ? "" : " (design for another vehicle)"}
           </option>
         ))}

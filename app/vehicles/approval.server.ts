@@ -1,8 +1,9 @@
-// Whether a revision carries a reviewer's approval record: the one question a release asks.
-// Approvals belong to the review work (app/reviews); until its check exists this answers
-// "unavailable", and a release is refused with that reason rather than assumed (decision 070).
-export type Approval = "approved" | "not-approved" | "unavailable";
+// Whether a revision carries a reviewer's approval: the one question a release asks. The answer is
+// the review work's (approval records, app/reviews); this module only names it for vehicles.
+import { isRevisionApproved } from "~/reviews/reviews.server";
 
-export async function revisionApproval(_workspaceId: string, _revisionId: string): Promise<Approval> {
-  return "unavailable";
+export type Approval = "approved" | "not-approved";
+
+export async function revisionApproval(workspaceId: string, revisionId: string): Promise<Approval> {
+  return (await isRevisionApproved(workspaceId, revisionId)) ? "approved" : "not-approved";
 }

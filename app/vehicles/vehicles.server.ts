@@ -159,10 +159,7 @@ export async function releaseRevision(
     return {
       ok: false,
       fields: {
-        revisionId:
-          approval === "unavailable"
-            ? "Releasing needs a reviewer's approval record, and approvals are not available in this installation yet. Nothing was released."
-            : `Revision ${rev[0].number} of "${rev[0].designName}" has not been approved by a reviewer; only an approved revision can be released.`,
+        revisionId: `Revision ${rev[0].number} of "${rev[0].designName}" has not been approved by a reviewer; only an approved revision can be released.`,
       },
     };
   }

@@ -14,7 +14,7 @@ import {
   type InputFunction,
   type Lockout,
   type RowView,
-} from "~/engine";
+} from "../engine";
 
 export type WireEnd = { terminal: string; to: string[] };
 
@@ -105,16 +105,25 @@ function contactCheck(c: CompiledDesign, row: RowView, id: string, want: "close"
   };
 }
 
-/** Closed contacts whose opening alone (by the engine, as a stuck-open fault) takes the input dead. */
+/**
+ * Closed contacts whose opening alone (by the engine, as a stuck-open fault) takes the input dead.
+ * Those that change no other input come first and alone when there are any: opening the key switch
+ * also clears a live brake input, but it is not what a technician should do about it.
+ */
 function contactsFeeding(c: CompiledDesign, row: RowView, inputId: string): ContactCheck[][] {
-  const out: ContactCheck[][] = [];
+  const only: ContactCheck[][] = [];
+  const all: ContactCheck[][] = [];
   for (const k of c.contacts) {
     if (!row.contacts[k.id]) continue;
-    const v = evaluateRow(c, row.index, [{ component: k.id, mode: "stuck-open" }]);
     // A contact that closes in every state can't be opened by changing its condition.
-    if (!v.inputs[inputId] && k.closedIn.length < c.conditions[k.cond].states.length) out.push([contactCheck(c, row, k.id, "open")]);
+    if (k.closedIn.length >= c.conditions[k.cond].states.length) continue;
+    const v = evaluateRow(c, row.index, [{ component: k.id, mode: "stuck-open" }]);
+    if (v.inputs[inputId]) continue;
+    const check = [contactCheck(c, row, k.id, "open")];
+    all.push(check);
+    if (c.inputs.every((x) => x.id === inputId || v.inputs[x.id] === row.inputs[x.id])) only.push(check);
   }
-  return out;
+  return only.length > 0 ? only : all;
 }
 
 function inputName(c: CompiledDesign, fn: InputFunction): string {
