@@ -10,6 +10,9 @@ import type { Verdict } from "~/designs/types";
 import { PageHeader } from "~/components/page-header";
 import { SafetyNote } from "~/components/safety-note";
 import { buttonClass } from "~/components/ui/form";
+import { reviewStatusOf } from "~/reviews/reviews.server";
+import { reviewPath, truthTablePath } from "~/reviews/paths";
+import { ReviewStatusBadge } from "~/components/truth-table/review-status";
 
 type Labelled = { id?: unknown; label?: unknown };
 
@@ -29,11 +32,13 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, params.ws, CAN.view);
   const d = await getDesign(m.workspace.id, params.designId);
   if (!d) throw new Response("Not found", { status: 404 });
-  const [latest, draft, history] = await Promise.all([
+  const [latest, draft, history, reviews] = await Promise.all([
     getRevision(m.workspace.id, d.id),
     getDraft(m.workspace.id, d.id),
     listRevisions(m.workspace.id, d.id),
+    reviewStatusOf(m.workspace.id, [d.id]),
   ]);
+  const review = reviews.get(d.id);
   // Which rules the draft breaks, when its stored check says some do (small tables only, see decision 031).
   let draftFailing: string[] = [];
   if (draft?.check.state === "checked" && !draft.check.ok) {
@@ -70,7 +75,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
           failing: draftFailing,
         }
       : null,
-    history: history.map((h) => ({ ...h, createdAt: h.createdAt.toISOString() })),
+    history: history.map((h) => ({ ...h, createdAt: h.createdAt.toISOString(), review: review?.byNumber.get(h.number)?.status ?? "not-requested" })),
   };
 }
 
@@ -78,6 +83,7 @@ export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.design.
 
 export default function DesignOverview({ loaderData }: Route.ComponentProps) {
   const { canEdit, slug, design, latest, draft, history } = loaderData;
+  const latestReview = history[0]?.review;
   return (
     <>
       <p className="mb-2 text-sm">
@@ -90,6 +96,7 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
         description={
           <span className="inline-flex flex-wrap items-center gap-2">
             <StatusBadge status={design.status} />
+            {latestReview ? <ReviewStatusBadge status={latestReview} number={history[0]?.number} /> : null}
             {design.vehicleId ? (
               <Link to={`/w/${slug}/vehicles/${design.vehicleId}`} className="text-copper-700 underline">
                 {design.vehicleName}
@@ -118,6 +125,14 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
                   Saved by {latest.authorName}, <When iso={latest.createdAt} />
                   {latest.message ? <> — “{latest.message}”</> : null}
                 </p>
+                <p className="mt-2 flex flex-wrap gap-3 text-sm">
+                  <Link to={reviewPath(slug, design.id, latest.number)} className="font-semibold text-copper-700 underline">
+                    Review
+                  </Link>
+                  <Link to={truthTablePath(slug, design.id, latest.number)} className="font-semibold text-copper-700 underline">
+                    Truth table
+                  </Link>
+                </p>
                 <VerdictSummary verdict={latest.verdict} ruleLabels={latest.ruleLabels} componentLabels={latest.componentLabels} />
               </>
             ) : (
@@ -142,6 +157,7 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
                       <th scope="col" className="px-3 py-2 font-medium">Saved</th>
                       <th scope="col" className="px-3 py-2 font-medium">Message</th>
                       <th scope="col" className="px-3 py-2 font-medium">Hash</th>
+                      <th scope="col" className="px-3 py-2 font-medium">Review</th>
                       <th scope="col" className="px-5 py-2 font-medium"><span className="sr-only">Open</span></th>
                     </tr>
                   </thead>
@@ -153,6 +169,11 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
                         <td className="whitespace-nowrap px-3 py-2"><When iso={h.createdAt} /></td>
                         <td className="px-3 py-2 text-ink-700">{h.message || <span className="text-ink-400">—</span>}</td>
                         <td className="px-3 py-2"><HashPrefix hash={h.contentHash} /></td>
+                        <td className="whitespace-nowrap px-3 py-2">
+                          <Link to={reviewPath(slug, design.id, h.number)} aria-label={`Review of revision ${h.number}`}>
+                            <ReviewStatusBadge status={h.review} />
+                          </Link>
+                        </td>
                         <td className="whitespace-nowrap px-5 py-2">
                           <Link to={editorPath(slug, design.id, h.number)} className="text-copper-700 underline">
                             View<span className="sr-only"> revision {h.number}</span>

@@ -11,14 +11,21 @@ import { designPath, editorPath } from "~/designs/paths";
 import { PageHeader } from "~/components/page-header";
 import { EmptyState } from "~/components/empty-state";
 import { buttonClass } from "~/components/ui/form";
+import { reviewStatusOf } from "~/reviews/reviews.server";
+import { ReviewStatusBadge } from "~/components/truth-table/review-status";
+import type { ReviewStatus } from "~/reviews/status";
 
 export const meta: Route.MetaFunction = () => [{ title: "Designs · Chainproof" }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, params.ws, CAN.view);
   const filter = designFilterSchema.parse(Object.fromEntries(new URL(request.url).searchParams));
-  const [designs, vehicles] = await Promise.all([listDesigns(m.workspace.id, filter), listVehicles(m.workspace.id)]);
+  const [designs, vehicles, reviews] = await Promise.all([listDesigns(m.workspace.id, filter), listVehicles(m.workspace.id), reviewStatusOf(m.workspace.id)]);
+  // Review status of the latest revision, and the newest approved one when that is older.
+  const review: Record<string, { latest: ReviewStatus | null; approved: number | null }> = {};
+  for (const [id, r] of reviews) review[id] = { latest: r.latest?.status ?? null, approved: r.lastApproved?.number ?? null };
   return {
+    review,
     canEdit: (CAN.editDesigns as readonly string[]).includes(m.role),
     slug: m.workspace.slug,
     filter,
@@ -31,7 +38,7 @@ const selectClass =
   "mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2 text-base sm:text-sm focus:border-copper-500 focus:outline-none focus:ring-2 focus:ring-copper-500/40";
 
 export default function Designs({ loaderData }: Route.ComponentProps) {
-  const { canEdit, filter, designs, vehicles, slug } = loaderData;
+  const { canEdit, filter, designs, vehicles, slug, review } = loaderData;
   const submit = useSubmit();
   const filtered = filter.vehicle !== undefined || filter.status !== undefined;
   return (
@@ -110,7 +117,7 @@ export default function Designs({ loaderData }: Route.ComponentProps) {
       ) : (
         <ul className="space-y-3" aria-label="Designs">
           {designs.map((d) => (
-            <DesignRow key={d.id} d={d} canEdit={canEdit} slug={slug} />
+            <DesignRow key={d.id} d={d} canEdit={canEdit} slug={slug} review={review[d.id]} />
           ))}
         </ul>
       )}
@@ -118,7 +125,17 @@ export default function Designs({ loaderData }: Route.ComponentProps) {
   );
 }
 
-function DesignRow({ d, canEdit, slug }: { d: DesignSummary; canEdit: boolean; slug: string }) {
+function DesignRow({
+  d,
+  canEdit,
+  slug,
+  review,
+}: {
+  d: DesignSummary;
+  canEdit: boolean;
+  slug: string;
+  review?: { latest: ReviewStatus | null; approved: number | null };
+}) {
   const rev = d.latestRevision;
   return (
     <li className="rounded-lg border border-ink-200 bg-white p-4">
@@ -131,6 +148,7 @@ function DesignRow({ d, canEdit, slug }: { d: DesignSummary; canEdit: boolean; s
         </div>
         <div className="flex items-center gap-2">
           <StatusBadge status={d.status} />
+          {review?.latest ? <ReviewStatusBadge status={review.latest} /> : null}
           <Link to={editorPath(slug, d.id)} className={buttonClass("secondary", "min-h-9 px-3 py-1.5")}>
             {canEdit ? "Edit" : "View canvas"}
           </Link>
@@ -151,6 +169,7 @@ function DesignRow({ d, canEdit, slug }: { d: DesignSummary; canEdit: boolean; s
         ) : (
           <span className="text-ink-600">No revision yet</span>
         )}
+        {review?.approved && review.latest !== "approved" ? <span className="text-moss-700">Revision {review.approved} is approved</span> : null}
         {d.draft?.changed ? <NotProven check={d.draft.check} /> : null}
       </div>
     </li>

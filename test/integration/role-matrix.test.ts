@@ -27,6 +27,19 @@ export const MATRIX: Row[] = [
   },
   { name: "designs list", method: "GET", path: "/w/larkspur/designs", expect: all(200) },
   { name: "reviews", method: "GET", path: "/w/larkspur/reviews", expect: all(200) },
+  // Review actions on a revision that does not exist: the role is checked first (403), then the revision (404).
+  {
+    name: "decide on a review (unknown design: reviewers get 404, others 403)",
+    method: "POST", path: "/w/larkspur/designs/no-such-design/revisions/1/review", body: { intent: "decide", verdict: "approved", comment: "ok" },
+    expect: all(403, { reviewer: 404 }),
+  },
+  {
+    name: "request a review (unknown design: engineers get 404, others 403)",
+    method: "POST", path: "/w/larkspur/designs/no-such-design/revisions/1/review", body: { intent: "request", reviewers: "nobody" },
+    expect: all(403, { engineer: 404 }),
+  },
+  { name: "review page of an unknown design", method: "GET", path: "/w/larkspur/designs/no-such-design/revisions/1/review", expect: all(404) },
+  { name: "truth-table page of an unknown design", method: "GET", path: "/w/larkspur/designs/no-such-design/revisions/1/table", expect: all(404) },
   { name: "bench tests", method: "GET", path: "/w/larkspur/bench-tests", expect: all(200) },
   { name: "settings", method: "GET", path: "/w/larkspur/settings", expect: all(200) },
   {

@@ -1,0 +1,313 @@
+// Reviews against the running app and its PostgreSQL: the truth-table API (pages and filter counts
+// equal the engine's own countRows / pageRows, CSV stream), who may request, comment and decide,
+// approvals bound to one revision, mails and the audit log, and workspace isolation.
+import { readFileSync } from "node:fs";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import pg from "pg";
+import { client, DEMO, formBody, signIn, type Client } from "../support/http";
+import { createOutsider } from "../support/outsider";
+import { compileDesign, countRows, csvHeader, decodeRow, pageRows, type CompiledDesign, type Design, type RowFilter } from "../../app/engine";
+
+const WS = "larkspur";
+const PROVEN = JSON.parse(readFileSync(new URL("../../drizzle/demo-designs/haybarn-campus-hauler.json", import.meta.url), "utf8")) as Design;
+const ENGINE: CompiledDesign = compileDesign(PROVEN);
+
+type Json = Record<string, any>;
+let db: pg.Pool;
+let engineer: Client, technician: Client, reviewer: Client, admin: Client, outsider: Client, anonymous: Client;
+let ids: Record<"engineer" | "reviewer", string>;
+const created: string[] = [];
+
+async function json(c: Client, method: string, path: string, body?: unknown): Promise<{ status: number; body: Json }> {
+  const res = await c.fetch(path, {
+    method,
+    ...(body === undefined ? {} : { body: JSON.stringify(body), headers: { "content-type": "application/json" } }),
+  });
+  const text = await res.text();
+  try {
+    return { status: res.status, body: JSON.parse(text) as Json };
+  } catch {
+    return { status: res.status, body: { text } };
+  }
+}
+
+/** A new design with revision 1 (the proven Haybarn wiring), saved by the demo engineer. */
+async function designWithRevision(name: string): Promise<string> {
+  const made = await json(engineer, "POST", `/api/v1/designs?workspace=${WS}`, { name, start: "blank" });
+  expect(made.status).toBe(201);
+  const id = made.body.design.id as string;
+  created.push(id);
+  const saved = await json(engineer, "POST", `/api/v1/designs/${id}/revisions`, { document: PROVEN, baseRevision: 0, message: "first wiring" });
+  expect(saved.status).toBe(201);
+  return id;
+}
+
+const reviewUrl = (id: string, n: number) => `/w/${WS}/designs/${id}/revisions/${n}/review`;
+const act = (c: Client, id: string, n: number, values: Record<string, string>) => c.fetch(reviewUrl(id, n), formBody(values));
+
+function search(filter: RowFilter): string {
+  const p = new URLSearchParams();
+  if (filter.only) p.set("only", filter.only);
+  if (filter.rule) p.set("rule", filter.rule);
+  for (const [cond, states] of Object.entries(filter.where ?? {})) for (const s of states) p.append("where", `${cond}:${s}`);
+  return p.toString();
+}
+
+/** Page HTML without React's text separators (`a<!-- -->b`). */
+async function pageText(c: Client, path: string): Promise<string> {
+  return (await (await c.fetch(path)).text()).replace(/<!-- -->/g, "");
+}
+
+async function statusOnPage(c: Client, id: string, n: number): Promise<string | undefined> {
+  const html = await (await c.fetch(reviewUrl(id, n))).text();
+  return /data-review-status="([a-z-]+)"/.exec(html)?.[1];
+}
+
+beforeAll(async () => {
+  db = new pg.Pool({ connectionString: process.env.DATABASE_URL, max: 4 });
+  [engineer, technician, reviewer, admin] = await Promise.all([signIn(DEMO.engineer), signIn(DEMO.technician), signIn(DEMO.reviewer), signIn(DEMO.admin)]);
+  outsider = (await createOutsider()).client;
+  anonymous = client();
+  const users = await db.query<{ id: string; email: string }>('SELECT id, email FROM "user" WHERE email = ANY($1)', [[DEMO.engineer, DEMO.reviewer]]);
+  const by = (e: string) => users.rows.find((u) => u.email === e)!.id;
+  ids = { engineer: by(DEMO.engineer), reviewer: by(DEMO.reviewer) };
+});
+
+afterAll(async () => {
+  if (created.length) await db.query("DELETE FROM design WHERE id = ANY($1)", [created]);
+  await db.end();
+});
+
+describe("truth-table API", () => {
+  let id: string;
+  beforeAll(async () => {
+    id = await designWithRevision("Test: truth-table API");
+  });
+
+  const filters: RowFilter[] = [
+    {},
+    { only: "unsafe" },
+    { only: "violating" },
+    { only: "drive" },
+    { only: "unsafe", rule: "neutral" },
+    { where: { seat: ["occupied"] } },
+    { only: "unsafe", where: { lever: ["neutral", "reverse"], key: ["on"] } },
+  ];
+
+  for (const filter of filters) {
+    it(`total for ${JSON.stringify(filter)} equals the engine's countRows, and the pages list the engine's rows`, async () => {
+      const want = countRows(ENGINE, filter);
+      const seen: number[] = [];
+      for (let from = 0; ; from += 50) {
+        const r = await json(reviewer, "GET", `/api/v1/designs/${id}/revisions/1/rows?${search(filter)}&from=${from}&count=50`);
+        expect(r.status).toBe(200);
+        expect(r.body.total).toBe(want);
+        seen.push(...(r.body.rows as Array<{ index: number }>).map((x) => x.index));
+        if (r.body.rows.length < 50) break;
+      }
+      expect(seen).toEqual(pageRows(ENGINE, { filter, from: 0, count: want }).rows.map((v) => v.index));
+    });
+  }
+
+  it("a row carries the engine's values in column order", async () => {
+    const r = await json(technician, "GET", `/api/v1/designs/${id}/revisions/1/rows?from=157&count=1`);
+    const view = pageRows(ENGINE, { from: 157, count: 1 }).rows[0]!;
+    const row = r.body.rows[0];
+    expect(row.index).toBe(157);
+    expect(row.states).toEqual(ENGINE.conditions.map((c) => view.states[c.id]));
+    expect(row.drive).toBe(view.drive);
+    expect(row.inputs).toEqual(ENGINE.inputs.map((x) => view.inputs[x.id]));
+  });
+
+  it("one row comes with the engine's diagnosis; a row outside the table is 404", async () => {
+    const r = await json(reviewer, "GET", `/api/v1/designs/${id}/revisions/1/rows/5`);
+    expect(r.status).toBe(200);
+    expect(r.body.diagnosis.row).toBe(5);
+    expect(r.body.diagnosis.states).toEqual(decodeRow(ENGINE, 5));
+    expect(r.body.diagnosis.reasons.length).toBeGreaterThan(0);
+    expect((await json(reviewer, "GET", `/api/v1/designs/${id}/revisions/1/rows/${ENGINE.rows}`)).status).toBe(404);
+  });
+
+  it("bad filters are 400 naming the parameter", async () => {
+    const cases: Array<[string, string]> = [
+      ["only=sometimes", "only"],
+      ["where=seat", "where"],
+      ["where=seat:standing", "where"],
+      ["where=nosuch:on", "where"],
+      ["only=unsafe&rule=nosuch", "rule"],
+      ["count=100000", "count"],
+      ["from=-1", "from"],
+    ];
+    for (const [q, field] of cases) {
+      const r = await json(reviewer, "GET", `/api/v1/designs/${id}/revisions/1/rows?${q}`);
+      expect(r.status, q).toBe(400);
+      expect(r.body.error.fields.map((f: { path: string }) => f.path), q).toContain(field);
+    }
+  });
+
+  it("streams the CSV with the filter: the engine's header, then one line per matching row", async () => {
+    const filter: RowFilter = { only: "unsafe", rule: "driver", where: { key: ["on"] } };
+    const res = await reviewer.fetch(`/api/v1/designs/${id}/revisions/1/table.csv?${search(filter)}`);
+    expect(res.status).toBe(200);
+    expect(res.headers.get("content-type")).toContain("text/csv");
+    expect(res.headers.get("content-disposition")).toMatch(/attachment; filename=".+-r1-unsafe-filtered\.csv"/);
+    const lines = (await res.text()).trimEnd().split("\n");
+    expect(lines[0]).toBe(csvHeader(ENGINE).join(","));
+    expect(lines.length - 1).toBe(countRows(ENGINE, filter));
+    expect(lines.length - 1).toBeGreaterThan(0);
+    const whole = await (await reviewer.fetch(`/api/v1/designs/${id}/revisions/1/table.csv`)).text();
+    expect(whole.trimEnd().split("\n").length - 1).toBe(ENGINE.rows);
+  });
+
+  it("is for members only: 401 signed out, 404 for another workspace or an unknown revision", async () => {
+    for (const path of ["rows", "rows/3", "table.csv"]) {
+      expect((await anonymous.fetch(`/api/v1/designs/${id}/revisions/1/${path}`)).status).toBe(401);
+      expect((await outsider.fetch(`/api/v1/designs/${id}/revisions/1/${path}`)).status).toBe(404);
+      expect((await reviewer.fetch(`/api/v1/designs/${id}/revisions/9/${path}`)).status).toBe(404);
+    }
+  });
+});
+
+describe("review and sign-off", () => {
+  let id: string;
+  beforeAll(async () => {
+    id = await designWithRevision("Test: review flow");
+  });
+
+  it("an engineer requests a review; the reviewer is e-mailed a link to the review page", async () => {
+    const before = new Date();
+    const res = await act(engineer, id, 1, { intent: "request", reviewers: ids.reviewer, note: "first wiring of the hauler" });
+    expect(res.status).toBe(200);
+    const mail = await db.query<{ subject: string; text_body: string; recipients: string }>(
+      "SELECT subject, text_body, recipients FROM mail_message WHERE received_at >= $1 AND recipients LIKE $2 ORDER BY received_at DESC",
+      [new Date(before.getTime() - 2000), `%${DEMO.reviewer}%`],
+    );
+    const ours = mail.rows.find((m) => m.text_body.includes(reviewUrl(id, 1)));
+    expect(ours?.subject).toContain("Review requested");
+    expect(await statusOnPage(reviewer, id, 1)).toBe("in-review");
+  });
+
+  it("only engineers request reviews, and only from members with the reviewer role", async () => {
+    for (const c of [technician, reviewer, admin]) {
+      expect((await act(c, id, 1, { intent: "request", reviewers: ids.reviewer })).status).toBe(403);
+    }
+    expect((await act(engineer, id, 1, { intent: "request", reviewers: ids.engineer })).status).toBe(400);
+    expect((await act(engineer, id, 1, { intent: "request" })).status).toBe(400);
+  });
+
+  it("comments pin to the revision, a row (index and states) or a component; bad anchors are 400", async () => {
+    expect((await act(reviewer, id, 1, { intent: "comment", anchor: "row", row: "157", body: "Why does this row drive?" })).status).toBe(200);
+    expect((await act(engineer, id, 1, { intent: "comment", anchor: "component", component: "SEAT", body: "Seat switch part number?" })).status).toBe(200);
+    expect((await act(technician, id, 1, { intent: "comment", anchor: "revision", body: "Loom matches." })).status).toBe(200);
+    expect((await act(reviewer, id, 1, { intent: "comment", anchor: "row", row: String(ENGINE.rows), body: "x" })).status).toBe(400);
+    expect((await act(reviewer, id, 1, { intent: "comment", anchor: "component", component: "NOPE", body: "x" })).status).toBe(400);
+    expect((await act(reviewer, id, 1, { intent: "comment", anchor: "revision", body: "   " })).status).toBe(400);
+    const rows = await db.query<{ anchor: string; row_index: number | null; row_states: Record<string, string> | null; component_id: string | null }>(
+      "SELECT c.anchor, c.row_index, c.row_states, c.component_id FROM review_comment c JOIN design_revision r ON r.id = c.revision_id WHERE r.design_id = $1 ORDER BY c.created_at",
+      [id],
+    );
+    expect(rows.rows.map((r) => r.anchor)).toEqual(["row", "component", "revision"]);
+    expect(rows.rows[0]!.row_index).toBe(157);
+    expect(rows.rows[0]!.row_states).toEqual(decodeRow(ENGINE, 157));
+    expect(rows.rows[1]!.component_id).toBe("SEAT");
+  });
+
+  it("only reviewers decide: engineers, technicians and admins get 403; a decision needs a comment", async () => {
+    for (const c of [engineer, technician, admin]) {
+      expect((await act(c, id, 1, { intent: "decide", verdict: "approved", comment: "fine" })).status).toBe(403);
+    }
+    expect((await act(reviewer, id, 1, { intent: "decide", verdict: "approved", comment: "" })).status).toBe(400);
+    expect((await act(reviewer, id, 1, { intent: "decide", verdict: "maybe", comment: "hmm" })).status).toBe(400);
+    expect(await statusOnPage(reviewer, id, 1)).toBe("in-review");
+  });
+
+  it("changes requested, then approval: the decision records reviewer, time and the content hash; the author is e-mailed", async () => {
+    expect((await act(reviewer, id, 1, { intent: "decide", verdict: "changes-requested", comment: "Label the inlet switch." })).status).toBe(200);
+    expect(await statusOnPage(engineer, id, 1)).toBe("changes-requested");
+    const before = new Date(Date.now() - 2000);
+    expect((await act(reviewer, id, 1, { intent: "decide", verdict: "approved", comment: "Checked against the loom." })).status).toBe(200);
+    expect(await statusOnPage(engineer, id, 1)).toBe("approved");
+    const rev = await db.query<{ content_hash: string }>("SELECT content_hash FROM design_revision WHERE design_id = $1 AND number = 1", [id]);
+    const dec = await db.query<{ reviewer_id: string; verdict: string; content_hash: string; decided_at: Date }>(
+      "SELECT d.reviewer_id, d.verdict, d.content_hash, d.decided_at FROM review_decision d JOIN design_revision r ON r.id = d.revision_id WHERE r.design_id = $1 ORDER BY d.decided_at",
+      [id],
+    );
+    expect(dec.rows.map((d) => d.verdict)).toEqual(["changes-requested", "approved"]);
+    expect(dec.rows[1]!.reviewer_id).toBe(ids.reviewer);
+    expect(dec.rows[1]!.content_hash).toBe(rev.rows[0]!.content_hash);
+    const mail = await db.query<{ subject: string }>(
+      "SELECT subject FROM mail_message WHERE received_at >= $1 AND recipients LIKE $2 AND text_body LIKE $3",
+      [before, `%${DEMO.engineer}%`, `%${reviewUrl(id, 1)}%`],
+    );
+    expect(mail.rows.map((m) => m.subject)).toContain("Approved: Test: review flow, revision 1");
+  });
+
+  it("a decision is immutable in the database", async () => {
+    await expect(
+      db.query("UPDATE review_decision SET verdict = 'approved' WHERE revision_id IN (SELECT id FROM design_revision WHERE design_id = $1)", [id]),
+    ).rejects.toThrow(/immutable/);
+  });
+
+  it("a new revision does not inherit the approval, and its review shows the diff against the approved one", async () => {
+    const changed = structuredClone(PROVEN) as Design & { components: Array<Record<string, unknown>> };
+    const seat = changed.components.find((c) => c.id === "SEAT")!;
+    seat.label = "Seat switch, sealed";
+    const saved = await json(engineer, "POST", `/api/v1/designs/${id}/revisions`, { document: changed, baseRevision: 1, message: "sealed seat switch" });
+    expect(saved.status).toBe(201);
+    expect(await statusOnPage(reviewer, id, 2)).toBe("not-requested");
+    expect(await statusOnPage(reviewer, id, 1)).toBe("approved");
+    const html = await pageText(reviewer, reviewUrl(id, 2));
+    expect(html).toContain("Compared with revision 1, the last approved one.");
+    expect(html).toMatch(/changed<\/span> SEAT: label/);
+    expect(html).toContain("No row changed its drive or the rules it violates");
+    const same = await json(engineer, "POST", `/api/v1/designs/${id}/revisions`, { document: PROVEN, baseRevision: 2, message: "back to the approved wiring" });
+    expect(same.status).toBe(201);
+    // Same content hash as the approved revision 1, still a new revision without approval.
+    expect(await statusOnPage(reviewer, id, 3)).toBe("not-requested");
+  });
+
+  it("a reviewer cannot decide on a revision they authored", async () => {
+    const r1 = await db.query<{ document: unknown; verdict: unknown; content_hash: string }>(
+      "SELECT document, verdict, content_hash FROM design_revision WHERE design_id = $1 AND number = 1",
+      [id],
+    );
+    const ws = await db.query<{ id: string }>("SELECT id FROM workspace WHERE slug = $1", [WS]);
+    // A revision authored by someone who is a reviewer now (roles change; the API saves only for engineers).
+    await db.query(
+      "INSERT INTO design_revision (id, design_id, workspace_id, number, document, verdict, content_hash, message, author_id) VALUES ($1, $2, $3, 4, $4, $5, $6, 'by the reviewer', $7)",
+      [crypto.randomUUID(), id, ws.rows[0]!.id, r1.rows[0]!.document, r1.rows[0]!.verdict, r1.rows[0]!.content_hash, ids.reviewer],
+    );
+    expect((await act(reviewer, id, 4, { intent: "decide", verdict: "approved", comment: "mine" })).status).toBe(403);
+    expect(await statusOnPage(reviewer, id, 4)).toBe("not-requested");
+  });
+
+  it("records requests, comments and decisions in the workspace's audit log", async () => {
+    const audit = await db.query<{ action: string }>("SELECT action FROM audit_event WHERE detail->>'designId' = $1 ORDER BY at", [id]);
+    const actions = audit.rows.map((r) => r.action);
+    for (const a of ["review.requested", "review.commented", "review.changes-requested", "review.approved"]) expect(actions).toContain(a);
+  });
+
+  it("another workspace sees none of it: 404 for pages, actions, report and PDF", async () => {
+    expect((await outsider.fetch(reviewUrl(id, 1))).status).toBe(404);
+    expect((await act(outsider, id, 1, { intent: "comment", anchor: "revision", body: "hello" })).status).toBe(404);
+    for (const page of ["table", "report", "report.pdf"]) {
+      expect((await outsider.fetch(`/w/${WS}/designs/${id}/revisions/1/${page}`)).status).toBe(404);
+    }
+    expect((await anonymous.fetch(`/w/${WS}/designs/${id}/revisions/1/report.pdf`)).status).toBe(302);
+  });
+
+  it("the designs list and the inbox show the review status", async () => {
+    const list = await pageText(engineer, `/w/${WS}/designs`);
+    expect(list).toContain('data-review-status="not-requested"');
+    const inbox = await pageText(reviewer, `/w/${WS}/reviews`);
+    expect(inbox).toContain("Test: review flow, revision 1");
+  });
+
+  it("the report shows the sign-off with the signed content hash", async () => {
+    const html = await pageText(technician, `/w/${WS}/designs/${id}/revisions/1/report?size=letter`);
+    expect(html).toContain("size: Letter");
+    expect(html).toMatch(/data-testid="report-status"[^>]*>Approved</);
+    expect(html).toContain("Checked against the loom.");
+    expect(html).toContain('data-testid="wiring-diagram"');
+  });
+});
