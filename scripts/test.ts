@@ -87,6 +87,18 @@ try {
     }),
   );
 
+  say("test", "load and outage, reduced (correctness only; figures come from npm run loadtest)");
+  const loadExit = await run("npx", ["tsx", "test/load/run.ts", "--quick"], {
+    ...testEnv,
+    CHAINPROOF_PG_DIR: ".data/test/postgres",
+    CHAINPROOF_PG_PORT: String(stack.pg.port),
+  });
+  if (loadExit === 0) tally.passed += 1;
+  else {
+    tally.failed += 1;
+    failures.push("load (reduced)");
+  }
+
   say("test", "end-to-end tests (Chromium)");
   addPlaywright(`${results}/e2e.json`, await run("npx", ["playwright", "test"], { ...testEnv, PLAYWRIGHT_JSON_OUTPUT_NAME: `${results}/e2e.json` }));
 } catch (err) {
