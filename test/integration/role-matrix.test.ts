@@ -41,6 +41,23 @@ export const MATRIX: Row[] = [
   { name: "review page of an unknown design", method: "GET", path: "/w/larkspur/designs/no-such-design/revisions/1/review", expect: all(404) },
   { name: "truth-table page of an unknown design", method: "GET", path: "/w/larkspur/designs/no-such-design/revisions/1/table", expect: all(404) },
   { name: "bench tests", method: "GET", path: "/w/larkspur/bench-tests", expect: all(200) },
+  { name: "bench tests with failures", method: "GET", path: "/w/larkspur/bench-tests?status=failures", expect: all(200) },
+  { name: "why won't it drive (no such vehicle)", method: "GET", path: "/w/larkspur/vehicles/no-such-vehicle/why", expect: all(404) },
+  {
+    name: "release to a vehicle (no such vehicle: engineers and admins get 404, others 403)",
+    method: "POST", path: "/w/larkspur/vehicles/no-such-vehicle", body: { intent: "release", revisionId: "x" },
+    expect: all(403, { admin: 404, engineer: 404 }),
+  },
+  {
+    name: "start a bench test (no such vehicle: technicians get 404, others 403)",
+    method: "POST", path: "/w/larkspur/vehicles/no-such-vehicle", body: { intent: "start-bench-run" },
+    expect: all(403, { technician: 404 }),
+  },
+  {
+    name: "record a bench step (no such run: technicians get 404, others 403)",
+    method: "POST", path: "/w/larkspur/bench-tests/no-such-run", body: { intent: "outcome", step: "1", outcome: "pass" },
+    expect: all(403, { technician: 404 }),
+  },
   { name: "settings", method: "GET", path: "/w/larkspur/settings", expect: all(200) },
   {
     name: "invite a member (invalid e-mail: admin gets 400, others 403)",

@@ -61,9 +61,12 @@ beforeAll(async () => {
   // The demo seed approves revision 1 of the hauler's design and releases it to the hauler.
   const rel = await db.query("SELECT count(*)::int AS n FROM vehicle_release WHERE vehicle_id = $1", [hauler.id]);
   expect(rel.rows[0].n, "the demo seed releases a revision to the hauler").toBeGreaterThan(0);
+  // A revision of this workspace that no reviewer approved, to try releasing to the mower.
   const m = await db.query(
-    `SELECT v.id, r.id AS revision_id FROM vehicle v JOIN design d ON d.vehicle_id = v.id JOIN design_revision r ON r.design_id = d.id
-     WHERE v.workspace_id = $1 AND v.name = 'Meadowline deck mower M-11' ORDER BY r.number LIMIT 1`,
+    `SELECT v.id, r.id AS revision_id FROM vehicle v, design_revision r
+     WHERE v.workspace_id = $1 AND v.name = 'Meadowline deck mower M-11' AND r.workspace_id = $1
+       AND NOT EXISTS (SELECT 1 FROM review_decision d WHERE d.revision_id = r.id AND d.verdict = 'approved')
+     ORDER BY r.created_at LIMIT 1`,
     [workspaceId],
   );
   mower = { id: m.rows[0].id, revisionId: m.rows[0].revision_id };
