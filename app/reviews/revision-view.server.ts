@@ -37,14 +37,19 @@ export async function loadRevision(workspaceId: string, designId: string, number
 
 export type Comparison =
   | { baseline: null }
-  | { baseline: { number: number }; structural: StructuralDiff; rows: RowDiff };
+  | { baseline: { number: number; approved: boolean }; structural: StructuralDiff; rows: RowDiff };
 
 const comparisons = new Map<string, Comparison>();
 const MAX_COMPARISONS = 16;
 
-/** The diff against the newest approved revision numbered below this one (cached: revisions never change). */
+/**
+ * The diff against the newest approved revision numbered below this one or, when none is approved,
+ * against the previous revision (what the last review asked to change). Cached: revisions never change.
+ */
 export async function compareWithLastApproved(workspaceId: string, designId: string, number: number, current: CompiledDesign): Promise<Comparison> {
-  const base = await lastApprovedBefore(workspaceId, designId, number);
+  const approved = await lastApprovedBefore(workspaceId, designId, number);
+  const previous = approved ? null : number > 1 ? await getRevision(workspaceId, designId, number - 1) : null;
+  const base = approved ?? (previous ? { id: previous.id, number: previous.number } : null);
   if (!base) return { baseline: null };
   const key = `${base.id}:${designId}:${number}`;
   const hit = comparisons.get(key);
@@ -52,7 +57,7 @@ export async function compareWithLastApproved(workspaceId: string, designId: str
   const before = await loadRevision(workspaceId, designId, base.number);
   if (!before) return { baseline: null };
   const result: Comparison = {
-    baseline: { number: base.number },
+    baseline: { number: base.number, approved: approved !== null },
     structural: structuralDiff(before.design, current.design),
     rows: rowDiff(before.compiled, current),
   };

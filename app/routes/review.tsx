@@ -240,13 +240,14 @@ function ListChanges({ title, diff, labels }: { title: string; diff: ListDiff; l
 
 function ChangesView({ comparison, slug, designId, number }: { comparison: Comparison; slug: string; designId: string; number: number }) {
   if (comparison.baseline === null) {
-    return <p className="text-sm text-ink-600">No earlier revision of this design is approved, so there is nothing to compare with: review the whole design.</p>;
+    return <p className="text-sm text-ink-600">This is the design's first revision, so there is nothing to compare with: review the whole design.</p>;
   }
   const { structural: s, rows } = comparison;
   return (
     <div className="space-y-4 text-sm" data-testid="review-diff">
       <p>
-        Compared with revision {comparison.baseline.number}, the last approved one.
+        Compared with revision {comparison.baseline.number},{" "}
+        {comparison.baseline.approved ? "the last approved one." : "the previous one (no earlier revision is approved)."}
         {s.empty ? " The structure is the same." : ""}
       </p>
       {s.name ? (
