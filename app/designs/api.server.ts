@@ -30,13 +30,15 @@ export async function handleApi(run: () => Promise<Response>): Promise<Response>
   }
 }
 
+export function methodNotAllowed(...allowed: string[]): Response {
+  return Response.json(
+    { error: { code: "method_not_allowed", message: `Use ${allowed.join(" or ")} here.`, fields: [] } },
+    { status: 405, headers: { allow: allowed.join(", ") } },
+  );
+}
+
 export function requireMethod(request: Request, ...allowed: string[]): void {
-  if (!allowed.includes(request.method)) {
-    throw new Response(
-      JSON.stringify({ error: { code: "method_not_allowed", message: `Use ${allowed.join(" or ")} here.`, fields: [] } }),
-      { status: 405, headers: { "content-type": "application/json", allow: allowed.join(", ") } },
-    );
-  }
+  if (!allowed.includes(request.method)) throw methodNotAllowed(...allowed);
 }
 
 /**

@@ -221,7 +221,27 @@ describe("malformed requests", () => {
     const tooLarge = await engineer.fetch(path, { method: "POST", body: huge, headers: { "content-type": "application/json" } });
     expect(tooLarge.status).toBe(413);
     expect(((await tooLarge.json()) as Json).error.code).toBe("too_large");
+    const foreign = await engineer.fetch(path, {
+      method: "POST",
+      body: JSON.stringify({ document: PROVEN, baseRevision: 0 }),
+      headers: { "content-type": "application/json", origin: "https://elsewhere.example" },
+    });
+    expect(foreign.status).toBe(403);
     expect(await revisionRows(id)).toEqual([]);
+  });
+
+  it("answer a method the endpoint does not take with 405 in the same error shape", async () => {
+    const id = await newDesign("Test: methods");
+    for (const [method, path] of [
+      ["DELETE", `/api/v1/designs/${id}`],
+      ["POST", `/api/v1/designs/${id}/draft`],
+      ["PUT", `/api/v1/designs/${id}/revisions`],
+      ["GET", `/api/v1/proofs?workspace=${WS}`],
+    ] as const) {
+      const r = await send(engineer, method, path, method === "GET" || method === "DELETE" ? undefined : {});
+      expect(r.status, `${method} ${path}`).toBe(405);
+      expect(r.body.error.code).toBe("method_not_allowed");
+    }
   });
 });
 

@@ -1,7 +1,7 @@
 // GET /api/v1/designs/:designId/revisions/:number -> { revision: { number, contentHash, message, author, createdAt, document, verdict } }
 import type { Route } from "./+types/design-revision";
 import { CAN } from "~/lib/roles";
-import { apiError, handleApi } from "~/designs/api.server";
+import { apiError, handleApi, methodNotAllowed } from "~/designs/api.server";
 import { getRevision, requireDesign } from "~/designs/designs.server";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
@@ -22,4 +22,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       },
     });
   });
+}
+
+export async function action() {
+  return methodNotAllowed("GET");
 }

@@ -2,7 +2,7 @@
 // document, verdict and contentHash are the latest revision's (null when there is none yet).
 import type { Route } from "./+types/design";
 import { CAN } from "~/lib/roles";
-import { handleApi } from "~/designs/api.server";
+import { handleApi, methodNotAllowed } from "~/designs/api.server";
 import { getDraft, getRevision, requireDesign, statusOf } from "~/designs/designs.server";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
@@ -27,4 +27,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
         : null,
     });
   });
+}
+
+export async function action() {
+  return methodNotAllowed("GET");
 }

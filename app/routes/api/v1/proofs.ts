@@ -3,10 +3,14 @@
 import type { Route } from "./+types/proofs";
 import { requireMember } from "~/auth/guard.server";
 import { CAN } from "~/lib/roles";
-import { apiError, handleApi, readJsonBody, requireMethod, storableJsonProblem, zodFields } from "~/designs/api.server";
+import { apiError, handleApi, methodNotAllowed, readJsonBody, requireMethod, storableJsonProblem, zodFields } from "~/designs/api.server";
 import { proveDocument } from "~/designs/proof";
 import { jsonObjectSchema, proofBodySchema } from "~/designs/forms";
 import { DESIGN_BODY_MAX_BYTES } from "~/designs/types";
+
+export async function loader() {
+  return methodNotAllowed("POST");
+}
 
 export async function action({ request }: Route.ActionArgs) {
   return handleApi(async () => {
