@@ -19,7 +19,14 @@ export type RunRow = {
 };
 
 export function RunBadge({ run }: { run: Pick<RunRow, "status" | "failed"> }) {
-  if (run.failed > 0) return <span className="rounded-full bg-brick-600 px-2 py-0.5 text-xs font-semibold text-white">{run.failed} failed</span>;
+  if (run.failed > 0) {
+    return (
+      <span className="rounded-full bg-brick-600 px-2 py-0.5 text-xs font-semibold text-white">
+        {run.status === "completed" ? "Completed, " : ""}
+        {run.failed} failed
+      </span>
+    );
+  }
   if (run.status === "completed") return <span className="rounded-full bg-moss-600 px-2 py-0.5 text-xs font-semibold text-white">Completed</span>;
   return <span className="rounded-full bg-copper-100 px-2 py-0.5 text-xs font-semibold text-copper-700">In progress</span>;
 }
@@ -46,10 +53,7 @@ export function RunList({ slug, runs, showVehicle = true, empty }: { slug: strin
                 · {r.done} of {r.total} steps{r.skipped ? `, ${r.skipped} skipped` : ""}
               </span>
             </span>
-            <span className="flex gap-2">
-              {r.failed > 0 && r.status === "completed" ? <span className="rounded-full bg-moss-600 px-2 py-0.5 text-xs font-semibold text-white">Completed</span> : null}
-              <RunBadge run={r} />
-            </span>
+            <RunBadge run={r} />
           </Link>
         </li>
       ))}

@@ -214,7 +214,7 @@ function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
                 <legend className="text-sm font-medium text-ink-700">
                   {inputLabel(x.id)} · {FUNCTION_WORDS[x.fn]} input · design says {result.row.inputs[x.id] ? "live" : "dead"}
                 </legend>
-                <div className="mt-1 flex flex-wrap gap-2">
+                <div className="mt-1 grid grid-cols-3 gap-2">
                   {(["unmeasured", "live", "dead"] as const).map((v) => (
                     <button
                       key={v}
@@ -222,7 +222,7 @@ function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
                       aria-pressed={r === v}
                       aria-label={`${x.id} ${v === "unmeasured" ? "not measured" : `reads ${v}`}`}
                       onClick={() => setReadings({ ...readings, [x.id]: v })}
-                      className={`min-h-11 min-w-20 rounded-md border px-3 text-sm font-medium ${
+                      className={`min-h-11 rounded-md border px-2 text-sm font-medium ${
                         r === v ? "border-ink-800 bg-ink-800 text-white" : "border-ink-300 bg-white text-ink-800 hover:bg-ink-100"
                       }`}
                     >

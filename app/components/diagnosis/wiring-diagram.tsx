@@ -74,7 +74,7 @@ export function WiringDiagram({
   const viewBox = `${minX - pad} ${minY - pad} ${maxX - minX + 2 * pad} ${maxY - minY + 2 * pad}`;
   return (
     <figure className="overflow-x-auto rounded-lg border border-ink-200 bg-white p-2">
-      <svg viewBox={viewBox} role="img" aria-label={title} className="h-auto w-full min-w-[36rem]" data-testid="wiring-diagram">
+      <svg viewBox={viewBox} role="img" aria-label={title} className="h-auto w-full min-w-[48rem]" data-testid="wiring-diagram">
         <title>{title}</title>
         {c.design.wires.map((w, i) => {
           const a = point(w.from);
