@@ -144,48 +144,6 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
             )}
           </Section>
 
-          <Section title="Revision history">
-            {history.length === 0 ? (
-              <p className="text-sm text-ink-600">No revisions yet.</p>
-            ) : (
-              <div className="relative -mx-5 overflow-x-auto">
-                <table className="min-w-full text-left text-sm">
-                  <thead className="border-b border-ink-200 text-xs uppercase tracking-wide text-ink-500">
-                    <tr>
-                      <th scope="col" className="px-5 py-2 font-medium">Revision</th>
-                      <th scope="col" className="px-3 py-2 font-medium">Author</th>
-                      <th scope="col" className="px-3 py-2 font-medium">Saved</th>
-                      <th scope="col" className="px-3 py-2 font-medium">Message</th>
-                      <th scope="col" className="px-3 py-2 font-medium">Hash</th>
-                      <th scope="col" className="px-3 py-2 font-medium">Review</th>
-                      <th scope="col" className="px-5 py-2 font-medium"><span className="sr-only">Open</span></th>
-                    </tr>
-                  </thead>
-                  <tbody className="divide-y divide-ink-100">
-                    {history.map((h) => (
-                      <tr key={h.number}>
-                        <td className="px-5 py-2 font-semibold">{h.number}</td>
-                        <td className="px-3 py-2">{h.authorName}</td>
-                        <td className="whitespace-nowrap px-3 py-2"><When iso={h.createdAt} /></td>
-                        <td className="px-3 py-2 text-ink-700">{h.message || <span className="text-ink-400">—</span>}</td>
-                        <td className="px-3 py-2"><HashPrefix hash={h.contentHash} /></td>
-                        <td className="whitespace-nowrap px-3 py-2">
-                          <Link to={reviewPath(slug, design.id, h.number)} aria-label={`Review of revision ${h.number}`}>
-                            <ReviewStatusBadge status={h.review} />
-                          </Link>
-                        </td>
-                        <td className="whitespace-nowrap px-5 py-2">
-                          <Link to={editorPath(slug, design.id, h.number)} className="text-copper-700 underline">
-                            View<span className="sr-only"> revision {h.number}</span>
-                          </Link>
-                        </td>
-                      </tr>
-                    ))}
-                  </tbody>
-                </table>
-              </div>
-            )}
-          </Section>
         </div>
 
         <div className="min-w-0 space-y-5">
@@ -225,6 +183,51 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
           </Section>
           <SafetyNote />
         </div>
+      </div>
+
+      <div className="mt-5">
+        <Section title="Revision history">
+          {history.length === 0 ? (
+            <p className="text-sm text-ink-600">No revisions yet.</p>
+          ) : (
+            <div className="relative -mx-5 overflow-x-auto">
+              <table className="min-w-full text-left text-sm">
+                <thead className="border-b border-ink-200 text-xs uppercase tracking-wide text-ink-500">
+                  <tr>
+                    <th scope="col" className="px-5 py-2 font-medium">Revision</th>
+                    <th scope="col" className="px-3 py-2 font-medium">Author</th>
+                    <th scope="col" className="px-3 py-2 font-medium">Saved</th>
+                    <th scope="col" className="px-3 py-2 font-medium">Message</th>
+                    <th scope="col" className="px-3 py-2 font-medium">Hash</th>
+                    <th scope="col" className="px-3 py-2 font-medium">Review</th>
+                    <th scope="col" className="px-5 py-2 font-medium"><span className="sr-only">Open</span></th>
+                  </tr>
+                </thead>
+                <tbody className="divide-y divide-ink-100">
+                  {history.map((h) => (
+                    <tr key={h.number}>
+                      <td className="px-5 py-2 font-semibold">{h.number}</td>
+                      <td className="px-3 py-2">{h.authorName}</td>
+                      <td className="whitespace-nowrap px-3 py-2"><When iso={h.createdAt} /></td>
+                      <td className="min-w-48 px-3 py-2 text-ink-700">{h.message || <span className="text-ink-400">—</span>}</td>
+                      <td className="px-3 py-2"><HashPrefix hash={h.contentHash} /></td>
+                      <td className="whitespace-nowrap px-3 py-2">
+                        <Link to={reviewPath(slug, design.id, h.number)} aria-label={`Review of revision ${h.number}`}>
+                          <ReviewStatusBadge status={h.review} />
+                        </Link>
+                      </td>
+                      <td className="whitespace-nowrap px-5 py-2">
+                        <Link to={editorPath(slug, design.id, h.number)} className="text-copper-700 underline">
+                          View<span className="sr-only"> revision {h.number}</span>
+                        </Link>
+                      </td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            </div>
+          )}
+        </Section>
       </div>
     </>
   );
