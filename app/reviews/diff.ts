@@ -1,7 +1,7 @@
 // What changed between two revisions: the structure (components, wires, conditions, rules,
 // controller) from the documents, and the truth-table rows whose drive or violated rules changed,
 // evaluated by the engine on both designs when their conditions are identical (same row numbering).
-import { pageRows, type CompiledDesign, type Design } from "~/engine";
+import { csvChunks, decodeRow, evaluateRow, type CompiledDesign, type Design, type RowFilter } from "../engine";
 
 export type ItemChange = { id: string; fields: string[] };
 export type ListDiff = { added: string[]; removed: string[]; changed: ItemChange[] };
@@ -87,10 +87,34 @@ export type RowDiff =
   | { comparable: true; rows: number; changedRows: number; listed: RowChange[]; truncated: boolean };
 
 /** Largest table compared row by row while a page loads. */
-export const ROW_DIFF_LIMIT = 2 ** 20;
-const CHUNK = 4096;
+export const ROW_DIFF_LIMIT = 2 ** 22;
 
-function outcome(v: { drive: boolean; rules: Record<string, { violating: boolean }> }): RowOutcome {
+/**
+ * Indexes of the rows matching a filter, read from the first column of the engine's streamed CSV:
+ * the engine's filter scan goes word by word and only matching rows are formatted, so this costs
+ * in proportion to the matches, not to the table.
+ */
+function matchingIndexes(c: CompiledDesign, filter: RowFilter): Set<number> {
+  const out = new Set<number>();
+  let header = true;
+  let carry = "";
+  for (const chunk of csvChunks(c, filter)) {
+    const text = carry + chunk;
+    let at = 0;
+    for (;;) {
+      const nl = text.indexOf("\n", at);
+      if (nl < 0) break;
+      if (header) header = false;
+      else out.add(Number(text.slice(at, text.indexOf(",", at))));
+      at = nl + 1;
+    }
+    carry = text.slice(at);
+  }
+  return out;
+}
+
+function outcomeOf(c: CompiledDesign, index: number): RowOutcome {
+  const v = evaluateRow(c, index);
   return {
     drive: v.drive,
     violated: Object.keys(v.rules)
@@ -99,7 +123,15 @@ function outcome(v: { drive: boolean; rules: Record<string, { violating: boolean
   };
 }
 
-/** Rows whose steady drive or set of violated inhibit rules differs; the first `limit` are listed. */
+function inhibitIds(c: CompiledDesign): string[] {
+  return c.rules.filter((r) => r.type === "inhibit").map((r) => r.id);
+}
+
+/**
+ * Rows whose steady drive or set of violated inhibit rules differs: the symmetric differences of
+ * the drive rows and of each rule's violating rows (the engine's filters on both designs). The
+ * first `limit` changed rows are listed with both outcomes.
+ */
 export function rowDiff(before: CompiledDesign, after: CompiledDesign, limit = 200): RowDiff {
   if (!sameConditions(before.design, after.design)) {
     return {
@@ -113,18 +145,25 @@ export function rowDiff(before: CompiledDesign, after: CompiledDesign, limit = 2
       reason: `The truth table has ${after.rows.toLocaleString("en-US")} rows, more than the ${ROW_DIFF_LIMIT.toLocaleString("en-US")} compared on this page; compare the CSV downloads instead.`,
     };
   }
-  const listed: RowChange[] = [];
-  let changedRows = 0;
-  for (let from = 0; from < after.rows; from += CHUNK) {
-    const a = pageRows(before, { from, count: CHUNK }).rows;
-    const b = pageRows(after, { from, count: CHUNK }).rows;
-    for (let i = 0; i < b.length; i++) {
-      const x = outcome(a[i]!);
-      const y = outcome(b[i]!);
-      if (x.drive === y.drive && x.violated.join("\u0000") === y.violated.join("\u0000")) continue;
-      changedRows++;
-      if (listed.length < limit) listed.push({ index: b[i]!.index, states: b[i]!.states, before: x, after: y });
-    }
+  const changed = new Set<number>();
+  const addDifference = (a: Set<number>, b: Set<number>) => {
+    for (const i of a) if (!b.has(i)) changed.add(i);
+    for (const i of b) if (!a.has(i)) changed.add(i);
+  };
+  addDifference(matchingIndexes(before, { only: "drive" }), matchingIndexes(after, { only: "drive" }));
+  const rulesBefore = inhibitIds(before);
+  const rulesAfter = inhibitIds(after);
+  for (const id of new Set([...rulesBefore, ...rulesAfter])) {
+    const a = rulesBefore.includes(id) ? matchingIndexes(before, { only: "violating", rule: id }) : new Set<number>();
+    const b = rulesAfter.includes(id) ? matchingIndexes(after, { only: "violating", rule: id }) : new Set<number>();
+    addDifference(a, b);
   }
-  return { comparable: true, rows: after.rows, changedRows, listed, truncated: changedRows > listed.length };
+  const sorted = [...changed].sort((x, y) => x - y);
+  const listed: RowChange[] = sorted.slice(0, limit).map((index) => ({
+    index,
+    states: decodeRow(after, index),
+    before: outcomeOf(before, index),
+    after: outcomeOf(after, index),
+  }));
+  return { comparable: true, rows: after.rows, changedRows: sorted.length, listed, truncated: sorted.length > listed.length };
 }
