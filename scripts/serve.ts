@@ -54,4 +54,15 @@ server.keepAliveTimeout = 65_000;
 server.headersTimeout = 66_000;
 const stop = () => server.close(() => process.exit(0));
 process.on("SIGTERM", stop);
+// Started by the start/test scripts: leave with them, even if they were killed without a word.
+const parent = Number(process.env.CHAINPROOF_PARENT_PID ?? 0);
+if (parent) {
+  setInterval(() => {
+    try {
+      process.kill(parent, 0);
+    } catch {
+      stop();
+    }
+  }, 2000).unref();
+}
 process.on("SIGINT", stop);

@@ -86,7 +86,10 @@ export async function bringUp(cfg: StackConfig): Promise<Stack> {
 
   let app: ChildProcess | null = null;
   const startApp = async () => {
-    app = spawn(process.execPath, ["--import", "tsx", "scripts/serve.ts"], { stdio: "inherit", env: { ...process.env, ...env } });
+    app = spawn(process.execPath, ["--import", "tsx", "scripts/serve.ts"], {
+      stdio: "inherit",
+      env: { ...process.env, ...env, CHAINPROOF_PARENT_PID: String(process.pid) },
+    });
     await waitForHealth(appUrl, app);
   };
   const stopApp = async () => {
