@@ -5,7 +5,7 @@ import { CAN } from "~/lib/roles";
 import { getDesign, getDraft, getRevision, listRevisions, statusOf } from "~/designs/designs.server";
 import { designsPath, editorPath } from "~/designs/paths";
 import { HashPrefix, Holds, NotProven, Section, StatusBadge, When } from "~/designs/design-bits";
-import { proveDocument } from "~/designs/proof";
+import { proveOffThread } from "~/proofs/pool.server";
 import type { Verdict } from "~/designs/types";
 import { PageHeader } from "~/components/page-header";
 import { SafetyNote } from "~/components/safety-note";
@@ -42,7 +42,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   // Which rules the draft breaks, when its stored check says some do (small tables only, see decision 031).
   let draftFailing: string[] = [];
   if (draft?.check.state === "checked" && !draft.check.ok) {
-    const proof = proveDocument(draft.document);
+    const proof = await proveOffThread(draft.document);
     if (proof.ok) {
       const names = labels(draft.document, "rules");
       draftFailing = proof.verdict.rules.filter((r) => !r.holds).map((r) => names[r.id] ?? r.id);

@@ -8,12 +8,12 @@ import type { Route } from "./+types/design-revisions";
 import { CAN } from "~/lib/roles";
 import { apiError, handleApi, readJsonBody, requireMethod, storableJsonProblem, zodFields } from "~/designs/api.server";
 import { listRevisions, requireDesign, saveRevision } from "~/designs/designs.server";
-import { proveDocument } from "~/designs/proof";
+import { proveOffThread } from "~/proofs/pool.server";
 import { jsonObjectSchema, saveRevisionBodySchema } from "~/designs/forms";
 import { DESIGN_BODY_MAX_BYTES } from "~/designs/types";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  return handleApi(async () => {
+  return handleApi(request, async () => {
     const { member, design } = await requireDesign(request, params.designId, CAN.view);
     const rows = await listRevisions(member.workspace.id, design.id);
     return Response.json({
@@ -30,7 +30,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
-  return handleApi(async () => {
+  return handleApi(request, async () => {
     requireMethod(request, "POST");
     const { member, design } = await requireDesign(request, params.designId, CAN.editDesigns);
     const raw = jsonObjectSchema.safeParse(await readJsonBody(request, DESIGN_BODY_MAX_BYTES));
@@ -42,7 +42,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     // Before the engine: text jsonb cannot store (NUL, broken surrogates) and nesting too deep to walk.
     const unstorable = storableJsonProblem(document, "");
     if (unstorable) return apiError(400, "invalid_design", "The design holds something that cannot be stored; nothing was saved.", [unstorable]);
-    const proof = proveDocument(document);
+    const proof = await proveOffThread(document);
     if (!proof.ok) {
       const n = proof.problems.length;
       return apiError(400, "invalid_design", `The design breaks the format in ${n} ${n === 1 ? "place" : "places"}; nothing was saved.`, proof.problems);

@@ -4,7 +4,7 @@ import type { Route } from "./+types/proofs";
 import { requireMember } from "~/auth/guard.server";
 import { CAN } from "~/lib/roles";
 import { apiError, handleApi, methodNotAllowed, readJsonBody, requireMethod, storableJsonProblem, zodFields } from "~/designs/api.server";
-import { proveDocument } from "~/designs/proof";
+import { proveOffThread } from "~/proofs/pool.server";
 import { jsonObjectSchema, proofBodySchema } from "~/designs/forms";
 import { DESIGN_BODY_MAX_BYTES } from "~/designs/types";
 
@@ -13,7 +13,7 @@ export async function loader() {
 }
 
 export async function action({ request }: Route.ActionArgs) {
-  return handleApi(async () => {
+  return handleApi(request, async () => {
     requireMethod(request, "POST");
     const slug = new URL(request.url).searchParams.get("workspace");
     if (!slug) return apiError(400, "invalid_query", "Name the workspace: ?workspace=SLUG.", [{ path: "workspace", message: "required" }]);
@@ -24,7 +24,7 @@ export async function action({ request }: Route.ActionArgs) {
     if (!body.success) return apiError(400, "invalid_body", "Send { \"document\": ... }.", zodFields(body.error));
     const unstorable = storableJsonProblem(body.data.document, "");
     if (unstorable) return apiError(400, "invalid_design", "The design holds something the server does not read.", [unstorable]);
-    const proof = proveDocument(body.data.document);
+    const proof = await proveOffThread(body.data.document);
     if (!proof.ok) {
       const n = proof.problems.length;
       return apiError(400, "invalid_design", `The design breaks the format in ${n} ${n === 1 ? "place" : "places"}.`, proof.problems);
