@@ -28,11 +28,36 @@ export class UploadError extends Error {
  * Reads a multipart body with a hard size cap, so a huge upload is refused before it is buffered.
  * The cap covers the whole request (file plus a little form overhead).
  */
+const tooLarge = () => new UploadError("file", `The file is too large: the limit is ${MAX_UPLOAD_BYTES / 1024 / 1024} MB.`, 413);
+
+/** Reads and throws away what is left of a refused body (up to a bound), so the client can read our answer. */
+async function drain(reader: ReadableStreamDefaultReader<Uint8Array>, budget: number) {
+  let seen = 0;
+  try {
+    for (;;) {
+      const { done, value } = await reader.read();
+      if (done) return;
+      seen += value.byteLength;
+      if (seen > budget) break;
+    }
+  } catch {
+    // The client went away: nothing to answer.
+  }
+  await reader.cancel().catch(() => {});
+}
+
+/**
+ * Reads a multipart body with a hard size cap, so a huge upload is refused without being kept.
+ * The cap covers the whole request (file plus a little form overhead).
+ */
 export async function readCappedFormData(request: Request, cap = MAX_UPLOAD_BYTES + 64 * 1024): Promise<FormData> {
-  const declared = Number(request.headers.get("content-length") ?? "0");
-  if (declared > cap) throw new UploadError("file", `The file is too large: the limit is ${MAX_UPLOAD_BYTES / 1024 / 1024} MB.`, 413);
   if (!request.body) throw new UploadError("file", "Choose a file to upload.");
   const reader = request.body.getReader();
+  const declared = Number(request.headers.get("content-length") ?? "0");
+  if (declared > cap) {
+    await drain(reader, 4 * cap);
+    throw tooLarge();
+  }
   const chunks: Uint8Array[] = [];
   let total = 0;
   for (;;) {
@@ -45,8 +70,8 @@ export async function readCappedFormData(request: Request, cap = MAX_UPLOAD_BYTE
     if (result.done) break;
     total += result.value.byteLength;
     if (total > cap) {
-      await reader.cancel().catch(() => {});
-      throw new UploadError("file", `The file is too large: the limit is ${MAX_UPLOAD_BYTES / 1024 / 1024} MB.`, 413);
+      await drain(reader, 4 * cap);
+      throw tooLarge();
     }
     chunks.push(result.value);
   }
@@ -73,7 +98,7 @@ export async function saveUpload(opts: {
 }) {
   const file = opts.file;
   if (!(file instanceof File) || file.size === 0) throw new UploadError("file", "Choose a file to upload.");
-  if (file.size > MAX_UPLOAD_BYTES) throw new UploadError("file", `The file is too large: the limit is ${MAX_UPLOAD_BYTES / 1024 / 1024} MB.`, 413);
+  if (file.size > MAX_UPLOAD_BYTES) throw tooLarge();
   const bytes = new Uint8Array(await file.arrayBuffer());
   const detected = await fileTypeFromBuffer(bytes);
   if (!detected || !(detected.mime in ACCEPTED_TYPES)) {
