@@ -1,2 +1,8 @@
 // The props contract with the route that mounts the editor (types owned by app/designs/types.ts).
-export type { DesignEditorProps, SaveDraftResult, SaveRevisionResult } from "../designs/types";
+import type { DesignEditorProps as RouteEditorProps } from "../designs/types";
+
+export type DesignEditorProps = RouteEditorProps & {
+  /** The `row` query parameter as given (a truth-table row index to simulate on open), or null. */
+  row?: string | null;
+};
+export type { SaveDraftResult, SaveRevisionResult } from "../designs/types";

@@ -37,7 +37,7 @@ const DRAG_TYPE = "application/x-chainproof-component";
 
 export default function Editor(props: DesignEditorProps) {
   const [store] = useState(() =>
-    createEditorStore({ initial: props.initial, readOnly: props.readOnly, designName: props.designName, baseRevision: props.baseRevision }),
+    createEditorStore({ initial: props.initial, readOnly: props.readOnly, designName: props.designName, baseRevision: props.baseRevision, row: props.row }),
   );
   return (
     <EditorContext.Provider value={store}>
@@ -57,7 +57,11 @@ function EditorShell(props: DesignEditorProps) {
   useSimulationDriver();
   useLayoutRequests();
   const autosave = useAutosave({ enabled: !readOnly, draftVersion: props.draftVersion, onSaveDraft: props.onSaveDraft });
-  const [banner, setBanner] = useState<Banner>(null);
+  // A `row` that could not be simulated is said once, gently; the design opens as usual.
+  const [banner, setBanner] = useState<Banner>(() => {
+    const notice = store.getState().rowNotice;
+    return notice ? { tone: "warning", text: notice } : null;
+  });
   const [baseRevision, setBaseRevision] = useState(props.baseRevision);
 
   useEffect(() => {

@@ -1,6 +1,6 @@
 // Simulation on the main thread: compile the current design once per content, evaluate one row
 // (optionally with a contact fault), or replay a trace up to a step.
-import { compileDesign, evaluateRow, replayTrace, encodeRow, rowCount, validateDesign, type CompiledDesign, type ContactFault, type Design } from "../engine";
+import { compileDesign, decodeRow, evaluateRow, replayTrace, encodeRow, rowCount, validateDesign, type CompiledDesign, type ContactFault, type Design } from "../engine";
 import { contentKey } from "./convert";
 import type { Simulation, SimView } from "./store";
 
@@ -55,4 +55,31 @@ export function faultRow(c: CompiledDesign, ruleId: string, fault: ContactFault)
 /** Every condition at its first state: where simulation by hand starts. */
 export function restRow(doc: Design): Record<string, string> {
   return Object.fromEntries(doc.conditions.map((c) => [c.id, c.states[0] ?? ""]));
+}
+
+/** The `row` query parameter: absent, a row index (digits only, a safe integer), or not a row number. */
+export type RowParam = { kind: "none" } | { kind: "index"; index: number } | { kind: "bad"; text: string };
+
+export function parseRowParam(raw: string | null | undefined): RowParam {
+  if (raw === null || raw === undefined) return { kind: "none" };
+  const text = raw.trim();
+  if (/^(0|[1-9][0-9]{0,15})$/.test(text) && Number.isSafeInteger(Number(text))) return { kind: "index", index: Number(text) };
+  return { kind: "bad", text: raw.length > 24 ? `${raw.slice(0, 24)}…` : raw };
+}
+
+/**
+ * Where the editor starts for `?row=`: simulating that row of `doc`'s truth table, or not
+ * simulating with a sentence saying why the row was ignored (bad number, out of range, invalid design).
+ */
+export function rowStart(raw: string | null | undefined, doc: Design): { simulation: Simulation | null; notice: string | null } {
+  const param = parseRowParam(raw);
+  if (param.kind === "none") return { simulation: null, notice: null };
+  if (param.kind === "bad") return { simulation: null, notice: `“${param.text}” is not a row number, so the design opened without simulating.` };
+  const compiled = compiledOf(doc);
+  if (!compiled) return { simulation: null, notice: `Row ${param.index} cannot be simulated: this design has problems to fix first.` };
+  const rows = rowCount(compiled);
+  if (param.index >= rows) {
+    return { simulation: null, notice: `This design has no row ${param.index} (its truth table has rows 0 to ${(rows - 1).toLocaleString("en-US")}), so it opened without simulating.` };
+  }
+  return { simulation: { states: decodeRow(compiled, param.index), source: { kind: "row", index: param.index } }, notice: null };
 }

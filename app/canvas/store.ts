@@ -6,6 +6,7 @@ import { applyEdgeChanges, applyNodeChanges, type Connection, type EdgeChange, t
 import { createStore, useStore, type StoreApi } from "zustand";
 import type { ContactFault, Design, InputFunction, Problem, RowStates, Verdict } from "../engine";
 import { contentKey, documentToFlow, flowToDocument } from "./convert";
+import { rowStart } from "./simulation";
 import { addInParallel, addInSeries, checkConnection, duplicateNodes, newNode } from "./graph-ops";
 import type { CanvasEdge, CanvasNode, ComponentKind, DesignRest, XY } from "./types";
 
@@ -20,6 +21,7 @@ export type ProofState =
 /** What the canvas shows in simulation: one row (by hand, from a counterexample, or a step of a trace). */
 export type SimSource =
   | { kind: "hand" }
+  | { kind: "row"; index: number }
   | { kind: "example"; ruleId: string }
   | { kind: "fault"; ruleId: string; fault: ContactFault }
   | { kind: "trace"; ruleId: string; rows: RowStates[]; step: number };
@@ -55,6 +57,8 @@ export type EditorState = {
   /** Revision the working copy is based on, and the content key it had then (null: unknown / edited). */
   revision: { number: number; key: string | null };
   loadNotes: string[];
+  /** Why the `row` the editor was opened with is not being simulated (null: none asked, or it is). */
+  rowNotice: string | null;
   /** The server's refusal of the last "Save revision" (400 problems or 422 verdict). */
   refusal: { kind: "problems"; problems: Problem[] } | { kind: "verdict"; verdict: Verdict } | null;
 
@@ -88,10 +92,11 @@ export type EditorState = {
 
 export type EditorStore = StoreApi<EditorState>;
 
-export function createEditorStore(init: { initial: unknown; readOnly: boolean; designName: string; baseRevision: number }): EditorStore {
+export function createEditorStore(init: { initial: unknown; readOnly: boolean; designName: string; baseRevision: number; row?: string | null }): EditorStore {
   const loaded = documentToFlow(init.initial, init.designName);
   const snapshot = (s: EditorState) => flowToDocument(s.rest, s.nodes, s.edges);
   const loadedDoc = flowToDocument(loaded.rest, loaded.nodes, loaded.edges);
+  const start = rowStart(init.row, loadedDoc);
 
   return createStore<EditorState>()((set, get) => {
     const apply = (doc: Design) => {
@@ -108,14 +113,15 @@ export function createEditorStore(init: { initial: unknown; readOnly: boolean; d
       edges: loaded.edges,
       past: [],
       future: [],
-      panel: "properties",
+      panel: start.simulation ? "simulate" : "properties",
       proof: { status: "pending" },
-      simulation: null,
+      simulation: start.simulation,
       simView: null,
       layoutRequest: loaded.unplaced.length > 0 && loaded.nodes.length > 0 ? 1 : 0,
       fitRequest: 1,
       revision: { number: init.baseRevision, key: init.baseRevision > 0 ? contentKey(loadedDoc) : null },
       loadNotes: loaded.dropped,
+      rowNotice: start.notice,
       refusal: null,
 
       document: () => snapshot(get()),

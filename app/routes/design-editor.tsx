@@ -16,10 +16,12 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   if (!d) throw new Response("Not found", { status: 404 });
   const canEdit = (CAN.editDesigns as readonly string[]).includes(m.role);
   const draft = await getDraft(m.workspace.id, d.id);
-  const common = { slug: m.workspace.slug, design: { id: d.id, name: d.name }, draftVersion: draft?.version ?? 0 };
+  const search = new URL(request.url).searchParams;
+  // ?row=I opens simulating row I of what is shown; the editor checks it against the design.
+  const common = { slug: m.workspace.slug, design: { id: d.id, name: d.name }, draftVersion: draft?.version ?? 0, row: search.get("row") };
 
   // ?revision=N shows that saved revision, read-only.
-  const wanted = new URL(request.url).searchParams.get("revision");
+  const wanted = search.get("revision");
   if (wanted !== null) {
     const number = /^[1-9][0-9]{0,8}$/.test(wanted) ? Number(wanted) : null;
     const rev = number === null ? null : await getRevision(m.workspace.id, d.id, number);
@@ -69,7 +71,7 @@ async function call(url: string, method: string, payload: unknown): Promise<{ re
 }
 
 export default function DesignEditorPage({ loaderData }: Route.ComponentProps) {
-  const { slug, design, readOnly, initial, draftVersion, baseRevision, showing } = loaderData;
+  const { slug, design, readOnly, initial, draftVersion, baseRevision, showing, row } = loaderData;
   // The revision the working copy builds on; a saved revision moves it, and draft saves record it.
   const base = useRef(baseRevision);
   useEffect(() => {
@@ -125,12 +127,13 @@ export default function DesignEditorPage({ loaderData }: Route.ComponentProps) {
         </p>
       </div>
       <DesignEditor
-        key={`${design.id}-${showing.kind}-${showing.number}`}
+        key={`${design.id}-${showing.kind}-${showing.number}-${row ?? ""}`}
         initial={initial}
         draftVersion={draftVersion}
         baseRevision={baseRevision}
         readOnly={readOnly}
         designName={design.name}
+        row={row}
         onSaveDraft={onSaveDraft}
         onSaveRevision={onSaveRevision}
       />

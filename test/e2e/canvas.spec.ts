@@ -146,3 +146,51 @@ test("a reviewer sees the canvas read-only but may simulate", async ({ page }) =
   await page.getByRole("tab", { name: "Conditions" }).click();
   await expect(page.getByRole("button", { name: "+ Condition" })).toBeDisabled();
 });
+
+type Revision = { document: { conditions: Array<{ id: string; label?: string; states: string[] }> } };
+type TableRowBody = { index: number; states: string[]; drive: boolean };
+
+async function demoDesignId(page: Page, name: string): Promise<string> {
+  const res = await page.request.get(`/api/v1/designs?workspace=${WS}`, { headers: { origin: APP_ORIGIN } });
+  expect(res.status()).toBe(200);
+  const { designs } = (await res.json()) as { designs: Array<{ id: string; name: string }> };
+  const found = designs.find((d) => d.name === name);
+  test.skip(!found, `the demo design "${name}" is not in this workspace`);
+  return found!.id;
+}
+
+test("a truth-table row link opens the revision simulating that row; a bad row is ignored with a notice", async ({ page }) => {
+  await signIn(page, "reviewer");
+  const id = await demoDesignId(page, "Haybarn hauler #3, drive inhibit");
+  const api = `/api/v1/designs/${id}/revisions/1`;
+  const { revision } = (await (await page.request.get(api, { headers: { origin: APP_ORIGIN } })).json()) as { revision: Revision };
+  // The rows to open come from the truth-table API (the server's engine), not from the canvas.
+  const pick = async (only?: string): Promise<TableRowBody> => {
+    const res = await page.request.get(`${api}/rows?from=0&count=50${only ? `&only=${only}` : ""}`, { headers: { origin: APP_ORIGIN } });
+    expect(res.status()).toBe(200);
+    const { rows } = (await res.json()) as { rows: TableRowBody[] };
+    const row = only ? rows[0] : rows.find((r) => !r.drive && r.index > 0);
+    expect(row).toBeTruthy();
+    return row!;
+  };
+
+  for (const row of [await pick("drive"), await pick()]) {
+    await page.goto(`${editorUrl(id)}?revision=1&row=${row.index}`);
+    await expect(page.getByText("Read only")).toBeVisible();
+    await expect(page.getByRole("tab", { name: "Simulate" })).toHaveAttribute("aria-selected", "true");
+    await expect(page.getByTestId("sim-row")).toHaveText(`Row ${row.index} of the truth table.`);
+    await expect(page.getByTestId("sim-drive")).toContainText(row.drive ? "Drive ON" : "Drive OFF");
+    for (const [i, c] of revision.document.conditions.entries()) {
+      const group = page.getByRole("group", { name: `State of ${c.label || c.id}`, exact: true });
+      await expect(group.getByRole("button", { pressed: true })).toHaveText(row.states[i]);
+    }
+  }
+
+  // Out of range and not a number: the revision opens as usual, with a notice.
+  await page.goto(`${editorUrl(id)}?revision=1&row=999999`);
+  await expect(page.getByText("This design has no row 999999")).toBeVisible();
+  await expect(page.getByTestId("sim-drive")).toHaveCount(0);
+  await page.goto(`${editorUrl(id)}?revision=1&row=first`);
+  await expect(page.getByText("“first” is not a row number")).toBeVisible();
+  await expect(page.getByTestId("proof-status")).toContainText("Proven");
+});

@@ -64,6 +64,7 @@ export function SimulatePanel() {
       >
         <p className="text-sm text-ink-700">
           {src.kind === "hand" ? "By hand." : null}
+          {src.kind === "row" ? <span data-testid="sim-row">Row {src.index.toLocaleString("en-US")} of the truth table.</span> : null}
           {src.kind === "example" ? `Counterexample of “${ruleLabel(src.ruleId)}”.` : null}
           {src.kind === "fault" ? `${src.fault.component} ${src.fault.mode.replace("-", " ")} breaks “${ruleLabel(src.ruleId)}” in this row.` : null}
           {src.kind === "trace" ? `Steps that break “${ruleLabel(src.ruleId)}”.` : null}
