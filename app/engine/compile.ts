@@ -112,7 +112,7 @@ export function compileDesign(design: Design): CompiledDesign {
     conditions[i].stride = rows;
     rows *= conditions[i].radix;
   }
-  const conditionIndex: Record<string, number> = {};
+  const conditionIndex: Record<string, number> = Object.create(null); // ids like "__proto__" are legal
   conditions.forEach((c, i) => (conditionIndex[c.id] = i));
 
   const literals: Literal[] = [];
@@ -154,7 +154,7 @@ export function compileDesign(design: Design): CompiledDesign {
   }
   const netOfRoot = new Map<number, number>();
   const nets: string[][] = [];
-  const terminalNet: Record<string, number> = {};
+  const terminalNet: Record<string, number> = Object.create(null); // ids like "__proto__" are legal
   terminals.forEach((t, i) => {
     const root = find(i);
     let net = netOfRoot.get(root);
@@ -188,7 +188,7 @@ export function compileDesign(design: Design): CompiledDesign {
         lit,
       };
     });
-  const contactIndex: Record<string, number> = {};
+  const contactIndex: Record<string, number> = Object.create(null); // ids like "__proto__" are legal
   contacts.forEach((c, i) => (contactIndex[c.id] = i));
 
   const inputs: CompiledInput[] = [];
@@ -198,7 +198,7 @@ export function compileDesign(design: Design): CompiledDesign {
     inputOf[c.function] = inputs.length;
     inputs.push({ id: c.id, label: c.label ?? c.id, fn: c.function, net: terminalNet[`${c.id}.in`] });
   }
-  const inputIndex: Record<string, number> = {};
+  const inputIndex: Record<string, number> = Object.create(null); // ids like "__proto__" are legal
   inputs.forEach((x, i) => (inputIndex[x.id] = i));
 
   const { flow, singlePass } = planFlow(supplyNets, contacts);

@@ -51,7 +51,7 @@ export function decodeRow(c: CompiledDesign, index: number): Record<string, stri
   if (!Number.isInteger(index) || index < 0 || index >= c.rows) {
     throw new RangeError(`row ${index} is outside 0..${c.rows - 1}`);
   }
-  const out: Record<string, string> = {};
+  const out: Record<string, string> = Object.create(null); // ids like "__proto__" are legal
   for (const cond of c.conditions) {
     out[cond.id] = cond.states[Math.floor(index / cond.stride) % cond.radix];
   }
@@ -92,9 +92,9 @@ export function viewOfLane(ev: WordEvaluator, index: number): RowView {
   const c = ev.c;
   const j = index - ev.wordIndex * WORD;
   const bit = (x: number) => ((x >>> j) & 1) === 1;
-  const contacts: Record<string, boolean> = {};
+  const contacts: Record<string, boolean> = Object.create(null); // ids like "__proto__" are legal
   c.contacts.forEach((k, i) => (contacts[k.id] = bit(ev.cw[i])));
-  const inputs: Record<string, boolean> = {};
+  const inputs: Record<string, boolean> = Object.create(null); // ids like "__proto__" are legal
   c.inputs.forEach((x) => (inputs[x.id] = bit(ev.reach[x.net])));
   const energized: number[] = [];
   const energizedTerminals: string[] = [];
@@ -106,7 +106,7 @@ export function viewOfLane(ev: WordEvaluator, index: number): RowView {
   });
   const dirWords = [ev.dirForward, ev.dirNeutral, ev.dirReverse, ev.dirConflict];
   const thrWords = [ev.thrReleased, ev.thrApplied, ev.thrFault];
-  const rules: RowView["rules"] = {};
+  const rules: RowView["rules"] = Object.create(null); // ids like "__proto__" are legal
   c.rules.forEach((r, i) => {
     if (r.type !== "inhibit") return;
     const unsafe = bit(ev.unsafeWord(i));

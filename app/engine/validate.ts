@@ -153,7 +153,7 @@ function crossReferences(d: Obj, problems: Problem[]): void {
       const type = componentType.get(compId);
       if (!componentAt.has(compId)) {
         add(path, `no component with id ${q(compId)}`);
-      } else if (type && type in TERMINALS) {
+      } else if (type && Object.hasOwn(TERMINALS, type)) {
         const terms = TERMINALS[type as keyof typeof TERMINALS] as readonly string[];
         if (!terms.includes(term)) {
           add(path, `component ${q(compId)} (${type}) has no terminal ${q(term)}; its terminals are ${terms.join(", ")}`);
