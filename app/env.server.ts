@@ -22,6 +22,8 @@ const schema = z.object({
   CHAINPROOF_DEMO: z.enum(["0", "1"]).default("1"),
   // Sign-in attempts per client address per minute.
   SIGNIN_RATE_LIMIT: z.coerce.number().int().positive().default(5),
+  // JSON API (/api/v1) requests per minute per API key, session, or client address when anonymous (docs/decisions/080).
+  API_RATE_LIMIT: z.coerce.number().int().positive().default(6000),
   // Trust X-Forwarded-For for the client address (only behind a proxy you run).
   TRUST_PROXY: z.enum(["0", "1"]).default("0"),
 });

@@ -2,7 +2,11 @@
 // that turns anything unexpected into a JSON 500 instead of an HTML page.
 import type { z } from "zod";
 import { formatPath } from "~/engine";
+import { withRateLimit } from "~/api/rate-limit.server";
 import type { ApiErrorBody, FieldProblem } from "./types";
+
+/** The path of a problem with the whole body or document. */
+export const ROOT_PATH = "(root)";
 
 export function apiError(
   status: number,
@@ -11,7 +15,9 @@ export function apiError(
   fields: FieldProblem[] = [],
   extra: Record<string, unknown> = {},
 ): Response {
-  const body: ApiErrorBody & Record<string, unknown> = { error: { code, message, fields }, ...extra };
+  // A field path is never empty: the body or document itself is "(root)", as on the command line.
+  const named = fields.map((f) => (f.path === "" ? { ...f, path: ROOT_PATH } : f));
+  const body: ApiErrorBody & Record<string, unknown> = { error: { code, message, fields: named }, ...extra };
   return Response.json(body, { status });
 }
 
@@ -19,15 +25,20 @@ export function zodFields(error: z.ZodError): FieldProblem[] {
   return error.issues.map((i) => ({ path: formatPath(i.path), message: i.message }));
 }
 
-/** Runs an API handler; a thrown Response is the answer, anything else becomes a JSON 500. */
-export async function handleApi(run: () => Promise<Response>): Promise<Response> {
-  try {
-    return await run();
-  } catch (e) {
-    if (e instanceof Response) return e;
-    console.error("design API:", e);
-    return apiError(500, "internal", "The server could not complete this request. Nothing was saved; try again.");
-  }
+/**
+ * Runs an API handler under the per-client rate limit (429, docs/decisions/080); a thrown Response is
+ * the answer, anything else becomes a JSON 500.
+ */
+export async function handleApi(request: Request, run: () => Promise<Response>): Promise<Response> {
+  return withRateLimit(request, async () => {
+    try {
+      return await run();
+    } catch (e) {
+      if (e instanceof Response) return e;
+      console.error("design API:", e);
+      return apiError(500, "internal", "The server could not complete this request. Nothing was saved; try again.");
+    }
+  });
 }
 
 export function methodNotAllowed(...allowed: string[]): Response {

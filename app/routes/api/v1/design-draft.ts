@@ -10,7 +10,7 @@ import { jsonObjectSchema, saveDraftBodySchema } from "~/designs/forms";
 import { DESIGN_BODY_MAX_BYTES } from "~/designs/types";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  return handleApi(async () => {
+  return handleApi(request, async () => {
     const { member, design } = await requireDesign(request, params.designId, CAN.view);
     const d = await getDraft(member.workspace.id, design.id);
     return Response.json({
@@ -30,7 +30,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
-  return handleApi(async () => {
+  return handleApi(request, async () => {
     requireMethod(request, "PUT");
     const { member, design } = await requireDesign(request, params.designId, CAN.editDesigns);
     const raw = jsonObjectSchema.safeParse(await readJsonBody(request, DESIGN_BODY_MAX_BYTES));

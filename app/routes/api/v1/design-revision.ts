@@ -5,7 +5,7 @@ import { apiError, handleApi, methodNotAllowed } from "~/designs/api.server";
 import { getRevision, requireDesign } from "~/designs/designs.server";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  return handleApi(async () => {
+  return handleApi(request, async () => {
     const { member, design } = await requireDesign(request, params.designId, CAN.view);
     const number = /^[1-9][0-9]{0,8}$/.test(params.number) ? Number(params.number) : null;
     const r = number === null ? null : await getRevision(member.workspace.id, design.id, number);

@@ -6,7 +6,7 @@ import { handleApi, methodNotAllowed } from "~/designs/api.server";
 import { getDraft, getRevision, requireDesign, statusOf } from "~/designs/designs.server";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  return handleApi(async () => {
+  return handleApi(request, async () => {
     const { member, design } = await requireDesign(request, params.designId, CAN.view);
     const ws = member.workspace.id;
     const [latest, draft] = await Promise.all([getRevision(ws, design.id), getDraft(ws, design.id)]);

@@ -15,7 +15,7 @@ function workspaceOf(request: Request): string {
 }
 
 export async function loader({ request }: Route.LoaderArgs) {
-  return handleApi(async () => {
+  return handleApi(request, async () => {
     const m = await requireMember(request, workspaceOf(request), CAN.view, "api");
     const params = Object.fromEntries(new URL(request.url).searchParams);
     const filter = designFilterSchema.parse(params);
@@ -24,7 +24,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 }
 
 export async function action({ request }: Route.ActionArgs) {
-  return handleApi(async () => {
+  return handleApi(request, async () => {
     requireMethod(request, "POST");
     const m = await requireMember(request, workspaceOf(request), CAN.editDesigns, "api");
     const body = createDesignBodySchema.safeParse(await readJsonBody(request, DESIGN_BODY_MAX_BYTES));

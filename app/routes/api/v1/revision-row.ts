@@ -7,7 +7,7 @@ import { requireRevisionApi } from "~/reviews/access.server";
 import { rowDetail } from "~/reviews/truth-table.server";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  return handleApi(async () => {
+  return handleApi(request, async () => {
     requireMethod(request, "GET");
     const { compiled } = await requireRevisionApi(request, params.designId, params.number, CAN.view);
     const index = /^[0-9]{1,10}$/.test(params.index) ? Number(params.index) : -1;

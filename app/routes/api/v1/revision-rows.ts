@@ -7,7 +7,7 @@ import { requireRevisionApi } from "~/reviews/access.server";
 import { rowsPage } from "~/reviews/truth-table.server";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  return handleApi(async () => {
+  return handleApi(request, async () => {
     requireMethod(request, "GET");
     const { compiled } = await requireRevisionApi(request, params.designId, params.number, CAN.view);
     return Response.json(rowsPage(compiled, new URL(request.url).searchParams), {

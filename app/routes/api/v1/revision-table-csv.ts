@@ -14,7 +14,7 @@ function fileName(designName: string, number: number, params: URLSearchParams): 
 }
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  return handleApi(async () => {
+  return handleApi(request, async () => {
     requireMethod(request, "GET");
     const { compiled, design, ref } = await requireRevisionApi(request, params.designId, params.number, CAN.view);
     const search = new URL(request.url).searchParams;
