@@ -23,10 +23,10 @@ function pgBin(name: string): string {
 
 /** Runs a PostgreSQL tool as the postgres user when we are root (initdb refuses root). */
 function runPg(name: string, args: string[], opts: SpawnSyncOptions = {}) {
-  const cmd = isRoot ? "runuser" : pgBin(name);
-  const full = isRoot ? ["-u", "postgres", "--", pgBin(name), ...args] : args;
-  const r = spawnSync(cmd, full, { encoding: "utf8", ...opts });
-  return r;
+  const tool = isRoot ? ["runuser", "-u", "postgres", "--", pgBin(name), ...args] : [pgBin(name), ...args];
+  // The server gets a session of its own: no signal meant for the caller's process group reaches it.
+  const full = name === "pg_ctl" && args[0] === "start" ? ["setsid", ...tool] : tool;
+  return spawnSync(full[0]!, full.slice(1), { encoding: "utf8", ...opts });
 }
 
 export type PostgresHandle = { port: number; password: string; url: (db: string) => string; stop: () => void };

@@ -32,9 +32,11 @@ export function say(name: string, line: string) {
 
 /** Runs a command to completion without blocking the event loop: the mail sink and file store
  *  live in this process and must keep answering while tests run. */
-export function run(cmd: string, args: string[], env: Record<string, string> = {}): Promise<number> {
+export function run(cmd: string, args: string[], env: Record<string, string> = {}, opts: { ownGroup?: boolean } = {}): Promise<number> {
   return new Promise((resolve) => {
-    const child = spawn(cmd, args, { stdio: "inherit", env: { ...process.env, ...env } });
+    // ownGroup: steps that stop and start PostgreSQL run in a process group of their own, so whatever
+    // signals that group on the way out cannot reach this script.
+    const child = spawn(cmd, args, { stdio: "inherit", env: { ...process.env, ...env }, detached: opts.ownGroup ?? false });
     child.once("error", () => resolve(1));
     child.once("exit", (code) => resolve(code ?? 1));
   });

@@ -84,7 +84,7 @@ try {
       ...testEnv,
       CHAINPROOF_PG_DIR: ".data/test/postgres",
       CHAINPROOF_PG_PORT: String(stack.pg.port),
-    }),
+    }, { ownGroup: true }),
   );
 
   say("test", "load and outage, reduced (correctness only; figures come from npm run loadtest)");
@@ -92,7 +92,7 @@ try {
     ...testEnv,
     CHAINPROOF_PG_DIR: ".data/test/postgres",
     CHAINPROOF_PG_PORT: String(stack.pg.port),
-  });
+  }, { ownGroup: true });
   if (loadExit === 0) tally.passed += 1;
   else {
     tally.failed += 1;
