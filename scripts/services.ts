@@ -25,7 +25,7 @@ function pgBin(name: string): string {
 function runPg(name: string, args: string[], opts: SpawnSyncOptions = {}) {
   const tool = isRoot ? ["runuser", "-u", "postgres", "--", pgBin(name), ...args] : [pgBin(name), ...args];
   // The server gets a session of its own: no signal meant for the caller's process group reaches it.
-  const full = name === "pg_ctl" && args[0] === "start" ? ["setsid", ...tool] : tool;
+  const full = name === "pg_ctl" && args[0] === "start" ? ["setsid", "-w", ...tool] : tool;
   return spawnSync(full[0]!, full.slice(1), { encoding: "utf8", ...opts });
 }
 
