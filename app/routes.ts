@@ -55,5 +55,15 @@ export default [
     route("designs/:designId/revisions/:number/rows/:index", "routes/api/v1/revision-row.ts"),
     route("designs/:designId/revisions/:number/table.csv", "routes/api/v1/revision-table-csv.ts"),
     route("proofs", "routes/api/v1/proofs.ts"),
+    route("designs/:designId/revisions/:number/diagnosis", "routes/api/v1/revision-diagnosis.ts"),
+    route("vehicles", "routes/api/v1/vehicles.ts"),
+    route("vehicles/:vehicleId", "routes/api/v1/vehicle.ts"),
+    route("vehicles/:vehicleId/bench-runs", "routes/api/v1/vehicle-bench-runs.ts"),
+    route("bench-runs", "routes/api/v1/bench-runs.ts"),
+    route("bench-runs/:runId", "routes/api/v1/bench-run.ts"),
+    route("bench-runs/:runId/steps/:n", "routes/api/v1/bench-run-step.ts"),
+    route("openapi.json", "routes/api/v1/openapi.ts"),
   ]),
+  // The API description, readable (a page; public).
+  route("api/v1/docs", "routes/api-docs.tsx"),
 ] satisfies RouteConfig;

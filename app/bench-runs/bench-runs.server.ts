@@ -61,9 +61,17 @@ export async function startRun(workspaceId: string, vehicleId: string, actorId: 
 // ---------------------------------------------------------------- reading
 
 export type RunFilter = { vehicleId?: string; status?: "in-progress" | "completed" | "failures" };
+/** A page of runs for the API: at most `limit`, after the run whose sort key (`startKey`) and id are given. */
+export type RunPage = { limit: number; after?: { startKey: string; id: string } };
 
-/** Runs of the workspace (optionally of one vehicle), newest first, with their step counts. */
-export async function listRuns(workspaceId: string, filter: RunFilter = {}) {
+/** The start time as exact text (microseconds, UTC): the sort key an API cursor carries. */
+const startKey = sql<string>`to_char(${benchRun.startedAt} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"')`;
+
+/**
+ * Runs of the workspace (optionally of one vehicle), newest first (then by id), with their step
+ * counts: the latest 200, or one page of `page.limit` (keyset: after `page.after`).
+ */
+export async function listRuns(workspaceId: string, filter: RunFilter = {}, page?: RunPage) {
   const counts = db
     .select({
       runId: benchStepResult.runId,
@@ -81,6 +89,7 @@ export async function listRuns(workspaceId: string, filter: RunFilter = {}) {
       id: benchRun.id,
       status: benchRun.status,
       startedAt: benchRun.startedAt,
+      startKey,
       completedAt: benchRun.completedAt,
       vehicleId: vehicle.id,
       vehicleName: vehicle.name,
@@ -104,10 +113,11 @@ export async function listRuns(workspaceId: string, filter: RunFilter = {}) {
         filter.vehicleId ? eq(benchRun.vehicleId, filter.vehicleId) : undefined,
         filter.status === "in-progress" || filter.status === "completed" ? eq(benchRun.status, filter.status) : undefined,
         filter.status === "failures" ? sql`${counts.failed} > 0` : undefined,
+        page?.after ? sql`(${benchRun.startedAt}, ${benchRun.id}) < (${page.after.startKey}::timestamptz, ${page.after.id})` : undefined,
       ),
     )
-    .orderBy(desc(benchRun.startedAt))
-    .limit(200);
+    .orderBy(desc(benchRun.startedAt), desc(benchRun.id))
+    .limit(page ? page.limit : 200);
   return rows;
 }
 

@@ -3,12 +3,14 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { client, DEMO, formBody, signIn, type Client, type DemoRole } from "../support/http";
 import { createOutsider } from "../support/outsider";
 
-type Expect = 200 | 302 | 400 | 403 | 404;
+type Expect = 200 | 302 | 400 | 401 | 403 | 404;
 type Row = {
   name: string;
-  method: "GET" | "POST";
+  method: "GET" | "POST" | "PUT" | "PATCH";
   path: string;
   body?: Record<string, string>;
+  // A JSON body (API rows); sent with Content-Type: application/json instead of a form.
+  json?: unknown;
   // Status for each role; "outsider" is a signed-in user of another workspace; "anonymous" has no session.
   expect: Record<DemoRole | "outsider" | "anonymous", Expect>;
 };
@@ -16,6 +18,9 @@ type Row = {
 const all = (s: Expect, over: Partial<Row["expect"]> = {}): Row["expect"] => ({
   admin: s, engineer: s, technician: s, reviewer: s, outsider: 404, anonymous: 302, ...over,
 });
+
+// JSON API rows: a signed-out caller gets 401, not a redirect.
+const api = (s: Expect, over: Partial<Row["expect"]> = {}): Row["expect"] => all(s, { anonymous: 401, ...over });
 
 export const MATRIX: Row[] = [
   { name: "workspace overview", method: "GET", path: "/w/larkspur", expect: all(200) },
@@ -72,6 +77,26 @@ export const MATRIX: Row[] = [
   { name: "welcome (signed-in users only)", method: "GET", path: "/welcome", expect: all(200, { outsider: 200 }) },
   { name: "local outbox (open in local mode)", method: "GET", path: "/outbox", expect: all(200, { outsider: 200, anonymous: 200 }) },
   { name: "health", method: "GET", path: "/healthz", expect: all(200, { outsider: 200, anonymous: 200 }) },
+  // The JSON API v1 (docs/decisions/086): vehicles, bench runs, diagnosis and the description.
+  { name: "API: vehicles list", method: "GET", path: "/api/v1/vehicles?workspace=larkspur", expect: api(200) },
+  {
+    name: "API: add a vehicle (invalid body: vehicle roles get 400, reviewers 403)",
+    method: "POST", path: "/api/v1/vehicles?workspace=larkspur", json: { name: "" },
+    expect: api(400, { reviewer: 403 }),
+  },
+  { name: "API: unknown vehicle", method: "GET", path: "/api/v1/vehicles/no-such-vehicle", expect: api(404) },
+  { name: "API: change an unknown vehicle", method: "PATCH", path: "/api/v1/vehicles/no-such-vehicle", json: { model: "x" }, expect: api(404) },
+  { name: "API: bench runs list", method: "GET", path: "/api/v1/bench-runs?workspace=larkspur", expect: api(200) },
+  { name: "API: start a bench run on an unknown vehicle", method: "POST", path: "/api/v1/vehicles/no-such-vehicle/bench-runs", json: {}, expect: api(404) },
+  { name: "API: unknown bench run", method: "GET", path: "/api/v1/bench-runs/no-such-run", expect: api(404) },
+  { name: "API: record a step of an unknown run", method: "PUT", path: "/api/v1/bench-runs/no-such-run/steps/1", json: { status: "pass" }, expect: api(404) },
+  {
+    name: "API: diagnose a row of an unknown design",
+    method: "POST", path: "/api/v1/designs/no-such-design/revisions/1/diagnosis", json: { states: {} },
+    expect: api(404),
+  },
+  { name: "API: the OpenAPI document (public)", method: "GET", path: "/api/v1/openapi.json", expect: all(200, { outsider: 200, anonymous: 200 }) },
+  { name: "API: the API docs page (public)", method: "GET", path: "/api/v1/docs", expect: all(200, { outsider: 200, anonymous: 200 }) },
 ];
 
 const clients = {} as Record<DemoRole | "outsider" | "anonymous", Client>;
@@ -86,7 +111,13 @@ describe("role matrix", () => {
   for (const row of MATRIX) {
     for (const who of ["admin", "engineer", "technician", "reviewer", "outsider", "anonymous"] as const) {
       it(`${row.name}: ${row.method} ${row.path} as ${who} → ${row.expect[who]}`, async () => {
-        const res = await clients[who].fetch(row.path, row.method === "POST" ? formBody(row.body ?? {}) : {});
+        const init: RequestInit =
+          row.json !== undefined
+            ? { method: row.method, body: JSON.stringify(row.json), headers: { "content-type": "application/json" } }
+            : row.method === "POST"
+              ? formBody(row.body ?? {})
+              : { method: row.method };
+        const res = await clients[who].fetch(row.path, init);
         expect(res.status).toBe(row.expect[who]);
         if (res.status === 302) expect(res.headers.get("location")).toContain("/sign-in");
         const text = await res.text();

@@ -1,4 +1,5 @@
-// GET  /api/v1/designs/:designId/revisions -> { revisions: [{ number, contentHash, message, author, createdAt, singleFaults }] }
+// GET  /api/v1/designs/:designId/revisions[?limit=N&cursor=C]
+//        -> { revisions: [{ number, contentHash, message, author, createdAt, singleFaults }], nextCursor }
 // POST /api/v1/designs/:designId/revisions { document, baseRevision, message? }
 //   201 { revision: { number, contentHash, verdict } }
 //   400 { error: { code: "invalid_design" | "invalid_body" | "invalid_json", message, fields } }
@@ -11,13 +12,21 @@ import { listRevisions, requireDesign, saveRevision } from "~/designs/designs.se
 import { proveOffThread } from "~/proofs/pool.server";
 import { jsonObjectSchema, saveRevisionBodySchema } from "~/designs/forms";
 import { DESIGN_BODY_MAX_BYTES } from "~/designs/types";
+import { parseQuery } from "~/api/access.server";
+import { descending, pageOfList } from "~/api/pagination.server";
+import { pageQuerySchema } from "~/api/schemas";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   return handleApi(request, async () => {
     const { member, design } = await requireDesign(request, params.designId, CAN.view);
-    const rows = await listRevisions(member.workspace.id, design.id);
+    const page = parseQuery(request, pageQuerySchema);
+    const all = await listRevisions(member.workspace.id, design.id);
+    // Newest first; without ?limit or ?cursor every revision, as before paging existed.
+    const whole = page.limit === undefined && page.cursor === undefined;
+    const one = whole ? { items: all, nextCursor: null } : pageOfList(all, (r) => [r.number, String(r.number)], descending, page, "number");
     return Response.json({
-      revisions: rows.map((r) => ({
+      nextCursor: one.nextCursor,
+      revisions: one.items.map((r) => ({
         number: r.number,
         contentHash: r.contentHash,
         message: r.message,

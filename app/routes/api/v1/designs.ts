@@ -1,4 +1,5 @@
-// GET  /api/v1/designs?workspace=SLUG[&vehicle=ID|none][&status=draft|proven]  -> { designs: DesignSummary[] }
+// GET  /api/v1/designs?workspace=SLUG[&vehicle=ID|none][&status=draft|proven][&limit=N&cursor=C]
+//        -> { designs: DesignSummary[], nextCursor }   (all of them when neither limit nor cursor is given)
 // POST /api/v1/designs?workspace=SLUG  { name, vehicleId?, start? }           -> 201 { design, draft: { version } }
 import type { Route } from "./+types/designs";
 import { requireMember } from "~/auth/guard.server";
@@ -7,6 +8,9 @@ import { apiError, handleApi, readJsonBody, requireMethod, zodFields } from "~/d
 import { createDesign, listDesigns } from "~/designs/designs.server";
 import { createDesignBodySchema, designFilterSchema } from "~/designs/forms";
 import { DESIGN_BODY_MAX_BYTES } from "~/designs/types";
+import { parseQuery } from "~/api/access.server";
+import { ascending, pageOfList } from "~/api/pagination.server";
+import { pageQuerySchema } from "~/api/schemas";
 
 function workspaceOf(request: Request): string {
   const slug = new URL(request.url).searchParams.get("workspace");
@@ -19,7 +23,12 @@ export async function loader({ request }: Route.LoaderArgs) {
     const m = await requireMember(request, workspaceOf(request), CAN.view, "api");
     const params = Object.fromEntries(new URL(request.url).searchParams);
     const filter = designFilterSchema.parse(params);
-    return Response.json({ designs: await listDesigns(m.workspace.id, filter) });
+    const page = parseQuery(request, pageQuerySchema);
+    const designs = await listDesigns(m.workspace.id, filter);
+    // Without ?limit or ?cursor the whole list, in the page's order, as before paging existed.
+    if (page.limit === undefined && page.cursor === undefined) return Response.json({ designs, nextCursor: null });
+    const one = pageOfList(designs, (d) => [d.name, d.id], ascending, page, "string");
+    return Response.json({ designs: one.items, nextCursor: one.nextCursor });
   });
 }
 

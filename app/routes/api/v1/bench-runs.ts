@@ -1,0 +1,21 @@
+// GET /api/v1/bench-runs?workspace=SLUG[&vehicle=ID][&status=in-progress|completed|failures][&limit=N&cursor=C]
+//   -> { runs: RunSummary[], nextCursor }   (newest first; any member)
+import type { Route } from "./+types/bench-runs";
+import { requireMember } from "~/auth/guard.server";
+import { CAN } from "~/lib/roles";
+import { handleApi, methodNotAllowed } from "~/designs/api.server";
+import { parseQuery } from "~/api/access.server";
+import { runsPage } from "~/api/run-pages.server";
+import { benchRunListQuerySchema } from "~/api/schemas";
+
+export async function loader({ request }: Route.LoaderArgs) {
+  return handleApi(request, async () => {
+    const query = parseQuery(request, benchRunListQuerySchema);
+    const m = await requireMember(request, query.workspace, CAN.view, "api");
+    return Response.json(await runsPage(m.workspace.id, { vehicleId: query.vehicle, status: query.status }, query));
+  });
+}
+
+export async function action({ request }: Route.ActionArgs) {
+  return handleApi(request, async () => methodNotAllowed("GET"));
+}

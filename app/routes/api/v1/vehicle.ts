@@ -1,0 +1,47 @@
+// GET   /api/v1/vehicles/:vehicleId -> { vehicle }   (details, released revision, release history,
+//       open needs-attention flags; any member)
+// PATCH /api/v1/vehicles/:vehicleId { name?, serial?, model?, controllerDescription?, notes? } -> { vehicle }
+//       (CAN.manageVehicles; fields not sent keep their values)
+import type { Route } from "./+types/vehicle";
+import { CAN } from "~/lib/roles";
+import { handleApi, requireMethod } from "~/designs/api.server";
+import { vehicleSchema } from "~/lib/forms";
+import { getVehicle, openAttention, releaseHistory, updateVehicle } from "~/vehicles/vehicles.server";
+import { parseBody, requireVehicleApi } from "~/api/access.server";
+import { vehiclePatchBodySchema } from "~/api/schemas";
+import { vehicleJson } from "~/api/views.server";
+
+async function answer(workspaceId: string, vehicleId: string): Promise<Response> {
+  const [v, history, attention] = await Promise.all([
+    getVehicle(workspaceId, vehicleId),
+    releaseHistory(workspaceId, vehicleId),
+    openAttention(workspaceId, vehicleId),
+  ]);
+  return Response.json({ vehicle: vehicleJson(v!, history, attention) });
+}
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  return handleApi(request, async () => {
+    const { member, vehicle } = await requireVehicleApi(request, params.vehicleId, CAN.view);
+    return answer(member.workspace.id, vehicle.id);
+  });
+}
+
+export async function action({ request, params }: Route.ActionArgs) {
+  return handleApi(request, async () => {
+    requireMethod(request, "PATCH");
+    const { member, vehicle } = await requireVehicleApi(request, params.vehicleId, CAN.manageVehicles);
+    const patch = await parseBody(request, vehiclePatchBodySchema, "vehicle change");
+    const current = {
+      name: vehicle.name,
+      serial: vehicle.serial,
+      model: vehicle.model,
+      controllerDescription: vehicle.controllerDescription,
+      notes: vehicle.notes,
+    };
+    // The merged details pass the form's own schema, so the API and the page keep the same rules.
+    const merged = vehicleSchema.parse({ ...current, ...Object.fromEntries(Object.entries(patch).filter(([, x]) => x !== undefined)) });
+    await updateVehicle(member.workspace.id, vehicle.id, member.user.id, merged);
+    return answer(member.workspace.id, vehicle.id);
+  });
+}
