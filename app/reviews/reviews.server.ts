@@ -326,7 +326,7 @@ export async function addComment(m: Membership, revisionId: string, document: un
     const c = compiledFor(rev.id, document);
     if (input.row >= c.rows) return { ok: false, status: 400, fields: { row: `Choose a row from 0 to ${c.rows - 1}.` } };
     rowIndex = input.row;
-    rowStates = decodeRow(c, input.row);
+    rowStates = { ...decodeRow(c, input.row) }; // a plain object: the engine returns a prototype-less map
   } else if (input.anchor === "component") {
     const list = (document as { components?: Array<{ id?: unknown }> }).components ?? [];
     if (!list.some((x) => x.id === input.component)) {
