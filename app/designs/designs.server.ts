@@ -34,6 +34,8 @@ export async function requireDesign(
 ): Promise<{ member: Membership; design: DesignRecord }> {
   await requireUser(request, "api");
   const notFound = apiError(404, "not_found", "No such design.");
+  // No id holds a NUL character, and PostgreSQL would refuse the query text.
+  if (designId.includes("\u0000")) throw notFound;
   // The one lookup by id alone: it finds the workspace whose membership is then required.
   const rows = await db
     .select({ design, slug: workspace.slug })
@@ -53,6 +55,7 @@ export async function requireDesign(
 }
 
 export async function getDesign(workspaceId: string, designId: string) {
+  if (designId.includes("\u0000")) return null;
   const rows = await db
     .select({ design, vehicleName: vehicle.name })
     .from(design)

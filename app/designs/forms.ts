@@ -13,7 +13,19 @@ export const STARTS = [
 export type StartKey = (typeof STARTS)[number]["key"];
 const startKeys = STARTS.map((s) => s.key) as [StartKey, ...StartKey[]];
 
-export const designNameSchema = z.string().trim().min(1, "Enter a name.").max(120, "Use at most 120 characters.");
+// PostgreSQL text refuses the NUL character, and an unpaired surrogate has no UTF-8 form.
+const UNSTORABLE_TEXT = /\u0000|[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/;
+const storableText = (s: string) => !UNSTORABLE_TEXT.test(s);
+const UNSTORABLE_MESSAGE = "Remove the NUL character or the broken surrogate pair.";
+/** The largest number a PostgreSQL integer column (versions, revision numbers) holds. */
+const PG_INT_MAX = 2_147_483_647;
+
+export const designNameSchema = z
+  .string()
+  .trim()
+  .min(1, "Enter a name.")
+  .max(120, "Use at most 120 characters.")
+  .refine(storableText, UNSTORABLE_MESSAGE);
 
 /** The create form (vehicleId "" means no vehicle). */
 export const createDesignSchema = z.object({
@@ -22,6 +34,7 @@ export const createDesignSchema = z.object({
     .string()
     .trim()
     .max(100, "Choose a vehicle from the list.")
+    .refine(storableText, "Choose a vehicle from the list.")
     .optional()
     .transform((v) => (v ? v : null)),
   start: z.enum(startKeys, { message: "Choose how the design starts." }).default("blank"),
@@ -31,13 +44,13 @@ export type CreateDesignInput = z.output<typeof createDesignSchema>;
 /** The same, as a JSON body of POST /api/v1/designs (vehicleId may be null). */
 export const createDesignBodySchema = z.object({
   name: designNameSchema,
-  vehicleId: z.string().trim().max(100).nullable().optional().transform((v) => (v ? v : null)),
+  vehicleId: z.string().trim().max(100).refine(storableText, UNSTORABLE_MESSAGE).nullable().optional().transform((v) => (v ? v : null)),
   start: z.enum(startKeys, { message: `start is one of ${startKeys.join(", ")}` }).default("blank"),
 });
 
 /** Filters of the design list, from the query string; a value that makes no sense is ignored. */
 export const designFilterSchema = z.object({
-  vehicle: z.string().trim().min(1).max(100).optional().catch(undefined),
+  vehicle: z.string().trim().min(1).max(100).refine(storableText).optional().catch(undefined),
   status: z.enum(DESIGN_STATUSES).optional().catch(undefined),
 });
 export type DesignFilter = z.output<typeof designFilterSchema>;
@@ -49,8 +62,15 @@ export const saveRevisionBodySchema = z.object({
   baseRevision: z
     .number({ message: "baseRevision is the number of the revision this change starts from (0 when none)." })
     .int("baseRevision is a whole number.")
-    .min(0, "baseRevision is 0 or more."),
-  message: z.string().trim().max(REVISION_MESSAGE_MAX, `Use at most ${REVISION_MESSAGE_MAX} characters.`).optional().default(""),
+    .min(0, "baseRevision is 0 or more.")
+    .max(PG_INT_MAX, `baseRevision is at most ${PG_INT_MAX}.`),
+  message: z
+    .string()
+    .trim()
+    .max(REVISION_MESSAGE_MAX, `Use at most ${REVISION_MESSAGE_MAX} characters.`)
+    .refine(storableText, UNSTORABLE_MESSAGE)
+    .optional()
+    .default(""),
 });
 
 export const saveDraftBodySchema = z.object({
@@ -58,8 +78,14 @@ export const saveDraftBodySchema = z.object({
   version: z
     .number({ message: "version is the draft version you last loaded or saved (0 when there is no draft)." })
     .int("version is a whole number.")
-    .min(0, "version is 0 or more."),
-  baseRevision: z.number().int("baseRevision is a whole number.").min(0, "baseRevision is 0 or more.").optional(),
+    .min(0, "version is 0 or more.")
+    .max(PG_INT_MAX, `version is at most ${PG_INT_MAX}.`),
+  baseRevision: z
+    .number()
+    .int("baseRevision is a whole number.")
+    .min(0, "baseRevision is 0 or more.")
+    .max(PG_INT_MAX, `baseRevision is at most ${PG_INT_MAX}.`)
+    .optional(),
 });
 
 export const proofBodySchema = z.object({

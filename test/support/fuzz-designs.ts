@@ -94,14 +94,17 @@ const BAD_FORMATS = ["chainproof/design@2", "chainproof/design@0", "Chainproof/d
 
 export type MutationKind =
   | "delete" | "retype" | "number-text" | "collide-id" | "dangle" | "duplicate" | "format" | "resize"
-  | "nest" | "unicode" | "odd-key" | "rename-key" | "swap" | "relabel" | "reverse" | "rename-id";
+  | "nest" | "unicode" | "odd-key" | "rename-key" | "swap" | "relabel" | "reverse" | "rename-id" | "number-edge";
 
 export type Mutation = { kind: MutationKind; at: number; pick: number; size: number };
 
 const KINDS: MutationKind[] = [
   "delete", "retype", "number-text", "collide-id", "dangle", "duplicate", "format", "resize",
-  "nest", "unicode", "odd-key", "rename-key", "swap", "relabel", "reverse", "rename-id",
+  "nest", "unicode", "odd-key", "rename-key", "swap", "relabel", "reverse", "rename-id", "number-edge",
 ];
+
+/** Numbers at the edges: of PostgreSQL's integer, of exact doubles, signs, fractions. */
+const EDGE_NUMBERS = [2 ** 31 - 1, 2 ** 31, -(2 ** 31) - 1, 2 ** 53, 2 ** 53 + 2, 1e21, 1e308, -1, -0, 0.5, 1e-7, 4294967296];
 
 /** Legal ids (spec 1: 1-64 of A-Za-z0-9_-.) that are also names of JavaScript object properties. */
 const TRICKY_IDS = ["__proto__", "constructor", "toString", "hasOwnProperty", "valueOf", "prototype", "a.b", "-", "_", "0", "x".repeat(64)];
@@ -207,6 +210,10 @@ export function applyMutation(doc: Json, m: Mutation): Json {
       const p = choose(of((v, at) => (typeof v === "string" && (at.at(-1) === "label" || at.at(-1) === "name" || at.at(-1) === "part")) || (typeof v === "number" && at[0] === "layout")), m.at);
       if (!p) return doc;
       return put(doc, p, typeof get(doc, p) === "number" ? (m.pick % 2000) - 1000 : `Relabelled ${m.pick % 97}`);
+    }
+    case "number-edge": {
+      const p = choose(of((v) => typeof v === "number"), m.at) ?? where;
+      return put(doc, p, choose(EDGE_NUMBERS, m.pick)!);
     }
     case "rename-id": {
       // Still valid unless the new id collides: an id renamed everywhere it is referenced.
