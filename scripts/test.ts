@@ -60,7 +60,8 @@ const stack = await bringUp({
   appPort: 3100,
   demo: true,
   // Tests stand in for many clients: each sends its own X-Forwarded-For, so rate limits apply per test.
-  extraEnv: { TRUST_PROXY: "1", NODE_ENV: "production" },
+  // A lower API limit than the default keeps the test that reaches it short.
+  extraEnv: { TRUST_PROXY: "1", NODE_ENV: "production", API_RATE_LIMIT: "3000" },
 });
 
 try {

@@ -13,7 +13,8 @@ async function orUnavailable<T>(kind: Kind, run: () => Promise<T>): Promise<T> {
   try {
     return await run();
   } catch (err) {
-    if (isDatabaseDown(err)) throw databaseDownResponse(kind);
+    // The pool turns an outage into a 503 page response; an API caller gets it as JSON.
+    if (isDatabaseDown(err) || (err instanceof Response && err.status === 503)) throw databaseDownResponse(kind);
     throw err;
   }
 }
@@ -71,6 +72,11 @@ export async function requireMember(
   kind: Kind = "page",
 ): Promise<Membership> {
   const signedIn = await requireUser(request, kind);
+  // A slug the database cannot hold (NUL) names no workspace.
+  if (!slug || slug.includes("\u0000")) {
+    if (kind === "api") throw apiError(404, "not_found", "No such workspace.");
+    throw new Response("Not found", { status: 404, statusText: "Not found" });
+  }
   const rows = await orUnavailable(kind, () =>
     db
       .select({ id: schema.workspace.id, slug: schema.workspace.slug, name: schema.workspace.name, role: schema.member.role })

@@ -1,6 +1,7 @@
 // Plumbing of the JSON API (/api/v1): the error shape, reading a JSON body safely, and a wrapper
 // that turns anything unexpected into a JSON 500 instead of an HTML page.
 import type { z } from "zod";
+import { databaseDownResponse, isDatabaseDown } from "~/db/unavailable.server";
 import { formatPath } from "~/engine";
 import { withRateLimit } from "~/api/rate-limit.server";
 import type { ApiErrorBody, FieldProblem } from "./types";
@@ -34,7 +35,9 @@ export async function handleApi(request: Request, run: () => Promise<Response>):
     try {
       return await run();
     } catch (e) {
-      if (e instanceof Response) return e;
+      // The pool reports an unreachable database as a 503 page response; the API answers it in JSON.
+      if (e instanceof Response) return e.status === 503 && !e.headers.get("content-type")?.includes("json") ? databaseDownResponse("api") : e;
+      if (isDatabaseDown(e)) return databaseDownResponse("api");
       console.error("design API:", e);
       return apiError(500, "internal", "The server could not complete this request. Nothing was saved; try again.");
     }

@@ -33,7 +33,7 @@ export function filterOf(q: FilterQuery): RowFilter {
   if (q.only) filter.only = q.only;
   if (q.rule) filter.rule = q.rule;
   if (q.where.length > 0) {
-    filter.where = {};
+    filter.where = Object.create(null) as Record<string, string[]>; // condition ids like "constructor" are legal
     for (const { cond, state } of q.where) (filter.where[cond] ??= []).push(state);
   }
   return filter;

@@ -39,17 +39,17 @@ function figures(r: autocannon.Result, okStatuses: number[]): Figures {
 }
 
 function load(base: string, sessions: Session[], requests: autocannon.Request[], connections: number, duration: number) {
-  let i = 0;
-  return autocannon({
-    url: base,
-    connections,
-    duration,
-    requests,
-    setupClient: (client) => {
-      const s = sessions[i++ % sessions.length]!;
-      client.setHeaders({ cookie: s.cookie, "x-forwarded-for": s.ip, origin: base, "content-type": "application/json" });
+  let next = 0;
+  // Each connection acts as one signed-in user: its context keeps the session it was given.
+  const withSession: autocannon.Request[] = requests.map((r) => ({
+    ...r,
+    setupRequest: (req: autocannon.Request, context: object) => {
+      const ctx = context as { session?: Session };
+      const s = (ctx.session ??= sessions[next++ % sessions.length]!);
+      return { ...req, headers: { ...req.headers, cookie: s.cookie, "x-forwarded-for": s.ip, origin: base, "content-type": "application/json" } } as autocannon.Request;
     },
-  });
+  }));
+  return autocannon({ url: base, connections, duration, requests: withSession });
 }
 
 async function main() {
