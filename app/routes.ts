@@ -62,6 +62,7 @@ export default [
     route("bench-runs", "routes/api/v1/bench-runs.ts"),
     route("bench-runs/:runId", "routes/api/v1/bench-run.ts"),
     route("bench-runs/:runId/steps/:n", "routes/api/v1/bench-run-step.ts"),
+    route("reviews", "routes/api/v1/reviews.ts"),
     route("openapi.json", "routes/api/v1/openapi.ts"),
   ]),
   // The API description, readable (a page; public).

@@ -15,6 +15,7 @@ import {
 import { DESIGN_STATUSES } from "~/designs/types";
 import { ONLY, PAGE_MAX } from "~/reviews/truth-table";
 import { STEP_OUTCOMES } from "~/bench-runs/outcomes";
+import { REVIEW_STATUSES } from "~/reviews/status";
 import {
   benchRunListQuerySchema,
   diagnosisBodySchema,
@@ -262,6 +263,28 @@ const run = z
   })
   .meta({ id: "BenchRun" });
 
+const reviewInboxItem = z
+  .object({
+    requestId: z.string(),
+    revisionId: z.string(),
+    designId: z.string(),
+    designName: z.string(),
+    number: z.number().int().meta({ description: "The revision number." }),
+    contentHash: z.string().meta({ description: "The revision's content hash (SHA-256)." }),
+    reviewerId: z.string(),
+    reviewerName: z.string(),
+    note: z.string().meta({ description: "What the engineer wrote when asking (may be empty)." }),
+    requestedAt: iso,
+    requestedBy: z.string().meta({ description: "The asking engineer's user id." }),
+    requestedByName: z.string(),
+    status: z.enum(REVIEW_STATUSES).meta({ description: "Where the revision's review stands, from every reviewer's latest decision." }),
+    reviewerDecision: z
+      .object({ verdict: z.enum(["approved", "changes-requested"]), decidedAt: iso })
+      .nullable()
+      .meta({ description: "This request's reviewer's latest decision on the revision; null while waiting." }),
+  })
+  .meta({ id: "ReviewInboxItem" });
+
 // ---------------------------------------------------------------- operations
 
 const json = (schema: z.ZodType) => ({ content: { "application/json": { schema } } });
@@ -493,6 +516,28 @@ const paths: ZodOpenApiPathsObject = {
       },
     }),
   },
+  "/api/v1/reviews": {
+    get: op(
+      "Reviews",
+      "The review inbox",
+      `${member} As on the reviews page: a reviewer gets the requests addressed to them, anyone else every review request of the workspace; newest first, at most 200.`,
+      {
+        requestParams: { query: workspaceQuerySchema },
+        responses: {
+          "200": ok(
+            "The inbox.",
+            z.object({
+              slug: z.string(),
+              isReviewer: z.boolean().meta({ description: "The caller is a reviewer: items are the requests addressed to them." }),
+              items: z.array(reviewInboxItem),
+            }),
+          ),
+          "400": fail("No workspace named."),
+          ...reading,
+        },
+      },
+    ),
+  },
   "/api/v1/outbox": {
     get: {
       tags: ["Local"],
@@ -541,6 +586,7 @@ export function openApiDocument() {
       { name: "Diagnosis", description: "Why a row has no drive, and what measured readings point to." },
       { name: "Vehicles", description: "Vehicles, their released revisions and needs-attention flags." },
       { name: "Bench runs", description: "Step-by-step bench tests generated from a vehicle's released revision." },
+      { name: "Reviews", description: "Review requests and reviewers' decisions on revisions." },
       { name: "Local", description: "Only when running locally." },
       { name: "About", description: "This description." },
     ],

@@ -1,36 +1,44 @@
 // The review inbox: for a reviewer, the revisions they were asked to review; for everyone else,
 // every review request of the workspace. Each with its revision's status and a link to the review.
+// Live: the list is read again from GET /api/v1/reviews every 10 s and when the tab regains focus.
+import { useEffect } from "react";
 import { Link } from "react-router";
+import useSWR from "swr";
 import type { Route } from "./+types/reviews";
 import { requireMember } from "~/auth/guard.server";
 import { CAN } from "~/lib/roles";
-import { reviewInbox } from "~/reviews/reviews.server";
+import { inboxFor } from "~/reviews/inbox.server";
 import { reviewPath } from "~/reviews/paths";
 import { VERDICT_LABELS } from "~/reviews/status";
 import { PageHeader } from "~/components/page-header";
 import { EmptyState } from "~/components/empty-state";
 import { HashPrefix, When } from "~/designs/design-bits";
 import { ReviewStatusBadge } from "~/components/truth-table/review-status";
+import { fetchJson } from "~/components/truth-table/fetch-json";
+import { Notice } from "~/components/ui/form";
 
 export const meta: Route.MetaFunction = () => [{ title: "Reviews · Chainproof" }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, params.ws, CAN.view);
-  const isReviewer = m.role === "reviewer";
-  const items = await reviewInbox(m.workspace.id, isReviewer ? m.user.id : undefined);
-  return {
-    slug: m.workspace.slug,
-    isReviewer,
-    items: items.map((i) => ({
-      ...i,
-      requestedAt: i.requestedAt.toISOString(),
-      reviewerDecision: i.reviewerDecision ? { ...i.reviewerDecision, decidedAt: i.reviewerDecision.decidedAt.toISOString() } : null,
-    })),
-  };
+  return inboxFor(m);
 }
 
+type Inbox = Route.ComponentProps["loaderData"];
+
 export default function Reviews({ loaderData }: Route.ComponentProps) {
-  const { slug, isReviewer, items } = loaderData;
+  const key = `/api/v1/reviews?workspace=${encodeURIComponent(loaderData.slug)}`;
+  // The loader's answer is fresh: no refetch on mount; it also replaces an older cached answer.
+  const { data, error, mutate } = useSWR<Inbox>(key, fetchJson, {
+    fallbackData: loaderData,
+    revalidateOnMount: false,
+    revalidateOnFocus: true,
+    refreshInterval: 10_000,
+  });
+  useEffect(() => {
+    void mutate(loaderData, { revalidate: false });
+  }, [loaderData, mutate]);
+  const { slug, isReviewer, items } = data ?? loaderData;
   const waiting = isReviewer ? items.filter((i) => !i.reviewerDecision) : [];
   const rest = isReviewer ? items.filter((i) => i.reviewerDecision) : items;
   return (
@@ -43,6 +51,11 @@ export default function Reviews({ loaderData }: Route.ComponentProps) {
             : "Every review request of this workspace, newest first, with where each revision stands."
         }
       />
+      {error ? (
+        <div className="mb-4">
+          <Notice tone="warning">Could not refresh the list ({error instanceof Error ? error.message : "network error"}); showing what was loaded last.</Notice>
+        </div>
+      ) : null}
       {items.length === 0 ? (
         <EmptyState title="Nothing to review">
           {isReviewer

@@ -90,6 +90,7 @@ export const MATRIX: Row[] = [
   { name: "API: start a bench run on an unknown vehicle", method: "POST", path: "/api/v1/vehicles/no-such-vehicle/bench-runs", json: {}, expect: api(404) },
   { name: "API: unknown bench run", method: "GET", path: "/api/v1/bench-runs/no-such-run", expect: api(404) },
   { name: "API: record a step of an unknown run", method: "PUT", path: "/api/v1/bench-runs/no-such-run/steps/1", json: { status: "pass" }, expect: api(404) },
+  { name: "API: review inbox", method: "GET", path: "/api/v1/reviews?workspace=larkspur", expect: api(200) },
   {
     name: "API: diagnose a row of an unknown design",
     method: "POST", path: "/api/v1/designs/no-such-design/revisions/1/diagnosis", json: { states: {} },

@@ -1,0 +1,22 @@
+// GET /api/v1/reviews?workspace=SLUG -> { slug, isReviewer, items }   (the review inbox, as the
+//     reviews page shows it: a reviewer gets the requests addressed to them, anyone else every
+//     request of the workspace; newest first, at most 200; any member)
+import type { Route } from "./+types/reviews";
+import { requireMember } from "~/auth/guard.server";
+import { CAN } from "~/lib/roles";
+import { handleApi, methodNotAllowed } from "~/designs/api.server";
+import { parseQuery } from "~/api/access.server";
+import { workspaceQuerySchema } from "~/api/schemas";
+import { inboxFor } from "~/reviews/inbox.server";
+
+export async function loader({ request }: Route.LoaderArgs) {
+  return handleApi(request, async () => {
+    const query = parseQuery(request, workspaceQuerySchema);
+    const m = await requireMember(request, query.workspace, CAN.view, "api");
+    return Response.json(await inboxFor(m));
+  });
+}
+
+export async function action({ request }: Route.ActionArgs) {
+  return handleApi(request, async () => methodNotAllowed("GET"));
+}
