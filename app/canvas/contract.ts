@@ -4,5 +4,7 @@ import type { DesignEditorProps as RouteEditorProps } from "../designs/types";
 export type DesignEditorProps = RouteEditorProps & {
   /** The `row` query parameter as given (a truth-table row index to simulate on open), or null. */
   row?: string | null;
+  /** False when `initial` differs from revision `baseRevision` (a changed draft); the status bar then says "Draft". */
+  initialIsRevision?: boolean;
 };
 export type { SaveDraftResult, SaveRevisionResult } from "../designs/types";

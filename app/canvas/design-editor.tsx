@@ -7,7 +7,7 @@ const Editor = lazy(() => import("./editor"));
 
 function Placeholder() {
   return (
-    <div role="status" className="flex h-[calc(100dvh-9rem)] min-h-[560px] items-center justify-center rounded-lg border border-ink-200 bg-white text-sm text-ink-500">
+    <div role="status" className="flex h-[60vh] min-h-[320px] items-center md:h-[calc(100dvh-10.5rem)] md:min-h-[560px] justify-center rounded-lg border border-ink-200 bg-white text-sm text-ink-500">
       Opening the canvas…
     </div>
   );

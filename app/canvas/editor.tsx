@@ -5,6 +5,7 @@ import { useCallback, useContext, useEffect, useMemo, useRef, useState, type Dra
 import {
   Background,
   ConnectionMode,
+  ControlButton,
   Controls,
   MiniMap,
   ReactFlow,
@@ -37,7 +38,7 @@ const DRAG_TYPE = "application/x-chainproof-component";
 
 export default function Editor(props: DesignEditorProps) {
   const [store] = useState(() =>
-    createEditorStore({ initial: props.initial, readOnly: props.readOnly, designName: props.designName, baseRevision: props.baseRevision, row: props.row }),
+    createEditorStore({ initial: props.initial, readOnly: props.readOnly, designName: props.designName, baseRevision: props.baseRevision, row: props.row, initialIsRevision: props.initialIsRevision }),
   );
   return (
     <EditorContext.Provider value={store}>
@@ -92,7 +93,7 @@ function EditorShell(props: DesignEditorProps) {
   };
 
   return (
-    <div className="cp-editor flex h-[calc(100dvh-9rem)] min-h-[560px] flex-col overflow-hidden rounded-lg border border-ink-200 bg-white" onKeyDown={onKeyDown}>
+    <div className="cp-editor flex flex-col overflow-hidden rounded-lg border border-ink-200 bg-white md:h-[calc(100dvh-10.5rem)] md:min-h-[560px]" onKeyDown={onKeyDown}>
       <Toolbar readOnly={readOnly} baseRevision={baseRevision} onSaveRevision={props.onSaveRevision} setBanner={setBanner} setBaseRevision={setBaseRevision} />
       {banner ? (
         <div role={banner.tone === "error" ? "alert" : "status"} className={`flex flex-wrap items-center gap-2 border-b px-3 py-2 text-sm ${banner.tone === "error" ? "border-brick-600 bg-brick-50 text-brick-700" : banner.tone === "success" ? "border-moss-600 bg-moss-50 text-moss-700" : "border-copper-500 bg-copper-50 text-copper-700"}`}>
@@ -107,9 +108,9 @@ function EditorShell(props: DesignEditorProps) {
           </button>
         </div>
       ) : null}
-      <div className="flex min-h-0 flex-1">
+      <div className="flex flex-col md:min-h-0 md:flex-1 md:flex-row">
         {readOnly ? null : <Palette />}
-        <div className="relative min-w-0 flex-1">
+        <div className="relative h-[60vh] min-h-[320px] min-w-0 md:h-auto md:min-h-0 md:flex-1">
           <Canvas />
         </div>
         <SidePanel />
@@ -176,8 +177,15 @@ function Canvas() {
       aria-label="Wiring canvas"
     >
       <Background gap={20} color="var(--color-ink-200)" />
-      <Controls showInteractive={false} />
-      <MiniMap pannable zoomable ariaLabel="Overview of the wiring" nodeColor={(n) => (n.type === "supply" ? "#3f7a35" : n.type === "input" ? "#ad5520" : "#5f6878")} />
+      {/* Our own fit button: the store's fit keeps the drawing clear of the minimap and controls. */}
+      <Controls showInteractive={false} showFitView={false}>
+        <ControlButton onClick={() => store.getState().requestFit()} title="Fit view" aria-label="Fit view">
+          <svg viewBox="0 0 16 16" aria-hidden="true">
+            <path d="M1 5V1h4M11 1h4v4M15 11v4h-4M5 15H1v-4" fill="none" stroke="currentColor" strokeWidth="2" />
+          </svg>
+        </ControlButton>
+      </Controls>
+      <MiniMap pannable zoomable ariaLabel="Overview of the wiring" style={{ width: 160, height: 110 }} nodeColor={(n) => (n.type === "supply" ? "#3f7a35" : n.type === "input" ? "#ad5520" : "#5f6878")} />
     </ReactFlow>
   );
 }
@@ -202,10 +210,10 @@ function Palette() {
     store.getState().addComponent(kind, { x: p.x - 60 + k * 24, y: p.y - 30 + k * 24 }, fn);
   };
   return (
-    <nav aria-label="Component palette" className="w-40 flex-none overflow-y-auto border-r border-ink-200 bg-ink-50 p-2">
+    <nav aria-label="Component palette" className="flex-none border-b border-ink-200 bg-ink-50 p-2 md:w-40 md:overflow-y-auto md:border-r md:border-b-0">
       <h2 className="mb-1 text-xs font-bold uppercase tracking-wide text-ink-500">Components</h2>
       <p className="mb-2 text-[11px] text-ink-500">Drag onto the canvas, or press to add.</p>
-      <ul className="space-y-1">
+      <ul className="flex flex-wrap gap-1 md:block md:space-y-1">
         {PALETTE.map((item) => {
           const taken = item.kind === "input" && usedFunctions.split(",").includes(item.fn!);
           return (
@@ -221,7 +229,7 @@ function Palette() {
                   e.dataTransfer.effectAllowed = "copy";
                 }}
                 onClick={() => addAtCentre(item.kind, item.fn)}
-                className="w-full cursor-grab rounded border border-ink-300 bg-white px-2 py-1.5 text-left text-sm font-medium text-ink-800 hover:border-copper-500 disabled:cursor-not-allowed disabled:opacity-50"
+                className="cursor-grab rounded border border-ink-300 bg-white px-2 py-1.5 text-left text-sm font-medium text-ink-800 hover:border-copper-500 disabled:cursor-not-allowed disabled:opacity-50 md:w-full"
               >
                 {item.title}
               </button>
@@ -451,7 +459,7 @@ function SidePanel() {
   const setPanel = useEditor((s) => s.setPanel);
   const failing = useEditor((s) => (s.proof.status === "invalid" ? s.proof.problems.length : s.proof.status === "done" ? s.proof.verdict.rules.filter((r) => !r.holds).length : 0));
   return (
-    <aside className="flex w-80 flex-none flex-col border-l border-ink-200 bg-ink-50" aria-label="Design details">
+    <aside className="flex flex-none flex-col border-t border-ink-200 bg-ink-50 md:w-80 md:border-t-0 md:border-l" aria-label="Design details">
       <div role="tablist" aria-label="Panels" className="flex flex-wrap gap-0.5 border-b border-ink-200 bg-white px-1 pt-1">
         {TABS.map((t) => (
           <button
@@ -469,7 +477,7 @@ function SidePanel() {
           </button>
         ))}
       </div>
-      <div id="cp-panel" role="tabpanel" aria-labelledby={`cp-tab-${panel}`} className="min-h-0 flex-1 overflow-y-auto">
+      <div id="cp-panel" role="tabpanel" aria-labelledby={`cp-tab-${panel}`} className="md:min-h-0 md:flex-1 md:overflow-y-auto">
         {panel === "properties" ? <PropertiesPanel /> : null}
         {panel === "conditions" ? <ConditionsPanel /> : null}
         {panel === "controller" ? <ControllerPanel /> : null}

@@ -1,7 +1,8 @@
 // Editor effects: live proof in a worker, the simulation driver, layout requests, autosave.
 import { useEffect, useRef, useState } from "react";
-import { useReactFlow } from "@xyflow/react";
+import { useReactFlow, useStoreApi } from "@xyflow/react";
 import { contentKey, flowToDocument } from "./convert";
+import { fitPadding, type Size } from "./fit";
 import { autoLayout } from "./layout";
 import { proveHere, type ProofReply } from "./proof-protocol";
 import { compiledOf, viewFor } from "./simulation";
@@ -10,6 +11,7 @@ import type { SaveDraftResult } from "./contract";
 
 export const PROOF_DEBOUNCE_MS = 150;
 export const AUTOSAVE_DEBOUNCE_MS = 1000;
+const FIT_MAX_ZOOM = 1.2;
 
 const docOf = (s: EditorState) => flowToDocument(s.rest, s.nodes, s.edges);
 
@@ -81,9 +83,23 @@ export function useLayoutRequests() {
   const store = useEditorStore();
   const layoutRequest = useEditor((s) => s.layoutRequest);
   const fitRequest = useEditor((s) => s.fitRequest);
-  const { fitView } = useReactFlow();
-  const fit = useRef(fitView);
-  fit.current = fitView;
+  const flow = useReactFlow();
+  const flowStore = useStoreApi();
+  const fit = useRef(() => {});
+  fit.current = () => {
+    const pane = flowStore.getState().domNode?.getBoundingClientRect();
+    const nodes = flow.getNodes();
+    if (!pane || nodes.length === 0) return void flow.fitView({ padding: 0.2, maxZoom: FIT_MAX_ZOOM, duration: 0 });
+    const bounds = flow.getNodesBounds(nodes);
+    const box = (selector: string) => flowStore.getState().domNode?.querySelector(selector)?.getBoundingClientRect() ?? null;
+    const mm = box(".react-flow__minimap");
+    const ctl = box(".react-flow__controls");
+    // Footprints from the pane's corners: the minimap sits bottom right, the controls bottom left.
+    const minimap: Size | null = mm && mm.width > 0 ? { width: pane.right - mm.left, height: pane.bottom - mm.top } : null;
+    const controls: Size | null = ctl && ctl.width > 0 ? { width: ctl.right - pane.left, height: pane.bottom - ctl.top } : null;
+    const padding = fitPadding(pane, bounds, { minimap, controls }, FIT_MAX_ZOOM);
+    void flow.fitView({ padding, maxZoom: FIT_MAX_ZOOM, duration: 0 });
+  };
   useEffect(() => {
     if (layoutRequest === 0) return;
     let cancelled = false;
@@ -100,7 +116,7 @@ export function useLayoutRequests() {
   useEffect(() => {
     // xyflow queues a fit requested on an empty canvas until the first node appears; don't ask then.
     if (store.getState().nodes.length === 0) return;
-    const id = requestAnimationFrame(() => void fit.current({ padding: 0.2, maxZoom: 1.2, duration: 0 }));
+    const id = requestAnimationFrame(() => fit.current());
     return () => cancelAnimationFrame(id);
   }, [store, fitRequest]);
 }

@@ -6,10 +6,10 @@ import type { ElkExtendedEdge, ElkNode } from "elkjs/lib/elk-api";
 import type { CanvasEdge, CanvasNode, XY } from "./types";
 
 const SIZE: Record<CanvasNode["type"], { width: number; height: number }> = {
-  supply: { width: 140, height: 56 },
+  supply: { width: 176, height: 56 },
   contact: { width: 176, height: 112 },
   junction: { width: 24, height: 24 },
-  input: { width: 170, height: 60 },
+  input: { width: 208, height: 60 },
 };
 
 let elk: InstanceType<typeof ELK> | null = null;

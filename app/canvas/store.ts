@@ -92,7 +92,7 @@ export type EditorState = {
 
 export type EditorStore = StoreApi<EditorState>;
 
-export function createEditorStore(init: { initial: unknown; readOnly: boolean; designName: string; baseRevision: number; row?: string | null }): EditorStore {
+export function createEditorStore(init: { initial: unknown; readOnly: boolean; designName: string; baseRevision: number; row?: string | null; initialIsRevision?: boolean }): EditorStore {
   const loaded = documentToFlow(init.initial, init.designName);
   const snapshot = (s: EditorState) => flowToDocument(s.rest, s.nodes, s.edges);
   const loadedDoc = flowToDocument(loaded.rest, loaded.nodes, loaded.edges);
@@ -119,7 +119,7 @@ export function createEditorStore(init: { initial: unknown; readOnly: boolean; d
       simView: null,
       layoutRequest: loaded.unplaced.length > 0 && loaded.nodes.length > 0 ? 1 : 0,
       fitRequest: 1,
-      revision: { number: init.baseRevision, key: init.baseRevision > 0 ? contentKey(loadedDoc) : null },
+      revision: { number: init.baseRevision, key: init.baseRevision > 0 && init.initialIsRevision !== false ? contentKey(loadedDoc) : null },
       loadNotes: loaded.dropped,
       rowNotice: start.notice,
       refusal: null,

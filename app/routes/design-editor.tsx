@@ -134,6 +134,7 @@ export default function DesignEditorPage({ loaderData }: Route.ComponentProps) {
         readOnly={readOnly}
         designName={design.name}
         row={row}
+        initialIsRevision={showing.kind === "revision" || !showing.changed}
         onSaveDraft={onSaveDraft}
         onSaveRevision={onSaveRevision}
       />

@@ -49,7 +49,7 @@ function ContactView({ id, data, selected }: NodeProps<ContactNode>) {
           {senseText}
         </span>
       </div>
-      <div className="truncate text-sm font-medium text-ink-900">{data.label || "Contact"}</div>
+      <div className="truncate text-sm font-medium text-ink-900" title={data.label || undefined}>{data.label || "Contact"}</div>
       <div className="my-1 flex justify-center">
         <ContactSymbol sense={sense} conducting={conducting} />
       </div>

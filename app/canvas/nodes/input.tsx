@@ -21,7 +21,7 @@ function InputView({ id, data, selected }: NodeProps<InputNode>) {
     <div
       data-testid={`node-${id}`}
       data-energized={lit === null ? undefined : String(lit)}
-      className={`cp-node flex min-w-32 items-center gap-2 rounded-md border-2 px-3 py-2 ${selected ? "border-copper-500" : "border-ink-700"} ${lit ? "bg-moss-50" : "bg-white"}`}
+      className={`cp-node flex min-w-32 max-w-56 items-center gap-2 rounded-md border-2 px-3 py-2 ${selected ? "border-copper-500" : "border-ink-700"} ${lit ? "bg-moss-50" : "bg-white"}`}
     >
       <TerminalHandle component={id} terminal="in" position={Position.Left} connectable={connectable} />
       <span
@@ -29,9 +29,9 @@ function InputView({ id, data, selected }: NodeProps<InputNode>) {
       >
         {FUNCTION_LABEL[data.function] ?? data.function}
       </span>
-      <div className="leading-tight">
+      <div className="min-w-0 leading-tight">
         <div className="text-xs font-semibold text-ink-500">{id}</div>
-        <div className="text-sm font-medium text-ink-900">{data.label || "Controller input"}</div>
+        <div className="truncate text-sm font-medium text-ink-900" title={data.label || undefined}>{data.label || "Controller input"}</div>
         {lit !== null ? <div className={`text-xs font-semibold ${lit ? "text-moss-700" : "text-ink-500"}`}>{lit ? "energized" : "dead"}</div> : null}
       </div>
     </div>

@@ -12,15 +12,15 @@ function SupplyView({ id, data, selected }: NodeProps<SupplyNode>) {
   return (
     <div
       data-testid={`node-${id}`}
-      className={`cp-node flex min-w-28 items-center gap-2 rounded-md border-2 bg-white px-3 py-2 ${selected ? "border-copper-500" : "border-ink-700"} ${simulating ? "cp-live" : ""}`}
+      className={`cp-node flex w-44 items-center gap-2 rounded-md border-2 bg-white px-3 py-2 ${selected ? "border-copper-500" : "border-ink-700"} ${simulating ? "cp-live" : ""}`}
     >
       <svg viewBox="0 0 24 24" className="h-6 w-6 flex-none" aria-hidden="true">
         <path d="M4 9h16M7 14h10M10 19h4" stroke="currentColor" strokeWidth="2" strokeLinecap="round" className={simulating ? "text-moss-600" : "text-ink-700"} />
         <path d="M12 2v7" stroke="currentColor" strokeWidth="2" className={simulating ? "text-moss-600" : "text-ink-700"} />
       </svg>
-      <div className="leading-tight">
+      <div className="min-w-0 leading-tight">
         <div className="text-xs font-semibold text-ink-500">{id}</div>
-        <div className="text-sm font-medium text-ink-900">{data.label || "Supply"}</div>
+        <div className="truncate text-sm font-medium text-ink-900" title={data.label || undefined}>{data.label || "Supply"}</div>
       </div>
       <TerminalHandle component={id} terminal="+" position={Position.Right} connectable={connectable} />
     </div>

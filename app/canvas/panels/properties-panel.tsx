@@ -22,7 +22,11 @@ export function PropertiesPanel() {
       <Section title="Design">
         <Text label="Design name" value={name} disabled={!editable} onChange={(e) => updateRest((r) => ({ ...r, name: e.target.value }), "name")} />
         <p className="text-sm text-ink-500">
-          {count > 1 ? `${count} components selected.` : "Select a component to edit it. Drag components from the palette, then drag from one terminal to another to wire them."}
+          {count > 1
+            ? `${count} components selected.`
+            : editable
+              ? "Select a component to edit it. Drag components from the palette, then drag from one terminal to another to wire them."
+              : "Select a component to see its details."}
         </p>
       </Section>
     );

@@ -12,6 +12,7 @@ export function SimulatePanel() {
   const simView = useEditor((s) => s.simView);
   const simulate = useEditor((s) => s.simulate);
   const setPanel = useEditor((s) => s.setPanel);
+  const readOnly = useEditor((s) => s.readOnly);
   const doc = useDocument();
   const compiled = useMemo(() => compiledOf(doc), [doc]);
   const diagnosis = useMemo((): Diagnosis | string | null => {
@@ -58,7 +59,7 @@ export function SimulatePanel() {
               setPanel("properties");
             }}
           >
-            Back to editing
+            {readOnly ? "Stop simulating" : "Back to editing"}
           </Small>
         }
       >
