@@ -2,12 +2,24 @@
 // but the framework's own.
 import { PassThrough } from "node:stream";
 import { createReadableStreamFromReadable } from "@react-router/node";
-import { ServerRouter, type AppLoadContext, type EntryContext } from "react-router";
+import { ServerRouter, type ActionFunctionArgs, type AppLoadContext, type EntryContext, type LoaderFunctionArgs } from "react-router";
 import { isbot } from "isbot";
 import { renderToPipeableStream } from "react-dom/server";
 import { contentSecurityPolicy } from "./lib/csp";
+import { isDatabaseDown } from "./db/unavailable.server";
 
 export const streamTimeout = 5_000;
+
+// Requests whose loader or action failed because the database was unreachable (seen before errors are sanitized).
+const lostDatabase = new WeakSet<Request>();
+
+export function handleError(error: unknown, { request }: LoaderFunctionArgs | ActionFunctionArgs) {
+  if (isDatabaseDown(error)) {
+    lostDatabase.add(request);
+    return;
+  }
+  if (!request.signal.aborted) console.error(error);
+}
 
 export default function handleRequest(
   request: Request,
@@ -16,6 +28,11 @@ export default function handleRequest(
   routerContext: EntryContext,
   loadContext: AppLoadContext,
 ) {
+  // A loader that lost the database half-way (after its role check) is an outage, not a bug: 503.
+  if (responseStatusCode === 500 && lostDatabase.has(request)) {
+    responseStatusCode = 503;
+    responseHeaders.set("Retry-After", "30");
+  }
   const nonce = loadContext?.cspNonce;
   if (nonce) responseHeaders.set("Content-Security-Policy", contentSecurityPolicy(nonce));
   if (request.method.toUpperCase() === "HEAD") {

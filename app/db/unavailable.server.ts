@@ -3,6 +3,7 @@ const CONNECTION_CODES = new Set(["ECONNREFUSED", "ECONNRESET", "ETIMEDOUT", "EP
 
 export function isDatabaseDown(err: unknown): boolean {
   for (let e: unknown = err, depth = 0; e && depth < 5; depth++) {
+    if (e instanceof Response) return e.status === 503;
     const { code, message } = e as { code?: string; message?: string };
     if (code && CONNECTION_CODES.has(code)) return true;
     if (typeof message === "string" && /Connection terminated|timeout exceeded when trying to connect|connect ECONNREFUSED|the database system is (starting up|shutting down)/i.test(message)) return true;
