@@ -3,7 +3,7 @@
 //   npm run loadtest              full run on its own stack (prints JSON figures for the README)
 //   tsx test/load/run.ts --quick  a few seconds against CHAINPROOF_URL (npm test): checks correctness only
 import autocannon from "autocannon";
-import { bringUp, type Stack } from "../../scripts/stack";
+import { bringUp, run, type Stack } from "../../scripts/stack";
 import { startPostgres } from "../../scripts/services";
 
 const quick = process.argv.includes("--quick");
@@ -63,6 +63,7 @@ async function main() {
       smtpPort: 2545, s3Port: 4589, appPort: 3200, demo: true,
       extraEnv: { TRUST_PROXY: "1", NODE_ENV: "production" },
     });
+    if ((await run("npx", ["react-router", "build"], { NODE_ENV: "production" })) !== 0) throw new Error("the build failed");
     await stack.startApp();
     base = stack.appUrl;
     pgDir = ".data/load/postgres";
