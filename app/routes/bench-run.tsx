@@ -1,15 +1,21 @@
 // One bench-test run, made for a phone on the bench: each step says what to set and what must
-// happen; every tap (pass, fail, skip), note and photo is saved at once through a fetcher, so a
-// reload or a phone that slept shows the same progress. A completed run is a signed, printable record.
+// happen; every tap (pass, fail, skip), note and photo is saved at once, so a reload or a phone that
+// slept shows the same progress. Progress is live (swr over GET /api/v1/bench-runs/:runId, every 10 s
+// and on focus, so two technicians see each other's taps); a tap shows at once and is saved through
+// PUT /api/v1/bench-runs/:runId/steps/:n, rolled back with a message if it fails. Clearing a result,
+// notes and photos go through this route's action. A completed run is a signed, printable record.
 import "~/components/diagnosis/bench-print.css";
-import { useEffect, useState } from "react";
-import { data, Form, Link, useFetcher, useNavigation } from "react-router";
+import { useCallback, useEffect, useState } from "react";
+import { data, Form, Link, useFetcher, useFetchers, useNavigation, useRevalidator } from "react-router";
+import useSWR from "swr";
 import type { Route } from "./+types/bench-run";
 import { requireMember } from "~/auth/guard.server";
 import { CAN } from "~/lib/roles";
 import { fieldErrors, type FieldErrors } from "~/lib/forms";
 import { addStepPhoto, BenchRunError, completeRun, getRun, setStepNote, setStepOutcome, verifyRecord } from "~/bench-runs/bench-runs.server";
 import { OUTCOME_LABELS, runFormSchema, STEP_OUTCOMES, type StepOutcome } from "~/bench-runs/outcomes";
+import { fetchLiveRun, liveFromApi, progressOf, putStepOutcome, runApiPath, withOutcome, withStep, type LiveRun, type LiveStep } from "~/bench-runs/live";
+import { runJson } from "~/api/views.server";
 import { readCappedFormData, UploadError } from "~/uploads/uploads.server";
 import { PageHeader } from "~/components/page-header";
 import { SafetyNote } from "~/components/safety-note";
@@ -22,7 +28,6 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const run = await getRun(m.workspace.id, params.runId);
   if (!run) throw new Response("Not found", { status: 404 });
   const plan = run.run.plan;
-  const failed = run.results.filter((r) => r.outcome === "fail").length;
   return {
     slug: m.workspace.slug,
     canRecord: (CAN.runBenchTests as readonly string[]).includes(m.role) && run.run.status === "in-progress",
@@ -42,20 +47,12 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       completedBy: run.completedBy,
       resultsHash: run.run.resultsHash,
       intact: verifyRecord(run),
-      failed,
     },
     plan: { start: plan.start, uncovered: plan.uncovered, stats: plan.stats },
-    steps: plan.steps.map((s) => {
-      const r = run.results.find((x) => x.n === s.n);
-      return {
-        ...s,
-        outcome: (r?.outcome ?? null) as StepOutcome | null,
-        note: r?.note ?? "",
-        updatedByName: r?.updatedByName ?? null,
-        updatedAt: r?.updatedAt?.toISOString() ?? null,
-        photos: (r?.photos ?? []).map((p) => ({ id: p.id, filename: p.filename, contentType: p.contentType })),
-      };
-    }),
+    // What a step asks for (frozen with the run); its result lives in `live`.
+    steps: plan.steps,
+    // The same shape the page's swr reads from the API, so the first paint needs no request.
+    live: liveFromApi(runJson(run, m.workspace.slug)),
   };
 }
 
@@ -132,26 +129,43 @@ function Expect({ step }: { step: Step }) {
   );
 }
 
-function StepCard({ step, slug, canRecord }: { step: Step; slug: string; canRecord: boolean }) {
-  const outcomeFetcher = useFetcher<ActionResult>({ key: `outcome-${step.n}` });
+type CardProps = {
+  step: Step;
+  result: LiveStep;
+  slug: string;
+  canRecord: boolean;
+  /** A PUT of this step's result is on its way. */
+  putting: boolean;
+  /** Why the last tap was not saved (it was rolled back). */
+  tapError: string | null;
+  onOutcome: (n: number, outcome: StepOutcome) => void;
+};
+
+// The fetcher that clears a step's result (the API records pass, fail or skip only); the page reads
+// its pending form too, so progress counts a clear at once.
+const clearKey = (n: number) => `outcome-${n}`;
+
+function StepCard({ step, result, slug, canRecord, putting, tapError, onOutcome }: CardProps) {
+  const outcomeFetcher = useFetcher<ActionResult>({ key: clearKey(step.n) });
   const noteFetcher = useFetcher<ActionResult>({ key: `note-${step.n}` });
   const photoFetcher = useFetcher<ActionResult>({ key: `photo-${step.n}` });
-  const pending = outcomeFetcher.formData?.get("outcome");
-  const outcome = (typeof pending === "string" ? (pending === "" ? null : pending) : step.outcome) as StepOutcome | null;
-  const [note, setNote] = useState(step.note);
+  // `result` already carries an optimistic tap and a pending clear.
+  const outcome = result.outcome;
+  const [note, setNote] = useState(result.note);
   // What the server holds; a pending save counts as saved so the button does not invite a second one.
   const pendingNote = noteFetcher.formData?.get("note");
-  const [savedNote, setSavedNote] = useState(step.note);
-  useEffect(() => setSavedNote(step.note), [step.note]);
+  const [savedNote, setSavedNote] = useState(result.note);
+  useEffect(() => setSavedNote(result.note), [result.note]);
   const noteSaved = note === (typeof pendingNote === "string" ? pendingNote : savedNote);
   const saveNote = () => {
     if (noteSaved) return;
     noteFetcher.submit({ intent: "note", step: String(step.n), note }, { method: "post" });
   };
-  const error = outcomeFetcher.data?.ok === false ? Object.values(outcomeFetcher.data.fields)[0] : null;
+  const clearError = outcomeFetcher.state === "idle" && outcomeFetcher.data?.ok === false ? Object.values(outcomeFetcher.data.fields)[0] : null;
+  const error = tapError ?? clearError;
   const noteError = noteFetcher.data?.ok === false ? Object.values(noteFetcher.data.fields)[0] : null;
   const photoError = photoFetcher.data?.ok === false ? Object.values(photoFetcher.data.fields)[0] : null;
-  const saving = outcomeFetcher.state !== "idle" || noteFetcher.state !== "idle" || photoFetcher.state !== "idle";
+  const saving = putting || outcomeFetcher.state !== "idle" || noteFetcher.state !== "idle" || photoFetcher.state !== "idle";
   return (
     <article
       id={`step-${step.n}`}
@@ -165,7 +179,7 @@ function StepCard({ step, slug, canRecord }: { step: Step; slug: string; canReco
           {step.kind === "sequence" ? <span className="ml-2 text-sm font-normal text-ink-600">(lockout sequence)</span> : null}
         </h3>
         <span className="text-xs text-ink-500" aria-live="polite">
-          {saving ? "Saving…" : step.updatedAt ? "Saved" : ""}
+          {saving ? "Saving…" : result.updatedAt ? "Saved" : ""}
         </span>
       </div>
       {step.caution ? <p className="mt-2 rounded-md bg-copper-50 px-3 py-2 text-sm font-medium text-copper-700">{step.caution}</p> : null}
@@ -189,7 +203,11 @@ function StepCard({ step, slug, canRecord }: { step: Step; slug: string; canReco
               key={o}
               type="button"
               aria-pressed={outcome === o}
-              onClick={() => outcomeFetcher.submit({ intent: "outcome", step: String(step.n), outcome: outcome === o ? "" : o }, { method: "post" })}
+              onClick={() =>
+                outcome === o
+                  ? outcomeFetcher.submit({ intent: "outcome", step: String(step.n), outcome: "" }, { method: "post" })
+                  : onOutcome(step.n, o)
+              }
               className={`min-h-12 rounded-md border text-base font-semibold ${outcome === o ? OUTCOME_STYLE[o] : "border-ink-300 bg-white text-ink-800 hover:bg-ink-100"}`}
             >
               {OUTCOME_LABELS[o]}
@@ -224,14 +242,14 @@ function StepCard({ step, slug, canRecord }: { step: Step; slug: string; canReco
           </Button>
           {noteError ? <p className="mt-1 text-sm text-brick-700">{noteError}</p> : null}
         </div>
-      ) : step.note ? (
-        <p className="mt-2 whitespace-pre-wrap text-sm">Note: {step.note}</p>
+      ) : result.note ? (
+        <p className="mt-2 whitespace-pre-wrap text-sm">Note: {result.note}</p>
       ) : null}
-      {canRecord && step.note ? <p className="hidden whitespace-pre-wrap text-sm print:block">Note: {step.note}</p> : null}
+      {canRecord && result.note ? <p className="hidden whitespace-pre-wrap text-sm print:block">Note: {result.note}</p> : null}
 
-      {step.photos.length > 0 ? (
+      {result.photos.length > 0 ? (
         <ul className="mt-3 flex flex-wrap gap-2">
-          {step.photos.map((p) => (
+          {result.photos.map((p) => (
             <li key={p.id}>
               <a href={`/w/${slug}/files/${p.id}`} className="block">
                 {p.contentType.startsWith("image/") ? (
@@ -270,8 +288,18 @@ function StepCard({ step, slug, canRecord }: { step: Step; slug: string; canReco
 }
 
 export default function BenchRun({ loaderData, actionData }: Route.ComponentProps) {
-  const { run, plan, steps, slug, canRecord } = loaderData;
-  const done = steps.filter((s) => s.outcome).length;
+  const { run, plan, steps, slug } = loaderData;
+  const live = useLiveRun(run.id, loaderData.live, run.status);
+  // A run completed elsewhere: no more taps here, and the loader brings its signed record.
+  const canRecord = loaderData.canRecord && live.run.status === "in-progress";
+  const revalidator = useRevalidator();
+  useEffect(() => {
+    if (live.run.status === "completed" && run.status !== "completed" && revalidator.state === "idle") void revalidator.revalidate();
+  }, [live.run.status, run.status, revalidator]);
+  const results = live.run.steps;
+  const resultOf = (n: number): LiveStep =>
+    results.find((r) => r.n === n) ?? { n, outcome: null, note: "", updatedAt: null, updatedByName: null, photos: [] };
+  const { done, failed } = progressOf(results);
   const busy = useNavigation().state === "submitting";
   const completeError = actionData && !actionData.ok && actionData.step === undefined ? Object.values(actionData.fields)[0] : null;
   return (
@@ -292,7 +320,7 @@ export default function BenchRun({ loaderData, actionData }: Route.ComponentProp
             Revision {run.number} of {run.designName} <HashPrefix hash={run.revisionHash} /> · started by {run.startedByName}, <When iso={run.startedAt} />
           </>
         }
-        actions={<RunBadge run={run} />}
+        actions={<RunBadge run={{ status: live.run.status, failed }} />}
       />
       <SafetyNote className="mb-4" />
 
@@ -333,7 +361,7 @@ export default function BenchRun({ loaderData, actionData }: Route.ComponentProp
       ) : (
         <div className="sticky top-16 z-10 mb-4 rounded-lg border border-ink-200 bg-white/95 p-3 shadow-sm backdrop-blur md:top-2 print:static">
           <p className="text-sm font-medium" data-testid="progress">
-            {done} of {steps.length} steps recorded{run.failed ? ` · ${run.failed} failed` : ""}
+            {done} of {steps.length} steps recorded{failed ? ` · ${failed} failed` : ""}
           </p>
           <div className="mt-2 h-2 rounded-full bg-ink-100" aria-hidden="true">
             <div className="h-2 rounded-full bg-copper-500" style={{ width: `${(100 * done) / Math.max(1, steps.length)}%` }} />
@@ -348,7 +376,16 @@ export default function BenchRun({ loaderData, actionData }: Route.ComponentProp
 
       <div className="space-y-4">
         {steps.map((s) => (
-          <StepCard key={s.n} step={s} slug={slug} canRecord={canRecord} />
+          <StepCard
+            key={s.n}
+            step={s}
+            result={resultOf(s.n)}
+            slug={slug}
+            canRecord={canRecord}
+            putting={(live.putting[s.n] ?? 0) > 0}
+            tapError={live.errors[s.n] ?? null}
+            onOutcome={live.record}
+          />
         ))}
       </div>
 
@@ -384,4 +421,59 @@ export default function BenchRun({ loaderData, actionData }: Route.ComponentProp
       ) : null}
     </div>
   );
+}
+
+/**
+ * The run's results, live: swr over the run's API (every 10 s while open, and on focus), seeded and
+ * re-seeded by the loader (which runs again after a note, a photo or a clear), with a tap's result
+ * shown at once (optimistic) and rolled back with a message when the save fails. A clear still
+ * pending in its fetcher shows as cleared.
+ */
+function useLiveRun(runId: string, fromLoader: LiveRun, status: LiveRun["status"]) {
+  const key = runApiPath(runId);
+  const { data, mutate } = useSWR<LiveRun>(key, fetchLiveRun, {
+    fallbackData: fromLoader,
+    revalidateOnMount: false,
+    revalidateOnFocus: true,
+    refreshInterval: status === "in-progress" ? 10_000 : 0,
+  });
+  useEffect(() => {
+    void mutate(fromLoader, { revalidate: false });
+  }, [fromLoader, mutate]);
+  const [putting, setPutting] = useState<Record<number, number>>({});
+  const [errors, setErrors] = useState<Record<number, string>>({});
+  const bump = (n: number, by: number) => setPutting((p) => ({ ...p, [n]: (p[n] ?? 0) + by }));
+
+  const record = useCallback(
+    (n: number, outcome: StepOutcome) => {
+      setErrors(({ [n]: _, ...rest }) => rest);
+      bump(n, 1);
+      // The PUT answers the one step as saved; it is merged into what is shown by then (other
+      // steps may have changed meanwhile), so the promise carries it as a one-step run.
+      const saving = putStepOutcome(runId, n, outcome).then((saved): LiveRun => ({ status: "in-progress", steps: [saved] }));
+      mutate(saving, {
+        optimisticData: (current) => withOutcome(current ?? fromLoader, n, outcome),
+        populateCache: (saved, current) => withStep(current ?? fromLoader, saved.steps[0]!),
+        rollbackOnError: true,
+        revalidate: false,
+      })
+        .catch((err: unknown) => {
+          setErrors((e) => ({ ...e, [n]: `Not saved: ${err instanceof Error ? err.message : "the server did not answer."}` }));
+          // What the server holds now (the run may have been completed elsewhere).
+          void mutate();
+        })
+        .finally(() => bump(n, -1));
+    },
+    [runId, fromLoader, mutate],
+  );
+
+  // Clears waiting in their fetchers count as done at once.
+  const clearing = new Set(
+    useFetchers()
+      .filter((f) => f.formData?.get("intent") === "outcome" && f.formData.get("outcome") === "")
+      .map((f) => Number(f.formData!.get("step"))),
+  );
+  const current = data ?? fromLoader;
+  const run: LiveRun = clearing.size === 0 ? current : { ...current, steps: current.steps.map((s) => (clearing.has(s.n) ? { ...s, outcome: null } : s)) };
+  return { run, record, putting, errors };
 }

@@ -1,0 +1,81 @@
+// The live part of a bench run on its page: each step's result, note and photos, and whether the run
+// is still open. The page keeps it in swr, read from GET /api/v1/bench-runs/:runId (every 10 s and
+// when the tab regains focus), and changes it at once when a technician taps a result (optimistic),
+// then saves through PUT /api/v1/bench-runs/:runId/steps/:n. No server imports: runs in the browser.
+import type { runJson } from "~/api/views.server";
+import type { StepOutcome } from "./outcomes";
+
+type ApiRun = ReturnType<typeof runJson>;
+type ApiStep = ApiRun["steps"][number];
+
+export type LiveStep = {
+  n: number;
+  outcome: StepOutcome | null;
+  note: string;
+  updatedAt: string | null;
+  updatedByName: string | null;
+  photos: Array<{ id: string; filename: string; contentType: string }>;
+};
+export type LiveRun = { status: ApiRun["status"]; steps: LiveStep[] };
+
+export const runApiPath = (runId: string) => `/api/v1/bench-runs/${encodeURIComponent(runId)}`;
+export const stepApiPath = (runId: string, n: number) => `${runApiPath(runId)}/steps/${n}`;
+
+export function liveStep(s: ApiStep): LiveStep {
+  return {
+    n: s.n,
+    outcome: s.status,
+    note: s.note,
+    updatedAt: s.updatedAt,
+    updatedByName: s.updatedBy?.name ?? null,
+    photos: s.photos.map((p) => ({ id: p.id, filename: p.filename, contentType: p.contentType })),
+  };
+}
+
+export function liveFromApi(run: ApiRun): LiveRun {
+  return { status: run.status, steps: run.steps.map(liveStep) };
+}
+
+/** The run with one step's result replaced (the optimistic state of a tap). */
+export function withOutcome(run: LiveRun, n: number, outcome: StepOutcome | null): LiveRun {
+  return { ...run, steps: run.steps.map((s) => (s.n === n ? { ...s, outcome } : s)) };
+}
+
+/** The run with one step as the server saved it. */
+export function withStep(run: LiveRun, step: LiveStep): LiveRun {
+  return { ...run, steps: run.steps.map((s) => (s.n === step.n ? step : s)) };
+}
+
+export function progressOf(steps: readonly Pick<LiveStep, "outcome">[]) {
+  return { done: steps.filter((s) => s.outcome).length, failed: steps.filter((s) => s.outcome === "fail").length };
+}
+
+type ApiError = { error?: { message?: string; fields?: Array<{ path: string; message: string }> } };
+
+async function answer<T>(res: Response): Promise<T> {
+  const body = (await res.json().catch(() => null)) as (T & ApiError) | null;
+  if (!res.ok || body === null) throw new Error(body?.error?.message ?? `The server answered ${res.status}.`);
+  return body;
+}
+
+/** swr's fetcher of the run. */
+export async function fetchLiveRun(url: string): Promise<LiveRun> {
+  const res = await fetch(url, { headers: { accept: "application/json" } });
+  return liveFromApi((await answer<{ run: ApiRun }>(res)).run);
+}
+
+/** Saves a step's result; the answer is the step as saved. Throws an Error with a message for people. */
+export async function putStepOutcome(runId: string, n: number, status: StepOutcome): Promise<LiveStep> {
+  let res: Response;
+  try {
+    res = await fetch(stepApiPath(runId, n), {
+      method: "PUT",
+      headers: { "content-type": "application/json", accept: "application/json" },
+      body: JSON.stringify({ status }),
+      credentials: "same-origin",
+    });
+  } catch {
+    throw new Error("The server could not be reached; check the connection and tap again.");
+  }
+  return liveStep((await answer<{ step: ApiStep }>(res)).step);
+}
