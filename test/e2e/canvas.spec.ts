@@ -62,12 +62,14 @@ export async function buildInletDesign(page: Page) {
   await addCondition(page, "seat", ["empty", "occupied"]);
   await addCondition(page, "plug", ["free", "inserted"]);
 
+  // A new design starts with what the blank template holds (its battery); count what we add.
+  const before = await page.locator(".react-flow__node").count();
   await dropFromPalette(page, "supply", 60, 120);
   await dropFromPalette(page, "contact", 230, 120);
   await dropFromPalette(page, "contact", 440, 120);
   await dropFromPalette(page, "contact", 650, 120);
   await dropFromPalette(page, "input-enable", 440, 330);
-  await expect(page.locator(".react-flow__node")).toHaveCount(5);
+  await expect(page.locator(".react-flow__node")).toHaveCount(before + 5);
   await wire(page, "B1.+", "K1.1");
   await wire(page, "K1.2", "K2.1");
   await wire(page, "K2.2", "K3.1");
