@@ -18,11 +18,11 @@ function initial(): unknown {
 }
 
 // Worker round trips of the live proof, as the editor does them (same worker module, same message).
-(window as unknown as { __proofBench: (runs: number, contacts: number) => Promise<number[]> }).__proofBench = async (runs, contacts) => {
+(window as unknown as { __proofBench: (runs: number, contacts: number, conditions?: number) => Promise<number[]> }).__proofBench = async (runs, contacts, conditions) => {
   const worker = new Worker(new URL("../proof.worker.ts", import.meta.url), { type: "module" });
   const times: number[] = [];
   for (let i = 0; i < runs; i++) {
-    const doc = chainDesign(contacts);
+    const doc = chainDesign(contacts, conditions ?? contacts);
     doc.name = `run ${i}`; // a fresh document each time, as after an edit
     const started = performance.now();
     await new Promise<void>((resolve) => {
