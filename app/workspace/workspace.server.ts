@@ -143,16 +143,21 @@ async function adminCount(tx: Tx, workspaceId: string): Promise<number> {
   return rows[0]?.n ?? 0;
 }
 
+/** The member (with e-mail and role), locked for the rest of the transaction. */
+async function lockMember(tx: Tx, workspaceId: string, memberId: string) {
+  const rows = await tx
+    .select({ id: schema.member.id, role: schema.member.role, email: schema.user.email })
+    .from(schema.member)
+    .innerJoin(schema.user, eq(schema.member.userId, schema.user.id))
+    .where(and(eq(schema.member.id, memberId), eq(schema.member.workspaceId, workspaceId)))
+    .for("update");
+  return rows[0];
+}
+
 /** Changes a member's role; refuses to leave the workspace without an admin. */
 export async function changeRole(workspaceId: string, actorId: string, memberId: string, role: Role) {
   return db.transaction(async (tx) => {
-    const rows = await tx
-      .select({ id: schema.member.id, role: schema.member.role, email: schema.user.email })
-      .from(schema.member)
-      .innerJoin(schema.user, eq(schema.member.userId, schema.user.id))
-      .where(and(eq(schema.member.id, memberId), eq(schema.member.workspaceId, workspaceId)))
-      .for("update");
-    const target = rows[0];
+    const target = await lockMember(tx, workspaceId, memberId);
     if (!target) return { ok: false as const, message: "No such member." };
     if (target.role === "admin" && role !== "admin") {
       if ((await adminCount(tx, workspaceId)) <= 1) return { ok: false as const, message: "A workspace needs at least one admin." };
@@ -165,13 +170,7 @@ export async function changeRole(workspaceId: string, actorId: string, memberId:
 
 export async function removeMember(workspaceId: string, actorId: string, memberId: string) {
   return db.transaction(async (tx) => {
-    const rows = await tx
-      .select({ id: schema.member.id, role: schema.member.role, email: schema.user.email })
-      .from(schema.member)
-      .innerJoin(schema.user, eq(schema.member.userId, schema.user.id))
-      .where(and(eq(schema.member.id, memberId), eq(schema.member.workspaceId, workspaceId)))
-      .for("update");
-    const target = rows[0];
+    const target = await lockMember(tx, workspaceId, memberId);
     if (!target) return { ok: false as const, message: "No such member." };
     if (target.role === "admin") {
       if ((await adminCount(tx, workspaceId)) <= 1) return { ok: false as const, message: "A workspace needs at least one admin." };

@@ -1,14 +1,8 @@
 // Playwright fixtures: sign in as a demo role; every test context gets its own client address.
 import { expect, test as base, type Page } from "@playwright/test";
 
-export const DEMO_PASSWORD = "chainproof-demo";
-export const DEMO = {
-  admin: "admin@example.com",
-  engineer: "engineer@example.com",
-  technician: "technician@example.com",
-  reviewer: "reviewer@example.com",
-} as const;
-export type DemoRole = keyof typeof DEMO;
+import { DEMO, DEMO_PASSWORD, type DemoRole } from "./demo";
+export { DEMO, DEMO_PASSWORD, type DemoRole };
 
 let n = 0;
 export const test = base.extend({

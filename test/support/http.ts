@@ -1,15 +1,9 @@
+import { DEMO, DEMO_PASSWORD, type DemoRole } from "./demo";
 // HTTP helpers for integration tests against the running app (BASE_URL, set by scripts/test.ts).
 // CHAINPROOF_URL, since Vite reserves BASE_URL for its own base path ("/").
 const fromEnv = process.env.CHAINPROOF_URL ?? (process.env.BASE_URL?.startsWith("http") ? process.env.BASE_URL : undefined);
 export const BASE_URL = fromEnv ?? "http://127.0.0.1:3100";
-export const DEMO_PASSWORD = "chainproof-demo";
-export const DEMO = {
-  admin: "admin@example.com",
-  engineer: "engineer@example.com",
-  technician: "technician@example.com",
-  reviewer: "reviewer@example.com",
-} as const;
-export type DemoRole = keyof typeof DEMO;
+export { DEMO, DEMO_PASSWORD, type DemoRole };
 
 let clientCounter = 0;
 /** A distinct client address per call: the test server trusts X-Forwarded-For for rate limits. */
