@@ -21,12 +21,27 @@ function pgBin(name: string): string {
   throw new Error(`PostgreSQL's ${name} was not found under ${root}: install the Debian package postgresql`);
 }
 
-/** Runs a PostgreSQL tool as the postgres user when we are root (initdb refuses root). */
+/** The postgres account's ids, when we are root (initdb and the server refuse to run as root). */
+function postgresIds(): { uid: number; gid: number } | null {
+  if (!isRoot) return null;
+  const uid = Number(spawnSync("id", ["-u", "postgres"], { encoding: "utf8" }).stdout.trim());
+  const gid = Number(spawnSync("id", ["-g", "postgres"], { encoding: "utf8" }).stdout.trim());
+  return { uid, gid };
+}
+
+/**
+ * Runs a PostgreSQL tool, as the postgres user when we are root: switched by the spawn itself (no
+ * su/runuser session around it), and for `pg_ctl start` in a session of its own (setsid), so the
+ * server and whoever started it never share a signal.
+ */
 function runPg(name: string, args: string[], opts: SpawnSyncOptions = {}) {
-  const tool = isRoot ? ["runuser", "-u", "postgres", "--", pgBin(name), ...args] : [pgBin(name), ...args];
-  // The server gets a session of its own: no signal meant for the caller's process group reaches it.
-  const full = name === "pg_ctl" && args[0] === "start" ? ["setsid", "-w", ...tool] : tool;
-  return spawnSync(full[0]!, full.slice(1), { encoding: "utf8", ...opts });
+  const ids = postgresIds();
+  const full = name === "pg_ctl" && args[0] === "start" ? ["setsid", "-w", pgBin(name), ...args] : [pgBin(name), ...args];
+  return spawnSync(full[0]!, full.slice(1), {
+    encoding: "utf8",
+    ...(ids ? { uid: ids.uid, gid: ids.gid, env: { ...process.env, HOME: "/var/lib/postgresql", USER: "postgres" } } : {}),
+    ...opts,
+  });
 }
 
 export type PostgresHandle = { port: number; password: string; url: (db: string) => string; stop: () => void };
@@ -43,11 +58,8 @@ export function startPostgres(opts: { dir: string; port: number; password?: stri
     const pwfile = path.join(os.tmpdir(), `chainproof-pw-${process.pid}`);
     writeFileSync(pwfile, password + "\n");
     chmodSync(pwfile, 0o644);
-    if (isRoot) {
-      const pgUser = spawnSync("id", ["-u", "postgres"], { encoding: "utf8" });
-      const pgGroup = spawnSync("id", ["-g", "postgres"], { encoding: "utf8" });
-      chownSync(dir, Number(pgUser.stdout.trim()), Number(pgGroup.stdout.trim()));
-    }
+    const ids = postgresIds();
+    if (ids) chownSync(dir, ids.uid, ids.gid);
     chmodSync(dir, 0o700);
     const r = runPg("initdb", ["-D", dir, "-U", user, "--pwfile", pwfile, "--auth-host=scram-sha-256", "--auth-local=scram-sha-256", "-E", "UTF8", "--locale=C.UTF-8"]);
     if (r.status !== 0) throw new Error(`initdb failed: ${r.stderr || r.stdout}`);
