@@ -101,6 +101,8 @@ export async function ensureDatabase(pgh: PostgresHandle, name: string, { fresh 
 /** An SMTP server that accepts every message and keeps it in the mail_message table. */
 export async function startMailSink(opts: { port: number; databaseUrl: string; log?: (s: string) => void }) {
   const pool = new pg.Pool({ connectionString: opts.databaseUrl, max: 2 });
+  // An idle connection dropped by a database restart must not take this process (and the test run) down.
+  pool.on("error", () => {});
   const server = new SMTPServer({
     secure: false,
     authOptional: true,
