@@ -6,21 +6,22 @@ const fieldBase =
 
 type FieldProps = { label: string; name: string; error?: string; hint?: string };
 
-export function TextField({ label, name, error, hint, ...rest }: FieldProps & InputHTMLAttributes<HTMLInputElement>) {
-  const id = rest.id ?? `f-${name}`;
-  return (
+/** The label, hint and error around one control, and the attributes that tie the control to them. */
+function fieldParts({ label, name, error, hint }: FieldProps, explicitId: string | undefined) {
+  const id = explicitId ?? `f-${name}`;
+  const control = {
+    id,
+    name,
+    "aria-invalid": error ? true : undefined,
+    "aria-describedby": error ? `${id}-error` : hint ? `${id}-hint` : undefined,
+    className: `${fieldBase} ${error ? "border-brick-600" : "border-ink-300"}`,
+  };
+  const frame = (child: ReactNode) => (
     <div>
       <label htmlFor={id} className="block text-sm font-medium text-ink-700">
         {label}
       </label>
-      <input
-        id={id}
-        name={name}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={error ? `${id}-error` : hint ? `${id}-hint` : undefined}
-        className={`${fieldBase} ${error ? "border-brick-600" : "border-ink-300"}`}
-        {...rest}
-      />
+      {child}
       {hint && !error ? (
         <p id={`${id}-hint`} className="mt-1 text-xs text-ink-500">
           {hint}
@@ -33,53 +34,32 @@ export function TextField({ label, name, error, hint, ...rest }: FieldProps & In
       ) : null}
     </div>
   );
+  return { control, frame };
 }
 
-export function TextArea({ label, name, error, ...rest }: FieldProps & TextareaHTMLAttributes<HTMLTextAreaElement>) {
-  const id = rest.id ?? `f-${name}`;
-  return (
-    <div>
-      <label htmlFor={id} className="block text-sm font-medium text-ink-700">
-        {label}
-      </label>
-      <textarea
-        id={id}
-        name={name}
-        aria-invalid={error ? true : undefined}
-        className={`${fieldBase} ${error ? "border-brick-600" : "border-ink-300"}`}
-        {...rest}
-      />
-      {error ? (
-        <p className="mt-1 text-sm text-brick-700" role="alert">
-          {error}
-        </p>
-      ) : null}
-    </div>
-  );
+export function TextField({ label, name, error, hint, ...rest }: FieldProps & InputHTMLAttributes<HTMLInputElement>) {
+  const { control, frame } = fieldParts({ label, name, error, hint }, rest.id);
+  return frame(<input {...control} {...rest} />);
+}
+
+export function TextArea({ label, name, error, hint, ...rest }: FieldProps & TextareaHTMLAttributes<HTMLTextAreaElement>) {
+  const { control, frame } = fieldParts({ label, name, error, hint }, rest.id);
+  return frame(<textarea {...control} {...rest} />);
 }
 
 export function SelectField({
   label,
   name,
   error,
+  hint,
   children,
   ...rest
 }: FieldProps & SelectHTMLAttributes<HTMLSelectElement> & { children: ReactNode }) {
-  const id = rest.id ?? `f-${name}`;
-  return (
-    <div>
-      <label htmlFor={id} className="block text-sm font-medium text-ink-700">
-        {label}
-      </label>
-      <select id={id} name={name} className={`${fieldBase} ${error ? "border-brick-600" : "border-ink-300"}`} {...rest}>
-        {children}
-      </select>
-      {error ? (
-        <p className="mt-1 text-sm text-brick-700" role="alert">
-          {error}
-        </p>
-      ) : null}
-    </div>
+  const { control, frame } = fieldParts({ label, name, error, hint }, rest.id);
+  return frame(
+    <select {...control} {...rest}>
+      {children}
+    </select>,
   );
 }
 
