@@ -67,6 +67,11 @@ export type RunPage = { limit: number; after?: { startKey: string; id: string } 
 /** The start time as exact text (microseconds, UTC): the sort key an API cursor carries. */
 const startKey = sql<string>`to_char(${benchRun.startedAt} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"')`;
 
+// A run joined to its vehicle, revision and design, each within the run's own workspace.
+const runsVehicle = and(eq(vehicle.id, benchRun.vehicleId), eq(vehicle.workspaceId, benchRun.workspaceId));
+const runsRevision = and(eq(designRevision.id, benchRun.revisionId), eq(designRevision.workspaceId, benchRun.workspaceId));
+const revisionsDesign = and(eq(design.id, designRevision.designId), eq(design.workspaceId, benchRun.workspaceId));
+
 /**
  * Runs of the workspace (optionally of one vehicle), newest first (then by id), with their step
  * counts: the latest 200, or one page of `page.limit` (keyset: after `page.after`).
@@ -102,9 +107,9 @@ export async function listRuns(workspaceId: string, filter: RunFilter = {}, page
       skipped: counts.skipped,
     })
     .from(benchRun)
-    .innerJoin(vehicle, and(eq(vehicle.id, benchRun.vehicleId), eq(vehicle.workspaceId, benchRun.workspaceId)))
-    .innerJoin(designRevision, and(eq(designRevision.id, benchRun.revisionId), eq(designRevision.workspaceId, benchRun.workspaceId)))
-    .innerJoin(design, and(eq(design.id, designRevision.designId), eq(design.workspaceId, benchRun.workspaceId)))
+    .innerJoin(vehicle, runsVehicle)
+    .innerJoin(designRevision, runsRevision)
+    .innerJoin(design, revisionsDesign)
     .innerJoin(user, eq(user.id, benchRun.startedBy))
     .innerJoin(counts, eq(counts.runId, benchRun.id))
     .where(
@@ -138,9 +143,9 @@ export async function getRun(workspaceId: string, runId: string) {
       startedByEmail: user.email,
     })
     .from(benchRun)
-    .innerJoin(vehicle, and(eq(vehicle.id, benchRun.vehicleId), eq(vehicle.workspaceId, benchRun.workspaceId)))
-    .innerJoin(designRevision, and(eq(designRevision.id, benchRun.revisionId), eq(designRevision.workspaceId, benchRun.workspaceId)))
-    .innerJoin(design, and(eq(design.id, designRevision.designId), eq(design.workspaceId, benchRun.workspaceId)))
+    .innerJoin(vehicle, runsVehicle)
+    .innerJoin(designRevision, runsRevision)
+    .innerJoin(design, revisionsDesign)
     .innerJoin(user, eq(user.id, benchRun.startedBy))
     .where(and(eq(benchRun.id, runId), eq(benchRun.workspaceId, workspaceId)))
     .limit(1);
@@ -254,10 +259,10 @@ async function mailFailure(workspaceId: string, runId: string, n: number, actorI
       plan: benchRun.plan,
     })
     .from(benchRun)
-    .innerJoin(designRevision, and(eq(designRevision.id, benchRun.revisionId), eq(designRevision.workspaceId, benchRun.workspaceId)))
-    .innerJoin(design, and(eq(design.id, designRevision.designId), eq(design.workspaceId, benchRun.workspaceId)))
+    .innerJoin(designRevision, runsRevision)
+    .innerJoin(design, revisionsDesign)
     .innerJoin(user, eq(user.id, designRevision.authorId))
-    .innerJoin(vehicle, and(eq(vehicle.id, benchRun.vehicleId), eq(vehicle.workspaceId, benchRun.workspaceId)))
+    .innerJoin(vehicle, runsVehicle)
     .innerJoin(workspace, eq(workspace.id, benchRun.workspaceId))
     .where(and(eq(benchRun.id, runId), eq(benchRun.workspaceId, workspaceId)))
     .limit(1);
