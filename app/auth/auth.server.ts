@@ -4,6 +4,7 @@ import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { db, schema } from "~/db/client.server";
 import { env } from "~/env.server";
 import { composeMail, sendMail } from "~/mail/mailer.server";
+import { forgetSessions } from "./session-cache.server";
 
 /** Header our HTTP server sets from the socket (or a trusted proxy); never taken from the client. */
 export const CLIENT_IP_HEADER = "x-chainproof-client-ip";
@@ -53,6 +54,12 @@ export const auth = betterAuth({
     },
   },
   session: { expiresIn: 60 * 60 * 24 * 14, updateAge: 60 * 60 * 24 },
+  // Sessions confirmed recently are held for a few seconds (session-cache.server.ts); ending any
+  // session or changing any user drops them all, so sign-out and revocation take effect at once here.
+  databaseHooks: {
+    session: { delete: { after: async () => forgetSessions() }, update: { after: async () => forgetSessions() } },
+    user: { update: { after: async () => forgetSessions() }, delete: { after: async () => forgetSessions() } },
+  },
   rateLimit: {
     enabled: true,
     storage: "database",

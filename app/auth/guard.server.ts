@@ -1,5 +1,5 @@
 // The one place that decides who may see or do what. Called by EVERY loader and action.
-import { and, eq } from "drizzle-orm";
+import { eq } from "drizzle-orm";
 import { redirect } from "react-router";
 import { auth } from "./auth.server";
 import { db, schema } from "~/db/client.server";
@@ -7,6 +7,7 @@ import type { Role } from "~/lib/roles";
 import { env } from "~/env.server";
 import { resolveApiKey } from "./api-keys.server";
 import { databaseDownResponse, isDatabaseDown } from "~/db/unavailable.server";
+import { cachedSession, rememberSession, sessionCookieOf } from "./session-cache.server";
 
 /** Runs a lookup; a database outage becomes a clean 503 for the caller instead of a 500. */
 async function orUnavailable<T>(kind: Kind, run: () => Promise<T>): Promise<T> {
@@ -31,16 +32,37 @@ function apiError(status: number, code: string, message: string): Response {
 
 const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
 
-export async function getSignedIn(request: Request): Promise<SignedIn | null> {
+/**
+ * Who is asking. Asked once per request however many loaders ask (the shell's and the page's run
+ * side by side), and a browser session confirmed in the last seconds is not looked up again.
+ */
+export function getSignedIn(request: Request): Promise<SignedIn | null> {
+  let found = signedInOf.get(request);
+  if (!found) {
+    found = lookUpSignedIn(request);
+    signedInOf.set(request, found);
+  }
+  return found;
+}
+
+const signedInOf = new WeakMap<Request, Promise<SignedIn | null>>();
+
+async function lookUpSignedIn(request: Request): Promise<SignedIn | null> {
   const authorization = request.headers.get("authorization");
   if (authorization?.toLowerCase().startsWith("bearer ")) {
     const key = await resolveApiKey(authorization.slice(7).trim());
     if (!key) return null;
     return { user: { id: key.userId, email: key.email, name: key.name }, sessionId: `key:${key.id}`, apiKeyWorkspaceId: key.workspaceId };
   }
+  const cookie = sessionCookieOf(request.headers.get("cookie"));
+  if (!cookie) return null;
+  const cached = cachedSession(cookie);
+  if (cached) return cached;
   const found = await auth.api.getSession({ headers: request.headers });
   if (!found) return null;
-  return { user: { id: found.user.id, email: found.user.email, name: found.user.name }, sessionId: found.session.id };
+  const signedIn = { user: { id: found.user.id, email: found.user.email, name: found.user.name }, sessionId: found.session.id };
+  rememberSession(cookie, signedIn, new Date(found.session.expiresAt));
+  return signedIn;
 }
 
 export async function requireUser(request: Request, kind: Kind = "page"): Promise<SignedIn> {
@@ -77,14 +99,8 @@ export async function requireMember(
     if (kind === "api") throw apiError(404, "not_found", "No such workspace.");
     throw new Response("Not found", { status: 404, statusText: "Not found" });
   }
-  const rows = await orUnavailable(kind, () =>
-    db
-      .select({ id: schema.workspace.id, slug: schema.workspace.slug, name: schema.workspace.name, role: schema.member.role })
-      .from(schema.member)
-      .innerJoin(schema.workspace, eq(schema.member.workspaceId, schema.workspace.id))
-      .where(and(eq(schema.workspace.slug, slug ?? ""), eq(schema.member.userId, signedIn.user.id)))
-      .limit(1),
-  );
+  const all = await orUnavailable(kind, () => workspacesFor(request, signedIn.user.id));
+  const rows = all.filter((w) => w.slug === slug);
   const row = rows[0];
   // A key works only in the workspace it was made for.
   if (!row || (signedIn.apiKeyWorkspaceId && signedIn.apiKeyWorkspaceId !== row.id)) {
@@ -98,7 +114,19 @@ export async function requireMember(
   return { ...signedIn, workspace: { id: row.id, slug: row.slug, name: row.name }, role: row.role };
 }
 
-export async function workspacesOf(userId: string) {
+type WorkspaceOfUser = { id: string; slug: string; name: string; role: Role };
+const workspacesOfRequest = new WeakMap<Request, { userId: string; rows: Promise<WorkspaceOfUser[]> }>();
+
+/** The signed-in user's workspaces and roles, fetched once per request (the guard and the shell both need them). */
+export function workspacesFor(request: Request, userId: string): Promise<WorkspaceOfUser[]> {
+  const known = workspacesOfRequest.get(request);
+  if (known && known.userId === userId) return known.rows;
+  const rows = workspacesOf(userId);
+  workspacesOfRequest.set(request, { userId, rows });
+  return rows;
+}
+
+export async function workspacesOf(userId: string): Promise<WorkspaceOfUser[]> {
   return db
     .select({ id: schema.workspace.id, slug: schema.workspace.slug, name: schema.workspace.name, role: schema.member.role })
     .from(schema.member)

@@ -183,10 +183,14 @@ export async function removeMember(workspaceId: string, actorId: string, memberI
 
 export const DEMO_EMAILS = ["admin@example.com", "engineer@example.com", "technician@example.com", "reviewer@example.com"];
 
+/** Whether the demo accounts are here (the shell then says so); asked at most once a minute. */
 export async function demoAccountsExist(): Promise<boolean> {
+  if (demoKnown && Date.now() - demoKnown.at < 60_000) return demoKnown.exists;
   const rows = await db
     .select({ n: sql<number>`count(*)::int` })
     .from(schema.user)
     .where(sql`${schema.user.email} in ${DEMO_EMAILS}`);
-  return (rows[0]?.n ?? 0) > 0;
+  demoKnown = { exists: (rows[0]?.n ?? 0) > 0, at: Date.now() };
+  return demoKnown.exists;
 }
+let demoKnown: { exists: boolean; at: number } | null = null;

@@ -60,12 +60,37 @@ describe("sign-in", () => {
     expect(statuses.slice(5)).toContain(429);
   });
 
-  it("signs out: the session no longer opens the workspace", async () => {
+  it("signs out: the session no longer opens the workspace, in any of the server's processes", async () => {
     const c = await signIn(DEMO.technician);
-    expect((await c.fetch("/w/larkspur")).status).toBe(200);
+    // Several requests reach every process of the cluster (round robin), each of which now holds
+    // the confirmed session for a few seconds (docs/decisions/090).
+    for (let i = 0; i < 6; i++) expect((await c.fetch("/w/larkspur")).status).toBe(200);
     const out = await c.fetch("/sign-out", { method: "POST" });
     expect(out.status).toBe(302);
-    expect((await c.fetch("/w/larkspur")).status).toBe(302);
+    for (let i = 0; i < 6; i++) expect((await c.fetch("/w/larkspur")).status).toBe(302);
+  });
+
+  it("a session ended elsewhere (deleted in the database) stops working within the session cache's 10 s", { timeout: 30_000 }, async () => {
+    const c = await signIn(DEMO.technician);
+    for (let i = 0; i < 4; i++) expect((await c.fetch("/w/larkspur")).status).toBe(200);
+    const token = decodeURIComponent(/better-auth\.session_token=([^;.]+)/.exec(c.cookie)![1]!);
+    const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
+    await db.connect();
+    try {
+      expect((await db.query("DELETE FROM session WHERE token = $1", [token])).rowCount).toBe(1);
+    } finally {
+      await db.end();
+    }
+    const ended = Date.now();
+    let open = true;
+    while (open && Date.now() - ended < 12_000) {
+      const statuses = await Promise.all([1, 2, 3, 4].map(async () => (await c.fetch("/w/larkspur")).status));
+      open = statuses.includes(200);
+      if (open) await new Promise((r) => setTimeout(r, 250));
+    }
+    expect(open).toBe(false);
+    // And it stays closed.
+    expect((await c.fetch("/api/v1/designs?workspace=larkspur")).status).toBe(401);
   });
 });
 
