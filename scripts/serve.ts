@@ -1,5 +1,9 @@
 // The production HTTP server: static assets, the React Router app, and the client-address header
-// that rate limits use. Listens on HOST:PORT (127.0.0.1:3000 by default).
+// that rate limits use. Listens on HOST:PORT (127.0.0.1:3000 by default) with WEB_CONCURRENCY
+// processes (node:cluster; one per core by default): a primary that forks, restarts and stops them
+// and holds what they share (docs/decisions/090), and workers that serve.
+import cluster from "node:cluster";
+import os from "node:os";
 import path from "node:path";
 import { randomBytes } from "node:crypto";
 import { pathToFileURL } from "node:url";
@@ -13,50 +17,106 @@ const host = process.env.HOST ?? "127.0.0.1";
 const trustProxy = process.env.TRUST_PROXY === "1";
 const buildDir = path.resolve(process.argv[2] ?? "build");
 
-const build = await import(pathToFileURL(path.join(buildDir, "server/index.js")).href);
+const processes = Math.max(1, Number(process.env.WEB_CONCURRENCY ?? os.availableParallelism()));
 
-const app = express();
-app.disable("x-powered-by");
-app.use(compression());
-app.use((req, res, next) => {
-  // The client address is ours to set: a client-sent value is always replaced.
-  const forwarded = trustProxy ? String(req.headers["x-forwarded-for"] ?? "").split(",")[0]?.trim() : "";
-  req.headers[CLIENT_IP_HEADER] = forwarded || req.socket.remoteAddress || "unknown";
-  // A response sent before the request body was read (too large, wrong type) closes the connection,
-  // so a client never reuses a socket that still carries the rest of that body.
-  const writeHead = res.writeHead;
-  res.writeHead = function (this: typeof res, ...args: Parameters<typeof writeHead>) {
-    if (!req.complete) res.setHeader("Connection", "close");
-    return writeHead.apply(this, args);
-  } as typeof writeHead;
-  res.setHeader("X-Content-Type-Options", "nosniff");
-  res.setHeader("Referrer-Policy", "same-origin");
-  res.setHeader("X-Frame-Options", "DENY");
-  res.setHeader("Permissions-Policy", "camera=(self), geolocation=()");
-  next();
-});
-app.use("/assets", express.static(path.join(buildDir, "client/assets"), { immutable: true, maxAge: "1y" }));
-app.use(express.static(path.join(buildDir, "client"), { maxAge: "1h" }));
-app.all(
-  "*",
-  createRequestHandler({
-    build,
-    mode: process.env.NODE_ENV ?? "production",
-    getLoadContext: () => ({ cspNonce: randomBytes(16).toString("base64") }),
-  }),
-);
+if (cluster.isPrimary && processes > 1) await runPrimary();
+else await runServer();
 
-const server = app.listen(port, host, () => {
-  console.log(`chainproof: serving on http://${host}:${port}`);
-});
-// Longer than clients' idle pools, so a reused keep-alive connection is not closed under a request.
-server.keepAliveTimeout = 65_000;
-server.headersTimeout = 66_000;
-const stop = () => server.close(() => process.exit(0));
-process.on("SIGTERM", stop);
-// Started by the start/test scripts: leave with them, even if they were killed without a word.
-const parent = Number(process.env.CHAINPROOF_PARENT_PID ?? 0);
-if (parent) {
+async function runPrimary() {
+  const { answerRateLimit, apiRateCounter, RATE_LIMIT_TOPIC } = await import("../app/api/rate-limit.server");
+  const { serveWorker } = await import("../app/lib/instances.server");
+  const answers = { [RATE_LIMIT_TOPIC]: answerRateLimit(apiRateCounter()) };
+  // Proof threads are shared out between the processes, so they do not outnumber the cores.
+  const proofThreads = process.env.PROOF_THREADS ?? String(Math.max(1, Math.floor(os.availableParallelism() / processes)));
+  let stopping = false;
+  const fork = () => {
+    const worker = cluster.fork({ PROOF_THREADS: proofThreads });
+    serveWorker(worker, () => Object.values(cluster.workers ?? {}).filter((w) => w !== undefined), answers);
+  };
+  for (let i = 0; i < processes; i++) fork();
+  let announced = false;
+  cluster.on("listening", () => {
+    if (!announced) console.log(`chainproof: serving on http://${host}:${port} (${processes} processes)`);
+    announced = true;
+  });
+  cluster.on("exit", (worker, code, signal) => {
+    if (stopping) {
+      if (Object.keys(cluster.workers ?? {}).length === 0) process.exit(0);
+      return;
+    }
+    console.error(`chainproof: server process ${worker.process.pid} ended (${signal ?? code}); starting another`);
+    fork();
+  });
+  const stop = () => {
+    if (stopping) return;
+    stopping = true;
+    const left = Object.values(cluster.workers ?? {});
+    if (left.length === 0) process.exit(0);
+    for (const w of left) w?.process.kill("SIGTERM");
+    setTimeout(() => process.exit(0), 10_000).unref();
+  };
+  process.on("SIGTERM", stop);
+  process.on("SIGINT", stop);
+  watchParent(stop);
+}
+
+async function runServer() {
+  const build = await import(pathToFileURL(path.join(buildDir, "server/index.js")).href);
+
+  const app = express();
+  app.disable("x-powered-by");
+  app.use(compression());
+  app.use((req, res, next) => {
+    // The client address is ours to set: a client-sent value is always replaced.
+    const forwarded = trustProxy ? String(req.headers["x-forwarded-for"] ?? "").split(",")[0]?.trim() : "";
+    req.headers[CLIENT_IP_HEADER] = forwarded || req.socket.remoteAddress || "unknown";
+    // A response sent before the request body was read (too large, wrong type) closes the connection,
+    // so a client never reuses a socket that still carries the rest of that body.
+    const writeHead = res.writeHead;
+    res.writeHead = function (this: typeof res, ...args: Parameters<typeof writeHead>) {
+      if (!req.complete) res.setHeader("Connection", "close");
+      return writeHead.apply(this, args);
+    } as typeof writeHead;
+    res.setHeader("X-Content-Type-Options", "nosniff");
+    res.setHeader("Referrer-Policy", "same-origin");
+    res.setHeader("X-Frame-Options", "DENY");
+    res.setHeader("Permissions-Policy", "camera=(self), geolocation=()");
+    next();
+  });
+  app.use("/assets", express.static(path.join(buildDir, "client/assets"), { immutable: true, maxAge: "1y" }));
+  app.use(express.static(path.join(buildDir, "client"), { maxAge: "1h" }));
+  app.all(
+    "*",
+    createRequestHandler({
+      build,
+      mode: process.env.NODE_ENV ?? "production",
+      getLoadContext: () => ({ cspNonce: randomBytes(16).toString("base64") }),
+    }),
+  );
+
+  const server = app.listen(port, host, () => {
+    if (!cluster.isWorker) console.log(`chainproof: serving on http://${host}:${port}`);
+  });
+  // Longer than clients' idle pools, so a reused keep-alive connection is not closed under a request.
+  server.keepAliveTimeout = 65_000;
+  server.headersTimeout = 66_000;
+  const stop = () => server.close(() => process.exit(0));
+  process.on("SIGTERM", stop);
+  if (cluster.isWorker) {
+    // Ctrl-C reaches every process of the terminal's group: the primary decides, and stops the workers.
+    process.on("SIGINT", () => {});
+    // A worker leaves with its primary, however the primary ended.
+    process.on("disconnect", stop);
+  } else {
+    process.on("SIGINT", stop);
+    watchParent(stop);
+  }
+}
+
+/** Started by the start/test scripts: leave with them, even if they were killed without a word. */
+function watchParent(stop: () => void) {
+  const parent = Number(process.env.CHAINPROOF_PARENT_PID ?? 0);
+  if (!parent) return;
   setInterval(() => {
     try {
       process.kill(parent, 0);
@@ -65,4 +125,3 @@ if (parent) {
     }
   }, 2000).unref();
 }
-process.on("SIGINT", stop);

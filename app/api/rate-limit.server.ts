@@ -1,8 +1,9 @@
-// Per-client request limit of the JSON API (/api/v1): fixed one-minute windows counted in this
-// process's memory (docs/decisions/080). Checked before authentication, so a refused request costs
-// no database lookup.
+// Per-client request limit of the JSON API (/api/v1): fixed one-minute windows counted in memory,
+// in the primary process when the app runs as a cluster (docs/decisions/080, 090). Checked before
+// authentication, so a refused request costs no database lookup.
 import { createHash } from "node:crypto";
 import { env } from "../env.server";
+import { askPrimary, inClusterWorker } from "../lib/instances.server";
 
 /** Set by our HTTP server from the socket (or X-Forwarded-For with TRUST_PROXY=1); decision 003. */
 const CLIENT_IP_HEADER = "x-chainproof-client-ip";
@@ -96,19 +97,53 @@ function limitedResponse(hit: Refused): Response {
   );
 }
 
+type Who = ReturnType<typeof clientKeyOf>;
+
 /**
- * Runs API requests under the counter's limit. Anonymous requests, and requests whose credentials the
- * guard refused (401), count against the client address too, so made-up credentials do not escape it.
+ * Whether one more request from `who` may run, counted. Anonymous requests, and requests whose
+ * credentials the guard refused (charged afterwards), count against the client address too, so
+ * made-up credentials do not escape the limit.
  */
-export function createRateLimit(counter: FixedWindowCounter) {
+export function admit(counter: FixedWindowCounter, who: Who): Hit {
+  const addressWait = who.anonymous ? 0 : counter.blockedFor(who.address);
+  if (addressWait > 0) return { ok: false, limit: counter.limit, retryAfterSeconds: addressWait };
+  return counter.hit(who.key);
+}
+
+/** Where the counts live: this process, or (in a cluster) the primary, so every worker counts into one. */
+export type Counts = { admit(who: Who): Hit | Promise<Hit>; charge(address: string): void };
+
+export const countsHere = (counter: FixedWindowCounter): Counts => ({
+  admit: (who) => admit(counter, who),
+  charge: (address) => counter.charge(address),
+});
+
+const countsInPrimary: Counts = {
+  admit: (who) => askPrimary<Hit>(RATE_LIMIT_TOPIC, { op: "admit", who }),
+  charge: (address) => void askPrimary(RATE_LIMIT_TOPIC, { op: "charge", address }),
+};
+
+/** The primary's side of countsInPrimary. */
+export function answerRateLimit(counter: FixedWindowCounter) {
+  return (payload: unknown): Hit | null => {
+    const p = payload as { op: "admit"; who: Who } | { op: "charge"; address: string };
+    if (p.op === "admit") return admit(counter, p.who);
+    counter.charge(p.address);
+    return null;
+  };
+}
+
+export const RATE_LIMIT_TOPIC = "api-rate-limit";
+
+/** Runs API requests under the limit; every answer says how much of it is left. */
+export function createRateLimit(source: FixedWindowCounter | Counts) {
+  const counts = source instanceof FixedWindowCounter ? countsHere(source) : source;
   return async function withRateLimit(request: Request, run: () => Promise<Response>): Promise<Response> {
     const who = clientKeyOf(request.headers);
-    const addressWait = who.anonymous ? 0 : counter.blockedFor(who.address);
-    if (addressWait > 0) return limitedResponse({ ok: false, limit: counter.limit, retryAfterSeconds: addressWait });
-    const hit = counter.hit(who.key);
+    const hit = await counts.admit(who);
     if (!hit.ok) return limitedResponse(hit);
     const response = await run();
-    if (!who.anonymous && response.status === 401) counter.charge(who.address);
+    if (!who.anonymous && response.status === 401) counts.charge(who.address);
     try {
       response.headers.set("ratelimit-limit", String(hit.limit));
       response.headers.set("ratelimit-remaining", String(hit.remaining));
@@ -120,5 +155,8 @@ export function createRateLimit(counter: FixedWindowCounter) {
   };
 }
 
-/** The limit every /api/v1 request goes through (handleApi): API_RATE_LIMIT a minute per client. */
-export const withRateLimit = createRateLimit(new FixedWindowCounter(env.API_RATE_LIMIT, 60_000));
+/** A new counter of API_RATE_LIMIT requests a minute per client. */
+export const apiRateCounter = () => new FixedWindowCounter(env.API_RATE_LIMIT, 60_000);
+
+/** The limit every /api/v1 request goes through (handleApi): API_RATE_LIMIT a minute per client, for the whole cluster. */
+export const withRateLimit = createRateLimit(inClusterWorker ? countsInPrimary : apiRateCounter());

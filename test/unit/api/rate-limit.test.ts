@@ -1,6 +1,6 @@
 // The API rate limit's counting (fixed windows on an injected clock) and whom a request counts against.
 import { describe, expect, it } from "vitest";
-import { clientKeyOf, createRateLimit, FixedWindowCounter } from "../../../app/api/rate-limit.server";
+import { answerRateLimit, clientKeyOf, createRateLimit, FixedWindowCounter, type Counts } from "../../../app/api/rate-limit.server";
 
 function clock(start = 1_000_000) {
   let t = start;
@@ -128,5 +128,25 @@ describe("withRateLimit", () => {
     expect((await limited(forged(1), refused)).status).toBe(401);
     expect((await limited(forged(2), refused)).status).toBe(401);
     expect((await limited(forged(3), refused)).status).toBe(429);
+  });
+
+  it("counts the same when the counter lives in the cluster's primary (every worker asks it)", async () => {
+    const answer = answerRateLimit(new FixedWindowCounter(2, 60_000, clock().now));
+    // What a worker sends over IPC, answered asynchronously like a real round trip.
+    const viaPrimary: Counts = {
+      admit: async (who) => structuredClone(answer(structuredClone({ op: "admit", who })))!,
+      charge: (address) => void answer(structuredClone({ op: "charge", address })),
+    };
+    const [workerA, workerB] = [createRateLimit(viaPrimary), createRateLimit(viaPrimary)];
+    const alice = { cookie: "better-auth.session_token=alice", "x-chainproof-client-ip": "203.0.113.5" };
+    expect((await workerA(req(alice), ok)).status).toBe(200);
+    expect((await workerB(req(alice), ok)).headers.get("ratelimit-remaining")).toBe("0");
+    expect((await workerA(req(alice), ok)).status).toBe(429);
+    expect((await workerB(req(alice), ok)).status).toBe(429);
+    // Refused credentials are charged to their address through the primary too.
+    const forged = (n: number) => req({ "x-chainproof-client-ip": "192.0.2.9", authorization: `Bearer made-up-${n}` });
+    expect((await workerA(forged(1), refused)).status).toBe(401);
+    expect((await workerB(forged(2), refused)).status).toBe(401);
+    expect((await workerA(forged(3), refused)).status).toBe(429);
   });
 });
