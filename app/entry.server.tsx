@@ -2,7 +2,7 @@
 // but the framework's own.
 import { PassThrough } from "node:stream";
 import { createReadableStreamFromReadable } from "@react-router/node";
-import { ServerRouter, type ActionFunctionArgs, type AppLoadContext, type EntryContext, type LoaderFunctionArgs } from "react-router";
+import { isRouteErrorResponse, ServerRouter, type ActionFunctionArgs, type AppLoadContext, type EntryContext, type LoaderFunctionArgs } from "react-router";
 import { isbot } from "isbot";
 import { renderToPipeableStream } from "react-dom/server";
 import { contentSecurityPolicy } from "./lib/csp";
@@ -18,6 +18,8 @@ export function handleError(error: unknown, { request }: LoaderFunctionArgs | Ac
     lostDatabase.add(request);
     return;
   }
+  // A "not found" or "forbidden" is an answer, not a fault of the server: only faults are logged.
+  if (isRouteErrorResponse(error) && error.status < 500) return;
   if (!request.signal.aborted) console.error(error);
 }
 
