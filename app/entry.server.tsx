@@ -1,6 +1,6 @@
 // Server rendering with a per-request nonce, so the Content-Security-Policy allows no inline script
 // but the framework's own.
-import { PassThrough } from "node:stream";
+import { Transform, type TransformCallback } from "node:stream";
 import { createReadableStreamFromReadable } from "@react-router/node";
 import { isRouteErrorResponse, ServerRouter, type ActionFunctionArgs, type AppLoadContext, type EntryContext, type LoaderFunctionArgs } from "react-router";
 import { isbot } from "isbot";
@@ -49,12 +49,9 @@ export default function handleRequest(
       nonce,
       [readyOption]() {
         shellRendered = true;
-        const body = new PassThrough({
-          final(callback) {
-            clearTimeout(timeoutId);
-            timeoutId = undefined;
-            callback();
-          },
+        const body = new Coalesce(() => {
+          clearTimeout(timeoutId);
+          timeoutId = undefined;
         });
         responseHeaders.set("Content-Type", "text/html");
         pipe(body);
@@ -69,4 +66,40 @@ export default function handleRequest(
       },
     });
   });
+}
+
+/**
+ * Passes React's output on in as few pieces as it was produced: everything written in one turn of
+ * the event loop leaves as one chunk. React writes a page in 2 KB pieces; each piece would otherwise
+ * cross the web stream, the response and the compressor separately (docs/decisions/092).
+ */
+class Coalesce extends Transform {
+  private parts: Buffer[] = [];
+  private scheduled = false;
+
+  constructor(private readonly onEnd: () => void) {
+    super();
+  }
+
+  override _transform(chunk: Buffer, _encoding: BufferEncoding, callback: TransformCallback): void {
+    this.parts.push(chunk);
+    if (!this.scheduled) {
+      this.scheduled = true;
+      setImmediate(() => this.release());
+    }
+    callback();
+  }
+
+  override _flush(callback: TransformCallback): void {
+    this.release();
+    this.onEnd();
+    callback();
+  }
+
+  private release(): void {
+    this.scheduled = false;
+    if (this.parts.length === 0) return;
+    this.push(this.parts.length === 1 ? this.parts[0] : Buffer.concat(this.parts));
+    this.parts = [];
+  }
 }

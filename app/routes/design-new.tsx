@@ -7,7 +7,7 @@ import { useFormCheck } from "~/lib/use-form-check";
 import { createDesign } from "~/designs/designs.server";
 import { createDesignSchema, STARTS } from "~/designs/forms";
 import { editorPath } from "~/designs/paths";
-import { listVehicles } from "~/vehicles/vehicles.server";
+import { vehicleNames } from "~/vehicles/vehicles.server";
 import { PageHeader } from "~/components/page-header";
 import { Button, SelectField, TextField } from "~/components/ui/form";
 
@@ -15,10 +15,10 @@ export const meta: Route.MetaFunction = () => [{ title: "New design · Chainproo
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, params.ws, CAN.editDesigns);
-  const vehicles = await listVehicles(m.workspace.id);
+  const vehicles = await vehicleNames(m.workspace.id);
   const wanted = new URL(request.url).searchParams.get("vehicle");
   return {
-    vehicles: vehicles.map((v) => ({ id: v.id, name: v.name })),
+    vehicles,
     vehicleId: vehicles.some((v) => v.id === wanted) ? wanted : "",
   };
 }

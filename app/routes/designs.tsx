@@ -3,7 +3,7 @@ import type { Route } from "./+types/designs";
 import { requireMember } from "~/auth/guard.server";
 import { CAN } from "~/lib/roles";
 import { listDesigns } from "~/designs/designs.server";
-import { listVehicles } from "~/vehicles/vehicles.server";
+import { vehicleNames } from "~/vehicles/vehicles.server";
 import { designFilterSchema, NO_VEHICLE } from "~/designs/forms";
 import { DESIGN_STATUSES, STATUS_LABELS, type DesignSummary } from "~/designs/types";
 import { HashPrefix, NotProven, StatusBadge, When } from "~/designs/design-bits";
@@ -20,7 +20,7 @@ export const meta: Route.MetaFunction = () => [{ title: "Designs · Chainproof" 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, params.ws, CAN.view);
   const filter = designFilterSchema.parse(Object.fromEntries(new URL(request.url).searchParams));
-  const [designs, vehicles, reviews] = await Promise.all([listDesigns(m.workspace.id, filter), listVehicles(m.workspace.id), reviewStatusOf(m.workspace.id)]);
+  const [designs, vehicles, reviews] = await Promise.all([listDesigns(m.workspace.id, filter), vehicleNames(m.workspace.id), reviewStatusOf(m.workspace.id)]);
   // Review status of the latest revision, and the newest approved one when that is older.
   const review: Record<string, { latest: ReviewStatus | null; approved: number | null }> = {};
   for (const [id, r] of reviews) review[id] = { latest: r.latest?.status ?? null, approved: r.lastApproved?.number ?? null };
@@ -30,7 +30,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     slug: m.workspace.slug,
     filter,
     designs,
-    vehicles: vehicles.map((v) => ({ id: v.id, name: v.name })),
+    vehicles,
   };
 }
 

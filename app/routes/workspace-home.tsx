@@ -2,7 +2,7 @@ import { Link } from "react-router";
 import type { Route } from "./+types/workspace-home";
 import { requireMember } from "~/auth/guard.server";
 import { CAN, ROLE_DUTIES, ROLE_LABELS } from "~/lib/roles";
-import { listVehicles } from "~/vehicles/vehicles.server";
+import { countVehicles } from "~/vehicles/vehicles.server";
 import { PageHeader } from "~/components/page-header";
 import { SafetyNote } from "~/components/safety-note";
 
@@ -10,8 +10,7 @@ export const meta: Route.MetaFunction = () => [{ title: "Overview · Chainproof"
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, params.ws, CAN.view);
-  const vehicles = await listVehicles(m.workspace.id);
-  return { workspace: m.workspace, role: m.role, vehicleCount: vehicles.length };
+  return { workspace: m.workspace, role: m.role, vehicleCount: await countVehicles(m.workspace.id) };
 }
 
 const NEXT_STEP: Record<string, { text: string; to: string; label: string }> = {

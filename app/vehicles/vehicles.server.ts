@@ -26,6 +26,16 @@ export async function listVehicles(workspaceId: string) {
   return vehicles.map((v) => ({ ...v, release: releaseOf.get(v.id) ?? null, needsAttention: (attentionOf.get(v.id) ?? 0) > 0 }));
 }
 
+/** Only the names, for pickers and filters (no releases or flags to look up). */
+export async function vehicleNames(workspaceId: string) {
+  return db.select({ id: vehicle.id, name: vehicle.name }).from(vehicle).where(eq(vehicle.workspaceId, workspaceId)).orderBy(asc(vehicle.name));
+}
+
+export async function countVehicles(workspaceId: string): Promise<number> {
+  const rows = await db.select({ n: sql<number>`count(*)::int` }).from(vehicle).where(eq(vehicle.workspaceId, workspaceId));
+  return rows[0]?.n ?? 0;
+}
+
 export async function getVehicle(workspaceId: string, id: string) {
   const rows = await db
     .select()
