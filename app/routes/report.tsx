@@ -8,7 +8,8 @@ import { requireRevisionPage } from "~/reviews/access.server";
 import { getReview } from "~/reviews/reviews.server";
 import { labelsOf, loadRevision, tracesOf } from "~/reviews/revision-view.server";
 import { tableColumns } from "~/reviews/truth-table.server";
-import { tableRow } from "~/reviews/truth-table";
+import { tableRow, type TableColumns, type TableRow } from "~/reviews/truth-table";
+import { describeBand, printBands } from "~/reviews/print-bands";
 import { REVIEW_STATUS_LABELS, VERDICT_LABELS } from "~/reviews/status";
 import { csvApiPath, reportPath, reportPdfPath, reviewPath } from "~/reviews/paths";
 import { pageRows, type Design, type Predicate } from "~/engine";
@@ -278,9 +279,7 @@ export default function Report({ loaderData }: Route.ComponentProps) {
               .join("; ")}
           </p>
           {d.table ? (
-            <div className="mt-2 overflow-x-auto">
-              <TruthTableGrid columns={d.columns} rows={d.table} sticky={false} caption="Full truth table" />
-            </div>
+            <TruthTableBands columns={d.columns} rows={d.table} />
           ) : (
             <p className="mt-2">
               The full table is too long to print ({d.rows.toLocaleString("en-US")} rows, more than {INLINE_ROWS}). Download it as CSV:{" "}
@@ -296,5 +295,37 @@ export default function Report({ loaderData }: Route.ComponentProps) {
         </aside>
       </main>
     </div>
+  );
+}
+
+/**
+ * The whole table in bands as wide as the paper: each repeats the row number and the conditions
+ * (app/reviews/print-bands.ts), so no column is cut off at the page's edge.
+ */
+function TruthTableBands({ columns, rows }: { columns: TableColumns; rows: TableRow[] }) {
+  const bands = printBands(columns, rows.length);
+  return (
+    <>
+      {bands.length > 1 ? (
+        <p className="mt-2 text-ink-600">
+          The table is printed in {bands.length} parts; each repeats the row number and the conditions.
+        </p>
+      ) : null}
+      {bands.map((band, i) => {
+        const what = describeBand(band, columns);
+        return (
+          <div key={i} className={`mt-3 ${i > 0 ? "break-before-page" : ""}`}>
+            {bands.length > 1 ? (
+              <h3 className="font-semibold">
+                Part {i + 1} of {bands.length}: conditions with {what}
+              </h3>
+            ) : null}
+            <div className="mt-1">
+              <TruthTableGrid columns={columns} rows={rows} band={band} dense sticky={false} caption={bands.length > 1 ? `Truth table, part ${i + 1}: ${what}` : "Full truth table"} />
+            </div>
+          </div>
+        );
+      })}
+    </>
   );
 }

@@ -1,11 +1,16 @@
 // The truth table itself: grouped, sticky column headers and one line per row. Rows are given
 // (a page at a time on screen, or the whole small table in the printed report).
 import type { TableColumns, TableRow } from "~/reviews/truth-table";
+import type { Band } from "~/reviews/print-bands";
 import { ContactCell, DriveCell, LiveCell, RuleCellView } from "./cells";
 
-const th = "whitespace-nowrap border-b border-ink-200 bg-ink-50 px-2 py-1 text-left text-xs font-medium text-ink-600";
+const thScreen = "whitespace-nowrap border-b border-ink-200 bg-ink-50 px-2 py-1 text-left text-xs font-medium text-ink-600";
+const thDense = "whitespace-nowrap border-b border-ink-200 bg-ink-50 px-1 py-0.5 text-left font-medium text-ink-600";
 const group = "whitespace-nowrap border-b border-l border-ink-200 bg-ink-100 px-2 py-1 text-left text-xs font-semibold uppercase tracking-wide text-ink-700";
-const td = "whitespace-nowrap px-2 py-1";
+// On paper a group's name may wrap rather than widen a band beyond the page.
+const groupDense = "whitespace-normal border-b border-l border-ink-200 bg-ink-100 px-1 py-0.5 text-left font-semibold uppercase tracking-wide text-ink-700";
+const tdScreen = "whitespace-nowrap px-2 py-1";
+const tdDense = "whitespace-nowrap px-1 py-0";
 
 export function TruthTableGrid({
   columns,
@@ -14,6 +19,8 @@ export function TruthTableGrid({
   onSelect,
   sticky = true,
   caption,
+  band,
+  dense = false,
 }: {
   columns: TableColumns;
   rows: TableRow[];
@@ -21,38 +28,55 @@ export function TruthTableGrid({
   onSelect?: (index: number) => void;
   sticky?: boolean;
   caption?: string;
+  /** Only these columns beside the row number and the conditions (the printed report's bands). */
+  band?: Band;
+  /** Paper: 9 px type and narrow padding (the widths print-bands.ts counts with). */
+  dense?: boolean;
 }) {
-  const { conditions, contacts, inputs, rules } = columns;
+  const th = dense ? thDense : thScreen;
+  const td = dense ? tdDense : tdScreen;
+  const pick = <T,>(all: T[], ix: number[] | undefined) => (ix ? ix.map((i) => all[i]!) : all);
+  const conditions = columns.conditions;
+  const contacts = pick(columns.contacts, band?.contacts);
+  const inputs = pick(columns.inputs, band?.inputs);
+  const rules = pick(columns.rules, band?.rules);
+  const showController = band?.controller ?? true;
+  const showDrive = band?.drive ?? true;
   const stickyHead = sticky ? "sticky z-10" : "";
+  const groupClass = dense ? groupDense : sticky ? group : group.replace("whitespace-nowrap", "whitespace-normal");
   return (
-    <table className="min-w-full border-separate border-spacing-0 font-mono text-xs tabular-nums" data-testid="truth-table">
+    <table className={`border-separate border-spacing-0 font-mono tabular-nums ${dense ? "text-[9px] leading-tight" : "min-w-full text-xs"}`} data-testid="truth-table">
       {caption ? <caption className="sr-only">{caption}</caption> : null}
       <thead>
         <tr className={`${stickyHead} top-0`}>
-          <th scope="col" rowSpan={2} className={`${group} border-l-0 ${sticky ? "sticky left-0 z-20" : ""}`}>
+          <th scope="col" rowSpan={2} className={`${groupClass} border-l-0 ${sticky ? "sticky left-0 z-20" : ""}`}>
             Row
           </th>
-          <th scope="colgroup" colSpan={conditions.length} className={group}>
+          <th scope="colgroup" colSpan={conditions.length} className={groupClass}>
             Conditions
           </th>
           {contacts.length > 0 ? (
-            <th scope="colgroup" colSpan={contacts.length} className={group}>
+            <th scope="colgroup" colSpan={contacts.length} className={groupClass}>
               Contacts
             </th>
           ) : null}
           {inputs.length > 0 ? (
-            <th scope="colgroup" colSpan={inputs.length} className={group}>
+            <th scope="colgroup" colSpan={inputs.length} className={groupClass}>
               Inputs energized
             </th>
           ) : null}
-          <th scope="colgroup" colSpan={5} className={group}>
-            Controller view
-          </th>
-          <th scope="col" rowSpan={2} className={group}>
-            Drive
-          </th>
+          {showController ? (
+            <th scope="colgroup" colSpan={5} className={groupClass}>
+              Controller view
+            </th>
+          ) : null}
+          {showDrive ? (
+            <th scope="col" rowSpan={2} className={groupClass}>
+              Drive
+            </th>
+          ) : null}
           {rules.length > 0 ? (
-            <th scope="colgroup" colSpan={rules.length} className={group}>
+            <th scope="colgroup" colSpan={rules.length} className={groupClass}>
               Inhibit rules (unsafe / violating)
             </th>
           ) : null}
@@ -73,11 +97,15 @@ export function TruthTableGrid({
               {x.id} <span className="font-normal text-ink-400">{x.fn}</span>
             </th>
           ))}
-          <th scope="col" className={`${th} border-l border-ink-200`}>powered</th>
-          <th scope="col" className={th}>enabled</th>
-          <th scope="col" className={th}>direction</th>
-          <th scope="col" className={th}>braking</th>
-          <th scope="col" className={th}>throttle</th>
+          {showController ? (
+            <>
+              <th scope="col" className={`${th} border-l border-ink-200`}>powered</th>
+              <th scope="col" className={th}>enabled</th>
+              <th scope="col" className={th}>direction</th>
+              <th scope="col" className={th}>braking</th>
+              <th scope="col" className={th}>throttle</th>
+            </>
+          ) : null}
           {rules.map((r, i) => (
             <th key={r.id} scope="col" className={`${th} ${i === 0 ? "border-l border-ink-200" : ""}`} title={r.label}>
               {r.id}
@@ -119,31 +147,37 @@ export function TruthTableGrid({
                   {s}
                 </td>
               ))}
-              {r.contacts.map((c, i) => (
+              {pick(r.contacts, band?.contacts).map((c, i) => (
                 <td key={`c${i}`} className={td}>
                   <ContactCell closed={c} />
                 </td>
               ))}
-              {r.inputs.map((x, i) => (
+              {pick(r.inputs, band?.inputs).map((x, i) => (
                 <td key={`i${i}`} className={td}>
                   <LiveCell on={x} yes="live" no="dead" />
                 </td>
               ))}
-              <td className={td}>
-                <LiveCell on={r.powered} yes="yes" no="no" />
-              </td>
-              <td className={td}>
-                <LiveCell on={r.enabled} yes="yes" no="no" />
-              </td>
-              <td className={`${td} ${r.direction === "conflict" ? "font-semibold text-brick-700" : ""}`}>{r.direction}</td>
-              <td className={td}>
-                <LiveCell on={r.braking} yes="yes" no="no" />
-              </td>
-              <td className={`${td} ${r.throttle === "fault" ? "font-semibold text-brick-700" : ""}`}>{r.throttle}</td>
-              <td className={td}>
-                <DriveCell drive={r.drive} />
-              </td>
-              {r.rules.map((c, i) => (
+              {showController ? (
+                <>
+                  <td className={td}>
+                    <LiveCell on={r.powered} yes="yes" no="no" />
+                  </td>
+                  <td className={td}>
+                    <LiveCell on={r.enabled} yes="yes" no="no" />
+                  </td>
+                  <td className={`${td} ${r.direction === "conflict" ? "font-semibold text-brick-700" : ""}`}>{r.direction}</td>
+                  <td className={td}>
+                    <LiveCell on={r.braking} yes="yes" no="no" />
+                  </td>
+                  <td className={`${td} ${r.throttle === "fault" ? "font-semibold text-brick-700" : ""}`}>{r.throttle}</td>
+                </>
+              ) : null}
+              {showDrive ? (
+                <td className={td}>
+                  <DriveCell drive={r.drive} />
+                </td>
+              ) : null}
+              {pick(r.rules, band?.rules).map((c, i) => (
                 <td key={`r${i}`} className={td}>
                   <RuleCellView cell={c} />
                 </td>
