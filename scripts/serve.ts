@@ -29,8 +29,10 @@ async function runPrimary() {
   // Proof threads are shared out between the processes, so they do not outnumber the cores.
   const proofThreads = process.env.PROOF_THREADS ?? String(Math.max(1, Math.floor(os.availableParallelism() / processes)));
   let stopping = false;
+  const bornAt = new Map<number, number>();
   const fork = () => {
     const worker = cluster.fork({ PROOF_THREADS: proofThreads });
+    bornAt.set(worker.id, Date.now());
     serveWorker(worker, () => Object.values(cluster.workers ?? {}).filter((w) => w !== undefined), answers);
   };
   for (let i = 0; i < processes; i++) fork();
@@ -39,21 +41,38 @@ async function runPrimary() {
     if (!announced) console.log(`chainproof: serving on http://${host}:${port} (${processes} processes)`);
     announced = true;
   });
+  // A process that ends is replaced; one that keeps ending at once waits longer each time (1 s,
+  // 2 s, ... 30 s), and a process that ends before any could serve (the port is taken, the build
+  // is missing) stops the whole server with its error, instead of restarting forever.
+  let quickEnds = 0;
   cluster.on("exit", (worker, code, signal) => {
     if (stopping) {
-      if (Object.keys(cluster.workers ?? {}).length === 0) process.exit(0);
+      if (Object.keys(cluster.workers ?? {}).length === 0) process.exit(exitCode);
       return;
     }
-    console.error(`chainproof: server process ${worker.process.pid} ended (${signal ?? code}); starting another`);
-    fork();
+    if (!announced) {
+      console.error(`chainproof: a server process ended before serving (${signal ?? code}); stopping`);
+      exitCode = 1;
+      stop();
+      return;
+    }
+    const lived = Date.now() - (bornAt.get(worker.id) ?? 0);
+    bornAt.delete(worker.id);
+    quickEnds = lived < 10_000 ? quickEnds + 1 : 0;
+    const wait = quickEnds === 0 ? 0 : Math.min(30_000, 1000 * 2 ** (quickEnds - 1));
+    console.error(`chainproof: server process ${worker.process.pid} ended (${signal ?? code}); starting another${wait ? ` in ${wait / 1000} s` : ""}`);
+    setTimeout(() => {
+      if (!stopping) fork();
+    }, wait);
   });
+  let exitCode = 0;
   const stop = () => {
     if (stopping) return;
     stopping = true;
     const left = Object.values(cluster.workers ?? {});
-    if (left.length === 0) process.exit(0);
+    if (left.length === 0) process.exit(exitCode);
     for (const w of left) w?.process.kill("SIGTERM");
-    setTimeout(() => process.exit(0), 10_000).unref();
+    setTimeout(() => process.exit(exitCode), 10_000).unref();
   };
   process.on("SIGTERM", stop);
   process.on("SIGINT", stop);
