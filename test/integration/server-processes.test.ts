@@ -1,0 +1,88 @@
+// The production server's processes (scripts/serve.ts, node:cluster; decision 090): a server
+// process that dies is replaced while the others go on serving, and a server that cannot start
+// (its port is taken) stops with an error instead of restarting its processes forever.
+import { spawn, type ChildProcess } from "node:child_process";
+import { readFileSync, readdirSync } from "node:fs";
+import { afterEach, describe, expect, it } from "vitest";
+import { BASE_URL } from "../support/http";
+
+const started: ChildProcess[] = [];
+afterEach(() => {
+  for (const p of started.splice(0)) if (p.exitCode === null) p.kill("SIGKILL");
+});
+
+function serve(port: number) {
+  const child = spawn(process.execPath, ["--import", "tsx", "scripts/serve.ts"], {
+    env: { ...process.env, PORT: String(port), APP_URL: `http://127.0.0.1:${port}`, WEB_CONCURRENCY: "2", NODE_ENV: "production" },
+    stdio: ["ignore", "pipe", "pipe"],
+  });
+  started.push(child);
+  let output = "";
+  child.stdout!.on("data", (d) => (output += d));
+  child.stderr!.on("data", (d) => (output += d));
+  const exited = new Promise<number | null>((resolve) => child.on("exit", (code) => resolve(code)));
+  return { child, exited, output: () => output };
+}
+
+/** The pids whose parent is `pid` (the cluster's server processes). */
+function childrenOf(pid: number): number[] {
+  return readdirSync("/proc")
+    .filter((d) => /^\d+$/.test(d))
+    .filter((d) => {
+      try {
+        return Number(readFileSync(`/proc/${d}/stat`, "utf8").split(") ")[1]!.split(" ")[1]) === pid;
+      } catch {
+        return false;
+      }
+    })
+    .map(Number);
+}
+
+async function until<T>(what: string, probe: () => Promise<T | null> | T | null, ms = 30_000): Promise<T> {
+  const end = Date.now() + ms;
+  for (;;) {
+    const v = await probe();
+    if (v !== null && v !== false) return v;
+    if (Date.now() > end) throw new Error(`timed out waiting for ${what}`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}
+
+const healthy = async (port: number) => {
+  try {
+    return (await fetch(`http://127.0.0.1:${port}/healthz`)).status === 200 ? true : null;
+  } catch {
+    return null;
+  }
+};
+
+describe("server processes", () => {
+  it("replaces a server process that died; the other keeps answering meanwhile", { timeout: 60_000 }, async () => {
+    const port = 3190;
+    const server = serve(port);
+    await until("the server to answer", () => healthy(port));
+    const before = await until("two server processes", () => (childrenOf(server.child.pid!).length === 2 ? childrenOf(server.child.pid!) : null));
+    process.kill(before[0]!, "SIGKILL");
+    // The other process answers while the first is replaced.
+    for (let i = 0; i < 4; i++) expect(await healthy(port)).toBe(true);
+    const after = await until("a new server process", () => {
+      const now = childrenOf(server.child.pid!);
+      return now.length === 2 && !now.includes(before[0]!) ? now : null;
+    });
+    expect(after).toContain(before[1]);
+    expect(server.output()).toMatch(new RegExp(`server process ${before[0]} ended \\(SIGKILL\\); starting another`));
+    server.child.kill("SIGTERM");
+    expect(await server.exited).toBe(0);
+    expect(childrenOf(server.child.pid!)).toEqual([]);
+  });
+
+  it("stops with exit code 1 when its processes cannot serve (the port is taken)", { timeout: 60_000 }, async () => {
+    const taken = Number(new URL(BASE_URL).port);
+    const server = serve(taken);
+    expect(await server.exited).toBe(1);
+    expect(server.output()).toContain("ended before serving");
+    expect(server.output()).toContain("EADDRINUSE");
+    // The app that holds the port is untouched.
+    expect(await healthy(taken)).toBe(true);
+  });
+});
