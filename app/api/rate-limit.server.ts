@@ -118,10 +118,11 @@ export const countsHere = (counter: FixedWindowCounter): Counts => ({
   charge: (address) => counter.charge(address),
 });
 
-const countsInPrimary: Counts = {
-  admit: (who) => askPrimary<Hit>(RATE_LIMIT_TOPIC, { op: "admit", who }),
-  charge: (address) => void askPrimary(RATE_LIMIT_TOPIC, { op: "charge", address }),
-};
+// Should the primary not answer (this process is stopping), the count goes on here.
+const countsInPrimary = (local: FixedWindowCounter): Counts => ({
+  admit: (who) => askPrimary<Hit>(RATE_LIMIT_TOPIC, { op: "admit", who }, () => admit(local, who)),
+  charge: (address) => void askPrimary(RATE_LIMIT_TOPIC, { op: "charge", address }, () => local.charge(address)),
+});
 
 /** The primary's side of countsInPrimary. */
 export function answerRateLimit(counter: FixedWindowCounter) {
@@ -159,4 +160,4 @@ export function createRateLimit(source: FixedWindowCounter | Counts) {
 export const apiRateCounter = () => new FixedWindowCounter(env.API_RATE_LIMIT, 60_000);
 
 /** The limit every /api/v1 request goes through (handleApi): API_RATE_LIMIT a minute per client, for the whole cluster. */
-export const withRateLimit = createRateLimit(inClusterWorker ? countsInPrimary : apiRateCounter());
+export const withRateLimit = createRateLimit(inClusterWorker ? countsInPrimary(apiRateCounter()) : apiRateCounter());

@@ -36,15 +36,33 @@ export function onToldByOtherInstance(topic: string, fn: (payload: unknown) => v
 
 /** Tells every other process of this cluster (nothing to do outside one). */
 export function tellOtherInstances(topic: string, payload: unknown = null): void {
-  if (inClusterWorker) process.send!({ chainproof: "tell", topic, payload } satisfies Envelope);
+  // Nobody left to tell once the channel closed (this process is stopping).
+  if (inClusterWorker && process.connected) process.send!({ chainproof: "tell", topic, payload } satisfies Envelope, undefined, undefined, () => {});
 }
 
-/** Asks the primary; the answer comes from the one handler it registered with answerWorkers. */
-export function askPrimary<T>(topic: string, payload: unknown): Promise<T> {
+/**
+ * Asks the primary; the answer comes from the handler it registered for `topic` (serveWorker).
+ * With the primary gone (the channel closed while this process stops) or silent for `waitMs`,
+ * the answer is `fallback()`, worked out in this process.
+ */
+export function askPrimary<T>(topic: string, payload: unknown, fallback: () => T, waitMs = 2_000): Promise<T> {
+  if (!process.connected) return Promise.resolve(fallback());
   return new Promise((resolve) => {
     const id = nextId++;
-    pending.set(id, resolve as (r: unknown) => void);
-    process.send!({ chainproof: "ask", topic, id, payload } satisfies Envelope);
+    const timer = setTimeout(() => {
+      pending.delete(id);
+      resolve(fallback());
+    }, waitMs);
+    pending.set(id, (result) => {
+      clearTimeout(timer);
+      resolve(result as T);
+    });
+    process.send!({ chainproof: "ask", topic, id, payload } satisfies Envelope, undefined, undefined, (err) => {
+      if (!err) return;
+      clearTimeout(timer);
+      pending.delete(id);
+      resolve(fallback());
+    });
   });
 }
 
