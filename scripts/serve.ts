@@ -29,6 +29,8 @@ async function runPrimary() {
   // Proof threads are shared out between the processes, so they do not outnumber the cores.
   const proofThreads = process.env.PROOF_THREADS ?? String(Math.max(1, Math.floor(os.availableParallelism() / processes)));
   let stopping = false;
+  // Live processes by id, with when they started. cluster.workers may still list a process that
+  // ended (until its channel is closed too), so it does not tell when the last one is gone.
   const bornAt = new Map<number, number>();
   const fork = () => {
     const worker = cluster.fork({ PROOF_THREADS: proofThreads });
@@ -46,8 +48,10 @@ async function runPrimary() {
   // is missing) stops the whole server with its error, instead of restarting forever.
   let quickEnds = 0;
   cluster.on("exit", (worker, code, signal) => {
+    const lived = Date.now() - (bornAt.get(worker.id) ?? 0);
+    bornAt.delete(worker.id);
     if (stopping) {
-      if (Object.keys(cluster.workers ?? {}).length === 0) process.exit(exitCode);
+      if (bornAt.size === 0) process.exit(exitCode);
       return;
     }
     if (!announced) {
@@ -56,8 +60,6 @@ async function runPrimary() {
       stop();
       return;
     }
-    const lived = Date.now() - (bornAt.get(worker.id) ?? 0);
-    bornAt.delete(worker.id);
     quickEnds = lived < 10_000 ? quickEnds + 1 : 0;
     const wait = quickEnds === 0 ? 0 : Math.min(30_000, 1000 * 2 ** (quickEnds - 1));
     console.error(`chainproof: server process ${worker.process.pid} ended (${signal ?? code}); starting another${wait ? ` in ${wait / 1000} s` : ""}`);
@@ -69,10 +71,10 @@ async function runPrimary() {
   const stop = () => {
     if (stopping) return;
     stopping = true;
-    const left = Object.values(cluster.workers ?? {});
-    if (left.length === 0) process.exit(exitCode);
-    for (const w of left) w?.process.kill("SIGTERM");
-    setTimeout(() => process.exit(exitCode), 10_000).unref();
+    if (bornAt.size === 0) process.exit(exitCode);
+    for (const w of Object.values(cluster.workers ?? {})) if (w && !w.isDead()) w.process.kill("SIGTERM");
+    // Requests still running get 10 s to finish.
+    setTimeout(() => process.exit(exitCode), 10_000);
   };
   process.on("SIGTERM", stop);
   process.on("SIGINT", stop);

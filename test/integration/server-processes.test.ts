@@ -3,6 +3,7 @@
 // (its port is taken) stops with an error instead of restarting its processes forever.
 import { spawn, type ChildProcess } from "node:child_process";
 import { readFileSync, readdirSync } from "node:fs";
+import http from "node:http";
 import { afterEach, describe, expect, it } from "vitest";
 import { BASE_URL } from "../support/http";
 
@@ -48,13 +49,16 @@ async function until<T>(what: string, probe: () => Promise<T | null> | T | null,
   }
 }
 
-const healthy = async (port: number) => {
-  try {
-    return (await fetch(`http://127.0.0.1:${port}/healthz`)).status === 200 ? true : null;
-  } catch {
-    return null;
-  }
-};
+/** 200 from /healthz on a new connection (a pooled one may belong to the process just killed). */
+const healthy = (port: number) =>
+  new Promise<true | null>((resolve) => {
+    const req = http.get({ host: "127.0.0.1", port, path: "/healthz", agent: false, timeout: 5_000 }, (res) => {
+      res.resume();
+      resolve(res.statusCode === 200 ? true : null);
+    });
+    req.on("timeout", () => req.destroy());
+    req.on("error", () => resolve(null));
+  });
 
 describe("server processes", () => {
   it("replaces a server process that died; the other keeps answering meanwhile", { timeout: 60_000 }, async () => {
@@ -63,7 +67,9 @@ describe("server processes", () => {
     await until("the server to answer", () => healthy(port));
     const before = await until("two server processes", () => (childrenOf(server.child.pid!).length === 2 ? childrenOf(server.child.pid!) : null));
     process.kill(before[0]!, "SIGKILL");
-    // The other process answers while the first is replaced.
+    // Once the primary has seen it go (a connection handed over in that instant can be lost), the
+    // other process answers every request while the first is replaced.
+    await until("the primary to see the process end", () => (server.output().includes(`server process ${before[0]} ended`) ? true : null));
     for (let i = 0; i < 4; i++) expect(await healthy(port)).toBe(true);
     const after = await until("a new server process", () => {
       const now = childrenOf(server.child.pid!);
