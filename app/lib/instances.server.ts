@@ -70,14 +70,22 @@ export function askPrimary<T>(topic: string, payload: unknown, fallback: () => T
  * In the primary: relays what one worker tells to all the others, and answers questions with the
  * handlers given (one per topic).
  */
-export function serveWorker(worker: { send: (m: Envelope) => unknown; on: (e: "message", fn: (m: unknown) => void) => unknown; id: number }, others: () => Iterable<{ id: number; send: (m: Envelope) => unknown }>, answers: Record<string, (payload: unknown) => unknown>): void {
+type Reachable = { id: number; send: (m: Envelope, handle?: undefined, options?: undefined, done?: (err: Error | null) => void) => unknown };
+
+/**
+ * Sends without ever throwing: a process that has just ended (its channel closed) misses the
+ * message instead of crashing the primary with an unhandled 'error'.
+ */
+const deliver = (to: Reachable, m: Envelope) => to.send(m, undefined, undefined, () => {});
+
+export function serveWorker(worker: Reachable & { on: (e: "message", fn: (m: unknown) => void) => unknown }, others: () => Iterable<Reachable>, answers: Record<string, (payload: unknown) => unknown>): void {
   worker.on("message", (m: unknown) => {
     if (!isEnvelope(m)) return;
     if (m.chainproof === "tell") {
-      for (const w of others()) if (w.id !== worker.id) w.send(m);
+      for (const w of others()) if (w.id !== worker.id) deliver(w, m);
     } else if (m.chainproof === "ask") {
       const handler = answers[m.topic];
-      worker.send({ chainproof: "answer", id: m.id, result: handler ? handler(m.payload) : null });
+      deliver(worker, { chainproof: "answer", id: m.id, result: handler ? handler(m.payload) : null });
     }
   });
 }

@@ -37,4 +37,21 @@ describe("serveWorker", () => {
     // Under vitest this process may have a channel to vitest itself, which never answers ours.
     await expect(askPrimary("api-rate-limit", { op: "admit" }, () => "counted here", 50)).resolves.toBe("counted here");
   });
+
+  it("never throws for a worker that has just ended: the message is dropped, the others still get it", () => {
+    const live = fakeWorker(1);
+    const other = fakeWorker(2);
+    // Like a ChildProcess whose channel closed: the error goes to the callback, or is thrown
+    // (emitted unhandled) when there is none.
+    const gone = {
+      id: 3,
+      send: (_m: unknown, _h?: unknown, _o?: unknown, done?: (err: Error | null) => void) => {
+        if (!done) throw new Error("ERR_IPC_CHANNEL_CLOSED");
+        done(new Error("ERR_IPC_CHANNEL_CLOSED"));
+      },
+    };
+    serveWorker(live, () => [live, gone, other], {});
+    expect(() => live.receive({ chainproof: "tell", topic: "forget-sessions", payload: null })).not.toThrow();
+    expect(other.sent).toHaveLength(1);
+  });
 });
