@@ -4,10 +4,10 @@
 import { createHash } from "node:crypto";
 import { env } from "../env.server";
 import { askPrimary, inClusterWorker } from "../lib/instances.server";
+import { sessionCookieOf } from "../auth/session-cache.server";
 
 /** Set by our HTTP server from the socket (or X-Forwarded-For with TRUST_PROXY=1); decision 003. */
 const CLIENT_IP_HEADER = "x-chainproof-client-ip";
-const SESSION_COOKIE = /(?:^|;\s*)(?:__Secure-)?better-auth\.session_token=([^;]+)/;
 
 export type Hit = { ok: true; limit: number; remaining: number; resetSeconds: number } | { ok: false; limit: number; retryAfterSeconds: number };
 type Refused = Extract<Hit, { ok: false }>;
@@ -79,7 +79,7 @@ export function clientKeyOf(headers: Headers): { key: string; address: string; a
   if (authorization?.toLowerCase().startsWith("bearer ")) {
     return { key: `key:${digest(authorization.slice(7).trim())}`, address, anonymous: false };
   }
-  const session = SESSION_COOKIE.exec(headers.get("cookie") ?? "")?.[1];
+  const session = sessionCookieOf(headers.get("cookie"));
   if (session) return { key: `session:${digest(session)}`, address, anonymous: false };
   return { key: address, address, anonymous: true };
 }

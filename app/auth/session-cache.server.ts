@@ -2,7 +2,7 @@
 // ask "who is this?" (the shell and the page run side by side) and a user clicking quickly cost one
 // session lookup, not one per loader per click (docs/decisions/090).
 //
-// Keyed by the whole signed session cookie value, so only a cookie better-auth has accepted can hit.
+// Keyed by the signed session cookie's value, so only a cookie better-auth has accepted can hit.
 // Every session deletion or user update empties the cache of every process of this machine's
 // cluster; an instance on another machine notices a revoked session within SESSION_CACHE_TTL_MS.
 import { LRUCache } from "lru-cache";
@@ -10,13 +10,16 @@ import { onToldByOtherInstance, tellOtherInstances } from "../lib/instances.serv
 
 export const SESSION_CACHE_TTL_MS = 10_000;
 
-const SESSION_COOKIE = /(?:^|;\s*)((?:__Secure-)?better-auth\.session_token=[^;]+)/;
+const SESSION_COOKIE = /(?:^|;\s*)(?:__Secure-)?better-auth\.session_token=([^;]+)/;
 
 export type CachedSession = { user: { id: string; email: string; name: string }; sessionId: string };
 
 const cache = new LRUCache<string, CachedSession>({ max: 20_000, ttl: SESSION_CACHE_TTL_MS });
 
-/** The cache key of a request's session cookie, or null when it carries none. */
+/**
+ * The signed value of a request's session cookie (plain or, over https, __Secure- named), or null
+ * when it carries none: this cache's key, and what the API rate limit counts a session by.
+ */
 export function sessionCookieOf(cookieHeader: string | null): string | null {
   return cookieHeader?.match(SESSION_COOKIE)?.[1] ?? null;
 }

@@ -7,9 +7,9 @@ const someone = { user: { id: "u1", email: "a@example.org", name: "A" }, session
 const inAnHour = () => new Date(Date.now() + 3_600_000);
 
 describe("session cache", () => {
-  it("is keyed by the whole signed session cookie, secure-prefixed or not, and by nothing else", () => {
-    expect(sessionCookieOf("theme=dark; better-auth.session_token=abc.sig%2B1; other=1")).toBe("better-auth.session_token=abc.sig%2B1");
-    expect(sessionCookieOf("__Secure-better-auth.session_token=abc.sig")).toBe("__Secure-better-auth.session_token=abc.sig");
+  it("is keyed by the whole signed session cookie value, secure-prefixed or not, and by nothing else", () => {
+    expect(sessionCookieOf("theme=dark; better-auth.session_token=abc.sig%2B1; other=1")).toBe("abc.sig%2B1");
+    expect(sessionCookieOf("__Secure-better-auth.session_token=abc.sig")).toBe("abc.sig");
     expect(sessionCookieOf("my-better-auth.session_token=abc.sig")).toBeNull();
     expect(sessionCookieOf("theme=dark")).toBeNull();
     expect(sessionCookieOf(null)).toBeNull();
