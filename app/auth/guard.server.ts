@@ -99,9 +99,7 @@ export async function requireMember(
     if (kind === "api") throw apiError(404, "not_found", "No such workspace.");
     throw new Response("Not found", { status: 404, statusText: "Not found" });
   }
-  const all = await orUnavailable(kind, () => workspacesFor(request, signedIn.user.id));
-  const rows = all.filter((w) => w.slug === slug);
-  const row = rows[0];
+  const row = (await orUnavailable(kind, () => workspacesFor(request, signedIn.user.id))).find((w) => w.slug === slug);
   // A key works only in the workspace it was made for.
   if (!row || (signedIn.apiKeyWorkspaceId && signedIn.apiKeyWorkspaceId !== row.id)) {
     if (kind === "api") throw apiError(404, "not_found", "No such workspace.");

@@ -43,7 +43,7 @@ export function TruthTableGrid({
   const showController = band?.controller ?? true;
   const showDrive = band?.drive ?? true;
   const stickyHead = sticky ? "sticky z-10" : "";
-  const groupClass = dense ? groupDense : sticky ? group : group.replace("whitespace-nowrap", "whitespace-normal");
+  const groupClass = dense ? groupDense : group;
   return (
     <table className={`border-separate border-spacing-0 font-mono tabular-nums ${dense ? "text-[9px] leading-tight" : "min-w-full text-xs"}`} data-testid="truth-table">
       {caption ? <caption className="sr-only">{caption}</caption> : null}
