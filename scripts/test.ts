@@ -49,15 +49,17 @@ else {
 say("test", "unit tests");
 addVitest(`${results}/unit.json`, "unit", await run("npx", ["vitest", "run", "--project", "unit", "--reporter=default", "--reporter=json", `--outputFile.json=${results}/unit.json`]));
 
+// Several checkouts on one machine (worktrees) can each run the suite: CHAINPROOF_PORT_OFFSET moves every port.
+const offset = Number(process.env.CHAINPROOF_PORT_OFFSET ?? 0);
 const stack = await bringUp({
   name: "test",
   dataDir: ".data/test",
-  pgPort: Number(process.env.CHAINPROOF_TEST_PG_PORT ?? 54339),
+  pgPort: Number(process.env.CHAINPROOF_TEST_PG_PORT ?? 54339 + offset),
   database: "chainproof_test",
   freshDatabase: true,
-  smtpPort: 2535,
-  s3Port: 4579,
-  appPort: 3100,
+  smtpPort: 2535 + offset,
+  s3Port: 4579 + offset,
+  appPort: 3100 + offset,
   demo: true,
   // Tests stand in for many clients: each sends its own X-Forwarded-For, so rate limits apply per test.
   // A lower API limit than the default keeps the test that reaches it short.

@@ -62,7 +62,7 @@ const healthy = (port: number) =>
 
 describe("server processes", () => {
   it("replaces a server process that died; the other keeps answering meanwhile", { timeout: 60_000 }, async () => {
-    const port = 3190;
+    const port = Number(new URL(BASE_URL).port) + 90;
     const server = serve(port);
     await until("the server to answer", () => healthy(port));
     const before = await until("two server processes", () => (childrenOf(server.child.pid!).length === 2 ? childrenOf(server.child.pid!) : null));
