@@ -37,78 +37,91 @@ function addPlaywright(file: string, exit: number) {
   if (exit !== 0) failures.push(`e2e (exit ${exit})`);
 }
 
+// `npm test -- FILE...` runs only the suites those files belong to (unit, integration, fault, e2e; "load" for the
+// reduced load test), each limited to the files given: a quick loop while working. No argument: everything.
+const only = process.argv.slice(2);
+const pick = (prefix: string) => only.filter((f) => f.startsWith(prefix));
+const wants = (prefixes: string[]) => only.length === 0 || prefixes.some((p) => pick(p).length > 0);
+const unitFiles = [...pick("test/unit/"), ...pick("app/")];
+const integrationFiles = pick("test/integration/");
+const faultFiles = pick("test/fault/");
+const e2eFiles = pick("test/e2e/");
+
 const started = Date.now();
-say("test", "typecheck");
-const tc = (await run("npx", ["react-router", "typegen"])) || (await run("npx", ["tsc"]));
-if (tc === 0) tally.passed += 1;
-else {
-  tally.failed += 1;
-  failures.push("typecheck");
-}
-
-say("test", "unit tests");
-addVitest(`${results}/unit.json`, "unit", await run("npx", ["vitest", "run", "--project", "unit", "--reporter=default", "--reporter=json", `--outputFile.json=${results}/unit.json`]));
-
-// Several checkouts on one machine (worktrees) can each run the suite: CHAINPROOF_PORT_OFFSET moves every port.
-const offset = Number(process.env.CHAINPROOF_PORT_OFFSET ?? 0);
-const stack = await bringUp({
-  name: "test",
-  dataDir: ".data/test",
-  pgPort: Number(process.env.CHAINPROOF_TEST_PG_PORT ?? 54339 + offset),
-  database: "chainproof_test",
-  freshDatabase: true,
-  smtpPort: 2535 + offset,
-  s3Port: 4579 + offset,
-  appPort: 3100 + offset,
-  demo: true,
-  // Tests stand in for many clients: each sends its own X-Forwarded-For, so rate limits apply per test.
-  // A lower API limit than the default keeps the test that reaches it short.
-  extraEnv: { TRUST_PROXY: "1", NODE_ENV: "production", API_RATE_LIMIT: "3000" },
-});
-
-try {
-  say("test", "building the app");
-  if ((await run("npx", ["react-router", "build"], { NODE_ENV: "production" })) !== 0) throw new Error("the build failed");
-  await stack.startApp();
-  const testEnv = { ...stack.env, CHAINPROOF_URL: stack.appUrl, BASE_URL: stack.appUrl, NODE_ENV: "test" };
-
-  say("test", "integration tests");
-  addVitest(
-    `${results}/integration.json`,
-    "integration",
-    await run("npx", ["vitest", "run", "--project", "integration", "--reporter=default", "--reporter=json", `--outputFile.json=${results}/integration.json`], testEnv),
-  );
-
-  say("test", "fault tests (the database stopped and started under traffic)");
-  addVitest(
-    `${results}/fault.json`,
-    "fault",
-    await run("npx", ["vitest", "run", "--project", "fault", "--reporter=default", "--reporter=json", `--outputFile.json=${results}/fault.json`], {
-      ...testEnv,
-      CHAINPROOF_PG_DIR: ".data/test/postgres",
-      CHAINPROOF_PG_PORT: String(stack.pg.port),
-    }, { ownGroup: true }),
-  );
-
-  say("test", "load and outage, reduced (correctness only; figures come from npm run loadtest)");
-  const loadExit = await run("npx", ["tsx", "test/load/run.ts", "--quick"], {
-    ...testEnv,
-    CHAINPROOF_PG_DIR: ".data/test/postgres",
-    CHAINPROOF_PG_PORT: String(stack.pg.port),
-  }, { ownGroup: true });
-  if (loadExit === 0) tally.passed += 1;
+if (only.length === 0) {
+  say("test", "typecheck");
+  const tc = (await run("npx", ["react-router", "typegen"])) || (await run("npx", ["tsc"]));
+  if (tc === 0) tally.passed += 1;
   else {
     tally.failed += 1;
-    failures.push("load (reduced)");
+    failures.push("typecheck");
   }
+}
 
-  say("test", "end-to-end tests (Chromium)");
-  addPlaywright(`${results}/e2e.json`, await run("npx", ["playwright", "test"], { ...testEnv, PLAYWRIGHT_JSON_OUTPUT_NAME: `${results}/e2e.json` }));
-} catch (err) {
-  tally.failed += 1;
-  failures.push((err as Error).message);
-} finally {
-  await stack.stop();
+if (wants(["test/unit/", "app/"])) {
+  say("test", "unit tests");
+  addVitest(`${results}/unit.json`, "unit", await run("npx", ["vitest", "run", "--project", "unit", ...unitFiles, "--reporter=default", "--reporter=json", `--outputFile.json=${results}/unit.json`]));
+}
+
+if (wants(["test/integration/", "test/fault/", "load", "test/e2e/"])) await withStack();
+
+async function withStack() {
+  // Several checkouts on one machine (worktrees) can each run the suite: CHAINPROOF_PORT_OFFSET moves every port.
+  const offset = Number(process.env.CHAINPROOF_PORT_OFFSET ?? 0);
+  const stack = await bringUp({
+    name: "test",
+    dataDir: ".data/test",
+    pgPort: Number(process.env.CHAINPROOF_TEST_PG_PORT ?? 54339 + offset),
+    database: "chainproof_test",
+    freshDatabase: true,
+    smtpPort: 2535 + offset,
+    s3Port: 4579 + offset,
+    appPort: 3100 + offset,
+    demo: true,
+    // Tests stand in for many clients: each sends its own X-Forwarded-For, so rate limits apply per test.
+    // A lower API limit than the default keeps the test that reaches it short.
+    extraEnv: { TRUST_PROXY: "1", NODE_ENV: "production", API_RATE_LIMIT: "3000" },
+  });
+
+  try {
+    say("test", "building the app");
+    if ((await run("npx", ["react-router", "build"], { NODE_ENV: "production" })) !== 0) throw new Error("the build failed");
+    await stack.startApp();
+    const testEnv = { ...stack.env, CHAINPROOF_URL: stack.appUrl, BASE_URL: stack.appUrl, NODE_ENV: "test" };
+    const pgEnv = { ...testEnv, CHAINPROOF_PG_DIR: ".data/test/postgres", CHAINPROOF_PG_PORT: String(stack.pg.port) };
+
+    if (wants(["test/integration/"])) {
+      say("test", "integration tests");
+      const out = `--outputFile.json=${results}/integration.json`;
+      addVitest(`${results}/integration.json`, "integration", await run("npx", ["vitest", "run", "--project", "integration", ...integrationFiles, "--reporter=default", "--reporter=json", out], testEnv));
+    }
+
+    if (wants(["test/fault/"])) {
+      say("test", "fault tests (the database stopped and started under traffic)");
+      const out = `--outputFile.json=${results}/fault.json`;
+      addVitest(`${results}/fault.json`, "fault", await run("npx", ["vitest", "run", "--project", "fault", ...faultFiles, "--reporter=default", "--reporter=json", out], pgEnv, { ownGroup: true }));
+    }
+
+    if (wants(["load"])) {
+      say("test", "load and outage, reduced (correctness only; figures come from npm run loadtest)");
+      const loadExit = await run("npx", ["tsx", "test/load/run.ts", "--quick"], pgEnv, { ownGroup: true });
+      if (loadExit === 0) tally.passed += 1;
+      else {
+        tally.failed += 1;
+        failures.push("load (reduced)");
+      }
+    }
+
+    if (wants(["test/e2e/"])) {
+      say("test", "end-to-end tests (Chromium)");
+      addPlaywright(`${results}/e2e.json`, await run("npx", ["playwright", "test", ...e2eFiles], { ...testEnv, PLAYWRIGHT_JSON_OUTPUT_NAME: `${results}/e2e.json` }));
+    }
+  } catch (err) {
+    tally.failed += 1;
+    failures.push((err as Error).message);
+  } finally {
+    await stack.stop();
+  }
 }
 
 const seconds = Math.round((Date.now() - started) / 1000);
