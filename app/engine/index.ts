@@ -55,3 +55,21 @@ export {
   type ContactToClose,
   type ReadingsExplanation,
 } from "./diagnose";
+export {
+  groupRows,
+  groupBits,
+  whyRuleHolds,
+  parseRowSet,
+  rowSetBits,
+  brokenBits,
+  RowSetError,
+  GROUPS_FORMAT,
+  WHY_FORMAT,
+  BLOCKING_REASONS,
+  type RowSet,
+  type RowGroup,
+  type GroupsDocument,
+  type WhyDocument,
+  type WhyPart,
+  type BlockingReason,
+} from "./groups";

@@ -2,7 +2,7 @@
 // The naive row-at-a-time reference is timed on an evenly spread sample of the same table and
 // extrapolated (its full verdict re-evaluates the whole table once per single fault).
 import { availableParallelism } from "node:os";
-import { compileDesign, csvChunks, pageRows, prove, type CompiledDesign } from "../../app/engine/index";
+import { compileDesign, csvChunks, groupRows, pageRows, prove, whyRuleHolds, type CompiledDesign } from "../../app/engine/index";
 import { summarizeTable } from "../../app/engine/rules";
 import { refDecode, refRow } from "../unit/engine/reference";
 import { generatedDesign } from "./designs";
@@ -88,6 +88,26 @@ const [csvMs] = time(() => {
   }
 });
 
+// ------------------------------------------------------------------ row groups of every set
+// Every set the design has (spec section 4), grouped once each after one warm-up run.
+const groupSets = [
+  "drive",
+  ...c.rules.flatMap((r) => (r.type === "inhibit" ? [`unsafe:${r.id}`, `violating:${r.id}`] : [])),
+  ...c.contacts.flatMap((k) => [`broken:${k.id}/stuck-closed`, `broken:${k.id}/stuck-open`]),
+];
+groupRows(c, "drive");
+const grouped = groupSets.map((set) => {
+  const [ms, doc] = time(() => groupRows(c, set));
+  return { set, rows: doc.rows, groups: doc.groupCount, ms: round(ms, 0) };
+});
+const whys = c.rules.flatMap((r) => {
+  if (r.type !== "inhibit" || r.forbidInput >= 0) return [];
+  const [ms, doc] = time(() => whyRuleHolds(c, r.id));
+  return [{ rule: r.id, unsafeRows: doc.unsafeRows, reasons: doc.reasons.map((p) => `${p.reason}: ${p.rows} rows in ${p.groupCount} groups`), ms: round(ms, 0) }];
+});
+const slowest = [...grouped, ...whys.map((w) => ({ set: `why ${w.rule}`, ms: w.ms }))].sort((a, b) => b.ms - a.ms)[0];
+const emptyBroken = grouped.filter((g) => g.set.startsWith("broken:") && g.rows === 0);
+
 const report = {
   machine: { cpus: availableParallelism(), node: process.version },
   largeDesign: {
@@ -128,6 +148,13 @@ const report = {
     ms: round(csvMs),
     rowsPerSecond: Math.round((CSV_ROWS / csvMs) * 1000),
     megabytesPerSecond: round(csvChars / 1e6 / (csvMs / 1000)),
+  },
+  rowGroups: {
+    method: "groupRows / whyRuleHolds on the large design: every set scanned from the table, then its reduced decision diagram read as groups",
+    slowest: { set: slowest.set, ms: slowest.ms, goalMs: 1000 },
+    sets: grouped.filter((g) => !(g.set.startsWith("broken:") && g.rows === 0)),
+    brokenSetsEmpty: { count: emptyBroken.length, slowestMs: Math.max(...emptyBroken.map((g) => g.ms)) },
+    why: whys,
   },
   memory: { rssMB: round(process.memoryUsage().rss / 1e6, 1), heapUsedMB: round(process.memoryUsage().heapUsed / 1e6, 1) },
 };

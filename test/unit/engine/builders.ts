@@ -56,12 +56,12 @@ export const is = (cond: string, ...states: string[]): Predicate => ({ cond, in:
  */
 export function randomDesign(
   g: fc.GeneratorValue,
-  opts: { maxContacts?: number; meshed?: boolean; cutRules?: boolean } = {},
+  opts: { maxContacts?: number; meshed?: boolean; cutRules?: boolean; maxConditions?: number; maxStates?: number } = {},
 ): Design {
   const int = (min: number, max: number) => g(fc.integer, { min, max });
-  const conditions = Array.from({ length: int(1, 4) }, (_, i) => ({
+  const conditions = Array.from({ length: int(1, opts.maxConditions ?? 4) }, (_, i) => ({
     id: `c${i}`,
-    states: Array.from({ length: int(2, 3) }, (_, k) => `s${k}`),
+    states: Array.from({ length: int(2, opts.maxStates ?? 3) }, (_, k) => `s${k}`),
   }));
   const pickCond = () => conditions[int(0, conditions.length - 1)];
   const subset = (states: string[], minLength: number) => g(fc.subarray, states, { minLength });
