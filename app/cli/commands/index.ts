@@ -4,9 +4,13 @@ import type { Command } from "../shared";
 import { proveCommand } from "./prove";
 import { tableCommand } from "./table";
 import { diagnoseCommand } from "./diagnose";
+import { groupsCommand } from "./groups";
+import { whyCommand } from "./why";
 
 export const COMMANDS: Command[] = [
   proveCommand,
   tableCommand,
   diagnoseCommand,
+  groupsCommand,
+  whyCommand,
 ];
