@@ -240,3 +240,74 @@ export function whyRuleHolds(c: CompiledDesign, ruleId: string, opts: { limit?: 
   });
   return { format: WHY_FORMAT, rule: ruleId, unsafeRows, reasons };
 }
+
+// ---------------------------------------------------------------- comparing two tables
+
+export type OutcomeChangeKind = "drive-on" | "drive-off" | "now-violating" | "no-longer-violating";
+
+/** Rows of two revisions' tables whose outcome changed one way, as groups. */
+export type OutcomeChange = { kind: OutcomeChangeKind; rule?: string; rows: number; groups: RowGroup[]; groupCount: number };
+
+export type OutcomeComparison =
+  | { comparable: false; reason: string }
+  | { comparable: true; rows: number; changedRows: number; changes: OutcomeChange[] };
+
+/** Same condition ids and states in the same order: row N is the same situation in both tables. */
+export function sameRowNumbering(before: CompiledDesign, after: CompiledDesign): boolean {
+  return (
+    before.conditions.length === after.conditions.length &&
+    before.conditions.every((x, i) => x.id === after.conditions[i].id && x.states.join("\n") === after.conditions[i].states.join("\n"))
+  );
+}
+
+/**
+ * The rows whose steady drive changed (on, off) and, per inhibit rule id in either design (in the
+ * order of `after`, then rules only `before` has), the rows that became or stopped being violating.
+ * A rule one design does not have violates no row there. Needs the same row numbering.
+ */
+export function compareOutcomes(before: CompiledDesign, after: CompiledDesign, opts: { limit?: number } = {}): OutcomeComparison {
+  if (!sameRowNumbering(before, after)) {
+    return { comparable: false, reason: "The two revisions have different conditions or states, so their rows do not match one to one." };
+  }
+  const a = new WordEvaluator(before);
+  const b = new WordEvaluator(after);
+  const inhibitOf = (c: CompiledDesign) => new Map(c.rules.flatMap((r) => (r.type === "inhibit" ? [[r.id, r.index] as const] : [])));
+  const ra = inhibitOf(before);
+  const rb = inhibitOf(after);
+  const ids = [...new Set([...rb.keys(), ...ra.keys()])];
+  const words = a.wordCount;
+  const on = new Int32Array(words);
+  const off = new Int32Array(words);
+  const now = ids.map(() => new Int32Array(words));
+  const noLonger = ids.map(() => new Int32Array(words));
+  const any = new Int32Array(words);
+  const violating = (ev: WordEvaluator, r: number | undefined) => (r === undefined ? 0 : ev.unsafeWord(r) & ev.forbiddenWord(r));
+  for (let w = 0; w < words; w++) {
+    a.evalWord(w);
+    b.evalWord(w);
+    const valid = a.valid;
+    on[w] = b.drive & ~a.drive & valid;
+    off[w] = a.drive & ~b.drive & valid;
+    let changed = on[w] | off[w];
+    for (let k = 0; k < ids.length; k++) {
+      const va = violating(a, ra.get(ids[k]));
+      const vb = violating(b, rb.get(ids[k]));
+      now[k][w] = vb & ~va;
+      noLonger[k][w] = va & ~vb;
+      changed |= va ^ vb;
+    }
+    any[w] = changed;
+  }
+  const changes: OutcomeChange[] = [];
+  const add = (kind: OutcomeChangeKind, bits: Int32Array, rule?: string) => {
+    const grouped = groupBits(after, bits, opts.limit);
+    if (grouped.rows > 0) changes.push({ kind, ...(rule === undefined ? {} : { rule }), ...grouped });
+  };
+  add("drive-on", on);
+  add("drive-off", off);
+  ids.forEach((id, k) => {
+    add("now-violating", now[k], id);
+    add("no-longer-violating", noLonger[k], id);
+  });
+  return { comparable: true, rows: after.rows, changedRows: countBits(any), changes };
+}

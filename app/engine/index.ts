@@ -59,6 +59,8 @@ export {
   groupRows,
   groupBits,
   whyRuleHolds,
+  compareOutcomes,
+  sameRowNumbering,
   parseRowSet,
   rowSetBits,
   brokenBits,
@@ -72,4 +74,7 @@ export {
   type WhyDocument,
   type WhyPart,
   type BlockingReason,
+  type OutcomeChange,
+  type OutcomeChangeKind,
+  type OutcomeComparison,
 } from "./groups";

@@ -7,6 +7,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import {
   BLOCKING_REASONS,
+  compareOutcomes,
   compileDesign,
   groupBits,
   groupRows,
@@ -316,4 +317,68 @@ describe("groups of arbitrary sets of rows", () => {
       { numRuns: 150 },
     );
   }, SLOW);
+});
+
+// ---------------------------------------------------------------- comparing two revisions
+
+/** A second revision of a design: a contact closes in other states, a wire goes, a rule changes. */
+const revisedPairs = fc.gen().map((g) => {
+  const before = randomDesign(g, { maxConditions: 5, maxStates: 3, maxContacts: 8 });
+  const after = JSON.parse(JSON.stringify(before)) as Design;
+  const contacts = after.components.flatMap((x) => (x.type === "contact" ? [x] : []));
+  const k = contacts[g(fc.integer, { min: 0, max: contacts.length - 1 })];
+  const states = after.conditions.find((x) => x.id === k.condition)!.states;
+  k.closedIn = g(fc.subarray, states, { minLength: 1 });
+  if (after.wires.length > 0 && g(fc.boolean)) after.wires.splice(g(fc.integer, { min: 0, max: after.wires.length - 1 }), 1);
+  const inhibit = after.rules.flatMap((r) => (r.type === "inhibit" ? [r] : []));
+  if (inhibit.length > 1 && g(fc.boolean)) after.rules = after.rules.filter((r) => r !== inhibit[0]);
+  else if (g(fc.boolean)) inhibit[0].when = { not: inhibit[0].when };
+  return { before, after };
+});
+
+describe("rows whose outcome changed between two revisions", () => {
+  it("are, per kind of change, exactly the rows the reference finds, as groups", () => {
+    fc.assert(
+      fc.property(revisedPairs, ({ before, after }) => {
+        const out = compareOutcomes(compileDesign(before), compileDesign(after));
+        if (!out.comparable) throw new Error("same conditions must be comparable");
+        const n = refRowCount(after);
+        const rowsA = refRows(before);
+        const rowsB = refRows(after);
+        const violates = (d: Design, rows: RefRow[], id: string, i: number) => {
+          const r = d.rules.find((x) => x.id === id && x.type === "inhibit");
+          return r !== undefined && r.type === "inhibit" && refHolds(r.when, refDecode(d, i)) && refForbidden(r, rows[i]);
+        };
+        const expected = new Map<string, Set<number>>();
+        const put = (key: string, i: number) => expected.set(key, (expected.get(key) ?? new Set()).add(i));
+        const changed = new Set<number>();
+        const ids = new Set([...before.rules, ...after.rules].filter((r) => r.type === "inhibit").map((r) => r.id));
+        for (let i = 0; i < n; i++) {
+          if (rowsB[i].drive && !rowsA[i].drive) put("drive-on", i);
+          if (rowsA[i].drive && !rowsB[i].drive) put("drive-off", i);
+          if (rowsA[i].drive !== rowsB[i].drive) changed.add(i);
+          for (const id of ids) {
+            const va = violates(before, rowsA, id, i);
+            const vb = violates(after, rowsB, id, i);
+            if (vb && !va) put(`now-violating ${id}`, i);
+            if (va && !vb) put(`no-longer-violating ${id}`, i);
+            if (va !== vb) changed.add(i);
+          }
+        }
+        expect(out.changedRows).toBe(changed.size);
+        const keys = out.changes.map((ch) => (ch.rule === undefined ? ch.kind : `${ch.kind} ${ch.rule}`));
+        expect(new Set(keys)).toEqual(new Set(expected.keys()));
+        out.changes.forEach((ch, k) => checkGroups(after.conditions, ch.groups, expected.get(keys[k])!, n));
+      }),
+      { numRuns: 60 },
+    );
+  }, SLOW);
+
+  it("are not comparable when the conditions differ", () => {
+    const d = readJson("yard-tug.design.json") as Design;
+    d.rules = d.rules.filter((r) => r.type !== ("require-drive" as string));
+    const e = JSON.parse(JSON.stringify(d)) as Design;
+    e.conditions[3].states = ["forward", "neutral", "reverse", "tow"];
+    expect(compareOutcomes(compileDesign(d), compileDesign(e))).toMatchObject({ comparable: false });
+  });
 });
