@@ -4,14 +4,16 @@ import { COMMANDS } from "./commands/index";
 import { InvalidDesign, UsageError, fail, write } from "./shared";
 
 const HELP = `chainproof - proves drive-inhibit wiring designs (format chainproof/design@1)
+and checks controller settings records against them
 
 Usage:
 ${COMMANDS.map((c) => `  ${c.usage}`).join("\n")}
   chainproof <command> --help
 
-Exit codes: 0 success (prove: every rule holds), 1 prove found a failing rule,
-2 invalid design, unreadable file or bad usage. Design problems go to stderr,
-one per line, each starting with its field path ("(root)" for the document).
+Exit codes: 0 success (prove: every rule holds), 1 prove found a failing rule or
+check-controller an error finding, 2 invalid design or record, unreadable file or
+bad usage. Problems of a document go to stderr, one per line, each starting with
+its field path ("(root)" for the document).
 `;
 
 async function main(argv: string[]): Promise<void> {

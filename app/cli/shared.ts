@@ -18,6 +18,22 @@ export function fail(message: string): never {
 
 export function loadDesign(file: string | undefined): CompiledDesign {
   if (!file) fail("missing <design.json>");
+  const checked = validateDesign(readJsonFile(file));
+  if (!checked.ok) {
+    printProblems(checked.problems);
+    throw new InvalidDesign();
+  }
+  return compileDesign(checked.design);
+}
+
+/** Problems of an invalid document on stderr, one a line, each starting with its path; exit code 2. */
+export function printProblems(problems: { path: string; message: string }[]): void {
+  for (const p of problems) process.stderr.write(`${p.path === "" ? "(root)" : p.path}: ${p.message}\n`);
+  process.exitCode = 2;
+}
+
+/** The parsed JSON of a file; an unreadable file or bad JSON is a usage error (exit 2, one line). */
+export function readJsonFile(file: string): unknown {
   let text: string;
   try {
     text = readFileSync(file, "utf8");
@@ -25,19 +41,11 @@ export function loadDesign(file: string | undefined): CompiledDesign {
     const code = (e as NodeJS.ErrnoException).code;
     fail(`cannot read ${JSON.stringify(file)}: ${code === "ENOENT" ? "no such file" : code === "EISDIR" ? "it is a directory" : (code ?? "read error")}`);
   }
-  let json: unknown;
   try {
-    json = JSON.parse(text);
+    return JSON.parse(text);
   } catch (e) {
     fail(`${JSON.stringify(file)} is not valid JSON: ${(e as Error).message}`);
   }
-  const checked = validateDesign(json);
-  if (!checked.ok) {
-    for (const p of checked.problems) process.stderr.write(`${p.path === "" ? "(root)" : p.path}: ${p.message}\n`);
-    process.exitCode = 2;
-    throw new InvalidDesign();
-  }
-  return compileDesign(checked.design);
 }
 
 export class InvalidDesign extends Error {}

@@ -6,6 +6,7 @@ import { tableCommand } from "./table";
 import { diagnoseCommand } from "./diagnose";
 import { groupsCommand } from "./groups";
 import { whyCommand } from "./why";
+import { checkControllerCommand } from "./check-controller";
 
 export const COMMANDS: Command[] = [
   proveCommand,
@@ -13,4 +14,5 @@ export const COMMANDS: Command[] = [
   diagnoseCommand,
   groupsCommand,
   whyCommand,
+  checkControllerCommand,
 ];
