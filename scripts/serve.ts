@@ -10,6 +10,16 @@ import { pathToFileURL } from "node:url";
 import express from "express";
 import compression from "compression";
 import { createRequestHandler } from "@react-router/express";
+import { authSecretProblem } from "../app/lib/auth-secret";
+
+// This is the production server: without NODE_ENV it serves as production, and then never on a
+// secret anyone could know (issue 11): it says why and stops before forking or listening.
+process.env.NODE_ENV ??= "production";
+const secretProblem = authSecretProblem(process.env.AUTH_SECRET, process.env.NODE_ENV === "production");
+if (secretProblem) {
+  console.error(`chainproof: not starting: ${secretProblem}`);
+  process.exit(1);
+}
 
 const CLIENT_IP_HEADER = "x-chainproof-client-ip";
 const port = Number(process.env.PORT ?? 3000);
@@ -82,7 +92,12 @@ async function runPrimary() {
 }
 
 async function runServer() {
-  const build = await import(pathToFileURL(path.join(buildDir, "server/index.js")).href);
+  const build = await import(pathToFileURL(path.join(buildDir, "server/index.js")).href).catch((err: Error) => {
+    // A bad setting is the operator's to fix: its message, without a stack trace.
+    if (!err.message.startsWith("Invalid environment")) throw err;
+    console.error(`chainproof: not starting: ${err.message}`);
+    process.exit(1);
+  });
 
   const app = express();
   app.disable("x-powered-by");

@@ -14,6 +14,8 @@ export type StackConfig = {
   s3Port: number;
   appPort: number;
   demo: boolean;
+  /** Signs sessions and e-mail tokens: start keeps one in .data/auth-secret, tests make a new one per run. */
+  authSecret: string;
   extraEnv?: Record<string, string>;
 };
 
@@ -83,6 +85,7 @@ export async function bringUp(cfg: StackConfig): Promise<Stack> {
     S3_BUCKET: "chainproof-uploads",
     CHAINPROOF_LOCAL: "1",
     CHAINPROOF_DEMO: cfg.demo ? "1" : "0",
+    AUTH_SECRET: cfg.authSecret,
     ...cfg.extraEnv,
   };
 

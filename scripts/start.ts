@@ -1,5 +1,6 @@
 // `npm start`: the product with demo data on http://127.0.0.1:3000 (PORT overrides). Ctrl-C stops everything.
 import { bringUp, run, say } from "./stack";
+import { ensureAuthSecret } from "./auth-secret";
 import { DEMO_PASSWORD, DEMO_USERS } from "../drizzle/seed";
 
 const port = Number(process.env.PORT ?? 3000);
@@ -13,6 +14,8 @@ const stack = await bringUp({
   s3Port: Number(process.env.CHAINPROOF_S3_PORT ?? 4569),
   appPort: port,
   demo: process.env.CHAINPROOF_DEMO !== "0",
+  // A secret given in the environment wins; otherwise this install's own, made on the first start.
+  authSecret: process.env.AUTH_SECRET || ensureAuthSecret(".data", (line) => say("start", line)),
 });
 
 let stopping = false;

@@ -1,5 +1,6 @@
 // `npm test`: typecheck, unit tests, integration tests against real PostgreSQL and the running app,
 // and end-to-end tests in Debian's Chromium. Prints one closing line "N passed, N failed".
+import { randomBytes } from "node:crypto";
 import { existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";
 import { bringUp, run, say } from "./stack";
 
@@ -78,6 +79,8 @@ async function withStack() {
     s3Port: 4579 + offset,
     appPort: 3100 + offset,
     demo: true,
+    // Every run signs with a secret of its own, as an install started by `npm start` does.
+    authSecret: randomBytes(48).toString("base64url"),
     // Tests stand in for many clients: each sends its own X-Forwarded-For, so rate limits apply per test.
     // A lower API limit than the default keeps the test that reaches it short.
     extraEnv: { TRUST_PROXY: "1", NODE_ENV: "production", API_RATE_LIMIT: "3000" },

@@ -8,6 +8,7 @@
 // one), the users starting at staggered moments as people do. "Saturation" drops the pauses: every
 // user sends its next request as soon as the last is answered, which shows the most the machine
 // serves, not what people would see.
+import { randomBytes } from "node:crypto";
 import autocannon from "autocannon";
 import { bringUp, run, type Stack } from "../../scripts/stack";
 import { startPostgres } from "../../scripts/services";
@@ -92,7 +93,7 @@ async function main() {
   if (!quick || !base) {
     stack = await bringUp({
       name: "load", dataDir: ".data/load", pgPort: 54349, database: "chainproof_load", freshDatabase: true,
-      smtpPort: 2545, s3Port: 4589, appPort: 3200, demo: true,
+      smtpPort: 2545, s3Port: 4589, appPort: 3200, demo: true, authSecret: randomBytes(48).toString("base64url"),
       extraEnv: { TRUST_PROXY: "1", NODE_ENV: "production" },
     });
     if ((await run("npx", ["react-router", "build"], { NODE_ENV: "production" })) !== 0) throw new Error("the build failed");
