@@ -54,6 +54,8 @@ export default [
     route("designs/:designId/revisions/:number/rows", "routes/api/v1/revision-rows.ts"),
     route("designs/:designId/revisions/:number/rows/:index", "routes/api/v1/revision-row.ts"),
     route("designs/:designId/revisions/:number/table.csv", "routes/api/v1/revision-table-csv.ts"),
+    route("designs/:designId/revisions/:number/groups", "routes/api/v1/revision-groups.ts"),
+    route("designs/:designId/revisions/:number/why", "routes/api/v1/revision-why.ts"),
     route("proofs", "routes/api/v1/proofs.ts"),
     route("designs/:designId/revisions/:number/diagnosis", "routes/api/v1/revision-diagnosis.ts"),
     route("vehicles", "routes/api/v1/vehicles.ts"),

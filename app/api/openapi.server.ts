@@ -16,6 +16,7 @@ import { DESIGN_STATUSES } from "~/designs/types";
 import { ONLY, PAGE_MAX } from "~/reviews/truth-table";
 import { STEP_OUTCOMES } from "~/bench-runs/outcomes";
 import { REVIEW_STATUSES } from "~/reviews/status";
+import { groupsDocumentSchema, groupsQuerySchema, whyDocumentSchema, whyQuerySchema } from "~/api/row-groups";
 import {
   benchRunListQuerySchema,
   diagnosisBodySchema,
@@ -443,6 +444,26 @@ const paths: ZodOpenApiPathsObject = {
       responses: {
         "200": { description: "CSV text.", content: { "text/csv": { schema: z.string() } } },
         "400": fail("A bad filter."),
+        ...reading,
+      },
+    }),
+  },
+  "/api/v1/designs/{designId}/revisions/{number}/groups": {
+    get: op("Truth table", "Rows of a set as row groups", `${member} chainproof/groups@1: the set's rows as disjoint groups (spec section 4), with groupCount.`, {
+      requestParams: { path: revisionParams, query: groupsQuerySchema },
+      responses: {
+        "200": ok("The groups.", groupsDocumentSchema),
+        "400": fail("A set that names an unknown rule, a rule of the other type, an unknown component, a component that is not a contact or an unknown mode; or a bad limit."),
+        ...reading,
+      },
+    }),
+  },
+  "/api/v1/designs/{designId}/revisions/{number}/why": {
+    get: op("Truth table", "Why an inhibit rule holds", `${member} chainproof/why@1: the rule's unsafe rows without drive, split by blocking reason, each part as groups.`, {
+      requestParams: { path: revisionParams, query: whyQuerySchema },
+      responses: {
+        "200": ok("The reasons.", whyDocumentSchema),
+        "400": fail("An unknown rule, or a rule that is not an inhibit rule forbidding drive; or a bad limit."),
         ...reading,
       },
     }),

@@ -96,6 +96,8 @@ export const MATRIX: Row[] = [
     method: "POST", path: "/api/v1/designs/no-such-design/revisions/1/diagnosis", json: { states: {} },
     expect: api(404),
   },
+  { name: "API: row groups of an unknown design", method: "GET", path: "/api/v1/designs/no-such-design/revisions/1/groups?set=drive", expect: api(404) },
+  { name: "API: why a rule of an unknown design holds", method: "GET", path: "/api/v1/designs/no-such-design/revisions/1/why?rule=R1", expect: api(404) },
   { name: "API: the OpenAPI document (public)", method: "GET", path: "/api/v1/openapi.json", expect: all(200, { outsider: 200, anonymous: 200 }) },
   { name: "API: the API docs page (public)", method: "GET", path: "/api/v1/docs", expect: all(200, { outsider: 200, anonymous: 200 }) },
 ];
