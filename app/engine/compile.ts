@@ -55,6 +55,7 @@ export type CompiledRule =
       /** -1 forbids drive; otherwise the input index whose energizing is forbidden. */
       forbidInput: number;
     }
+  | { type: "require-drive"; id: string; label: string; index: number; when: CompiledPredicate }
   | { type: "no-restart"; id: string; label: string; index: number };
 
 export type CompiledDesign = {
@@ -224,18 +225,21 @@ export function compileDesign(design: Design): CompiledDesign {
     return { k: "true" };
   };
 
-  const rules: CompiledRule[] = design.rules.map((r, index) =>
-    r.type === "inhibit"
-      ? {
-          type: "inhibit",
-          id: r.id,
-          label: r.label ?? r.id,
-          index,
-          when: compilePredicate(r.when),
-          forbidInput: r.forbid === "drive" ? -1 : inputIndex[r.forbid.energized],
-        }
-      : { type: "no-restart", id: r.id, label: r.label ?? r.id, index },
-  );
+  const rules: CompiledRule[] = design.rules.map((r, index): CompiledRule => {
+    const label = r.label ?? r.id;
+    if (r.type === "inhibit") {
+      return {
+        type: "inhibit",
+        id: r.id,
+        label,
+        index,
+        when: compilePredicate(r.when),
+        forbidInput: r.forbid === "drive" ? -1 : inputIndex[r.forbid.energized],
+      };
+    }
+    if (r.type === "require-drive") return { type: "require-drive", id: r.id, label, index, when: compilePredicate(r.when) };
+    return { type: "no-restart", id: r.id, label, index };
+  });
 
   const listed = new Set(design.controller.lockouts ?? []);
   return {

@@ -11,10 +11,17 @@ function csvField(s: string): string {
   return /[",\r\n]/.test(s) || s.trim() !== s ? `"${s.replace(/"/g, '""')}"` : s;
 }
 
+/** The rules with a column, in design order: inhibit and require-drive rules (no-restart is about sequences). */
+function rowRules(c: CompiledDesign) {
+  return c.rules.filter((r) => r.type !== "no-restart");
+}
+
 /**
  * Columns: `row`, one per condition (its id), `input:ID` per input (1 energized / 0),
  * `powered`, `enabled` (1/0), `direction`, `braking` (1/0), `throttle`, `drive` (steady drive, 1/0),
- * and `rule:ID` per inhibit rule (`violating`, `unsafe`, or `-` where its `when` does not hold).
+ * and `rule:ID` per inhibit or require-drive rule in design order: for an inhibit rule `violating`,
+ * `unsafe`, or `-` where its `when` does not hold; for a require-drive rule `failing` (a demand row
+ * without drive), `demand`, or `-`.
  */
 export function csvHeader(c: CompiledDesign): string[] {
   return [
@@ -27,7 +34,7 @@ export function csvHeader(c: CompiledDesign): string[] {
     "braking",
     "throttle",
     "drive",
-    ...c.rules.filter((r) => r.type === "inhibit").map((r) => `rule:${r.id}`),
+    ...rowRules(c).map((r) => `rule:${r.id}`),
   ];
 }
 
@@ -43,7 +50,7 @@ function columnWidths(c: CompiledDesign): number[] {
     1,
     "released".length,
     1,
-    ...c.rules.filter((r) => r.type === "inhibit").map(() => "violating".length),
+    ...rowRules(c).map((r) => (r.type === "inhibit" ? "violating" : "failing").length),
   ];
   return csvHeader(c).map((h, i) => Math.max(h.length, values[i]));
 }
@@ -62,7 +69,9 @@ function* rowLines(
 ): Generator<string> {
   const from = Math.max(0, Math.floor(opts.from ?? 0));
   const count = opts.count === undefined ? Infinity : Math.max(0, Math.floor(opts.count));
-  const inhibit = c.rules.filter((r) => r.type === "inhibit").map((r) => r.index);
+  const ruled = rowRules(c);
+  const ruleIndex = ruled.map((r) => r.index);
+  const isInhibit = ruled.map((r) => r.type === "inhibit");
   let col = 1;
   const states = c.conditions.map((cond) => {
     const at = col++;
@@ -81,12 +90,13 @@ function* rowLines(
   const thrCol = col++;
   const throttle = THROTTLE_CLASSES.map((t) => sep + cell(thrCol, t));
   const drive = bits(col++);
-  const ruleCells = inhibit.map(() => {
+  const ruleCells = ruled.map((r) => {
     const at = col++;
-    return ["-", "unsafe", "violating"].map((v) => sep + cell(at, v));
+    return (r.type === "inhibit" ? ["-", "unsafe", "violating"] : ["-", "demand", "failing"]).map((v) => sep + cell(at, v));
   });
-  const unsafe = new Int32Array(inhibit.length);
-  const forbidden = new Int32Array(inhibit.length);
+  // Per rule column: the rows where `when` holds, and among them the bad ones (violating / failing).
+  const unsafe = new Int32Array(ruled.length);
+  const forbidden = new Int32Array(ruled.length);
 
   let chunk = header;
   let position = 0;
@@ -101,9 +111,9 @@ function* rowLines(
       position += n;
       continue;
     }
-    for (let k = 0; k < inhibit.length; k++) {
-      unsafe[k] = e.unsafeWord(inhibit[k]);
-      forbidden[k] = e.forbiddenWord(inhibit[k]);
+    for (let k = 0; k < ruled.length; k++) {
+      unsafe[k] = e.whenWord(ruleIndex[k]);
+      forbidden[k] = isInhibit[k] ? e.forbiddenWord(ruleIndex[k]) : ~e.drive;
     }
     while (m !== 0 && emitted < count) {
       const j = lowestBit(m);

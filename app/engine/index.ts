@@ -14,18 +14,20 @@ export type {
   Lockout,
   Rule,
   InhibitRule,
+  RequireDriveRule,
   NoRestartRule,
   Predicate,
   Verdict,
   RuleVerdict,
   InhibitVerdict,
+  RequireDriveVerdict,
   NoRestartVerdict,
   SingleFault,
   FaultMode,
   Problem,
   RowStates,
 } from "./schema";
-export { designSchema, DESIGN_FORMAT, VERDICT_FORMAT, INPUT_FUNCTIONS, LOCKOUTS, TERMINALS } from "./schema";
+export { designSchema, DESIGN_FORMAT, VERDICT_FORMAT, INPUT_FUNCTIONS, LOCKOUTS, RULE_TYPES, TERMINALS } from "./schema";
 export { ENGINE_ROW_LIMIT, validateDesign, formatPath, type ValidationResult } from "./validate";
 export { compileDesign, type CompiledDesign, type ThrottleClass } from "./compile";
 export { prove } from "./prove";
@@ -38,6 +40,8 @@ export {
   countRows,
   pageRows,
   findRow,
+  filterRuleType,
+  ROW_FILTERS,
   type RowFilter,
   type RowView,
   type ControllerState,

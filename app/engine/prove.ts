@@ -26,6 +26,16 @@ export function prove(input: Design | CompiledDesign): Verdict {
         violatingRows: count.violating,
         ...(holds ? {} : { example: decodeRow(c, count.example) }),
       });
+    } else if (r.type === "require-drive") {
+      const count = summary.requireDrive[r.index]!;
+      const holds = count.failing === 0;
+      rules.push({
+        id: r.id,
+        holds,
+        demandRows: count.demand,
+        failingRows: count.failing,
+        ...(holds ? {} : { example: decodeRow(c, count.example) }),
+      });
     } else {
       if (restartTrace === undefined) restartTrace = shortestRestart(c, summary.views);
       rules.push(
@@ -37,7 +47,8 @@ export function prove(input: Design | CompiledDesign): Verdict {
   }
   return {
     format: VERDICT_FORMAT,
-    ok: rules.every((r) => r.holds),
+    // Spec 2 (version 1.1): a design that never drives satisfies every inhibit rule and proves nothing.
+    ok: rules.every((r) => r.holds) && summary.driveRows > 0,
     rows: c.rows,
     driveRows: summary.driveRows,
     rules,

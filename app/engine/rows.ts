@@ -32,11 +32,18 @@ export type RowView = {
   drive: boolean;
   /** Inhibit rule id -> whether this row is unsafe / violating for it. */
   rules: Record<string, { unsafe: boolean; violating: boolean }>;
+  /** Require-drive rule id -> whether this row is a demand row / a failing row (demand without drive). */
+  demands: Record<string, { demand: boolean; failing: boolean }>;
 };
 
+export const ROW_FILTERS = ["unsafe", "violating", "drive", "demand", "failing"] as const;
+
 export type RowFilter = {
-  only?: "unsafe" | "violating" | "drive";
-  /** Rule id for unsafe/violating; default: any inhibit rule. */
+  only?: (typeof ROW_FILTERS)[number];
+  /**
+   * Rule id: an inhibit rule for unsafe/violating, a require-drive rule for demand/failing; default:
+   * any rule of that type.
+   */
   rule?: string;
   /** Condition id -> allowed states. */
   where?: Record<string, string[]>;
@@ -107,10 +114,15 @@ export function viewOfLane(ev: WordEvaluator, index: number): RowView {
   const dirWords = [ev.dirForward, ev.dirNeutral, ev.dirReverse, ev.dirConflict];
   const thrWords = [ev.thrReleased, ev.thrApplied, ev.thrFault];
   const rules: RowView["rules"] = Object.create(null); // ids like "__proto__" are legal
+  const demands: RowView["demands"] = Object.create(null);
   c.rules.forEach((r, i) => {
-    if (r.type !== "inhibit") return;
-    const unsafe = bit(ev.unsafeWord(i));
-    rules[r.id] = { unsafe, violating: unsafe && bit(ev.forbiddenWord(i)) };
+    if (r.type === "inhibit") {
+      const unsafe = bit(ev.unsafeWord(i));
+      rules[r.id] = { unsafe, violating: unsafe && bit(ev.forbiddenWord(i)) };
+    } else if (r.type === "require-drive") {
+      const demand = bit(ev.demandWord(i));
+      demands[r.id] = { demand, failing: demand && !bit(ev.drive) };
+    }
   });
   return {
     index,
@@ -127,6 +139,7 @@ export function viewOfLane(ev: WordEvaluator, index: number): RowView {
     },
     drive: bit(ev.drive),
     rules,
+    demands,
   };
 }
 
@@ -147,18 +160,24 @@ export type CompiledFilter = {
   where: Literal[];
 };
 
+/** The rule type a row filter's `rule` must have: require-drive for demand/failing, else inhibit. */
+export function filterRuleType(only: RowFilter["only"]): "inhibit" | "require-drive" {
+  return only === "demand" || only === "failing" ? "require-drive" : "inhibit";
+}
+
 export function compileFilter(c: CompiledDesign, filter: RowFilter = {}): CompiledFilter {
+  if (filter.only !== undefined && !(ROW_FILTERS as readonly string[]).includes(filter.only)) {
+    throw new Error(`unknown row filter ${JSON.stringify(filter.only)} (use ${ROW_FILTERS.join(", ")})`);
+  }
+  const type = filterRuleType(filter.only);
   let rules: number[] = [];
   if (filter.rule !== undefined) {
     const r = c.rules.find((x) => x.id === filter.rule);
     if (!r) throw new Error(`no rule with id ${JSON.stringify(filter.rule)}`);
-    if (r.type !== "inhibit") throw new Error(`rule ${JSON.stringify(filter.rule)} is not an inhibit rule`);
+    if (r.type !== type) throw new Error(`rule ${JSON.stringify(filter.rule)} is not ${type === "inhibit" ? "an inhibit" : "a require-drive"} rule`);
     rules = [r.index];
   } else {
-    rules = c.rules.filter((r) => r.type === "inhibit").map((r) => r.index);
-  }
-  if (filter.only !== undefined && !["unsafe", "violating", "drive"].includes(filter.only)) {
-    throw new Error(`unknown row filter ${JSON.stringify(filter.only)} (use unsafe, violating or drive)`);
+    rules = c.rules.filter((r) => r.type === type).map((r) => r.index);
   }
   const where: Literal[] = [];
   for (const [condId, states] of Object.entries(filter.where ?? {})) {
@@ -212,6 +231,16 @@ export class FilterScanner {
       case "violating": {
         let m = 0;
         for (const r of this.f.rules) m |= ev.unsafeWord(r) & ev.forbiddenWord(r);
+        return mask & m;
+      }
+      case "demand": {
+        let m = 0;
+        for (const r of this.f.rules) m |= ev.demandWord(r);
+        return mask & m;
+      }
+      case "failing": {
+        let m = 0;
+        for (const r of this.f.rules) m |= ev.failingWord(r);
         return mask & m;
       }
     }

@@ -1,5 +1,6 @@
 // The scan over the whole table: steady-drive count, per inhibit rule the unsafe and violating
-// counts with a first violating row, the distinct controller views (for no-restart), and
+// counts with a first violating row, per require-drive rule the demand and failing counts with a
+// first failing row, the distinct controller views (for no-restart), and
 // optionally the single-fault checks riding along (faults.ts). One word of rows at a time.
 import type { CompiledDesign } from "./compile";
 import { FaultTracker } from "./faults";
@@ -7,12 +8,16 @@ import type { SingleFault } from "./schema";
 import { lowestBit, popcount, WORD, WordEvaluator } from "./table";
 
 export type InhibitCount = { unsafe: number; violating: number; example: number };
+/** `example` is the first failing row, -1 when none. */
+export type RequireDriveCount = { demand: number; failing: number; example: number };
 
 export type TableSummary = {
   rows: number;
   driveRows: number;
   /** Indexed by rule index; null for rules that are not inhibit rules. */
   inhibit: (InhibitCount | null)[];
+  /** Indexed by rule index; null for rules that are not require-drive rules. */
+  requireDrive: (RequireDriveCount | null)[];
   /** Controller view code (see sequence.ts) -> first row showing that view. */
   views: Map<number, number>;
   /** Present when requested: faults defeating rules that hold fault-free. */
@@ -29,6 +34,7 @@ export function viewCode(powered: number, enabled: number, direction: number, br
 export function summarizeTable(c: CompiledDesign, opts: { views?: boolean; faults?: boolean } = {}): TableSummary {
   const ev = new WordEvaluator(c);
   const ruleIdx = Int32Array.from(c.rules.filter((r) => r.type === "inhibit").map((r) => r.index));
+  const demandIdx = Int32Array.from(c.rules.filter((r) => r.type === "require-drive").map((r) => r.index));
   const nRules = c.rules.length;
   const unsafeCount = new Float64Array(nRules);
   const violating = new Float64Array(nRules);
@@ -41,6 +47,18 @@ export function summarizeTable(c: CompiledDesign, opts: { views?: boolean; fault
   for (let w = 0; w < ev.wordCount; w++) {
     ev.evalWord(w);
     driveRows += popcount(ev.drive & ev.valid);
+    // Require-drive rules share the arrays: unsafe/violating/example count demand/failing rows.
+    for (let n = 0; n < demandIdx.length; n++) {
+      const r = demandIdx[n];
+      const d = ev.demandWord(r);
+      if (d === 0) continue;
+      unsafeCount[r] += popcount(d);
+      const failing = d & ~ev.drive;
+      if (failing !== 0) {
+        violating[r] += popcount(failing);
+        if (example[r] < 0) example[r] = w * WORD + lowestBit(failing);
+      }
+    }
     let anyUnsafe = 0;
     for (let n = 0; n < ruleIdx.length; n++) {
       const r = ruleIdx[n];
@@ -68,10 +86,14 @@ export function summarizeTable(c: CompiledDesign, opts: { views?: boolean; fault
   const inhibit = c.rules.map((r) =>
     r.type === "inhibit" ? { unsafe: unsafeCount[r.index], violating: violating[r.index], example: example[r.index] } : null,
   );
+  const requireDrive = c.rules.map((r) =>
+    r.type === "require-drive" ? { demand: unsafeCount[r.index], failing: violating[r.index], example: example[r.index] } : null,
+  );
   return {
     rows: c.rows,
     driveRows,
     inhibit,
+    requireDrive,
     views,
     ...(faults ? { singleFaults: faults.result((r) => violating[r] === 0) } : {}),
   };

@@ -73,8 +73,11 @@ export type InhibitRule = {
   when: Predicate;
   forbid: "drive" | { energized: string };
 };
+/** In every row where `when` holds (a demand row), steady drive is true (spec 1.6, version 1.1). */
+export type RequireDriveRule = { id: string; label?: string; type: "require-drive"; when: Predicate };
 export type NoRestartRule = { id: string; label?: string; type: "no-restart" };
-export type Rule = InhibitRule | NoRestartRule;
+export type Rule = InhibitRule | RequireDriveRule | NoRestartRule;
+export const RULE_TYPES = ["inhibit", "require-drive", "no-restart"] as const;
 
 export type Design = {
   format: typeof DESIGN_FORMAT;
@@ -98,8 +101,15 @@ export type InhibitVerdict = {
   violatingRows: number;
   example?: RowStates;
 };
+export type RequireDriveVerdict = {
+  id: string;
+  holds: boolean;
+  demandRows: number;
+  failingRows: number;
+  example?: RowStates;
+};
 export type NoRestartVerdict = { id: string; holds: boolean; trace?: RowStates[] };
-export type RuleVerdict = InhibitVerdict | NoRestartVerdict;
+export type RuleVerdict = InhibitVerdict | RequireDriveVerdict | NoRestartVerdict;
 
 export type FaultMode = "stuck-open" | "stuck-closed";
 export type SingleFault = { component: string; mode: FaultMode; defeats: string[] };
@@ -188,6 +198,7 @@ const ruleSchema = z.discriminatedUnion("type", [
       error: 'forbid is "drive" or {"energized": INPUT_ID}',
     }),
   }),
+  z.looseObject({ id, label, type: z.literal("require-drive"), when: predicateSchema }),
   z.looseObject({ id, label, type: z.literal("no-restart") }),
 ]);
 

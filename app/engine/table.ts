@@ -38,7 +38,8 @@ export class LiteralSource {
     until: number;
   }[] = [];
 
-  constructor(c: CompiledDesign, literals: readonly Literal[]) {
+  /** `conditions[i]` gives condition i's radix and stride (rows between two of its changes). */
+  constructor(conditions: ReadonlyArray<{ stride: number; radix: number }>, literals: readonly Literal[]) {
     this.words = new Int32Array(literals.length);
     const byCond = new Map<number, number[]>();
     literals.forEach((l, i) => {
@@ -47,7 +48,7 @@ export class LiteralSource {
       byCond.set(l.cond, list);
     });
     for (const [cond, outs] of byCond) {
-      const { stride, radix } = c.conditions[cond];
+      const { stride, radix } = conditions[cond];
       if (stride < WORD) {
         const period = stride * radix;
         const tables = outs.map((i) => {
@@ -158,7 +159,7 @@ export class WordEvaluator {
     this.wordCount = Math.ceil(c.rows / WORD);
     const rem = c.rows % WORD;
     this.lastValid = rem === 0 ? -1 : (1 << rem) - 1;
-    this.source = new LiteralSource(c, c.literals);
+    this.source = new LiteralSource(c.conditions, c.literals);
     this.lit = this.source.words;
     this.cw = new Int32Array(c.contacts.length);
     this.reach = new Int32Array(c.nets.length);
@@ -176,7 +177,7 @@ export class WordEvaluator {
         this.faultOr[i] = -1;
       }
     }
-    this.whenOf = c.rules.map((r) => (r.type === "inhibit" ? predicateWord(r.when) : null));
+    this.whenOf = c.rules.map((r) => (r.type === "no-restart" ? null : predicateWord(r.when)));
     this.flowC = Int32Array.from(c.flow.map((f) => f.contact));
     this.flowNear = Int32Array.from(c.flow.map((f) => f.near));
     this.flowFar = Int32Array.from(c.flow.map((f) => f.far));
@@ -304,9 +305,24 @@ export class WordEvaluator {
     return this.reach[this.inputNet[input]];
   }
 
+  /** Rows of the current word where the `when` of rule `r` (inhibit or require-drive) holds. */
+  whenWord(r: number): number {
+    return this.whenOf[r]!(this.lit) & this.valid;
+  }
+
   /** Rows of the current word where inhibit rule `r` is unsafe (its `when` holds). */
   unsafeWord(r: number): number {
     return this.whenOf[r]!(this.lit) & this.valid;
+  }
+
+  /** Rows of the current word that are demand rows of require-drive rule `r` (its `when` holds). */
+  demandWord(r: number): number {
+    return this.whenOf[r]!(this.lit) & this.valid;
+  }
+
+  /** Demand rows of require-drive rule `r` without steady drive (failing rows), in the current word. */
+  failingWord(r: number): number {
+    return this.whenOf[r]!(this.lit) & this.valid & ~this.drive;
   }
 
   /** Rows of the current word where the forbidden outcome of inhibit rule `r` is true. */
@@ -322,7 +338,7 @@ export class ExtraLiterals {
   readonly words: Int32Array;
   private readonly source: LiteralSource;
   constructor(c: CompiledDesign, literals: Literal[]) {
-    this.source = new LiteralSource(c, literals);
+    this.source = new LiteralSource(c.conditions, literals);
     this.words = this.source.words;
   }
   load(w: number): void {

@@ -1,7 +1,8 @@
 // Validation: zod for the shape, then every cross-reference rule of the spec (section 3).
 // Cross-reference checks run on the raw input even when the shape is broken elsewhere, skipping
 // whatever is malformed (zod already reports it), so one pass lists every problem.
-import { designSchema, TERMINALS, type Design, type Problem } from "./schema";
+import { predicateMatchesSomeRow } from "./satisfiable";
+import { designSchema, TERMINALS, type Design, type Predicate, type Problem } from "./schema";
 
 /** The largest truth table the engine accepts (2^24 rows). */
 export const ENGINE_ROW_LIMIT = 2 ** 24;
@@ -33,6 +34,7 @@ export function validateDesign(input: unknown): ValidationResult {
     }
   }
   if (isObj(input)) crossReferences(input, problems);
+  if (isObj(input)) emptyRules(input, problems);
   if (problems.length > 0 || !parsed.success) {
     return { ok: false, problems: dedupe(problems) };
   }
@@ -202,8 +204,9 @@ function crossReferences(d: Obj, problems: Problem[]): void {
       if (ruleAt.has(r.id)) add(`rules[${i}].id`, `duplicate rule id ${q(r.id)} (first at rules[${ruleAt.get(r.id)}])`);
       else ruleAt.set(r.id, i);
     }
-    if (r.type !== "inhibit") return;
+    if (r.type !== "inhibit" && r.type !== "require-drive") return;
     checkPredicate(r.when, `rules[${i}].when`, 0);
+    if (r.type !== "inhibit") return;
     if (isObj(r.forbid) && isStr(r.forbid.energized)) {
       const target = r.forbid.energized;
       const type = componentType.get(target);
@@ -227,4 +230,29 @@ function crossReferences(d: Obj, problems: Problem[]): void {
     arr(p.any).forEach((c, k) => checkPredicate(c, `${path}.any[${k}]`, depth + 1));
     if (p.not !== undefined) checkPredicate(p.not, `${path}.not`, depth + 1);
   }
+}
+
+/**
+ * Spec 1.6 (version 1.1): a rule whose `when` holds in no row says nothing and makes the design
+ * invalid, at `rules[i].when`. Only a `when` that is otherwise valid is looked at (no problem found
+ * at or under its path), and only when the conditions themselves are sound (no problem under
+ * `conditions`, so the rows are well defined and within the engine's limit).
+ */
+function emptyRules(d: Obj, problems: Problem[]): void {
+  if (problems.some((p) => p.path === "conditions" || p.path.startsWith("conditions["))) return;
+  const statesOf = new Map<string, string[]>();
+  for (const c of arr(d.conditions)) {
+    if (isObj(c) && isStr(c.id)) statesOf.set(c.id, [...new Set(arr(c.states).filter(isStr))]);
+  }
+  arr(d.rules).forEach((r, i) => {
+    if (!isObj(r) || (r.type !== "inhibit" && r.type !== "require-drive") || !isObj(r.when)) return;
+    const path = `rules[${i}].when`;
+    if (problems.some((p) => p.path === path || p.path.startsWith(`${path}.`) || p.path.startsWith(`${path}[`))) return;
+    if (predicateMatchesSomeRow(r.when as Predicate, (id) => statesOf.get(id)!)) return;
+    const why = 'holds in no row of the truth table (an empty list of states, an "any" of nothing, or states that cannot occur together)';
+    problems.push({
+      path,
+      message: `"when" ${why}, so this rule ${r.type === "inhibit" ? "checks nothing" : "demands drive in no row"}`,
+    });
+  });
 }

@@ -80,6 +80,7 @@ function predicateText(p: Predicate): string {
 
 function ruleText(r: Design["rules"][number]): string {
   if (r.type === "no-restart") return "The drive never comes on while the throttle was already held (any sequence of steps from power-up).";
+  if (r.type === "require-drive") return `When ${predicateText(r.when)}: the drive must be on.`;
   const forbid = r.forbid === "drive" ? "the drive" : `input ${r.forbid.energized} energized`;
   return `When ${predicateText(r.when)}: no ${forbid}.`;
 }

@@ -117,6 +117,20 @@ export function generatedDesign(conditions = 21, stageLimit = Infinity): Design 
     { id: "neutral", type: "inhibit", when: { all: [{ cond: cond(dirF), in: ["off"] }, { cond: cond(dirR), in: ["off"] }] }, forbid: "drive" },
     { id: "parallel-member", type: "inhibit", when: { cond: cond(2), in: ["off"] }, forbid: "drive" },
     { id: "key-off", type: "inhibit", when: { cond: cond(0), in: ["off"] }, forbid: { energized: "EN" } },
+    {
+      id: "drives",
+      type: "require-drive",
+      when: {
+        all: [
+          { cond: cond(0), in: ["on"] },
+          { cond: cond(dirF), in: ["on"] },
+          { cond: cond(dirR), in: ["off"] },
+          { cond: cond(brakeA), in: ["off"] },
+          { cond: cond(brakeB), in: ["off"] },
+          { cond: "throttle", in: ["applied"] },
+        ],
+      },
+    },
     { id: "no-surprise", type: "no-restart" },
   ];
   return {

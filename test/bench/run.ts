@@ -27,6 +27,7 @@ function designFacts(c: CompiledDesign) {
     contacts: c.contacts.length,
     nets: c.nets.length,
     inhibitRules: c.rules.filter((r) => r.type === "inhibit").length,
+    requireDriveRules: c.rules.filter((r) => r.type === "require-drive").length,
     noRestartRules: c.rules.filter((r) => r.type === "no-restart").length,
     treeWiring: c.singlePass,
   };

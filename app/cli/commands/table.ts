@@ -1,23 +1,28 @@
 // `chainproof table`: the truth table, streamed as aligned text or CSV.
 import { parseArgs } from "node:util";
-import { csvChunks, textTableChunks, type RowFilter } from "../../engine/index";
+import { csvChunks, filterRuleType, ROW_FILTERS, textTableChunks, type RowFilter } from "../../engine/index";
 import { fail, loadDesign, nonNegativeInt, parseRow, write, type Command } from "../shared";
 
 export const tableCommand: Command = {
   name: "table",
-  usage: "chainproof table <design.json> [--csv] [--from N] [--count M] [--only unsafe|violating|drive] [--rule ID] [--where COND=S1|S2,...]",
+  usage: "chainproof table <design.json> [--csv] [--from N] [--count M] [--only unsafe|violating|drive|demand|failing] [--rule ID] [--where COND=S1|S2,...]",
   help: `chainproof table <design.json> [options]
 
 Prints the truth table, one row per line, streamed. Default output is an aligned
 text table with a header line; --csv prints CSV instead. Columns: row, each
 condition, input:ID (1 energized, 0 dead), powered, enabled, direction, braking,
-throttle, drive (steady drive), rule:ID per inhibit rule (violating, unsafe, or -).
+throttle, drive (steady drive), rule:ID per inhibit rule (violating, unsafe, or -)
+and per require-drive rule (failing: a demand row without drive, demand, or -).
 
 Options:
   --csv                         CSV output
-  --only unsafe|violating|drive keep only these rows (unsafe/violating: for any
-                                inhibit rule, or the one named by --rule)
-  --rule ID                     the inhibit rule for --only unsafe|violating
+  --only unsafe|violating|drive|demand|failing
+                                keep only these rows (unsafe/violating: for any
+                                inhibit rule, demand/failing: for any require-
+                                drive rule, or the one named by --rule)
+  --rule ID                     the rule for --only: an inhibit rule for
+                                unsafe|violating, a require-drive rule for
+                                demand|failing
   --where COND=S1|S2,...        keep rows whose conditions are in the listed states
   --from N                      skip the first N matching rows (default 0)
   --count M                     print at most M rows (default: all)
@@ -39,8 +44,8 @@ Options:
     if (positionals.length !== 1) fail("table takes exactly one <design.json>");
     const from = nonNegativeInt(values.from, "--from");
     const count = nonNegativeInt(values.count, "--count");
-    if (values.only !== undefined && !["unsafe", "violating", "drive"].includes(values.only)) {
-      fail(`--only must be unsafe, violating or drive, got ${JSON.stringify(values.only)}`);
+    if (values.only !== undefined && !(ROW_FILTERS as readonly string[]).includes(values.only)) {
+      fail(`--only must be ${ROW_FILTERS.slice(0, -1).join(", ")} or ${ROW_FILTERS[ROW_FILTERS.length - 1]}, got ${JSON.stringify(values.only)}`);
     }
     const c = loadDesign(positionals[0]);
     const filter: RowFilter = {};
@@ -48,7 +53,10 @@ Options:
     if (values.rule !== undefined) {
       const rule = c.rules.find((r) => r.id === values.rule);
       if (!rule) fail(`--rule: no rule with id ${JSON.stringify(values.rule)}`);
-      if (rule.type !== "inhibit") fail(`--rule: ${JSON.stringify(values.rule)} is not an inhibit rule`);
+      const type = filterRuleType(filter.only);
+      if (rule.type !== type) {
+        fail(`--rule: ${JSON.stringify(values.rule)} is not ${type === "inhibit" ? "an inhibit" : "a require-drive"} rule${type === "inhibit" ? " (use --only demand or failing for a require-drive rule)" : ""}`);
+      }
       filter.rule = values.rule;
     }
     if (values.where !== undefined) {

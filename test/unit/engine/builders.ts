@@ -1,6 +1,7 @@
 // Small helpers to write test designs compactly, and a random design generator for property tests.
 import fc from "fast-check";
 import type { Component, Design, InputFunction, Lockout, Predicate, Rule } from "../../../app/engine/schema";
+import { refMatchesSomeRow } from "./reference";
 
 export type Spec = {
   conditions: Array<[id: string, states: string[]]>;
@@ -46,6 +47,7 @@ export const inhibit = (id: string, when: Predicate, forbid: "drive" | { energiz
   when,
   forbid,
 });
+export const requireDrive = (id: string, when: Predicate): Rule => ({ id, label: id, type: "require-drive", when });
 export const noRestart = (id = "no-restart"): Rule => ({ id, label: id, type: "no-restart" });
 export const is = (cond: string, ...states: string[]): Predicate => ({ cond, in: states });
 
@@ -53,10 +55,15 @@ export const is = (cond: string, ...states: string[]): Predicate => ({ cond, in:
  * A random valid design: 1-4 conditions of 2-3 states, 1-2 supplies, 2-8 contacts, 0-3 junctions,
  * any subset of input functions; contacts between random nets (so series, parallel and bridge
  * arrangements), junction chains, unwired terminals, self-wires and duplicate wires all occur.
+ * Inhibit rules, 0-2 require-drive rules (some pinned to a single row with the throttle applied, so
+ * that some hold) and sometimes a no-restart rule. A rule whose `when` matches no row (spec 1.1:
+ * invalid) is dropped, judged by the reference's brute force; with `emptyRules` such rules are kept
+ * and 1-2 more are added on purpose (an empty state list, an "any" of nothing, a contradiction,
+ * "not always"), so the design is invalid exactly at those rules.
  */
 export function randomDesign(
   g: fc.GeneratorValue,
-  opts: { maxContacts?: number; meshed?: boolean; cutRules?: boolean; maxConditions?: number; maxStates?: number } = {},
+  opts: { maxContacts?: number; meshed?: boolean; cutRules?: boolean; maxConditions?: number; maxStates?: number; emptyRules?: boolean } = {},
 ): Design {
   const int = (min: number, max: number) => g(fc.integer, { min, max });
   const conditions = Array.from({ length: int(1, opts.maxConditions ?? 4) }, (_, i) => ({
@@ -131,9 +138,34 @@ export function randomDesign(
     rules.push(inhibit(`CUT${k}`, { not: { cond, in: closedIn } }, g(fc.boolean) ? "drive" : { energized: target }));
   }
   if (rules.length === 0) rules.push(inhibit("R", { always: true }));
+  // Require-drive rules: a random `when`, or one row (every condition pinned, the throttle applied).
+  for (let k = int(0, 2); k > 0; k--) {
+    const pinned = (): Predicate => ({
+      all: conditions.map((c) => ({
+        cond: c.id,
+        in: [c.id === t.id && throttle.applied.length > 0 ? throttle.applied[int(0, throttle.applied.length - 1)] : c.states[int(0, c.states.length - 1)]],
+      })),
+    });
+    rules.push(requireDrive(`D${k}`, g(fc.boolean) ? pinned() : predicate(0)));
+  }
+  if (opts.emptyRules) {
+    for (let k = int(1, 2); k > 0; k--) {
+      const c = pickCond();
+      const empties: Predicate[] = [
+        { cond: c.id, in: [] },
+        { any: [] },
+        { all: [{ cond: c.id, in: [c.states[0]] }, { cond: c.id, in: [c.states[1]] }] },
+        { not: { always: true } },
+        { all: [predicate(1), { not: { cond: c.id, in: c.states } }] },
+      ];
+      const when = empties[int(0, empties.length - 1)];
+      const at = int(0, rules.length);
+      rules.splice(at, 0, g(fc.boolean) ? inhibit(`E${k}`, when) : requireDrive(`E${k}`, when));
+    }
+  }
   if (g(fc.boolean)) rules.push(noRestart("NR"));
   const lockouts = subset(["power-on", "enable-restore", "direction-engage", "brake-release", "throttle-fault"], 0) as Lockout[];
-  return makeDesign({
+  const design = makeDesign({
     conditions: conditions.map((c) => [c.id, c.states]),
     supplies,
     contacts,
@@ -145,4 +177,6 @@ export function randomDesign(
     brakeCutsDrive: g(fc.boolean),
     rules,
   });
+  if (!opts.emptyRules) design.rules = design.rules.filter((r) => r.type === "no-restart" || refMatchesSomeRow(design, r.when));
+  return design;
 }

@@ -1,11 +1,12 @@
-// The shared example designs against the verdicts of the independent row-by-row reference.
+// The shared example designs against the verdicts of the independent row-by-row reference
+// (spec 1.1; yard-tug has a require-drive rule).
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { compileDesign, evaluateRow, encodeRow, prove, replayTrace, validateDesign } from "../../../app/engine";
-import type { InhibitVerdict, NoRestartVerdict, Verdict } from "../../../app/engine";
+import type { InhibitVerdict, NoRestartVerdict, RequireDriveVerdict, Verdict } from "../../../app/engine";
 
 const DIR = "/work/shared/spec/examples";
-const NAMES = ["trail-bike", "deck-mower", "campus-hauler"];
+const NAMES = ["trail-bike", "deck-mower", "campus-hauler", "yard-tug"];
 const read = (file: string) => JSON.parse(readFileSync(`${DIR}/${file}`, "utf8"));
 
 describe.each(NAMES)("example %s", (name) => {
@@ -32,22 +33,34 @@ describe.each(NAMES)("example %s", (name) => {
         expect((r as InhibitVerdict).unsafeRows).toBe(e.unsafeRows);
         expect((r as InhibitVerdict).violatingRows).toBe(e.violatingRows);
       }
+      if ("demandRows" in e) {
+        expect((r as RequireDriveVerdict).demandRows).toBe(e.demandRows);
+        expect((r as RequireDriveVerdict).failingRows).toBe(e.failingRows);
+      }
+      expect("example" in r).toBe("example" in e);
     });
   });
 
   it("gives examples that really violate their rule", () => {
     for (const r of verdict.rules) {
-      if (!("unsafeRows" in r) || r.holds) continue;
-      expect(r.example).toBeDefined();
-      const row = evaluateRow(c, encodeRow(c, r.example!));
-      expect(row.rules[r.id]).toEqual({ unsafe: true, violating: true });
+      if (r.holds) continue;
+      if ("unsafeRows" in r) {
+        expect(r.example).toBeDefined();
+        const row = evaluateRow(c, encodeRow(c, r.example!));
+        expect(row.rules[r.id]).toEqual({ unsafe: true, violating: true });
+      }
+      if ("demandRows" in r) {
+        const row = evaluateRow(c, encodeRow(c, r.example!));
+        expect(row.demands[r.id]).toEqual({ demand: true, failing: true });
+        expect(row.drive).toBe(false);
+      }
     }
   });
 
   it("gives traces that replay to a violation and are as short as the reference's", () => {
     verdict.rules.forEach((r, i) => {
       const e = expected.rules[i] as NoRestartVerdict;
-      if ("unsafeRows" in r || r.holds) return;
+      if ("unsafeRows" in r || "demandRows" in r || r.holds) return;
       const trace = (r as NoRestartVerdict).trace!;
       expect(trace.length).toBe(e.trace!.length);
       const steps = replayTrace(c, trace);

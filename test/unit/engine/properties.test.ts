@@ -1,5 +1,6 @@
 // Property-based checks on random designs (bridges, junction chains, unwired terminals, several
-// supplies) against three independent references: graph connectivity (graphology), a SAT solver
+// supplies; inhibit, require-drive and no-restart rules, and rules matching no row) against three
+// independent references: graph connectivity (graphology), a SAT solver
 // (logic-solver), and the row-at-a-time reference evaluator.
 import fc from "fast-check";
 import Graph from "graphology";
@@ -24,17 +25,20 @@ import {
   type Design,
   type InhibitVerdict,
   type NoRestartVerdict,
+  type RequireDriveVerdict,
   type Predicate,
   type RowFilter,
 } from "../../../app/engine";
 import { randomDesign } from "./builders";
-import { refVerdict } from "./reference";
+import { refEmptyRulePaths, refVerdict } from "./reference";
 
 const designs = fc.gen().map((g) => randomDesign(g));
 /** Fewer nets for the same contacts: more parallel paths and bridges. */
 const meshedDesigns = fc.gen().map((g) => randomDesign(g, { meshed: true, maxContacts: 9 }));
 /** Meshed wiring whose rules are cut rules (hold when one contact cuts the paths), so faults matter. */
 const faultProneDesigns = fc.gen().map((g) => randomDesign(g, { meshed: true, maxContacts: 9, cutRules: true }));
+/** Designs that also have rules matching no row (an empty state list, an "any" of nothing, a contradiction). */
+const designsWithEmptyRules = fc.gen().map((g) => randomDesign(g, { emptyRules: true }));
 
 /** Energized inputs of one row by connected components of a terminal graph (wires + closed contacts). */
 function inputsByComponents(d: Design, states: Record<string, string>): Record<string, boolean> {
@@ -57,12 +61,12 @@ function inputsByComponents(d: Design, states: Record<string, string>): Record<s
 /**
  * A SAT model of a design over condition-state variables: hop-bounded reachability over nets
  * (wire-joined terminals), one variable per net and hop count, then the controller and drive.
- * Returns, per inhibit rule, a violating row found by the solver or null when it proves the rule.
+ * Formulas name variables by string, so the same formulas serve any number of solvers.
  */
-function satCheck(d: Design): Array<Record<string, string> | null> {
-  const solver = new Logic.Solver();
+function satModel(d: Design) {
+  const constraints: Array<object | string> = [];
   const v = (ci: number, k: number) => `x${ci}_${k}`;
-  d.conditions.forEach((c, ci) => solver.require(Logic.exactlyOne(...c.states.map((_, k) => v(ci, k)))));
+  d.conditions.forEach((c, ci) => constraints.push(Logic.exactlyOne(...c.states.map((_, k) => v(ci, k)))));
   const inState = (condId: string, states: string[]) => {
     const ci = d.conditions.findIndex((c) => c.id === condId);
     const cond = d.conditions[ci];
@@ -86,14 +90,14 @@ function satCheck(d: Design): Array<Record<string, string> | null> {
   const supplies = new Set(d.components.filter((c) => c.type === "supply").map((c) => root(`${c.id}.+`)));
   // r{k}_{n}: net n is connected to a supply through at most k contacts.
   const r = (k: number, n: number) => `r${k}_${n}`;
-  for (const n of nets) solver.require(supplies.has(n) ? r(0, n) : Logic.not(r(0, n)));
+  for (const n of nets) constraints.push(supplies.has(n) ? r(0, n) : Logic.not(r(0, n)));
   const K = nets.length;
   for (let k = 0; k < K; k++) {
     for (const n of nets) {
       const via = edges.flatMap(([a, b, on]) =>
         a === n ? [Logic.and(on, r(k, b))] : b === n ? [Logic.and(on, r(k, a))] : [],
       );
-      solver.require(Logic.equiv(r(k + 1, n), Logic.or(r(k, n), ...via)));
+      constraints.push(Logic.equiv(r(k + 1, n), Logic.or(r(k, n), ...via)));
     }
   }
   const energized = (id: string) => r(K, root(`${id}.in`));
@@ -127,15 +131,53 @@ function satCheck(d: Design): Array<Record<string, string> | null> {
     if ("not" in p) return Logic.not(pred(p.not));
     return Logic.TRUE;
   };
-  return d.rules.map((rule) => {
-    if (rule.type !== "inhibit") return null;
-    const forbidden = rule.forbid === "drive" ? drive : energized(rule.forbid.energized);
-    const solution = solver.solveAssuming(Logic.and(pred(rule.when), forbidden));
-    if (!solution) return null;
-    const trueVars = new Set(solution.getTrueVars());
+  const solver = () => {
+    const s = new Logic.Solver();
+    for (const f of constraints) s.require(f);
+    return s;
+  };
+  const one = solver();
+  const condVars = d.conditions.flatMap((c, ci) => c.states.map((_, k) => v(ci, k)));
+  const rowOf = (trueVars: Set<string>) => {
     const row: Record<string, string> = {};
     d.conditions.forEach((c, ci) => (row[c.id] = c.states.find((_, k) => trueVars.has(v(ci, k)))!));
     return row;
+  };
+  return {
+    drive,
+    pred,
+    energized,
+    /** A row where `f` holds, or null when the solver proves there is none. */
+    witness(f: object | string): Record<string, string> | null {
+      const solution = one.solveAssuming(f);
+      return solution ? rowOf(new Set(solution.getTrueVars())) : null;
+    },
+    /** Number of rows where `f` holds: every solution, each blocked once found, on a solver of its own. */
+    count(f: object | string): number {
+      const s = solver();
+      s.require(f);
+      let n = 0;
+      for (let sol = s.solve(); sol; sol = s.solve()) {
+        n++;
+        const on = sol.getTrueVars().filter((x) => condVars.includes(x));
+        s.forbid(Logic.and(...on));
+      }
+      return n;
+    },
+  };
+}
+
+/**
+ * Per rule, what the solver finds: inhibit rules a violating row, require-drive rules a failing row
+ * (a demand row without drive), or null when it proves there is none; no-restart rules null.
+ */
+function satCheck(d: Design): Array<Record<string, string> | null> {
+  const m = satModel(d);
+  return d.rules.map((rule) => {
+    if (rule.type === "no-restart") return null;
+    if (rule.type === "require-drive") return m.witness(Logic.and(m.pred(rule.when), Logic.not(m.drive)));
+    const forbidden = rule.forbid === "drive" ? m.drive : m.energized(rule.forbid.energized);
+    return m.witness(Logic.and(m.pred(rule.when), forbidden));
   });
 }
 
@@ -149,6 +191,28 @@ describe("random designs", () => {
         for (let i = 0; i < c.rows; i++) expect(encodeRow(c, decodeRow(c, i))).toBe(i);
       }),
       { numRuns: 50 },
+    );
+  }, SLOW);
+
+  // Spec 1.6 (version 1.1): a rule whose `when` holds in no row makes the design invalid at rules[i].when.
+  it("with rules that match no row are invalid exactly at those rules (brute force and SAT agree)", () => {
+    fc.assert(
+      fc.property(designsWithEmptyRules, (d) => {
+        const want = refEmptyRulePaths(d);
+        const m = satModel(d);
+        const bySolver = d.rules.flatMap((r, i) => (r.type !== "no-restart" && m.witness(m.pred(r.when)) === null ? [`rules[${i}].when`] : []));
+        expect(bySolver).toEqual(want);
+        expect(want.length).toBeGreaterThan(0);
+        const checked = validateDesign(d);
+        expect(checked.ok).toBe(false);
+        if (checked.ok) return;
+        expect(checked.problems.map((p) => p.path).sort()).toEqual([...want].sort());
+        for (const p of checked.problems) expect(p.message).toMatch(/holds in no row/);
+        // Without those rules the same design is valid.
+        const kept = { ...d, rules: d.rules.filter((_, i) => !want.includes(`rules[${i}].when`)) };
+        expect(validateDesign(kept).ok).toBe(true);
+      }),
+      { numRuns: 100 },
     );
   }, SLOW);
 
@@ -166,21 +230,62 @@ describe("random designs", () => {
     );
   }, SLOW);
 
-  it("have inhibit verdicts that agree with a SAT solver (logic-solver)", () => {
+  it("have inhibit and require-drive verdicts and counts that agree with a SAT solver (logic-solver)", () => {
+    let requireDriveRules = 0;
+    let requireDriveHolding = 0;
     fc.assert(
       fc.property(designs, (d) => {
         const c = compileDesign(d);
         const verdict = prove(c);
+        const m = satModel(d);
         const witnesses = satCheck(d);
+        expect(verdict.driveRows).toBe(m.count(m.drive));
         d.rules.forEach((rule, i) => {
-          if (rule.type !== "inhibit") return;
+          if (rule.type === "no-restart") return;
           const witness = witnesses[i];
           expect(verdict.rules[i].holds).toBe(witness === null);
-          if (witness) expect(evaluateRow(c, encodeRow(c, witness)).rules[rule.id].violating).toBe(true);
+          if (rule.type === "inhibit") {
+            if (witness) expect(evaluateRow(c, encodeRow(c, witness)).rules[rule.id].violating).toBe(true);
+            return;
+          }
+          requireDriveRules++;
+          if (witness === null) requireDriveHolding++;
+          const got = verdict.rules[i] as RequireDriveVerdict;
+          expect(got.demandRows).toBe(m.count(m.pred(rule.when)));
+          expect(got.failingRows).toBe(m.count(Logic.and(m.pred(rule.when), Logic.not(m.drive))));
+          if (witness) expect(evaluateRow(c, encodeRow(c, witness)).demands[rule.id]).toEqual({ demand: true, failing: true });
+          if (!got.holds) expect(evaluateRow(c, encodeRow(c, got.example!)).demands[rule.id]).toEqual({ demand: true, failing: true });
         });
       }),
-      { numRuns: 40 },
+      { numRuns: 60 },
     );
+    // The generator must exercise both outcomes, or the property says little.
+    expect(requireDriveRules).toBeGreaterThan(10);
+    expect(requireDriveHolding).toBeGreaterThan(0);
+    expect(requireDriveHolding).toBeLessThan(requireDriveRules);
+  }, SLOW);
+
+  // The claim behind every "proven" the product shows: ok means the solver finds no violating or
+  // failing row, the vehicle drives in at least one row, and no rule matches no row.
+  it("are ok only when the solver finds drive, no violation, no failing demand and no rule matching no row", () => {
+    let oks = 0;
+    fc.assert(
+      fc.property(fc.oneof(designs, designsWithEmptyRules), (d) => {
+        const checked = validateDesign(d);
+        const m = satModel(d);
+        const everyRuleMatches = d.rules.every((r) => r.type === "no-restart" || m.witness(m.pred(r.when)) !== null);
+        expect(checked.ok).toBe(everyRuleMatches);
+        if (!checked.ok) return;
+        const verdict = prove(d);
+        const drives = m.witness(m.drive) !== null;
+        const noBadRow = satCheck(d).every((w) => w === null);
+        const restartHolds = refVerdict(d).rules.every((r, i) => d.rules[i].type !== "no-restart" || r.holds);
+        expect(verdict.ok).toBe(drives && noBadRow && restartHolds);
+        if (verdict.ok) oks++;
+      }),
+      { numRuns: 80 },
+    );
+    expect(oks).toBeGreaterThan(0);
   }, SLOW);
 
   it.each([
@@ -204,6 +309,11 @@ describe("random designs", () => {
             const g = r as InhibitVerdict;
             expect([g.unsafeRows, g.violatingRows]).toEqual([w.unsafeRows, w.violatingRows]);
             if (!g.holds) expect(evaluateRow(c, encodeRow(c, g.example!)).rules[g.id].violating).toBe(true);
+          } else if ("demandRows" in w) {
+            const g = r as RequireDriveVerdict;
+            expect([g.demandRows, g.failingRows]).toEqual([w.demandRows, w.failingRows]);
+            expect("example" in g).toBe(!g.holds);
+            if (!g.holds) expect(evaluateRow(c, encodeRow(c, g.example!)).demands[g.id].failing).toBe(true);
           } else if (!r.holds) {
             const trace = (r as NoRestartVerdict).trace!;
             expect(trace.length).toBe((w as NoRestartVerdict).trace!.length);
@@ -217,15 +327,18 @@ describe("random designs", () => {
   }, SLOW);
 
   it("count, page, find and export filtered rows consistently", () => {
+    const filters = fc.constantFrom<RowFilter["only"]>(undefined, "unsafe", "violating", "drive", "demand", "failing");
     fc.assert(
-      fc.property(designs, fc.constantFrom<RowFilter["only"]>(undefined, "unsafe", "violating", "drive"), (d, only) => {
+      fc.property(designs, filters, (d, only) => {
         const c = compileDesign(d);
         const filter: RowFilter = { only, where: { [c.conditions[0].id]: [c.conditions[0].states[1]] } };
         const all = pageRows(c, { count: c.rows }).rows;
+        const byRule = (r: (typeof all)[number]) => {
+          if (only === "unsafe" || only === "violating") return Object.values(r.rules).some((x) => (only === "unsafe" ? x.unsafe : x.violating));
+          return Object.values(r.demands).some((x) => (only === "demand" ? x.demand : x.failing));
+        };
         const match = (r: (typeof all)[number]) =>
-          r.states[c.conditions[0].id] === c.conditions[0].states[1] &&
-          (only === undefined ||
-            (only === "drive" ? r.drive : Object.values(r.rules).some((x) => (only === "unsafe" ? x.unsafe : x.violating))));
+          r.states[c.conditions[0].id] === c.conditions[0].states[1] && (only === undefined || (only === "drive" ? r.drive : byRule(r)));
         const expected = all.filter(match).map((r) => r.index);
         expect(countRows(c, filter)).toBe(expected.length);
         const page = pageRows(c, { filter, from: 1, count: 3 });
@@ -234,9 +347,27 @@ describe("random designs", () => {
         expect(findRow(c, filter, 0)).toBe(expected.length > 0 ? expected[0] : -1);
         if (expected.length > 1) expect(findRow(c, filter, expected[0] + 1)).toBe(expected[1]);
         const csv = [...csvChunks(c, filter)].join("");
-        expect(csv.trimEnd().split("\n").length).toBe(1 + expected.length);
+        const lines = csv.trimEnd().split("\n");
+        expect(lines.length).toBe(1 + expected.length);
+        // The CSV's rule columns say the same as the row views, for every rule with a column.
+        const header = lines[0].split(",");
+        for (const line of lines.slice(1)) {
+          const cells = line.split(",");
+          const view = all[Number(cells[0])];
+          for (const rule of d.rules) {
+            if (rule.type === "no-restart") continue;
+            const cell = cells[header.indexOf(`rule:${rule.id}`)];
+            if (rule.type === "inhibit") {
+              const x = view.rules[rule.id];
+              expect(cell).toBe(x.violating ? "violating" : x.unsafe ? "unsafe" : "-");
+            } else {
+              const x = view.demands[rule.id];
+              expect(cell).toBe(x.failing ? "failing" : x.demand ? "demand" : "-");
+            }
+          }
+        }
       }),
-      { numRuns: 60 },
+      { numRuns: 80 },
     );
   }, SLOW);
 });

@@ -37,6 +37,18 @@ export function refHolds(p: Predicate, states: RowStates): boolean {
   return true;
 }
 
+/** Whether `when` holds in at least one row, by trying every row. */
+export function refMatchesSomeRow(d: Design, when: Predicate): boolean {
+  const n = refRowCount(d);
+  for (let i = 0; i < n; i++) if (refHolds(when, refDecode(d, i))) return true;
+  return false;
+}
+
+/** Spec 1.6 (1.1): the paths of the rules whose `when` holds in no row (each makes the design invalid). */
+export function refEmptyRulePaths(d: Design): string[] {
+  return d.rules.flatMap((r, i) => (r.type !== "no-restart" && !refMatchesSomeRow(d, r.when) ? [`rules[${i}].when`] : []));
+}
+
 /** Energized inputs by breadth-first search over terminals (wires and closed contacts are edges). */
 export function refInputs(d: Design, states: RowStates, faults: Fault[] = []): Record<string, boolean> {
   const edges = new Map<string, string[]>();
@@ -163,6 +175,7 @@ export function refRestartTrace(d: Design, rows: RefRow[]): number[] | null {
   return null;
 }
 
+/** Per rule: rows where `when` holds and the bad ones among them (violating / failing), with the first bad row. */
 function inhibitCounts(d: Design, faults: Fault[]) {
   const n = refRowCount(d);
   const counts = d.rules.map(() => ({ unsafe: 0, violating: 0, example: -1 }));
@@ -174,9 +187,9 @@ function inhibitCounts(d: Design, faults: Fault[]) {
     rows.push(row);
     if (row.drive) driveRows++;
     d.rules.forEach((rule, k) => {
-      if (rule.type !== "inhibit" || !refHolds(rule.when, states)) return;
+      if (rule.type === "no-restart" || !refHolds(rule.when, states)) return;
       counts[k].unsafe++;
-      const bad = rule.forbid === "drive" ? row.drive : row.inputs[rule.forbid.energized];
+      const bad = rule.type === "require-drive" ? !row.drive : rule.forbid === "drive" ? row.drive : row.inputs[rule.forbid.energized];
       if (bad) {
         counts[k].violating++;
         if (counts[k].example < 0) counts[k].example = i;
@@ -186,20 +199,18 @@ function inhibitCounts(d: Design, faults: Fault[]) {
   return { counts, driveRows, rows };
 }
 
-/** The whole verdict, row by row, fault by fault. */
+/** The whole verdict, row by row, fault by fault (require-drive rules are not re-checked under faults). */
 export function refVerdict(d: Design): Verdict {
   const base = inhibitCounts(d, []);
   const trace = d.rules.some((r) => r.type === "no-restart") ? refRestartTrace(d, base.rows) : null;
   const rules = d.rules.map((rule, k) => {
+    const c = base.counts[k];
+    const example = c.violating > 0 ? { example: refDecode(d, c.example) } : {};
     if (rule.type === "inhibit") {
-      const c = base.counts[k];
-      return {
-        id: rule.id,
-        holds: c.violating === 0,
-        unsafeRows: c.unsafe,
-        violatingRows: c.violating,
-        ...(c.violating > 0 ? { example: refDecode(d, c.example) } : {}),
-      };
+      return { id: rule.id, holds: c.violating === 0, unsafeRows: c.unsafe, violatingRows: c.violating, ...example };
+    }
+    if (rule.type === "require-drive") {
+      return { id: rule.id, holds: c.violating === 0, demandRows: c.unsafe, failingRows: c.violating, ...example };
     }
     return trace === null
       ? { id: rule.id, holds: true }
@@ -218,7 +229,7 @@ export function refVerdict(d: Design): Verdict {
   }
   return {
     format: "chainproof/verdict@1",
-    ok: rules.every((r) => r.holds),
+    ok: rules.every((r) => r.holds) && base.driveRows > 0,
     rows: refRowCount(d),
     driveRows: base.driveRows,
     rules,

@@ -1,4 +1,7 @@
-// Scenarios from outside requirements (see the source named beside each check).
+// Scenarios from outside requirements (see the source named beside each check; the values and their
+// status are those of ../shared/spec/check-values.md). ISO 13849-1 clause numbers here are those of
+// its 2006 edition, which the 2015 and 2023 editions supersede (the clauses on restart, fault
+// consideration and categories kept their substance: from memory).
 import { describe, expect, it } from "vitest";
 import { compileDesign, prove, replayTrace, type Design, type NoRestartVerdict } from "../../../app/engine";
 import { inhibit, is, makeDesign, noRestart, type Spec } from "./builders";
@@ -36,14 +39,15 @@ function chargeInlet(arrangement: "series" | "parallel"): Design {
 }
 
 describe("charge-inlet interlock", () => {
-  // UN ECE Regulation No. 100, 02 series (vehicle connected to the external supply must not move
-  // by its own propulsion) - from memory.
+  // UN ECE Regulation No. 100, 02 series (a vehicle connected to the external supply must not move
+  // by its own propulsion) - from memory. R100 applies to road vehicles of categories M and N; for
+  // carts, tugs and mowers it is a benchmark borrowed from road vehicles, not their requirement.
   it("holds with the inlet switch in series in the enable line", () => {
     const v = prove(chargeInlet("series"));
     expect(v.rules[0]).toMatchObject({ id: "charging", holds: true, violatingRows: 0 });
   });
 
-  // UN ECE Regulation No. 100, 02 series - from memory.
+  // UN ECE Regulation No. 100, 02 series - from memory; road vehicles of categories M and N only.
   it("fails with the inlet switch in parallel with the seat switch", () => {
     const v = prove(chargeInlet("parallel"));
     expect(v.rules[0]).toMatchObject({
@@ -81,8 +85,11 @@ function seatInterlock(lockouts: Spec["lockouts"]): Design {
 }
 
 describe("restoring an interlock on a held throttle", () => {
-  // ISO 13849-1:2006, 5.2.2 (a reset must not by itself cause motion); ANSI/ITSDF B56.1,
-  // 7.2.10-7.2.11 (travel must not resume automatically when the operator returns).
+  // ISO 13849-1:2006 (superseded), 5.2.3 (restart: after an interlock is restored, no automatic
+  // restart where it could be hazardous). ANSI/ITSDF B56.1, 7.2.10-7.2.11 (travel must not resume
+  // automatically when the operator returns): clause numbers as quoted in a trade article, not read
+  // in the standard; B56.1 covers lift trucks, and ANSI/ITSDF B56.8 is the closer standard for
+  // carts and burden carriers (from memory).
   it("fails no-restart without the enable-restore lockout, with a replayable counterexample", () => {
     const d = seatInterlock(["power-on"]);
     const rule = prove(d).rules[0] as NoRestartVerdict;
@@ -94,13 +101,14 @@ describe("restoring an interlock on a held throttle", () => {
     expect(steps[2].row.states).toMatchObject({ seat: "occupied", throttle: "applied" });
   });
 
-  // ISO 13849-1:2006, 5.2.2; ANSI/ITSDF B56.1, 7.2.10-7.2.11.
+  // ISO 13849-1:2006 (superseded), 5.2.3; ANSI/ITSDF B56.1, 7.2.10-7.2.11 as quoted in a trade
+  // article (B56.8 is the closer standard for carts and burden carriers, from memory).
   it("holds with the enable-restore lockout", () => {
     expect(prove(seatInterlock(["power-on", "enable-restore"])).rules[0].holds).toBe(true);
   });
 
-  // ISO 13849-1:2006, 5.2.2: with a throttle fault state, returning from fault to applied is also a
-  // start without a deliberate release, so the throttle-fault lockout is needed as well.
+  // ISO 13849-1:2006 (superseded), 5.2.3: with a throttle fault state, returning from fault to
+  // applied is also a start without a deliberate release, so the throttle-fault lockout is needed.
   it("needs the throttle-fault lockout when the throttle can report a fault", () => {
     const base = seatInterlock(["power-on", "enable-restore"]);
     base.conditions[2].states.push("fault");
@@ -114,7 +122,8 @@ describe("restoring an interlock on a held throttle", () => {
 });
 
 describe("power-on with the throttle held", () => {
-  // IEC 60204-1, 7.5 (switching the supply on must not cause an unexpected restart).
+  // IEC 60204-1, 7.5 (switching the supply on must not cause an unexpected restart; read in a
+  // translation).
   it("fails no-restart without the power-on lockout", () => {
     const d = seatInterlock([]);
     const rule = prove(d).rules[0] as NoRestartVerdict;
@@ -147,14 +156,15 @@ describe("single faults", () => {
       rules: [inhibit("charging", is("plug", "inserted"))],
     });
 
-  // ISO 13849-1:2006, 7.2 (single-fault criterion: one fault at a time).
+  // ISO 13849-1:2006 (superseded), 7.2 (single-fault criterion: one fault at a time; faults of a
+  // common cause count as one, which a contact-by-contact check does not cover).
   it("a stuck-closed contact in a single chain defeats its rule", () => {
     const v = prove(chain([["CI", "plug", ["free"]]], [["BAT.+", "CI.1"], ["CI.2", "EN.in"]]));
     expect(v.ok).toBe(true);
     expect(v.singleFaults).toEqual([{ component: "CI", mode: "stuck-closed", defeats: ["charging"] }]);
   });
 
-  // ISO 13849-1:2006, 7.2.
+  // ISO 13849-1:2006 (superseded), 7.2.
   it("a redundant pair in series is not defeated by any single fault", () => {
     const v = prove(
       chain(
