@@ -46,7 +46,7 @@ const errorBody = z
   .loose()
   .meta({
     id: "Error",
-    description: "Every answer that is not a success. Some add a field beside error: currentVersion (409 stale_draft), latestRevision (409 stale_revision), verdict (422 rules_fail).",
+    description: "Every answer that is not a success. Some add a field beside error: currentVersion (409 stale_draft), latestRevision (409 stale_revision), verdict (422 rules_fail and never_drives).",
   });
 
 const iso = z.string().meta({ format: "date-time" });
@@ -399,7 +399,7 @@ const paths: ZodOpenApiPathsObject = {
       responses: {
         "201": ok("Saved.", z.object({ revision: z.object({ number: z.number().int(), contentHash: z.string(), verdict }) })),
         "409": fail("The change starts from an older revision (stale_revision; latestRevision beside error)."),
-        "422": fail("Some rule fails (rules_fail; verdict beside error). Nothing was saved."),
+        "422": fail("The design never drives (never_drives) or some rule fails (rules_fail); the verdict is beside error. Nothing was saved."),
         ...writing,
       },
     }),

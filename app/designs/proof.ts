@@ -29,6 +29,24 @@ export function proveDocument(document: unknown): ProofOutcome {
   return { ok: true, design: valid.design, verdict: prove(valid.design) };
 }
 
+/**
+ * Why a proven document may not be saved as a revision (spec 1.1), as the API says it: null when
+ * every rule holds and the design drives in at least one row. A design that never drives is named
+ * first: it satisfies every inhibit rule and proves nothing.
+ */
+export function revisionRefusal(verdict: Verdict): { code: "never_drives" | "rules_fail"; message: string } | null {
+  if (verdict.ok) return null;
+  const failing = verdict.rules.filter((r) => !r.holds).map((r) => r.id);
+  const fails = failing.length === 0 ? "" : `${failing.length} of ${verdict.rules.length} ${verdict.rules.length === 1 ? "rule fails" : "rules fail"} (${failing.join(", ")})`;
+  if (verdict.driveRows === 0) {
+    return {
+      code: "never_drives",
+      message: `The design never drives: no row of its truth table has the drive on, so its rules prove nothing${fails ? `; also ${fails}` : ""}. Nothing was saved.`,
+    };
+  }
+  return { code: "rules_fail", message: `${fails}; only proven designs are saved as revisions. Nothing was saved.` };
+}
+
 /** The summary stored with a draft: its problems, or which rules fail when the table is small enough. */
 export function checkDraft(document: unknown): DraftCheck {
   const valid = validateDesign(document);
@@ -41,6 +59,7 @@ export function checkDraft(document: unknown): DraftCheck {
     ok: v.ok,
     failing: v.rules.filter((r) => !r.holds).length,
     rules: v.rules.length,
+    driveRows: v.driveRows,
     singleFaults: v.singleFaults.length,
     rows: v.rows,
   };

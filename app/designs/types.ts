@@ -60,7 +60,8 @@ export type DesignEditorProps = {
 /** The stored summary of a draft's check, made when the draft is saved. */
 export type DraftCheck =
   | { state: "invalid"; problems: number }
-  | { state: "checked"; ok: boolean; failing: number; rules: number; singleFaults: number; rows: number }
+  /** `driveRows` is absent from checks stored before spec 1.1. */
+  | { state: "checked"; ok: boolean; failing: number; rules: number; singleFaults: number; rows: number; driveRows?: number }
   | { state: "unchecked"; rows: number };
 
 /** One design as listed (page and API). Dates are ISO strings. */
@@ -98,6 +99,7 @@ export function describeDraftCheck(check: DraftCheck): string {
       return `too large to check on save (${check.rows.toLocaleString("en-US")} rows)`;
     case "checked":
       if (check.ok) return check.rules === 0 ? "no rules yet" : "every rule holds";
+      if (check.driveRows === 0) return check.failing === 0 ? "never drives" : `never drives; ${check.failing} of ${check.rules} ${check.rules === 1 ? "rule fails" : "rules fail"}`;
       return `${check.failing} of ${check.rules} ${check.rules === 1 ? "rule fails" : "rules fail"}`;
   }
 }

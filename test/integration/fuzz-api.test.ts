@@ -100,13 +100,20 @@ function checkAnswer(a: Answer & { sent: unknown; bytes: number }, allowed: numb
 }
 
 /** What the engine says of a document sent in a body that the server reads as JSON. */
-function engineView(a: { sent: unknown; bytes: number }): { readable: boolean; valid: boolean; proven: boolean | null; rows: number } {
+function engineView(a: { sent: unknown; bytes: number }): {
+  readable: boolean;
+  valid: boolean;
+  proven: boolean | null;
+  neverDrives: boolean | null;
+  rows: number;
+} {
   const readable = a.bytes <= BODY_MAX && isObj(a.sent) && a.sent.document !== undefined;
-  if (!readable) return { readable, valid: false, proven: null, rows: 0 };
+  if (!readable) return { readable, valid: false, proven: null, neverDrives: null, rows: 0 };
   const v = validateDesign((a.sent as { document: unknown }).document);
-  if (!v.ok) return { readable, valid: false, proven: null, rows: 0 };
+  if (!v.ok) return { readable, valid: false, proven: null, neverDrives: null, rows: 0 };
   const rows = v.design.conditions.reduce((n, c) => n * c.states.length, 1);
-  return { readable, valid: true, proven: rows <= 2 ** 14 ? prove(v.design).ok : null, rows };
+  const verdict = rows <= 2 ** 14 ? prove(v.design) : null;
+  return { readable, valid: true, proven: verdict ? verdict.ok : null, neverDrives: verdict ? verdict.driveRows === 0 : null, rows };
 }
 
 function cases(wrap: (design: Record<string, Json>) => Record<string, Json>, rawAround: Json): fc.Arbitrary<Case> {
@@ -200,7 +207,9 @@ describe("the design API under generated bad input", () => {
         if (a.status === 201) expect(e.valid && e.proven !== false).toBe(true);
         if (a.status === 422) {
           expect(e.proven === null || e.proven === false).toBe(true);
-          expect(a.json.error.code).toBe("rules_fail");
+          // Spec 1.1: a design that never drives is refused as such, whatever its rules say.
+          if (e.neverDrives !== null) expect(a.json.error.code).toBe(e.neverDrives ? "never_drives" : "rules_fail");
+          else expect(["never_drives", "rules_fail"]).toContain(a.json.error.code);
         }
       }),
       { seed: SEED + 1, numRuns: 450 },

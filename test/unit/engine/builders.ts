@@ -177,6 +177,9 @@ export function randomDesign(
     brakeCutsDrive: g(fc.boolean),
     rules,
   });
-  if (!opts.emptyRules) design.rules = design.rules.filter((r) => r.type === "no-restart" || refMatchesSomeRow(design, r.when));
+  if (!opts.emptyRules) {
+    design.rules = design.rules.filter((r) => r.type === "no-restart" || refMatchesSomeRow(design, r.when));
+    if (!design.rules.some((r) => r.type === "inhibit")) design.rules.unshift(inhibit("R", { always: true }));
+  }
   return design;
 }

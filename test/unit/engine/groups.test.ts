@@ -19,7 +19,7 @@ import {
   type RowGroup,
 } from "../../../app/engine";
 import { is, makeDesign, randomDesign } from "./builders";
-import { refDecode, refHolds, refRow, refRowCount, type RefRow } from "./reference";
+import { refDecode, refHolds, refMatchesSomeRow, refRow, refRowCount, type RefRow } from "./reference";
 
 const SLOW = 120_000;
 const EXAMPLES = "/work/shared/spec/examples";
@@ -332,7 +332,8 @@ const revisedPairs = fc.gen().map((g) => {
   if (after.wires.length > 0 && g(fc.boolean)) after.wires.splice(g(fc.integer, { min: 0, max: after.wires.length - 1 }), 1);
   const inhibit = after.rules.flatMap((r) => (r.type === "inhibit" ? [r] : []));
   if (inhibit.length > 1 && g(fc.boolean)) after.rules = after.rules.filter((r) => r !== inhibit[0]);
-  else if (g(fc.boolean)) inhibit[0].when = { not: inhibit[0].when };
+  // Negated only when the negation still holds somewhere (spec 1.1: a rule matching no row is invalid).
+  else if (g(fc.boolean) && refMatchesSomeRow(after, { not: inhibit[0].when })) inhibit[0].when = { not: inhibit[0].when };
   return { before, after };
 });
 

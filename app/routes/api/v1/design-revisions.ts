@@ -4,12 +4,13 @@
 //   201 { revision: { number, contentHash, verdict } }
 //   400 { error: { code: "invalid_design" | "invalid_body" | "invalid_json", message, fields } }
 //   409 { error: { code: "stale_revision", ... }, latestRevision }
-//   422 { error: { code: "rules_fail", ... }, verdict }
+//   422 { error: { code: "never_drives" | "rules_fail", ... }, verdict }  (spec 1.1: ok needs a drive row)
 import type { Route } from "./+types/design-revisions";
 import { CAN } from "~/lib/roles";
 import { apiError, handleApi, readJsonBody, requireMethod, storableJsonProblem, zodFields } from "~/designs/api.server";
 import { listRevisions, requireDesign, saveRevision } from "~/designs/designs.server";
 import { proveOffThread } from "~/proofs/pool.server";
+import { revisionRefusal } from "~/designs/proof";
 import { jsonObjectSchema, saveRevisionBodySchema } from "~/designs/forms";
 import { DESIGN_BODY_MAX_BYTES } from "~/designs/types";
 import { parseQuery } from "~/api/access.server";
@@ -56,16 +57,8 @@ export async function action({ request, params }: Route.ActionArgs) {
       const n = proof.problems.length;
       return apiError(400, "invalid_design", `The design breaks the format in ${n} ${n === 1 ? "place" : "places"}; nothing was saved.`, proof.problems);
     }
-    if (!proof.verdict.ok) {
-      const failing = proof.verdict.rules.filter((r) => !r.holds).map((r) => r.id);
-      return apiError(
-        422,
-        "rules_fail",
-        `${failing.length} of ${proof.verdict.rules.length} rules fail (${failing.join(", ")}); only proven designs are saved as revisions.`,
-        [],
-        { verdict: proof.verdict },
-      );
-    }
+    const refusal = revisionRefusal(proof.verdict);
+    if (refusal) return apiError(422, refusal.code, refusal.message, [], { verdict: proof.verdict });
 
     const saved = await saveRevision(member.workspace.id, design.id, member.user.id, {
       design: proof.design,
