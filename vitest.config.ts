@@ -8,6 +8,8 @@ export default defineConfig({
   test: {
     projects: [
       {
+        // Inherits the root config (the "~" alias of app/).
+        extends: true,
         test: {
           name: "unit",
           include: ["test/unit/**/*.test.{ts,tsx}", "app/**/*.test.{ts,tsx}"],
@@ -15,9 +17,13 @@ export default defineConfig({
         },
       },
       {
+        // Inherits the root config (the "~" alias of app/).
+        extends: true,
         test: {
           name: "integration",
           include: ["test/integration/**/*.test.ts"],
+          // Every answer of /api/v1 is checked against its schema (test/support/answers.ts).
+          setupFiles: ["test/support/check-answers.ts"],
           environment: "node",
           fileParallelism: false,
           testTimeout: 30_000,
@@ -26,9 +32,11 @@ export default defineConfig({
       },
       {
         // Stops and starts the test database: run on its own, after the integration tests.
+        extends: true,
         test: {
           name: "fault",
           include: ["test/fault/**/*.test.ts"],
+          setupFiles: ["test/support/check-answers.ts"],
           environment: "node",
           fileParallelism: false,
           testTimeout: 60_000,

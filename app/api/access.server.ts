@@ -4,7 +4,7 @@ import { eq } from "drizzle-orm";
 import type { z } from "zod";
 import { db, schema } from "~/db/client.server";
 import { requireMember, requireUser, type Membership } from "~/auth/guard.server";
-import { apiError, readJsonBody, zodFields } from "~/designs/api.server";
+import { apiError, readJsonBody, zodFields } from "~/api/http.server";
 import { jsonObjectSchema } from "~/designs/forms";
 import type { Role } from "~/lib/roles";
 

@@ -1,7 +1,7 @@
 // Cursor pagination of API lists (docs/decisions/085): a cursor is the base64url JSON of the last
 // item's sort key and id, so a page continues after that item even when items were added since.
 import { z } from "zod";
-import { apiError } from "~/designs/api.server";
+import { apiError } from "~/api/http.server";
 import { PAGE_LIMIT_DEFAULT, type PageQuery } from "./schemas";
 
 export type SortKey = [string | number, string];

@@ -1,5 +1,5 @@
 // Row groups and blocking reasons over the API (spec section 4): the query strings and the answers,
-// written once as zod schemas. The routes validate with them and the OpenAPI document uses them.
+// written once as zod schemas. The routes validate with them; the endpoint table (endpoints.ts) uses them.
 import { z } from "zod";
 import { BLOCKING_REASONS } from "~/engine";
 

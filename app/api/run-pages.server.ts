@@ -1,6 +1,6 @@
 // Pages of bench runs for the API: keyset pagination in the database (runs are many and only grow),
 // newest first; the cursor carries the exact start time and the id (docs/decisions/085).
-import { apiError } from "~/designs/api.server";
+import { apiError } from "~/api/http.server";
 import { listRuns, type RunFilter } from "~/bench-runs/bench-runs.server";
 import { decodeCursor, encodeCursor } from "./pagination.server";
 import { PAGE_LIMIT_DEFAULT, type PageQuery } from "./schemas";

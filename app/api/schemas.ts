@@ -1,6 +1,6 @@
 // Inputs of the JSON API (/api/v1) that are not a page form's: query strings, JSON bodies and
 // pagination. The routes validate with these and the OpenAPI document is generated from the same
-// schemas (app/api/openapi.server.ts), so the description cannot drift from what is checked.
+// schemas (the endpoint table, app/api/endpoints.ts), so the description cannot drift from what is checked.
 import { z } from "zod";
 import { vehicleSchema } from "~/lib/forms";
 import { STEP_OUTCOMES } from "~/bench-runs/outcomes";

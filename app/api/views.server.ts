@@ -1,12 +1,15 @@
-// The JSON shapes of vehicles and bench runs in API answers (described in app/api/openapi.server.ts).
+// Vehicles and bench runs as the API answers them; each view returns the type of its answer schema
+// (app/api/answers.ts), so a field the schema does not describe does not compile.
+import type { z } from "zod";
 import type { listVehicles, openAttention, ReleaseSummary } from "~/vehicles/vehicles.server";
 import { verifyRecord, type RunDetail, type RunSummary } from "~/bench-runs/bench-runs.server";
 import type { Vehicle } from "~/db/schema.server";
+import type { releaseSchema, runSchema, runSummarySchema, vehicleSchema, vehicleSummarySchema } from "./answers";
 
 type Listed = Awaited<ReturnType<typeof listVehicles>>[number];
 type Current = NonNullable<Listed["release"]>;
 
-export function releaseJson(r: ReleaseSummary | Current) {
+export function releaseJson(r: ReleaseSummary | Current): z.input<typeof releaseSchema> {
   return {
     id: r.id,
     revisionId: r.revisionId,
@@ -20,7 +23,7 @@ export function releaseJson(r: ReleaseSummary | Current) {
   };
 }
 
-export function vehicleSummaryJson(v: Listed) {
+export function vehicleSummaryJson(v: Listed): z.input<typeof vehicleSummarySchema> {
   return {
     id: v.id,
     name: v.name,
@@ -35,7 +38,7 @@ export function vehicleJson(
   v: Vehicle,
   history: ReleaseSummary[],
   attention: Awaited<ReturnType<typeof openAttention>>,
-) {
+): z.input<typeof vehicleSchema> {
   return {
     id: v.id,
     name: v.name,
@@ -59,7 +62,7 @@ export function vehicleJson(
   };
 }
 
-export function runSummaryJson(r: RunSummary) {
+export function runSummaryJson(r: RunSummary): z.input<typeof runSummarySchema> {
   return {
     id: r.id,
     status: r.status as "in-progress" | "completed",
@@ -73,7 +76,7 @@ export function runSummaryJson(r: RunSummary) {
   };
 }
 
-export function runJson(run: RunDetail, slug: string) {
+export function runJson(run: RunDetail, slug: string): z.input<typeof runSchema> {
   const plan = run.run.plan;
   return {
     id: run.run.id,

@@ -2,11 +2,13 @@
 // is still open. The page keeps it in swr, read from GET /api/v1/bench-runs/:runId (every 10 s and
 // when the tab regains focus), and changes it at once when a technician taps a result (optimistic),
 // then saves through PUT /api/v1/bench-runs/:runId/steps/:n. No server imports: runs in the browser.
-import type { runJson } from "~/api/views.server";
+import type { RunJson, RunStepJson } from "~/api/answers";
+import { api } from "~/api/endpoints";
+import { ApiError, apiFetcher, apiUrl, fetchApi } from "~/api/client";
 import type { StepOutcome } from "./outcomes";
 
-type ApiRun = ReturnType<typeof runJson>;
-type ApiStep = ApiRun["steps"][number];
+type ApiRun = RunJson;
+type ApiStep = RunStepJson;
 
 export type LiveStep = {
   n: number;
@@ -18,8 +20,7 @@ export type LiveStep = {
 };
 export type LiveRun = { status: ApiRun["status"]; steps: LiveStep[] };
 
-export const runApiPath = (runId: string) => `/api/v1/bench-runs/${encodeURIComponent(runId)}`;
-export const stepApiPath = (runId: string, n: number) => `${runApiPath(runId)}/steps/${n}`;
+export const runApiPath = (runId: string) => apiUrl(api.getRun, { runId });
 
 export function liveStep(s: ApiStep): LiveStep {
   return {
@@ -50,32 +51,19 @@ export function progressOf(steps: readonly Pick<LiveStep, "outcome">[]) {
   return { done: steps.filter((s) => s.outcome).length, failed: steps.filter((s) => s.outcome === "fail").length };
 }
 
-type ApiError = { error?: { message?: string; fields?: Array<{ path: string; message: string }> } };
+const fetchRun = apiFetcher(api.getRun);
 
-async function answer<T>(res: Response): Promise<T> {
-  const body = (await res.json().catch(() => null)) as (T & ApiError) | null;
-  if (!res.ok || body === null) throw new Error(body?.error?.message ?? `The server answered ${res.status}.`);
-  return body;
-}
-
-/** swr's fetcher of the run. */
+/** swr's fetcher of the run (keyed by runApiPath). */
 export async function fetchLiveRun(url: string): Promise<LiveRun> {
-  const res = await fetch(url, { headers: { accept: "application/json" } });
-  return liveFromApi((await answer<{ run: ApiRun }>(res)).run);
+  return liveFromApi((await fetchRun(url)).run);
 }
 
 /** Saves a step's result; the answer is the step as saved. Throws an Error with a message for people. */
 export async function putStepOutcome(runId: string, n: number, status: StepOutcome): Promise<LiveStep> {
-  let res: Response;
   try {
-    res = await fetch(stepApiPath(runId, n), {
-      method: "PUT",
-      headers: { "content-type": "application/json", accept: "application/json" },
-      body: JSON.stringify({ status }),
-      credentials: "same-origin",
-    });
-  } catch {
-    throw new Error("The server could not be reached; check the connection and tap again.");
+    return liveStep((await fetchApi(api.recordStep, { params: { runId, n }, body: { status } })).step);
+  } catch (e) {
+    if (e instanceof ApiError && e.status === 0) throw new Error("The server could not be reached; check the connection and tap again.");
+    throw e;
   }
-  return liveStep((await answer<{ step: ApiStep }>(res)).step);
 }

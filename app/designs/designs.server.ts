@@ -8,7 +8,7 @@ import { recordAudit } from "~/audit/audit.server";
 import { getVehicle } from "~/vehicles/vehicles.server";
 import type { Design, Verdict } from "~/engine";
 import type { Role } from "~/lib/roles";
-import { apiError } from "./api.server";
+import { apiError } from "~/api/http.server";
 import { contentHash } from "./content-hash.server";
 import { startingDocument } from "./templates.server";
 import { NO_VEHICLE, type CreateDesignInput, type DesignFilter } from "./forms";

@@ -1,6 +1,7 @@
 // Schemas of the design pages and API bodies, shared by the browser (immediate feedback) and the
 // server (the authority).
 import { z } from "zod";
+import { storableText } from "~/lib/storable-json";
 import { DESIGN_STATUSES, REVISION_MESSAGE_MAX } from "./types";
 
 /** How a new design starts: blank, or a copy of one of the demo designs. */
@@ -13,9 +14,6 @@ export const STARTS = [
 export type StartKey = (typeof STARTS)[number]["key"];
 const startKeys = STARTS.map((s) => s.key) as [StartKey, ...StartKey[]];
 
-// PostgreSQL text refuses the NUL character, and an unpaired surrogate has no UTF-8 form.
-const UNSTORABLE_TEXT = /\u0000|[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/;
-const storableText = (s: string) => !UNSTORABLE_TEXT.test(s);
 const UNSTORABLE_MESSAGE = "Remove the NUL character or the broken surrogate pair.";
 /** The largest number a PostgreSQL integer column (versions, revision numbers) holds. */
 const PG_INT_MAX = 2_147_483_647;

@@ -1,6 +1,7 @@
 // Types and limits shared by the design pages, the design API and the canvas editor.
 // No server imports here: the browser bundle imports this module.
 import type { Problem, Verdict } from "~/engine";
+import type { DraftCheck } from "~/api/answers";
 
 export type { Problem, Verdict };
 
@@ -27,8 +28,6 @@ export const REVISION_MESSAGE_MAX = 500;
 
 /** A problem with a request or a document, named by the path of the offending field. */
 export type FieldProblem = { path: string; message: string };
-/** The error body of every design API response that is not a success. */
-export type ApiErrorBody = { error: { code: string; message: string; fields: FieldProblem[] } };
 
 export type SaveDraftResult = { ok: true; version: number } | { ok: false; status: 409; currentVersion: number };
 
@@ -57,38 +56,9 @@ export type DesignEditorProps = {
   onSaveRevision: (doc: unknown, baseRevision: number, message: string) => Promise<SaveRevisionResult>;
 };
 
-/** The stored summary of a draft's check, made when the draft is saved. */
-export type DraftCheck =
-  | { state: "invalid"; problems: number }
-  /** `driveRows` is absent from checks stored before spec 1.1. */
-  | { state: "checked"; ok: boolean; failing: number; rules: number; singleFaults: number; rows: number; driveRows?: number }
-  | { state: "unchecked"; rows: number };
-
-/** One design as listed (page and API). Dates are ISO strings. */
-export type DesignSummary = {
-  id: string;
-  name: string;
-  vehicleId: string | null;
-  vehicleName: string | null;
-  status: DesignStatus;
-  createdAt: string;
-  latestRevision: null | {
-    number: number;
-    contentHash: string;
-    createdAt: string;
-    authorName: string;
-    rules: number;
-    singleFaults: number;
-  };
-  draft: null | {
-    version: number;
-    baseRevision: number;
-    updatedAt: string;
-    /** The draft differs from the latest revision (or there is no revision). */
-    changed: boolean;
-    check: DraftCheck;
-  };
-};
+// The stored summary of a draft's check and a design as listed are API answers: their schemas are
+// in app/api/answers.ts, and the types come from there.
+export type { DesignSummary, DraftCheck } from "~/api/answers";
 
 /** Short words for a draft check, e.g. "2 of 5 rules fail". */
 export function describeDraftCheck(check: DraftCheck): string {

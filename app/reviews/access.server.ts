@@ -1,6 +1,6 @@
 // Finding a revision named in a URL, for a member of its workspace with the needed role.
 import { requireMember, type Membership } from "~/auth/guard.server";
-import { apiError } from "~/designs/api.server";
+import { apiError } from "~/api/http.server";
 import { getDesign, requireDesign } from "~/designs/designs.server";
 import type { Role } from "~/lib/roles";
 import { compiledRevision, revisionNumber, revisionRef, type RevisionRef } from "./compiled.server";

@@ -2,9 +2,10 @@
 // page and the API answer the same thing: for a reviewer, the requests addressed to them; for
 // everyone else, every review request of the workspace (newest first).
 import type { Membership } from "~/auth/guard.server";
+import type { ReviewInbox } from "~/api/answers";
 import { reviewInbox } from "./reviews.server";
 
-export async function inboxFor(m: Membership) {
+export async function inboxFor(m: Membership): Promise<ReviewInbox> {
   const isReviewer = m.role === "reviewer";
   const items = await reviewInbox(m.workspace.id, isReviewer ? m.user.id : undefined);
   return {
@@ -17,6 +18,4 @@ export async function inboxFor(m: Membership) {
     })),
   };
 }
-
-export type ReviewInbox = Awaited<ReturnType<typeof inboxFor>>;
 

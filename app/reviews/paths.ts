@@ -1,5 +1,7 @@
 // URLs of the reviewer's pages and the truth-table API, in one place.
 import { designPath } from "~/designs/paths";
+import { api } from "~/api/endpoints";
+import { apiUrl } from "~/api/client";
 
 export const revisionPath = (ws: string, designId: string, number: number) => `${designPath(ws, designId)}/revisions/${number}`;
 export const reviewPath = (ws: string, designId: string, number: number) => `${revisionPath(ws, designId, number)}/review`;
@@ -10,13 +12,12 @@ export const reportPdfPath = (ws: string, designId: string, number: number, size
   `${revisionPath(ws, designId, number)}/report.pdf?size=${size}`;
 export const reviewsPath = (ws: string) => `/w/${ws}/reviews`;
 
-const apiRevision = (designId: string, number: number) => `/api/v1/designs/${designId}/revisions/${number}`;
 /** A page of truth-table rows (JSON). */
-export const rowsApiPath = (designId: string, number: number) => `${apiRevision(designId, number)}/rows`;
+export const rowsApiPath = (designId: string, number: number) => apiUrl(api.revisionRows, { designId, number });
 /** One row with the engine's diagnosis (JSON). */
-export const rowApiPath = (designId: string, number: number, index: number) => `${apiRevision(designId, number)}/rows/${index}`;
+export const rowApiPath = (designId: string, number: number, index: number) => apiUrl(api.revisionRow, { designId, number, index });
 /** The truth table as CSV, streamed. */
-export const csvApiPath = (designId: string, number: number) => `${apiRevision(designId, number)}/table.csv`;
+export const csvApiPath = (designId: string, number: number) => apiUrl(api.revisionTableCsv, { designId, number });
 
 /**
  * The canvas editor simulating one truth-table row: `?revision=N&row=I` (decision 062). The editor

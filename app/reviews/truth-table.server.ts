@@ -1,7 +1,7 @@
 // Serving the truth table of a saved revision: pages of rows, one row with its diagnosis, and the
 // CSV as a stream. All row work is the engine's (pageRows, countRows, diagnose, csvChunks).
 import { csvChunks, diagnose, evaluateRow, pageRows, type CompiledDesign, type RowFilter } from "~/engine";
-import { apiError } from "~/designs/api.server";
+import { apiError } from "~/api/http.server";
 import { filterOf, PAGE_MAX, parseFilterQuery, tableRow, type RowsPage, type TableColumns, type TableRow } from "./truth-table";
 
 export function tableColumns(c: CompiledDesign): TableColumns {

@@ -1,6 +1,8 @@
 // The truth-table page's wire format: filters as URL query parameters, and rows as compact arrays
 // in the column order of the page's columns. No server imports (the page uses it too).
-import type { RowFilter, RowView, ThrottleClass, Direction } from "~/engine";
+import type { RowFilter, RowView } from "~/engine";
+import type { TableRow } from "~/api/answers";
+import type { FieldProblem } from "~/designs/types";
 
 export const ONLY = ["unsafe", "violating", "drive"] as const;
 export type Only = (typeof ONLY)[number];
@@ -8,8 +10,6 @@ export const PAGE_MAX = 500;
 
 /** Query: only=unsafe|violating|drive, rule=ID, where=COND:STATE (repeatable; states of one condition are alternatives). */
 export type FilterQuery = { only?: Only; rule?: string; where: Array<{ cond: string; state: string }> };
-
-export type FieldProblem = { path: string; message: string };
 
 export function parseFilterQuery(params: URLSearchParams): { ok: true; query: FilterQuery } | { ok: false; fields: FieldProblem[] } {
   const fields: FieldProblem[] = [];
@@ -57,22 +57,8 @@ export type TableColumns = {
 
 export type RuleCell = "-" | "unsafe" | "violating";
 
-/** One row, values in column order. */
-export type TableRow = {
-  index: number;
-  states: string[];
-  contacts: boolean[];
-  inputs: boolean[];
-  powered: boolean;
-  enabled: boolean;
-  direction: Direction;
-  braking: boolean;
-  throttle: ThrottleClass;
-  drive: boolean;
-  rules: RuleCell[];
-};
-
-export type RowsPage = { total: number; from: number; rows: TableRow[] };
+// A row (values in column order) and a page of rows are API answers: typed by their schemas.
+export type { RowsPage, TableRow } from "~/api/answers";
 
 export function tableRow(cols: TableColumns, v: RowView): TableRow {
   return {

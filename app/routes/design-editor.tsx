@@ -6,7 +6,10 @@ import { CAN } from "~/lib/roles";
 import { editorStart, getDesign, getDraft, getRevision } from "~/designs/designs.server";
 import { blankDocument } from "~/designs/templates.server";
 import { designPath } from "~/designs/paths";
-import type { ApiErrorBody, Problem, SaveDraftResult, SaveRevisionResult, Verdict } from "~/designs/types";
+import type { SaveDraftResult, SaveRevisionResult } from "~/designs/types";
+import { api } from "~/api/endpoints";
+import { ApiError, callApi } from "~/api/client";
+import type { ErrorAnswer } from "~/api/answers";
 import { DesignEditor } from "~/canvas/design-editor";
 import { SafetyNote } from "~/components/safety-note";
 
@@ -44,30 +47,18 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.design.name ?? "Design"} · Editor · Chainproof` }];
 
-/** The body of an API answer, or null when it is not JSON (a proxy page, a dropped connection). */
-async function bodyOf(res: Response): Promise<Record<string, unknown> | null> {
-  try {
-    return (await res.json()) as Record<string, unknown>;
-  } catch {
-    return null;
-  }
+/** A sentence for an answer the editor has no special handling for (the server unreachable, signed out...). */
+function failure(e: unknown): Error {
+  if (!(e instanceof ApiError)) return e instanceof Error ? e : new Error(String(e));
+  if (e.status === 0) return new Error("The server could not be reached; nothing was saved. Check the connection and save again.");
+  if (e.status === 401) return new Error("You are signed out. Sign in again in another tab, then save again; your changes are still here.");
+  if (e.code === "unexpected_answer") return new Error(`The server answered ${e.status}; nothing was saved. Try again.`);
+  return new Error(e.message);
 }
 
-/** A sentence for an answer the editor has no special handling for. */
-function failure(res: Response, body: Record<string, unknown> | null): Error {
-  if (res.status === 401) return new Error("You are signed out. Sign in again in another tab, then save again; your changes are still here.");
-  const message = (body as ApiErrorBody | null)?.error?.message;
-  return new Error(message ?? `The server answered ${res.status}; nothing was saved. Try again.`);
-}
-
-async function call(url: string, method: string, payload: unknown): Promise<{ res: Response; body: Record<string, unknown> | null }> {
-  let res: Response;
-  try {
-    res = await fetch(url, { method, headers: { "content-type": "application/json", accept: "application/json" }, body: JSON.stringify(payload) });
-  } catch {
-    throw new Error("The server could not be reached; nothing was saved. Check the connection and save again.");
-  }
-  return { res, body: await bodyOf(res) };
+/** An answer of a declared status with no special handling here: the API's message, as an Error. */
+function refused(a: { status: number; body: ErrorAnswer }): Error {
+  return failure(new ApiError(a.body.error.message, a.status, a.body.error.code, a.body.error.fields));
 }
 
 export default function DesignEditorPage({ loaderData }: Route.ComponentProps) {
@@ -80,30 +71,34 @@ export default function DesignEditorPage({ loaderData }: Route.ComponentProps) {
 
   const onSaveDraft = useCallback(
     async (doc: unknown, version: number): Promise<SaveDraftResult> => {
-      const { res, body } = await call(`/api/v1/designs/${design.id}/draft`, "PUT", { document: doc, version, baseRevision: base.current });
-      if (res.status === 200 && typeof body?.version === "number") return { ok: true, version: body.version };
-      if (res.status === 409 && typeof body?.currentVersion === "number") return { ok: false, status: 409, currentVersion: body.currentVersion };
-      throw failure(res, body);
+      // The editor hands over what it holds; the server refuses (400) anything but a JSON object.
+      const document = doc as Record<string, unknown>;
+      const a = await callApi(api.saveDraft, { params: { designId: design.id }, body: { document, version, baseRevision: base.current } }).catch((e) => {
+        throw failure(e);
+      });
+      if (a.status === 200) return { ok: true, version: a.body.version };
+      if (a.status === 409) return { ok: false, status: 409, currentVersion: a.body.currentVersion };
+      throw refused(a);
     },
     [design.id],
   );
 
   const onSaveRevision = useCallback(
     async (doc: unknown, baseRevision: number, message: string): Promise<SaveRevisionResult> => {
-      const { res, body } = await call(`/api/v1/designs/${design.id}/revisions`, "POST", { document: doc, baseRevision, message });
-      if (res.status === 201 && body?.revision) {
-        const revision = body.revision as { number: number; contentHash: string; verdict: Verdict };
-        base.current = revision.number;
-        return { status: 201, revision };
+      const a = await callApi(api.saveRevision, { params: { designId: design.id }, body: { document: doc, baseRevision, message } }).catch((e) => {
+        throw failure(e);
+      });
+      if (a.status === 201) {
+        base.current = a.body.revision.number;
+        return { status: 201, revision: a.body.revision };
       }
-      if (res.status === 400 && body?.error) {
-        const error = (body as ApiErrorBody).error;
-        const problems: Problem[] = error.fields.length > 0 ? error.fields : [{ path: "", message: error.message }];
-        return { status: 400, problems };
+      if (a.status === 400) {
+        const error = a.body.error;
+        return { status: 400, problems: error.fields.length > 0 ? error.fields : [{ path: "", message: error.message }] };
       }
-      if (res.status === 422 && body?.verdict) return { status: 422, verdict: body.verdict as Verdict };
-      if (res.status === 409 && typeof body?.latestRevision === "number") return { status: 409, latestRevision: body.latestRevision };
-      throw failure(res, body);
+      if (a.status === 422) return { status: 422, verdict: a.body.verdict };
+      if (a.status === 409) return { status: 409, latestRevision: a.body.latestRevision };
+      throw refused(a);
     },
     [design.id],
   );

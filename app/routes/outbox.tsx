@@ -5,6 +5,8 @@ import { env } from "~/env.server";
 import { recentMail } from "~/mail/outbox.server";
 import { Logo } from "~/components/logo";
 import { Button } from "~/components/ui/form";
+import { api } from "~/api/endpoints";
+import { apiFetcher, apiUrl } from "~/api/client";
 
 export const meta: Route.MetaFunction = () => [{ title: "Outbox · Chainproof" }];
 
@@ -36,12 +38,11 @@ function Body({ text }: { text: string }) {
   );
 }
 
-type OutboxData = Route.ComponentProps["loaderData"];
-const fetchJson = (url: string) => fetch(url).then((r) => r.json() as Promise<OutboxData>);
+const fetchOutbox = apiFetcher(api.outbox);
 
 export default function Outbox({ loaderData }: Route.ComponentProps) {
   // Live: new mail appears without a reload (every 3 s, and when the tab regains focus).
-  const { data, mutate } = useSWR("/api/v1/outbox", fetchJson, { fallbackData: loaderData, refreshInterval: 3000, revalidateOnFocus: true });
+  const { data, mutate } = useSWR(apiUrl(api.outbox), fetchOutbox, { fallbackData: loaderData, refreshInterval: 3000, revalidateOnFocus: true });
   const mail = data?.mail ?? loaderData.mail;
   return (
     <main className="mx-auto max-w-3xl px-4 py-8">

@@ -14,7 +14,8 @@ import { PageHeader } from "~/components/page-header";
 import { EmptyState } from "~/components/empty-state";
 import { HashPrefix, When } from "~/designs/design-bits";
 import { ReviewStatusBadge } from "~/components/truth-table/review-status";
-import { fetchJson } from "~/components/truth-table/fetch-json";
+import { api } from "~/api/endpoints";
+import { apiFetcher, apiUrl } from "~/api/client";
 import { Notice } from "~/components/ui/form";
 
 export const meta: Route.MetaFunction = () => [{ title: "Reviews · Chainproof" }];
@@ -24,12 +25,12 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   return inboxFor(m);
 }
 
-type Inbox = Route.ComponentProps["loaderData"];
+const fetchInbox = apiFetcher(api.reviewInbox);
 
 export default function Reviews({ loaderData }: Route.ComponentProps) {
-  const key = `/api/v1/reviews?workspace=${encodeURIComponent(loaderData.slug)}`;
+  const key = apiUrl(api.reviewInbox, undefined, { workspace: loaderData.slug });
   // The loader's answer is fresh: no refetch on mount; it also replaces an older cached answer.
-  const { data, error, mutate } = useSWR<Inbox>(key, fetchJson, {
+  const { data, error, mutate } = useSWR(key, fetchInbox, {
     fallbackData: loaderData,
     revalidateOnMount: false,
     revalidateOnFocus: true,

@@ -18,10 +18,12 @@ import { SafetyNote } from "~/components/safety-note";
 import { buttonClass, Notice } from "~/components/ui/form";
 import { TruthTableGrid } from "~/components/truth-table/grid";
 import { RowDrawer } from "~/components/truth-table/row-drawer";
-import { fetchJson } from "~/components/truth-table/fetch-json";
+import { api as endpoints } from "~/api/endpoints";
+import { ApiError, apiFetcher } from "~/api/client";
 import { ReviewStatusBadge } from "~/components/truth-table/review-status";
 
 const PAGE = 100;
+const fetchRows = apiFetcher(endpoints.revisionRows);
 
 function fromOf(params: URLSearchParams): number {
   const raw = params.get("from");
@@ -96,7 +98,7 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
   const key = pageKey(api, query, from);
   // The loader's page is fresh (revisions never change): no refetch of it on mount.
   const isInitial = key === initial.key;
-  const { data, error, isValidating } = useSWR<RowsPage>(key, fetchJson, {
+  const { data, error, isValidating } = useSWR(key, fetchRows, {
     fallbackData: isInitial ? initial.page : undefined,
     revalidateOnMount: !isInitial,
     revalidateIfStale: false,
@@ -296,7 +298,7 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
         </a>
       </div>
 
-      {error ? <Notice tone="error">{error instanceof Error ? error.message : "The rows could not be loaded."}</Notice> : null}
+      {error ? <Notice tone="error">{error instanceof ApiError ? error.detail : "The rows could not be loaded."}</Notice> : null}
 
       <div className="max-h-[70vh] overflow-auto rounded-lg border border-ink-200 bg-white">
         {page.rows.length === 0 ? (

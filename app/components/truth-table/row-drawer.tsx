@@ -2,12 +2,13 @@
 // on the canvas and one that pins a review comment to it.
 import { Link } from "react-router";
 import useSWR from "swr";
-import type { Diagnosis } from "~/engine";
-import type { TableColumns, TableRow } from "~/reviews/truth-table";
+import type { TableColumns } from "~/reviews/truth-table";
+import { api } from "~/api/endpoints";
+import { ApiError, apiFetcher } from "~/api/client";
+import type { RowDetail } from "~/api/answers";
 import { DriveCell, RuleCellView } from "./cells";
-import { fetchJson } from "./fetch-json";
 
-type Detail = { row: TableRow; energizedTerminals: string[]; diagnosis: Diagnosis };
+const fetchRow = apiFetcher(api.revisionRow);
 
 export function RowDrawer({
   columns,
@@ -24,7 +25,7 @@ export function RowDrawer({
   commentHref: string;
   onClose: () => void;
 }) {
-  const { data, error, isLoading } = useSWR<Detail>(apiPath, fetchJson, { revalidateOnFocus: false });
+  const { data, error, isLoading } = useSWR(apiPath, fetchRow, { revalidateOnFocus: false });
   return (
     <aside
       aria-label={`Row ${index}`}
@@ -48,7 +49,7 @@ export function RowDrawer({
       {isLoading ? <p className="mt-4 text-sm text-ink-600">Diagnosing row {index}…</p> : null}
       {error ? (
         <p className="mt-4 text-sm text-brick-700" role="alert">
-          {error instanceof Error ? error.message : "The diagnosis could not be loaded."}
+          {error instanceof ApiError ? error.detail : "The diagnosis could not be loaded."}
         </p>
       ) : null}
       {data ? <DiagnosisView columns={columns} detail={data} /> : null}
@@ -56,7 +57,7 @@ export function RowDrawer({
   );
 }
 
-function DiagnosisView({ columns, detail }: { columns: TableColumns; detail: Detail }) {
+function DiagnosisView({ columns, detail }: { columns: TableColumns; detail: RowDetail }) {
   const { row, diagnosis } = detail;
   return (
     <div className="mt-4 space-y-4 text-sm">

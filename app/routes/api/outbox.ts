@@ -2,17 +2,18 @@
 import type { Route } from "./+types/outbox";
 import { env } from "~/env.server";
 import { recentMail } from "~/mail/outbox.server";
-import { withRateLimit } from "~/api/rate-limit.server";
+import { apiError, handleApi, reply } from "~/api/http.server";
+import { api } from "~/api/endpoints";
 
 export async function loader({ request }: Route.LoaderArgs) {
-  return withRateLimit(request, async () => outbox());
+  return handleApi(request, outbox);
 }
 
 async function outbox(): Promise<Response> {
   // Public in local mode by design (docs/decisions/001); absent otherwise.
   if (env.CHAINPROOF_LOCAL !== "1") {
-    return Response.json({ error: { code: "not_found", message: "There is no outbox outside local mode.", fields: [] } }, { status: 404 });
+    return apiError(404, "not_found", "There is no outbox outside local mode.");
   }
   const mail = await recentMail();
-  return Response.json({ mail: mail.map((m) => ({ ...m, receivedAt: m.receivedAt.toISOString() })) });
+  return reply(api.outbox, 200, { mail: mail.map((m) => ({ ...m, receivedAt: m.receivedAt.toISOString() })) });
 }

@@ -3,7 +3,8 @@
 //    the run page; a completed run answers 409)
 import type { Route } from "./+types/bench-run-step";
 import { CAN } from "~/lib/roles";
-import { apiError, handleApi, methodNotAllowed, requireMethod } from "~/designs/api.server";
+import { apiError, handleApi, methodNotAllowed, reply, requireMethod } from "~/api/http.server";
+import { api } from "~/api/endpoints";
 import { BenchRunError, getRun, setStepNote, setStepOutcome } from "~/bench-runs/bench-runs.server";
 import { parseBody, requireRunApi } from "~/api/access.server";
 import { stepResultBodySchema } from "~/api/schemas";
@@ -34,6 +35,8 @@ export async function action({ request, params }: Route.ActionArgs) {
       throw err;
     }
     const run = runJson((await getRun(ws, params.runId))!, member.workspace.slug);
-    return Response.json({ step: run.steps.find((s) => s.n === n), mailed });
+    const step = run.steps.find((s) => s.n === n);
+    if (!step) return apiError(404, "not_found", `This run has no step ${params.n}.`, [{ path: "step", message: "a step of this run" }]);
+    return reply(api.recordStep, 200, { step, mailed });
   });
 }

@@ -2,7 +2,8 @@
 //     photos, and for a completed run its signed record's hash and whether it is intact; any member)
 import type { Route } from "./+types/bench-run";
 import { CAN } from "~/lib/roles";
-import { apiError, handleApi, methodNotAllowed } from "~/designs/api.server";
+import { apiError, handleApi, methodNotAllowed, reply } from "~/api/http.server";
+import { api } from "~/api/endpoints";
 import { getRun } from "~/bench-runs/bench-runs.server";
 import { requireRunApi } from "~/api/access.server";
 import { runJson } from "~/api/views.server";
@@ -12,7 +13,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     const { member } = await requireRunApi(request, params.runId, CAN.view);
     const run = await getRun(member.workspace.id, params.runId);
     if (!run) return apiError(404, "not_found", "No such bench run.");
-    return Response.json({ run: runJson(run, member.workspace.slug) });
+    return reply(api.getRun, 200, { run: runJson(run, member.workspace.slug) });
   });
 }
 

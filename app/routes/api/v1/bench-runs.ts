@@ -3,7 +3,8 @@
 import type { Route } from "./+types/bench-runs";
 import { requireMember } from "~/auth/guard.server";
 import { CAN } from "~/lib/roles";
-import { handleApi, methodNotAllowed } from "~/designs/api.server";
+import { handleApi, methodNotAllowed, reply } from "~/api/http.server";
+import { api } from "~/api/endpoints";
 import { parseQuery } from "~/api/access.server";
 import { runsPage } from "~/api/run-pages.server";
 import { benchRunListQuerySchema } from "~/api/schemas";
@@ -12,7 +13,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   return handleApi(request, async () => {
     const query = parseQuery(request, benchRunListQuerySchema);
     const m = await requireMember(request, query.workspace, CAN.view, "api");
-    return Response.json(await runsPage(m.workspace.id, { vehicleId: query.vehicle, status: query.status }, query));
+    return reply(api.listRuns, 200, await runsPage(m.workspace.id, { vehicleId: query.vehicle, status: query.status }, query));
   });
 }
 

@@ -4,7 +4,9 @@
 // The draft is the working copy: any JSON object (at most DESIGN_BODY_MAX_BYTES), not proven.
 import type { Route } from "./+types/design-draft";
 import { CAN } from "~/lib/roles";
-import { apiError, handleApi, readJsonBody, requireMethod, storableJsonProblem, zodFields } from "~/designs/api.server";
+import { apiError, handleApi, readJsonBody, reply, requireMethod, zodFields } from "~/api/http.server";
+import { api } from "~/api/endpoints";
+import { storableJsonProblem } from "~/lib/storable-json";
 import { getDraft, requireDesign, saveDraft } from "~/designs/designs.server";
 import { jsonObjectSchema, saveDraftBodySchema } from "~/designs/forms";
 import { DESIGN_BODY_MAX_BYTES } from "~/designs/types";
@@ -13,7 +15,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   return handleApi(request, async () => {
     const { member, design } = await requireDesign(request, params.designId, CAN.view);
     const d = await getDraft(member.workspace.id, design.id);
-    return Response.json({
+    return reply(api.getDraft, 200, {
       draft: d
         ? {
             version: d.version,
@@ -49,6 +51,6 @@ export async function action({ request, params }: Route.ActionArgs) {
         { currentVersion: saved.currentVersion },
       );
     }
-    return Response.json({ version: saved.version });
+    return reply(api.saveDraft, 200, { version: saved.version });
   });
 }

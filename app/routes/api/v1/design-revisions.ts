@@ -7,7 +7,9 @@
 //   422 { error: { code: "never_drives" | "rules_fail", ... }, verdict }  (spec 1.1: ok needs a drive row)
 import type { Route } from "./+types/design-revisions";
 import { CAN } from "~/lib/roles";
-import { apiError, handleApi, readJsonBody, requireMethod, storableJsonProblem, zodFields } from "~/designs/api.server";
+import { apiError, handleApi, readJsonBody, reply, requireMethod, zodFields } from "~/api/http.server";
+import { api } from "~/api/endpoints";
+import { storableJsonProblem } from "~/lib/storable-json";
 import { listRevisions, requireDesign, saveRevision } from "~/designs/designs.server";
 import { proveOffThread } from "~/proofs/pool.server";
 import { revisionRefusal } from "~/designs/proof";
@@ -25,7 +27,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     // Newest first; without ?limit or ?cursor every revision, as before paging existed.
     const whole = page.limit === undefined && page.cursor === undefined;
     const one = whole ? { items: all, nextCursor: null } : pageOfList(all, (r) => [r.number, String(r.number)], descending, page, "number");
-    return Response.json({
+    return reply(api.listRevisions, 200, {
       nextCursor: one.nextCursor,
       revisions: one.items.map((r) => ({
         number: r.number,
@@ -76,6 +78,6 @@ export async function action({ request, params }: Route.ActionArgs) {
         { latestRevision: saved.latestRevision },
       );
     }
-    return Response.json({ revision: { number: saved.number, contentHash: saved.contentHash, verdict: proof.verdict } }, { status: 201 });
+    return reply(api.saveRevision, 201, { revision: { number: saved.number, contentHash: saved.contentHash, verdict: proof.verdict } });
   });
 }

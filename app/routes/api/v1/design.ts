@@ -2,7 +2,8 @@
 // document, verdict and contentHash are the latest revision's (null when there is none yet).
 import type { Route } from "./+types/design";
 import { CAN } from "~/lib/roles";
-import { handleApi, methodNotAllowed } from "~/designs/api.server";
+import { handleApi, methodNotAllowed, reply } from "~/api/http.server";
+import { api } from "~/api/endpoints";
 import { getDraft, getRevision, requireDesign, statusOf } from "~/designs/designs.server";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
@@ -10,7 +11,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     const { member, design } = await requireDesign(request, params.designId, CAN.view);
     const ws = member.workspace.id;
     const [latest, draft] = await Promise.all([getRevision(ws, design.id), getDraft(ws, design.id)]);
-    return Response.json({
+    return reply(api.getDesign, 200, {
       design: { id: design.id, name: design.name, vehicleId: design.vehicleId, status: statusOf(latest?.number) },
       latestRevision: latest?.number ?? null,
       contentHash: latest?.contentHash ?? null,

@@ -4,7 +4,8 @@
 import type { Route } from "./+types/designs";
 import { requireMember } from "~/auth/guard.server";
 import { CAN } from "~/lib/roles";
-import { apiError, handleApi, readJsonBody, requireMethod, zodFields } from "~/designs/api.server";
+import { apiError, handleApi, readJsonBody, reply, requireMethod, zodFields } from "~/api/http.server";
+import { api } from "~/api/endpoints";
 import { createDesign, listDesigns } from "~/designs/designs.server";
 import { createDesignBodySchema, designFilterSchema } from "~/designs/forms";
 import { DESIGN_BODY_MAX_BYTES } from "~/designs/types";
@@ -26,9 +27,9 @@ export async function loader({ request }: Route.LoaderArgs) {
     const page = parseQuery(request, pageQuerySchema);
     const designs = await listDesigns(m.workspace.id, filter);
     // Without ?limit or ?cursor the whole list, in the page's order, as before paging existed.
-    if (page.limit === undefined && page.cursor === undefined) return Response.json({ designs, nextCursor: null });
+    if (page.limit === undefined && page.cursor === undefined) return reply(api.listDesigns, 200, { designs, nextCursor: null });
     const one = pageOfList(designs, (d) => [d.name, d.id], ascending, page, "string");
-    return Response.json({ designs: one.items, nextCursor: one.nextCursor });
+    return reply(api.listDesigns, 200, { designs: one.items, nextCursor: one.nextCursor });
   });
 }
 
@@ -43,12 +44,9 @@ export async function action({ request }: Route.ActionArgs) {
       const fields = Object.entries(created.fields).map(([path, message]) => ({ path, message }));
       return apiError(400, "invalid_body", "The new design is incomplete.", fields);
     }
-    return Response.json(
-      {
-        design: { id: created.id, name: body.data.name, vehicleId: body.data.vehicleId, status: "draft" },
-        draft: { version: created.draftVersion },
-      },
-      { status: 201 },
-    );
+    return reply(api.createDesign, 201, {
+      design: { id: created.id, name: body.data.name, vehicleId: body.data.vehicleId, status: "draft" },
+      draft: { version: created.draftVersion },
+    });
   });
 }

@@ -3,7 +3,9 @@
 import type { Route } from "./+types/proofs";
 import { requireMember } from "~/auth/guard.server";
 import { CAN } from "~/lib/roles";
-import { apiError, handleApi, methodNotAllowed, readJsonBody, requireMethod, storableJsonProblem, zodFields } from "~/designs/api.server";
+import { apiError, handleApi, methodNotAllowed, readJsonBody, reply, requireMethod, zodFields } from "~/api/http.server";
+import { api } from "~/api/endpoints";
+import { storableJsonProblem } from "~/lib/storable-json";
 import { proveOffThread } from "~/proofs/pool.server";
 import { jsonObjectSchema, proofBodySchema } from "~/designs/forms";
 import { DESIGN_BODY_MAX_BYTES } from "~/designs/types";
@@ -29,6 +31,6 @@ export async function action({ request }: Route.ActionArgs) {
       const n = proof.problems.length;
       return apiError(400, "invalid_design", `The design breaks the format in ${n} ${n === 1 ? "place" : "places"}.`, proof.problems);
     }
-    return Response.json({ verdict: proof.verdict });
+    return reply(api.prove, 200, { verdict: proof.verdict });
   });
 }

@@ -4,7 +4,8 @@
 import type { Route } from "./+types/reviews";
 import { requireMember } from "~/auth/guard.server";
 import { CAN } from "~/lib/roles";
-import { handleApi, methodNotAllowed } from "~/designs/api.server";
+import { handleApi, methodNotAllowed, reply } from "~/api/http.server";
+import { api } from "~/api/endpoints";
 import { parseQuery } from "~/api/access.server";
 import { workspaceQuerySchema } from "~/api/schemas";
 import { inboxFor } from "~/reviews/inbox.server";
@@ -13,7 +14,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   return handleApi(request, async () => {
     const query = parseQuery(request, workspaceQuerySchema);
     const m = await requireMember(request, query.workspace, CAN.view, "api");
-    return Response.json(await inboxFor(m));
+    return reply(api.reviewInbox, 200, await inboxFor(m));
   });
 }
 

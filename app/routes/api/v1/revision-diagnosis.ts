@@ -3,7 +3,8 @@
 //   readings its explainReadings: which single contact fault would explain them; any member)
 import type { Route } from "./+types/revision-diagnosis";
 import { CAN } from "~/lib/roles";
-import { apiError, handleApi, methodNotAllowed, requireMethod } from "~/designs/api.server";
+import { apiError, handleApi, methodNotAllowed, reply, requireMethod } from "~/api/http.server";
+import { api } from "~/api/endpoints";
 import { diagnose, explainReadings, rowProblems } from "~/engine";
 import type { FieldProblem } from "~/designs/types";
 import { requireRevisionApi } from "~/reviews/access.server";
@@ -30,6 +31,6 @@ export async function action({ request, params }: Route.ActionArgs) {
     if (problems.length > 0) return apiError(400, "invalid_body", "The row does not fit this revision's conditions and inputs.", problems);
     const diagnosis = diagnose(compiled, body.states, body.history ? { history: body.history } : {});
     const readings = body.measured ? explainReadings(compiled, body.states, body.measured) : null;
-    return Response.json({ diagnosis, readings });
+    return reply(api.diagnoseRow, 200, { diagnosis, readings });
   });
 }

@@ -2,7 +2,8 @@
 //   -> { row: TableRow, energizedTerminals, diagnosis }   (the engine's diagnosis of that row; any member)
 import type { Route } from "./+types/revision-row";
 import { CAN } from "~/lib/roles";
-import { apiError, handleApi, requireMethod } from "~/designs/api.server";
+import { apiError, handleApi, reply, requireMethod } from "~/api/http.server";
+import { api } from "~/api/endpoints";
 import { requireRevisionApi } from "~/reviews/access.server";
 import { rowDetail } from "~/reviews/truth-table.server";
 
@@ -16,6 +17,6 @@ export async function loader({ request, params }: Route.LoaderArgs) {
         { path: "index", message: `a row from 0 to ${compiled.rows - 1}` },
       ]);
     }
-    return Response.json(rowDetail(compiled, index), { headers: { "cache-control": "private, max-age=300" } });
+    return reply(api.revisionRow, 200, rowDetail(compiled, index), { headers: { "cache-control": "private, max-age=300" } });
   });
 }

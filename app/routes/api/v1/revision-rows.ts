@@ -2,7 +2,8 @@
 //   -> { total, from, rows: TableRow[] }   (total: rows matching the filter; any member)
 import type { Route } from "./+types/revision-rows";
 import { CAN } from "~/lib/roles";
-import { handleApi, requireMethod } from "~/designs/api.server";
+import { handleApi, reply, requireMethod } from "~/api/http.server";
+import { api } from "~/api/endpoints";
 import { requireRevisionApi } from "~/reviews/access.server";
 import { rowsPage } from "~/reviews/truth-table.server";
 
@@ -10,7 +11,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   return handleApi(request, async () => {
     requireMethod(request, "GET");
     const { compiled } = await requireRevisionApi(request, params.designId, params.number, CAN.view);
-    return Response.json(rowsPage(compiled, new URL(request.url).searchParams), {
+    return reply(api.revisionRows, 200, rowsPage(compiled, new URL(request.url).searchParams), {
       headers: { "cache-control": "private, max-age=300" },
     });
   });

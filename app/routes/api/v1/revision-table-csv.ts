@@ -2,7 +2,7 @@
 //   -> text/csv, streamed (the engine's csvChunks: header line, then the matching rows; any member)
 import type { Route } from "./+types/revision-table-csv";
 import { CAN } from "~/lib/roles";
-import { handleApi, requireMethod } from "~/designs/api.server";
+import { handleApi, requireMethod } from "~/api/http.server";
 import { requireRevisionApi } from "~/reviews/access.server";
 import { csvStream, requestFilter } from "~/reviews/truth-table.server";
 

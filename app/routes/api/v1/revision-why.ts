@@ -3,7 +3,8 @@
 //      inhibit rule forbidding drive (any member)
 import type { Route } from "./+types/revision-why";
 import { CAN } from "~/lib/roles";
-import { apiError, handleApi, requireMethod, zodFields } from "~/designs/api.server";
+import { apiError, handleApi, reply, requireMethod, zodFields } from "~/api/http.server";
+import { api } from "~/api/endpoints";
 import { whyQuerySchema } from "~/api/row-groups";
 import { RowSetError, whyRuleHolds } from "~/engine";
 import { requireRevisionApi } from "~/reviews/access.server";
@@ -15,7 +16,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     const query = whyQuerySchema.safeParse(Object.fromEntries(new URL(request.url).searchParams));
     if (!query.success) return apiError(400, "invalid_query", "The query is not valid.", zodFields(query.error));
     try {
-      return Response.json(whyRuleHolds(compiled, query.data.rule, { limit: query.data.limit }), { headers: { "cache-control": "private, max-age=300" } });
+      return reply(api.revisionWhy, 200, whyRuleHolds(compiled, query.data.rule, { limit: query.data.limit }), { headers: { "cache-control": "private, max-age=300" } });
     } catch (e) {
       if (e instanceof RowSetError) return apiError(400, "invalid_query", e.message, [{ path: "rule", message: e.message }]);
       throw e;

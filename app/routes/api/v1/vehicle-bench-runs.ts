@@ -3,7 +3,8 @@
 //      revision released to the vehicle now; 409 when none is released)
 import type { Route } from "./+types/vehicle-bench-runs";
 import { CAN } from "~/lib/roles";
-import { apiError, handleApi, requireMethod } from "~/designs/api.server";
+import { apiError, handleApi, reply, requireMethod } from "~/api/http.server";
+import { api } from "~/api/endpoints";
 import { BenchRunError, getRun, startRun } from "~/bench-runs/bench-runs.server";
 import { parseQuery, requireVehicleApi } from "~/api/access.server";
 import { runsPage } from "~/api/run-pages.server";
@@ -14,7 +15,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   return handleApi(request, async () => {
     const { member, vehicle } = await requireVehicleApi(request, params.vehicleId, CAN.view);
     const query = parseQuery(request, vehicleRunListQuerySchema);
-    return Response.json(await runsPage(member.workspace.id, { vehicleId: vehicle.id, status: query.status }, query));
+    return reply(api.listVehicleRuns, 200, await runsPage(member.workspace.id, { vehicleId: vehicle.id, status: query.status }, query));
   });
 }
 
@@ -25,7 +26,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     try {
       const id = await startRun(member.workspace.id, vehicle.id, member.user.id);
       const run = (await getRun(member.workspace.id, id))!;
-      return Response.json({ run: runJson(run, member.workspace.slug) }, { status: 201 });
+      return reply(api.startRun, 201, { run: runJson(run, member.workspace.slug) });
     } catch (err) {
       if (err instanceof BenchRunError) {
         return apiError(err.status, err.status === 409 ? "cannot_start" : "invalid_body", err.message, [{ path: err.field, message: err.message }]);

@@ -4,7 +4,8 @@
 //       (CAN.manageVehicles; fields not sent keep their values)
 import type { Route } from "./+types/vehicle";
 import { CAN } from "~/lib/roles";
-import { handleApi, requireMethod } from "~/designs/api.server";
+import { handleApi, reply, requireMethod } from "~/api/http.server";
+import { api } from "~/api/endpoints";
 import { vehicleSchema } from "~/lib/forms";
 import { getVehicle, openAttention, releaseHistory, updateVehicle } from "~/vehicles/vehicles.server";
 import { parseBody, requireVehicleApi } from "~/api/access.server";
@@ -17,7 +18,7 @@ async function answer(workspaceId: string, vehicleId: string): Promise<Response>
     releaseHistory(workspaceId, vehicleId),
     openAttention(workspaceId, vehicleId),
   ]);
-  return Response.json({ vehicle: vehicleJson(v!, history, attention) });
+  return reply(api.getVehicle, 200, { vehicle: vehicleJson(v!, history, attention) });
 }
 
 export async function loader({ request, params }: Route.LoaderArgs) {

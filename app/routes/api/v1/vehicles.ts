@@ -4,7 +4,8 @@
 import type { Route } from "./+types/vehicles";
 import { requireMember } from "~/auth/guard.server";
 import { CAN } from "~/lib/roles";
-import { handleApi, requireMethod } from "~/designs/api.server";
+import { handleApi, reply, requireMethod } from "~/api/http.server";
+import { api } from "~/api/endpoints";
 import { createVehicle, getVehicle, listVehicles } from "~/vehicles/vehicles.server";
 import { parseBody, parseQuery } from "~/api/access.server";
 import { ascending, pageOfList } from "~/api/pagination.server";
@@ -16,7 +17,7 @@ export async function loader({ request }: Route.LoaderArgs) {
     const query = parseQuery(request, vehicleListQuerySchema);
     const m = await requireMember(request, query.workspace, CAN.view, "api");
     const page = pageOfList(await listVehicles(m.workspace.id), (v) => [v.name, v.id], ascending, query, "string");
-    return Response.json({ vehicles: page.items.map(vehicleSummaryJson), nextCursor: page.nextCursor });
+    return reply(api.listVehicles, 200, { vehicles: page.items.map(vehicleSummaryJson), nextCursor: page.nextCursor });
   });
 }
 
@@ -28,6 +29,6 @@ export async function action({ request }: Route.ActionArgs) {
     const body = await parseBody(request, vehicleCreateBodySchema, "new vehicle");
     const id = await createVehicle(m.workspace.id, m.user.id, body);
     const v = (await getVehicle(m.workspace.id, id))!;
-    return Response.json({ vehicle: vehicleJson(v, [], []) }, { status: 201 });
+    return reply(api.createVehicle, 201, { vehicle: vehicleJson(v, [], []) });
   });
 }

@@ -1,10 +1,24 @@
-// Plumbing of the JSON API (/api/v1): the error shape, reading a JSON body safely, and a wrapper
-// that turns anything unexpected into a JSON 500 instead of an HTML page.
+// Plumbing of the JSON API (/api/v1): answering as an endpoint of app/api/endpoints.ts declares
+// (reply), the error shape, reading a JSON body safely, and a wrapper that turns anything
+// unexpected into a JSON 500 instead of an HTML page.
 import type { z } from "zod";
 import { databaseDownResponse, isDatabaseDown } from "~/db/unavailable.server";
 import { formatPath } from "~/engine";
 import { withRateLimit } from "~/api/rate-limit.server";
-import type { ApiErrorBody, FieldProblem } from "./types";
+import type { ErrorAnswer } from "./answers";
+import type { Endpoint, ReplyAt, StatusOf } from "./endpoints";
+import type { FieldProblem } from "~/designs/types";
+
+/** The body an endpoint's answer of a status carries (before JSON). */
+export type BodyOf<E extends Endpoint, S extends StatusOf<E>> = z.input<ReplyAt<E, S>["schema"]>;
+
+/**
+ * The answer of an endpoint: the status must be one it declares and the body must have that
+ * status's shape (the compiler checks it; the integration tests check every answer at run time).
+ */
+export function reply<E extends Endpoint, S extends StatusOf<E>>(_endpoint: E, status: S, body: BodyOf<E, S>, init: Omit<ResponseInit, "status"> = {}): Response {
+  return Response.json(body, { ...init, status });
+}
 
 /** The path of a problem with the whole body or document. */
 export const ROOT_PATH = "(root)";
@@ -18,7 +32,7 @@ export function apiError(
 ): Response {
   // A field path is never empty: the body or document itself is "(root)", as on the command line.
   const named = fields.map((f) => (f.path === "" ? { ...f, path: ROOT_PATH } : f));
-  const body: ApiErrorBody & Record<string, unknown> = { error: { code, message, fields: named }, ...extra };
+  const body: ErrorAnswer & Record<string, unknown> = { error: { code, message, fields: named }, ...extra };
   return Response.json(body, { status });
 }
 
@@ -106,33 +120,4 @@ async function readLimited(request: Request, maxBytes: number, tooLarge: () => R
     at += c.byteLength;
   }
   return out.buffer;
-}
-
-const MAX_DEPTH = 64;
-const LONE_SURROGATE = /[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/;
-
-/**
- * Whether a parsed JSON value can be stored in a jsonb column as it is: PostgreSQL refuses the NUL
- * character and unpaired surrogates in text, and very deep nesting is refused here as well.
- * Returns the first problem, its path starting at `root`.
- */
-export function storableJsonProblem(value: unknown, root: string): FieldProblem | null {
-  const stack: Array<{ v: unknown; path: string; depth: number }> = [{ v: value, path: root, depth: 0 }];
-  const badText = (s: string) => s.includes("\u0000") || LONE_SURROGATE.test(s);
-  while (stack.length > 0) {
-    const { v, path, depth } = stack.pop()!;
-    if (depth > MAX_DEPTH) return { path, message: `nesting deeper than ${MAX_DEPTH} levels` };
-    if (typeof v === "string") {
-      if (badText(v)) return { path, message: "text with a NUL character or a broken surrogate pair" };
-    } else if (Array.isArray(v)) {
-      v.forEach((x, i) => stack.push({ v: x, path: `${path}[${i}]`, depth: depth + 1 }));
-    } else if (v !== null && typeof v === "object") {
-      for (const [k, x] of Object.entries(v)) {
-        const p = path ? `${path}.${k}` : k;
-        if (badText(k)) return { path: p, message: "a key with a NUL character or a broken surrogate pair" };
-        stack.push({ v: x, path: p, depth: depth + 1 });
-      }
-    }
-  }
-  return null;
 }

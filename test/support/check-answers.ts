@@ -1,0 +1,18 @@
+// Vitest setup of the integration and fault suites: every fetch to the app's /api/v1 has its answer
+// checked against the endpoint table (test/support/answers.ts), so a test that reaches an endpoint
+// fails when the answer breaks the contract, whatever else the test asserts.
+import { BASE_URL } from "./http";
+import { checkAnswer } from "./answers";
+
+const realFetch = globalThis.fetch;
+const appOrigin = new URL(BASE_URL).origin;
+
+globalThis.fetch = async (input: RequestInfo | URL, init?: RequestInit): Promise<Response> => {
+  const res = await realFetch(input, init);
+  const url = new URL(input instanceof Request ? input.url : String(input));
+  if (url.origin === appOrigin && url.pathname.startsWith("/api/v1/")) {
+    const method = init?.method ?? (input instanceof Request ? input.method : "GET");
+    await checkAnswer(method, url.pathname, res.clone());
+  }
+  return res;
+};
