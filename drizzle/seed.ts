@@ -174,6 +174,15 @@ export async function seedDesignsOnly(databaseUrl: string, log: (s: string) => v
 // technician pages (diagnosis, bench tests) have something to work on (docs/decisions/074).
 const DEMO_RELEASE = { design: "Haybarn hauler #3, drive inhibit", vehicle: "Haybarn campus hauler #3", number: 1 };
 
+/** How the demo hauler's defeating faults are dealt with (invented for the demo). */
+const DEMO_DISPOSITIONS: Record<string, { disposition: "accepted" | "fix-next-revision" | "ruled-out"; justification: string; by: "engineer" | "reviewer" }> = {
+  BRK: { disposition: "accepted", by: "reviewer", justification: "Two-channel pedal switch; the controller compares both channels and stops on a mismatch." },
+  INLET: { disposition: "accepted", by: "engineer", justification: "The charger opens the pack contactor while its plug is in, independently of this switch." },
+  KEY: { disposition: "accepted", by: "engineer", justification: "The pack disconnect is within reach of the seat; the daily check turns the key off and confirms no drive." },
+  SEAT: { disposition: "fix-next-revision", by: "engineer", justification: "Revision 2 adds a second seat contact in series; until then the seat switch is checked at every service." },
+  "*": { disposition: "fix-next-revision", by: "engineer", justification: "A second contact in series follows in the next revision; checked at the daily pre-use check until then." },
+};
+
 /** Approves and releases the demo revision when the vehicle has no release yet; returns whether it did. */
 export async function seedDemoRelease(db: Seeder, workspaceId: string): Promise<boolean> {
   const rows = await db
@@ -206,6 +215,24 @@ export async function seedDemoRelease(db: Seeder, workspaceId: string): Promise<
     requestedBy: engineer.id,
     requestedAt: new Date(now - 30 * hour),
   });
+  // Every single fault that defeats a rule is dealt with before approval (docs/decisions/161).
+  const verdict = await db.select({ verdict: schema.designRevision.verdict }).from(schema.designRevision).where(eq(schema.designRevision.id, r.revisionId));
+  for (const [k, f] of (verdict[0]?.verdict.singleFaults ?? []).entries()) {
+    const how = DEMO_DISPOSITIONS[f.component] ?? DEMO_DISPOSITIONS["*"]!;
+    await db.insert(schema.faultDisposition).values({
+      id: crypto.randomUUID(),
+      workspaceId,
+      designId: r.designId,
+      revisionId: r.revisionId,
+      contentHash: r.contentHash,
+      component: f.component,
+      mode: f.mode,
+      disposition: how.disposition,
+      justification: how.justification,
+      authorId: how.by === "engineer" ? engineer.id : reviewer.id,
+      createdAt: new Date(now - 27 * hour + k * 60_000),
+    });
+  }
   await db.insert(schema.reviewDecision).values({
     id: crypto.randomUUID(),
     workspaceId,

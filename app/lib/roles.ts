@@ -26,4 +26,6 @@ export const CAN = {
   // Putting an approved revision on a vehicle is an engineering decision (docs/decisions/070).
   releaseRevisions: ["admin", "engineer"],
   review: ["reviewer"],
+  // Engineers explain how a defeating fault is dealt with; reviewers may record what they accept (decision 161).
+  disposeFaults: ["engineer", "reviewer"],
 } as const satisfies Record<string, readonly Role[]>;

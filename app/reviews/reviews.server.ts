@@ -12,6 +12,7 @@ import type { Membership } from "~/auth/guard.server";
 import { compiledFor } from "./compiled.server";
 import { reviewStatus, VERDICT_LABELS, type ReviewStatus, type ReviewVerdict } from "./status";
 import { reviewPath } from "./paths";
+import { openFaultsMessage, openFaultsOf } from "./dispositions.server";
 
 const { reviewRequest, reviewComment, reviewDecision, designRevision, design, member, user, workspace } = schema;
 
@@ -236,7 +237,7 @@ export async function getReview(workspaceId: string, revisionId: string) {
 
 // ---------------------------------------------------------------- acting
 
-export type ActOutcome = { ok: true } | { ok: false; status: 400 | 403 | 404; fields: Record<string, string> };
+export type ActOutcome = { ok: true } | { ok: false; status: 400 | 403 | 404 | 409; fields: Record<string, string> };
 
 const absolute = (path: string) => new URL(path, env.APP_URL).toString();
 
@@ -371,6 +372,11 @@ export async function decide(m: Membership, revisionId: string, input: { verdict
   if (m.role !== "reviewer") return { ok: false, status: 403, fields: { form: "Only reviewers decide on a revision." } };
   if (rev.authorId === m.user.id) {
     return { ok: false, status: 403, fields: { form: "You authored this revision; another reviewer must decide on it." } };
+  }
+  if (input.verdict === "approved") {
+    // Every single fault that defeats a rule needs a disposition first (decision 161).
+    const open = await openFaultsOf(m.workspace.id, rev.id);
+    if (open.length > 0) return { ok: false, status: 409, fields: { form: openFaultsMessage(open) } };
   }
   await db.transaction(async (tx) => {
     await tx.insert(reviewDecision).values({

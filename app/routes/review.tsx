@@ -19,6 +19,10 @@ import { Button, buttonClass, Notice, SelectField, TextArea, TextField } from "~
 import { VerdictSummary } from "~/components/truth-table/verdict-summary";
 import { ReviewStatusBadge } from "~/components/truth-table/review-status";
 import type { ListDiff } from "~/reviews/diff";
+import { readableSummary } from "~/reviews/readable.server";
+import { currentDispositions, dispositionHistory, recordDisposition } from "~/reviews/dispositions.server";
+import { dispositionSchema } from "~/reviews/dispositions";
+import { ReadableSummary, type DispositionView } from "~/components/review/readable-summary";
 
 const has = (roles: readonly Role[], role: Role) => roles.includes(role);
 
@@ -27,11 +31,16 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const loaded = await loadRevision(member.workspace.id, design.id, ref.number);
   const review = await getReview(member.workspace.id, ref.id);
   if (!loaded || !review) throw new Response("Not found", { status: 404 });
-  const [reviewers, comparison, statuses] = await Promise.all([
+  const [reviewers, comparison, statuses, history] = await Promise.all([
     listReviewers(member.workspace.id),
     compareWithLastApproved(member.workspace.id, design.id, ref.number, loaded.compiled),
     reviewStatusOf(member.workspace.id, [design.id]),
+    dispositionHistory(member.workspace.id, ref.id, ref.contentHash),
   ]);
+  const dispositions: Record<string, DispositionView> = {};
+  for (const [key, d] of currentDispositions(history)) {
+    dispositions[key] = { component: d.component, mode: d.mode, disposition: d.disposition, justification: d.justification, authorName: d.authorName, createdAt: d.createdAt.toISOString() };
+  }
   const latestNumber = statuses.get(design.id)?.latest?.number ?? ref.number;
   const iso = (d: Date) => d.toISOString();
   return {
@@ -53,6 +62,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     traces: tracesOf(loaded.compiled, loaded.verdict),
     components: loaded.design.components.map((c) => ({ id: c.id, label: ("label" in c && c.label) || c.id, type: c.type })),
     comparison,
+    readable: readableSummary(ref.id, loaded.compiled, loaded.verdict),
+    dispositions,
     status: review.status,
     requests: review.requests.map((r) => ({ ...r, requestedAt: iso(r.requestedAt) })),
     decisions: review.decisions.map((d) => ({ ...d, decidedAt: iso(d.decidedAt) })),
@@ -61,21 +72,23 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     can: {
       request: has(CAN.editDesigns, member.role),
       decide: has(CAN.review, member.role) && member.user.id !== loaded.rev.authorId,
+      dispose: has(CAN.disposeFaults, member.role),
       comment: true,
     },
     authored: member.user.id === loaded.rev.authorId,
   };
 }
 
-type ActionResult = { intent: string; ok: boolean; errors?: FieldErrors; message?: string };
+type ActionResult = { intent: string; ok: boolean; errors?: FieldErrors; message?: string; fault?: string };
 
 export async function action({ request, params }: Route.ActionArgs) {
   const form = reviewFormObject(await request.formData());
   const intent = String(form.intent ?? "");
-  const allowed = intent === "request" ? CAN.editDesigns : intent === "decide" ? CAN.review : CAN.view;
+  const allowed = intent === "request" ? CAN.editDesigns : intent === "decide" ? CAN.review : intent === "dispose" ? CAN.disposeFaults : CAN.view;
   // The role is checked first (requireMember inside), so a technician's forged decision is 403 whatever the body says.
   const { member, ref } = await requireRevisionPage(request, params, allowed);
-  const fail = (status: number, errors: FieldErrors) => data<ActionResult>({ intent, ok: false, errors }, { status });
+  const fault = intent === "dispose" ? `${String(form.component ?? "")}/${String(form.mode ?? "")}` : undefined;
+  const fail = (status: number, errors: FieldErrors) => data<ActionResult>({ intent, ok: false, errors, fault }, { status });
   if (intent === "request") {
     const parsed = requestReviewSchema.safeParse(form);
     if (!parsed.success) return fail(400, fieldErrors(parsed.error));
@@ -90,6 +103,13 @@ export async function action({ request, params }: Route.ActionArgs) {
     const out = await addComment(member, ref.id, loaded?.rev.document, parsed.data);
     if (!out.ok) return fail(out.status, out.fields);
     return { intent, ok: true, message: "Comment added." } satisfies ActionResult;
+  }
+  if (intent === "dispose") {
+    const parsed = dispositionSchema.safeParse(form);
+    if (!parsed.success) return fail(400, fieldErrors(parsed.error));
+    const out = await recordDisposition(member, ref.id, parsed.data);
+    if (!out.ok) return fail(out.status, out.fields);
+    return { intent, ok: true, message: `Disposition recorded for ${parsed.data.component} ${parsed.data.mode.replace("-", " ")}.` } satisfies ActionResult;
   }
   if (intent === "decide") {
     const parsed = decisionSchema.safeParse(form);
@@ -164,6 +184,14 @@ export default function Review({ loaderData }: Route.ComponentProps) {
               <span className="text-ink-500">Revision message:</span> “{revision.message}”
             </p>
           ) : null}
+          <ReadableSummary
+            readable={loaderData.readable}
+            table={truthTablePath(slug, design.id, revision.number)}
+            ruleLabels={labels.rules}
+            dispositions={loaderData.dispositions}
+            canDispose={can.dispose}
+            dispositionErrors={result && !result.ok && result.intent === "dispose" && result.fault ? { key: result.fault, errors: result.errors ?? {} } : null}
+          />
           <Section title="Verdict">
             <VerdictSummary verdict={verdict} ruleLabels={labels.rules} componentLabels={labels.components} traces={traces} />
           </Section>

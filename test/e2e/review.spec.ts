@@ -19,6 +19,22 @@ async function asRole(browser: Browser, role: "engineer" | "reviewer"): Promise<
   return page;
 }
 
+/** Records a disposition for every single fault on the review page, one form at a time. */
+async function disposeAll(page: Page) {
+  const faults = page.getByTestId("fault-reading");
+  const count = await faults.count();
+  expect(count).toBeGreaterThan(0);
+  for (let i = 0; i < count; i++) {
+    const fault = faults.nth(i);
+    const form = fault.getByRole("form");
+    await form.getByLabel("Disposition").selectOption("accepted");
+    await form.getByLabel("Justification").fill(`Two-channel contact, monitored by the controller (${i + 1}).`);
+    await form.getByRole("button", { name: "Save" }).click();
+    await expect(fault.getByTestId("disposition")).toContainText(`Accepted: Two-channel contact, monitored by the controller (${i + 1}).`);
+  }
+  await expect(page.getByTestId("fault-readings")).toContainText("every fault has a disposition");
+}
+
 async function requestReview(page: Page, designId: string, number: number) {
   await page.goto(`/w/larkspur/designs/${designId}/revisions/${number}/review`);
   const form = page.getByRole("form", { name: "Request review" });
@@ -36,6 +52,7 @@ async function openMailLink(page: Page, subject: string) {
 }
 
 test("request review, comment on a row, request changes, revise, approve, and read the signature in the report", async ({ page, browser }) => {
+  test.setTimeout(150_000); // seven dispositions are recorded through the page before approval
   const name = `Hauler review ${Date.now()}`;
   await signIn(page, "engineer");
   // Cookie-authenticated API writes must say they come from the app's own origin.
@@ -97,6 +114,11 @@ test("request review, comment on a row, request changes, revise, approve, and re
   await expect(diff).toContainText("Compared with revision 1");
   await expect(diff).toContainText("LF: label");
   await expect(diff).toContainText("No row changed its drive");
+  // Approval waits for a disposition of every single fault that defeats a rule.
+  await reviewer.getByRole("form", { name: "Decide" }).getByLabel("Comment with your decision").fill("Labels match the loom now.");
+  await reviewer.getByRole("form", { name: "Decide" }).getByRole("button", { name: "Approve revision" }).click();
+  await expect(reviewer.getByText(/Approval refused: these \d+ single faults have no disposition yet/)).toBeVisible();
+  await disposeAll(reviewer);
   await reviewer.getByRole("form", { name: "Decide" }).getByLabel("Comment with your decision").fill("Labels match the loom now.");
   await reviewer.getByRole("form", { name: "Decide" }).getByRole("button", { name: "Approve revision" }).click();
   await expect(reviewer.getByTestId("decision").first()).toContainText("Approved");

@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import pg from "pg";
 import { client, DEMO, formBody, signIn, type Client } from "../support/http";
 import { createOutsider } from "../support/outsider";
-import { compileDesign, countRows, csvHeader, decodeRow, pageRows, type CompiledDesign, type Design, type RowFilter } from "../../app/engine";
+import { compileDesign, countRows, csvHeader, decodeRow, pageRows, prove, type CompiledDesign, type Design, type RowFilter } from "../../app/engine";
 
 const WS = "larkspur";
 const PROVEN = JSON.parse(readFileSync(new URL("../../drizzle/demo-designs/haybarn-campus-hauler.json", import.meta.url), "utf8")) as Design;
@@ -219,6 +219,50 @@ describe("review and sign-off", () => {
     expect((await act(reviewer, id, 1, { intent: "decide", verdict: "approved", comment: "" })).status).toBe(400);
     expect((await act(reviewer, id, 1, { intent: "decide", verdict: "maybe", comment: "hmm" })).status).toBe(400);
     expect(await statusOnPage(reviewer, id, 1)).toBe("in-review");
+  });
+
+  it("approval is refused while a single fault that defeats a rule has no disposition, with a message naming each open fault", async () => {
+    const faults = prove(ENGINE).singleFaults;
+    expect(faults.length).toBeGreaterThan(1);
+    const refused = await act(reviewer, id, 1, { intent: "decide", verdict: "approved", comment: "Looks right." });
+    expect(refused.status).toBe(409);
+    const text = (await refused.text()).replace(/<!-- -->/g, "");
+    expect(text).toContain(`these ${faults.length} single faults have no disposition yet`);
+    for (const f of faults) expect(text).toContain(`${f.component} ${f.mode.replace("-", " ")} (defeats ${f.defeats.join(", ")})`);
+    // Technicians and admins record no dispositions; a fault the verdict does not list needs none; a justification is required.
+    for (const c of [technician, admin]) {
+      expect((await act(c, id, 1, { intent: "dispose", component: faults[0]!.component, mode: faults[0]!.mode, disposition: "accepted", justification: "Monitored by the controller." })).status).toBe(403);
+    }
+    expect((await act(engineer, id, 1, { intent: "dispose", component: "SEAT", mode: "stuck-open", disposition: "accepted", justification: "Not a defeating fault at all." })).status).toBe(400);
+    expect((await act(engineer, id, 1, { intent: "dispose", component: faults[0]!.component, mode: faults[0]!.mode, disposition: "accepted", justification: "" })).status).toBe(400);
+    // All but the last: still refused, naming only the last.
+    for (const [k, f] of faults.slice(0, -1).entries()) {
+      const who = k % 2 === 0 ? engineer : reviewer;
+      const res = await act(who, id, 1, { intent: "dispose", component: f.component, mode: f.mode, disposition: k % 3 === 0 ? "fix-next-revision" : "accepted", justification: `Two-channel part, monitored by the controller (${k}).` });
+      expect(res.status).toBe(200);
+    }
+    const last = faults.at(-1)!;
+    const again = await act(reviewer, id, 1, { intent: "decide", verdict: "approved", comment: "Looks right." });
+    expect(again.status).toBe(409);
+    const againText = (await again.text()).replace(/<!-- -->/g, "");
+    expect(againText).toContain(`this single fault has no disposition yet: ${last.component} ${last.mode.replace("-", " ")}`);
+    expect(await statusOnPage(reviewer, id, 1)).toBe("in-review");
+    expect((await act(reviewer, id, 1, { intent: "dispose", component: last.component, mode: last.mode, disposition: "ruled-out", justification: "Forced-guided contacts: cannot weld closed." })).status).toBe(200);
+    // Recorded with author, content hash and audit.
+    const rows = await db.query<{ component: string; mode: string; author_id: string; content_hash: string }>(
+      "SELECT f.component, f.mode, f.author_id, f.content_hash FROM fault_disposition f JOIN design_revision r ON r.id = f.revision_id WHERE r.design_id = $1 ORDER BY f.created_at",
+      [id],
+    );
+    const hash = await db.query<{ content_hash: string }>("SELECT content_hash FROM design_revision WHERE design_id = $1 AND number = 1", [id]);
+    expect(rows.rows.map((r) => `${r.component}/${r.mode}`)).toEqual(faults.map((f) => `${f.component}/${f.mode}`));
+    expect(new Set(rows.rows.map((r) => r.content_hash))).toEqual(new Set([hash.rows[0]!.content_hash]));
+    expect(rows.rows[0]!.author_id).toBe(ids.engineer);
+    expect(rows.rows.at(-1)!.author_id).toBe(ids.reviewer);
+    const audit = await db.query<{ n: number }>("SELECT count(*)::int AS n FROM audit_event WHERE action = 'review.fault-disposed' AND detail->>'designId' = $1", [id]);
+    expect(audit.rows[0]!.n).toBe(faults.length);
+    const page = await pageText(reviewer, reviewUrl(id, 1));
+    expect(page).toContain("every fault has a disposition");
+    expect(page).toContain("Forced-guided contacts: cannot weld closed.");
   });
 
   it("changes requested, then approval: the decision records reviewer, time and the content hash; the author is e-mailed", async () => {

@@ -7,6 +7,7 @@ import { user } from "./auth.server";
 import { workspace } from "./workspace.server";
 import { design, designRevision } from "./design.server";
 
+export const faultDispositionEnum = pgEnum("fault_disposition_kind", ["accepted", "fix-next-revision", "ruled-out"]);
 export const reviewVerdictEnum = pgEnum("review_verdict", ["approved", "changes-requested"]);
 export const reviewCommentAnchorEnum = pgEnum("review_comment_anchor", ["revision", "row", "component"]);
 
@@ -80,6 +81,35 @@ export const reviewDecision = pgTable(
   ],
 );
 
+/**
+ * How one single fault that defeats a rule is dealt with (docs/decisions/161). Tied to the revision
+ * and the content hash it was recorded against; never updated: a later row for the same fault
+ * supersedes the earlier one, and both stay as history.
+ */
+export const faultDisposition = pgTable(
+  "fault_disposition",
+  {
+    id: text("id").primaryKey(),
+    workspaceId: text("workspace_id").notNull().references(() => workspace.id, { onDelete: "cascade" }),
+    designId: text("design_id").notNull().references(() => design.id, { onDelete: "cascade" }),
+    revisionId: text("revision_id").notNull().references(() => designRevision.id, { onDelete: "cascade" }),
+    contentHash: text("content_hash").notNull(),
+    /** The contact's id and how it is stuck. */
+    component: text("component").notNull(),
+    mode: text("mode").notNull(),
+    disposition: faultDispositionEnum("disposition").notNull(),
+    justification: text("justification").notNull(),
+    authorId: text("author_id").notNull().references(() => user.id),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    index("fault_disposition_revision_idx").on(t.revisionId, t.createdAt),
+    index("fault_disposition_workspace_idx").on(t.workspaceId),
+    check("fault_disposition_mode", sql`${t.mode} IN ('stuck-open', 'stuck-closed')`),
+  ],
+);
+
+export type FaultDispositionRecord = typeof faultDisposition.$inferSelect;
 export type ReviewRequestRecord = typeof reviewRequest.$inferSelect;
 export type NewReviewRequestRecord = typeof reviewRequest.$inferInsert;
 export type ReviewCommentRecord = typeof reviewComment.$inferSelect;
