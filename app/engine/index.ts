@@ -49,6 +49,7 @@ export {
 } from "./rows";
 export type { ContactFault } from "./table";
 export { replayTrace, type StepView } from "./sequence";
+export { evaluateRows, faultRows, glimpseRows, stepInto, type ControllerMemory, type RowGlimpse, type StepOutcome } from "./observe";
 export { csvChunks, csvHeader, textTableChunks } from "./csv";
 export {
   diagnose,
