@@ -1,49 +1,58 @@
-// Plain-word instructions for bench steps. Wording only: every outcome it speaks of is computed
-// by the engine elsewhere.
+// Plain-word instructions for bench steps. Wording only: every outcome it speaks of is computed by
+// replaying the moves with the engine elsewhere, and the words say the moves in the order replayed.
 import type { Lockout } from "../engine";
-import type { BenchExpect } from "./generate";
+import { LOCKOUT_TEXT, lockoutName } from "../lib/lockouts";
+import type { BenchExpect } from "./types";
 
 export type Naming = {
   conditionLabel: (cond: number) => string;
   stateName: (cond: number, state: number) => string;
   conditionCount: number;
   throttleCond: number;
-  /** A released throttle state, -1 when the throttle has none. */
-  releasedState: number;
-  condition: (cond: number) => string;
+  /** The throttle state counts as released. */
+  releasedState: (state: number) => boolean;
   input: (id: string) => string;
   inputIds: string[];
   contact: (id: string) => string;
   states: (digit: (cond: number) => number) => string;
 };
 
-type Digit = (row: number, cond: number) => number;
-
-const list = (xs: string[]) => (xs.length <= 1 ? xs.join("") : `${xs.slice(0, -1).join(", ")} and ${xs[xs.length - 1]}`);
+export type Move = { cond: number; from: number; to: number };
 
 /**
- * What to change from the previous step. With `approach`, the throttle goes to its released state
- * first and to this step's state last, so no lockout latches on the way (decision 052).
+ * A step's moves by phase, replayed in this order: `first` (the throttle to a released state),
+ * `free` (any order: the throttle is released meanwhile), `hold` (the throttle applied and held),
+ * `then` (one at a time, in order), `last` (the throttle set last).
  */
-export function describeChanges(n: Naming, digit: Digit, prev: number, row: number, opts: { approach: boolean }): string {
-  const changed: number[] = [];
-  for (let ci = 0; ci < n.conditionCount; ci++) if (digit(prev, ci) !== digit(row, ci)) changed.push(ci);
-  const change = (ci: number) => `${n.conditionLabel(ci)} from ${n.stateName(ci, digit(prev, ci))} to ${n.stateName(ci, digit(row, ci))}`;
-  const t = n.throttleCond;
-  const rel = n.releasedState;
-  const target = digit(row, t);
-  if (!opts.approach || rel < 0 || target === rel) {
-    return changed.length > 0 ? `Change ${changed.map(change).join("; ")}.` : "Change nothing.";
-  }
+export type Phases = { first: Move[]; free: Move[]; hold: Move[]; then: Move[]; last: Move[] };
+
+export const movesOf = (p: Phases): Move[] => [...p.first, ...p.free, ...p.hold, ...p.then, ...p.last];
+
+export const list = (xs: string[], last = "and") => (xs.length <= 1 ? xs.join("") : `${xs.slice(0, -1).join(", ")} ${last} ${xs[xs.length - 1]}`);
+
+export function describeMoves(n: Naming, p: Phases): string {
+  const change = (m: Move) => `${n.conditionLabel(m.cond)} from ${n.stateName(m.cond, m.from)} to ${n.stateName(m.cond, m.to)}`;
   const parts: string[] = [];
-  const others = changed.filter((ci) => ci !== t);
-  const tLabel = n.conditionLabel(t);
-  if (digit(prev, t) !== rel && others.length > 0) parts.push(`Release ${tLabel} (${n.stateName(t, rel)}) first.`);
-  if (others.length > 0) parts.push(`Change ${others.map(change).join("; ")}.`);
-  if (others.length > 0 || digit(prev, t) !== target) {
-    parts.push(`${others.length > 0 ? "Then set" : "Set"} ${tLabel} to ${n.stateName(t, target)}${others.length > 0 ? " last" : ""}.`);
-  } else parts.push("Change nothing.");
-  return parts.join(" ");
+  const more = p.free.length + p.hold.length + p.then.length + p.last.length > 0;
+  for (const m of p.first) {
+    const first = more ? " first" : "";
+    parts.push(
+      n.releasedState(m.from)
+        ? `Set ${change(m)}${first} (both count as released).`
+        : `Release ${n.conditionLabel(m.cond)}${first}: set it from ${n.stateName(m.cond, m.from)} to ${n.stateName(m.cond, m.to)}.`,
+    );
+  }
+  if (p.free.length > 0) parts.push(`${parts.length > 0 ? "Then change" : "Change"} ${p.free.map(change).join("; ")}${p.free.length > 1 ? ", in any order" : ""}.`);
+  for (const m of p.hold) {
+    parts.push(`${parts.length > 0 ? "Then apply" : "Apply"} ${n.conditionLabel(m.cond)}: set it from ${n.stateName(m.cond, m.from)} to ${n.stateName(m.cond, m.to)} and keep holding it.`);
+  }
+  if (p.then.length > 0) {
+    const held = p.hold.length > 0;
+    const lead = held ? "Then, still holding it, change" : parts.length > 0 ? "Then change" : "Change";
+    parts.push(`${lead} ${p.then.map(change).join(", then ")}${p.then.length > 1 ? ", in this order" : ""}.`);
+  }
+  for (const m of p.last) parts.push(`${parts.length > 0 ? "Then set" : "Set"} ${change(m)}${parts.length > 0 ? " last" : ""}.`);
+  return parts.length > 0 ? parts.join(" ") : "Leave every condition as it is.";
 }
 
 export function describeExpect(n: Naming, e: BenchExpect): string {
@@ -55,32 +64,26 @@ export function describeExpect(n: Naming, e: BenchExpect): string {
   return parts.join(" ");
 }
 
-const EVENT: Record<Lockout, string> = {
-  "power-on": "the controller powers up",
-  "enable-restore": "enable comes back",
-  "direction-engage": "a direction is engaged",
-  "brake-release": "the brake is released",
-  "throttle-fault": "the throttle reports a fault",
-};
+export const latchedBy = (armed: Lockout[]) =>
+  armed.length === 0 ? "A lockout latches" : `The ${list(armed.map(lockoutName))} latch${armed.length > 1 ? "" : "es"}`;
 
-/** The role of one step of a lockout sequence [B released, B, D, D released, D]. */
-export function lockoutWords(lockout: Lockout, pos: number, length: number, others: Lockout[]): string {
-  const head = `Lockout "${lockout}", part ${pos + 1} of ${length}:`;
-  switch (pos) {
-    case 0:
-      return `${head} start with the throttle released.`;
-    case 1:
-      return `${head} hold the throttle and keep holding it.`;
-    case 2: {
-      const also =
-        others.length > 0
-          ? ` This change also sets off the ${list(others.map((o) => `"${o}"`))} lockout${others.length > 1 ? "s" : ""}, so this step alone can't tell them apart.`
-          : "";
-      return `${head} ${EVENT[lockout]} while the throttle is held, so the lockout must keep drive off.${also}`;
-    }
-    case 3:
-      return `${head} release the throttle; this clears the lockout.`;
-    default:
-      return `${head} apply the throttle again; drive must come back.`;
-  }
+/**
+ * What a lockout check's step says (decision 132). `checked`: the lockouts the step checks (more than
+ * one when the same moves are the best check of each); `others`: further lockouts set off on the way.
+ */
+export function lockoutWords(checked: Lockout[], driveStep: number, others: Lockout[]): { head: string; note: string } {
+  const names = checked.map(lockoutName);
+  const events = list(checked.map((l) => LOCKOUT_TEXT[l].event), "and");
+  const extra = others.filter((o) => !checked.includes(o));
+  const together = [...checked.slice(1), ...extra];
+  const also =
+    together.length === 0
+      ? ""
+      : checked.length > 1
+        ? ` These moves set off ${extra.length > 0 ? `the ${list([...names, ...extra.map(lockoutName)])}` : "both"} at once, so this step can't tell them apart: it shows that at least one of them works.`
+        : ` These moves also set off the ${list(extra.map(lockoutName))}, so this step alone can't tell ${extra.length > 1 ? "them" : "the two"} apart.`;
+  return {
+    head: `Check the ${list(names)}.`,
+    note: `The ${list(names, "or")} must hold drive off: ${events} while the throttle is held, although step ${driveStep} showed drive running in these same conditions.${also}`,
+  };
 }
