@@ -7,6 +7,7 @@ import { diagnoseCommand } from "./diagnose";
 import { groupsCommand } from "./groups";
 import { whyCommand } from "./why";
 import { checkControllerCommand } from "./check-controller";
+import { benchPlanCommand } from "./bench-plan";
 
 export const COMMANDS: Command[] = [
   proveCommand,
@@ -15,4 +16,5 @@ export const COMMANDS: Command[] = [
   groupsCommand,
   whyCommand,
   checkControllerCommand,
+  benchPlanCommand,
 ];
