@@ -6,6 +6,7 @@ import { compileDesign, csvChunks, groupRows, pageRows, prove, whyRuleHolds, typ
 import { summarizeTable } from "../../app/engine/rules";
 import { refDecode, refRow } from "../unit/engine/reference";
 import { generatedDesign } from "./designs";
+import { benchPlanFigures } from "./bench-plans";
 
 function time<T>(f: () => T): [number, T] {
   const t0 = performance.now();
@@ -157,6 +158,7 @@ const report = {
     brokenSetsEmpty: { count: emptyBroken.length, slowestMs: Math.max(...emptyBroken.map((g) => g.ms)) },
     why: whys,
   },
+  benchPlans: benchPlanFigures(),
   memory: { rssMB: round(process.memoryUsage().rss / 1e6, 1), heapUsedMB: round(process.memoryUsage().heapUsed / 1e6, 1) },
 };
 console.log(JSON.stringify(report, null, 2));
