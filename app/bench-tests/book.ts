@@ -153,9 +153,7 @@ export function searchPool(c: CompiledDesign, book: RowBook, rest: number): Sear
     anchors.add(v.index);
   }
   const pool = new Set<number>(anchors);
-  const ruleConds = c.design.rules.flatMap((r) =>
-    "when" in r ? [[...predicateConditions(r.when as Predicate)].map((id) => c.conditionIndex[id])] : [],
-  );
+  const ruleConds = c.design.rules.flatMap((r) => (r.type === "no-restart" ? [] : [[...predicateConditions(r.when)].map((id) => c.conditionIndex[id])]));
   for (const a of anchors) {
     c.conditions.forEach((cond, ci) => {
       for (let s = 0; s < cond.radix; s++) pool.add(book.withState(a, ci, s));

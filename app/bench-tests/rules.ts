@@ -2,7 +2,7 @@
 // Inhibit rule: an unsafe row one relaxation of the rule's own conditions away from the forbidden
 // outcome. Require-drive rule: a demand row. Either way the row step's approach must show the row's
 // steady outcome (no lockout latched on the way in). Every fact is read from the engine's row views.
-import type { CompiledDesign, Predicate, RowView } from "../engine";
+import type { CompiledDesign, RowView } from "../engine";
 import { predicateConditions, type RowBook } from "./book";
 
 export type RuleItem = {
@@ -18,13 +18,9 @@ export type RuleItem = {
   reason?: string;
 };
 
-type Demands = Record<string, { demand: boolean; failing: boolean }>;
-/** Require-drive facts of a row view (spec 1.1). */
-const demandsOf = (v: RowView): Demands => (v as RowView & { demands?: Demands }).demands ?? {};
-
 /** Is the row where the rule applies (unsafe row, demand row)? */
 export function applies(item: Pick<RuleItem, "rule" | "type">, v: RowView): boolean {
-  return item.type === "inhibit" ? v.rules[item.rule].unsafe : (demandsOf(v)[item.rule]?.demand ?? false);
+  return item.type === "inhibit" ? v.rules[item.rule].unsafe : v.demands[item.rule].demand;
 }
 
 /** The rule's outcome in a row: the forbidden outcome (inhibit) or steady drive (require-drive). */
@@ -40,14 +36,12 @@ export function broken(item: Pick<RuleItem, "rule" | "type" | "forbid">, v: RowV
 export function ruleItems(c: CompiledDesign, book: RowBook, pool: number[], exhaustive: boolean, poolNote: string, input: (id: string) => string): RuleItem[] {
   const out: RuleItem[] = [];
   for (const r of c.design.rules) {
-    const type = r.type as string;
-    if (type !== "inhibit" && type !== "require-drive") continue;
-    const when = (r as { when: Predicate }).when;
-    const conds = [...predicateConditions(when)].map((id) => c.conditionIndex[id]);
-    const forbid = r.type === "inhibit" && "forbid" in r && r.forbid !== "drive" ? (r.forbid as { energized: string }).energized : null;
-    const item: RuleItem = { id: `rule:${r.id}`, rule: r.id, label: r.label ?? r.id, type: type as RuleItem["type"], forbid, rows: [] };
+    if (r.type === "no-restart") continue;
+    const conds = [...predicateConditions(r.when)].map((id) => c.conditionIndex[id]);
+    const forbid = r.type === "inhibit" && r.forbid !== "drive" ? r.forbid.energized : null;
+    const item: RuleItem = { id: `rule:${r.id}`, rule: r.id, label: r.label ?? r.id, type: r.type, forbid, rows: [] };
     let applying = 0;
-    if (type === "require-drive") {
+    if (r.type === "require-drive") {
       for (const i of pool) {
         if (!applies(item, book.view(i))) continue;
         applying++;

@@ -92,7 +92,7 @@ export function benchDesign(g: fc.GeneratorValue): Design {
       label: "drives",
       type: "require-drive",
       when: { all: [{ cond: "t", in: applied }, { cond: cond.id, in: g(fc.subarray, cond.states, { minLength: 1 }) }] },
-    } as unknown as Rule);
+    });
   }
   if (int(0, 1) === 1) rules.push({ id: "NR", label: "NR", type: "no-restart" });
   return {
@@ -115,7 +115,7 @@ const designs = fc.gen().map((g) => benchDesign(g));
 
 describe("bench plans replayed from the spec's step semantics", () => {
   it("hold every expectation, reveal every revealable fault and explain every other item (random designs)", () => {
-    const seen = { designs: 0, twoReleased: 0, dual: 0, alwaysClosed: 0, lockoutChecks: 0, unrevealable: 0, ruleSteps: 0, anyOrder: 0 };
+    const seen = { designs: 0, twoReleased: 0, dual: 0, alwaysClosed: 0, lockoutChecks: 0, unrevealable: 0, ruleSteps: 0, requireDrive: 0, anyOrder: 0 };
     fc.assert(
       fc.property(designs, (d) => {
         const checked = validateDesign(d);
@@ -131,12 +131,13 @@ describe("bench plans replayed from the spec's step semantics", () => {
         seen.unrevealable += plan.uncovered.filter((u) => u.item.startsWith("fault:")).length;
         seen.ruleSteps += plan.steps.filter((s) => s.covers.some((x) => x.startsWith("rule:"))).length;
         seen.anyOrder += plan.steps.filter((s) => s.anyOrder).length;
+        seen.requireDrive += plan.steps.filter((s) => s.covers.some((x) => /^rule:D/.test(x))).length;
       }),
       { numRuns: 120, seed: 16 },
     );
     // The random designs exercise what the property is about.
     expect(seen.designs).toBeGreaterThan(100);
-    for (const k of ["twoReleased", "dual", "alwaysClosed", "lockoutChecks", "unrevealable", "ruleSteps", "anyOrder"] as const) expect(seen[k]).toBeGreaterThan(0);
+    for (const k of ["twoReleased", "dual", "alwaysClosed", "lockoutChecks", "unrevealable", "ruleSteps", "requireDrive", "anyOrder"] as const) expect(seen[k]).toBeGreaterThan(0);
   }, SLOW);
 
   it("state a lower bound that a brute-force search confirms, and never plan fewer rows than it", () => {
