@@ -42,9 +42,12 @@ export class RowSetError extends Error {
 export type RowSet =
   | { kind: "drive" }
   | { kind: "unsafe" | "violating"; rule: number }
+  | { kind: "demand" | "failing"; rule: number }
   | { kind: "broken"; contact: number; mode: FaultMode };
 
 const SET_FORMS = "drive, unsafe:RULE, violating:RULE, demand:RULE, failing:RULE or broken:CONTACT/MODE";
+
+const A_RULE: Record<string, string> = { inhibit: "an inhibit rule", "require-drive": "a require-drive rule", "no-restart": "a no-restart rule" };
 
 function ruleNamed(c: CompiledDesign, id: string) {
   const rule = c.rules.find((r) => r.id === id);
@@ -76,10 +79,11 @@ export function parseRowSet(c: CompiledDesign, set: string): RowSet {
   }
   const rule = ruleNamed(c, arg);
   if (kind === "unsafe" || kind === "violating") {
-    if (rule.type !== "inhibit") throw new RowSetError(`${kind}: needs an inhibit rule; ${JSON.stringify(arg)} is a ${rule.type} rule`);
+    if (rule.type !== "inhibit") throw new RowSetError(`${kind}: needs an inhibit rule; ${JSON.stringify(arg)} is ${A_RULE[rule.type]}`);
     return { kind, rule: rule.index };
   }
-  throw new RowSetError(`${kind}: needs a require-drive rule; ${JSON.stringify(arg)} is a ${rule.type} rule`);
+  if (rule.type !== "require-drive") throw new RowSetError(`${kind}: needs a require-drive rule; ${JSON.stringify(arg)} is ${A_RULE[rule.type]}`);
+  return { kind: kind as "demand" | "failing", rule: rule.index };
 }
 
 /** The rows where `each` sets a bit, word by word over the whole table. */
@@ -102,6 +106,10 @@ export function rowSetBits(c: CompiledDesign, set: RowSet): Int32Array {
       return scan(c, (ev) => ev.unsafeWord(set.rule));
     case "violating":
       return scan(c, (ev) => ev.unsafeWord(set.rule) & ev.forbiddenWord(set.rule));
+    case "demand":
+      return scan(c, (ev) => ev.demandWord(set.rule));
+    case "failing":
+      return scan(c, (ev) => ev.failingWord(set.rule));
     case "broken":
       return brokenBits(c, c.contacts[set.contact].id, set.mode).bits;
   }
@@ -198,7 +206,7 @@ export function groupRows(c: CompiledDesign, set: string, opts: { limit?: number
 function driveRule(c: CompiledDesign, ruleId: string): number {
   const rule = ruleNamed(c, ruleId);
   if (rule.type !== "inhibit") {
-    throw new RowSetError(`why: needs an inhibit rule that forbids drive; ${JSON.stringify(ruleId)} is a ${rule.type} rule`);
+    throw new RowSetError(`why: needs an inhibit rule that forbids drive; ${JSON.stringify(ruleId)} is ${A_RULE[rule.type]}`);
   }
   if (rule.forbidInput >= 0) {
     const input = c.inputs[rule.forbidInput].id;
@@ -243,7 +251,7 @@ export function whyRuleHolds(c: CompiledDesign, ruleId: string, opts: { limit?: 
 
 // ---------------------------------------------------------------- comparing two tables
 
-export type OutcomeChangeKind = "drive-on" | "drive-off" | "now-violating" | "no-longer-violating";
+export type OutcomeChangeKind = "drive-on" | "drive-off" | "now-violating" | "no-longer-violating" | "now-failing" | "no-longer-failing";
 
 /** Rows of two revisions' tables whose outcome changed one way, as groups. */
 export type OutcomeChange = { kind: OutcomeChangeKind; rule?: string; rows: number; groups: RowGroup[]; groupCount: number };
@@ -261,9 +269,10 @@ export function sameRowNumbering(before: CompiledDesign, after: CompiledDesign):
 }
 
 /**
- * The rows whose steady drive changed (on, off) and, per inhibit rule id in either design (in the
- * order of `after`, then rules only `before` has), the rows that became or stopped being violating.
- * A rule one design does not have violates no row there. Needs the same row numbering.
+ * The rows whose steady drive changed (on, off) and, per inhibit or require-drive rule id in either
+ * design (in the order of `after`, then rules only `before` has), the rows that became or stopped
+ * being violating (inhibit) or failing (require-drive). A rule one design does not have breaks no row
+ * there. Needs the same row numbering.
  */
 export function compareOutcomes(before: CompiledDesign, after: CompiledDesign, opts: { limit?: number } = {}): OutcomeComparison {
   if (!sameRowNumbering(before, after)) {
@@ -271,7 +280,7 @@ export function compareOutcomes(before: CompiledDesign, after: CompiledDesign, o
   }
   const a = new WordEvaluator(before);
   const b = new WordEvaluator(after);
-  const inhibitOf = (c: CompiledDesign) => new Map(c.rules.flatMap((r) => (r.type === "inhibit" ? [[r.id, r.index] as const] : [])));
+  const inhibitOf = (c: CompiledDesign) => new Map(c.rules.flatMap((r) => (r.type !== "no-restart" ? [[r.id, r.index] as const] : [])));
   const ra = inhibitOf(before);
   const rb = inhibitOf(after);
   const ids = [...new Set([...rb.keys(), ...ra.keys()])];
@@ -281,7 +290,8 @@ export function compareOutcomes(before: CompiledDesign, after: CompiledDesign, o
   const now = ids.map(() => new Int32Array(words));
   const noLonger = ids.map(() => new Int32Array(words));
   const any = new Int32Array(words);
-  const violating = (ev: WordEvaluator, r: number | undefined) => (r === undefined ? 0 : ev.unsafeWord(r) & ev.forbiddenWord(r));
+  const violating = (ev: WordEvaluator, r: number | undefined) =>
+    r === undefined ? 0 : ev.c.rules[r]!.type === "require-drive" ? ev.failingWord(r) : ev.unsafeWord(r) & ev.forbiddenWord(r);
   for (let w = 0; w < words; w++) {
     a.evalWord(w);
     b.evalWord(w);
@@ -306,8 +316,10 @@ export function compareOutcomes(before: CompiledDesign, after: CompiledDesign, o
   add("drive-on", on);
   add("drive-off", off);
   ids.forEach((id, k) => {
-    add("now-violating", now[k], id);
-    add("no-longer-violating", noLonger[k], id);
+    const at = rb.get(id) ?? ra.get(id)!;
+    const requires = (rb.has(id) ? after : before).rules[at]!.type === "require-drive";
+    add(requires ? "now-failing" : "now-violating", now[k], id);
+    add(requires ? "no-longer-failing" : "no-longer-violating", noLonger[k], id);
   });
   return { comparable: true, rows: after.rows, changedRows: countBits(any), changes };
 }

@@ -13,6 +13,16 @@ export function readableSummary(revisionId: string, c: CompiledDesign, verdict: 
   if (hit) return hit;
   const holds = new Map(verdict.rules.map((r) => [r.id, r.holds]));
   const rules: RuleReading[] = c.rules.map((r) => {
+    if (r.type === "require-drive") {
+      return {
+        type: "require-drive",
+        id: r.id,
+        label: r.label,
+        holds: holds.get(r.id) ?? false,
+        demand: groupRows(c, `demand:${r.id}`, { limit }),
+        failing: groupRows(c, `failing:${r.id}`, { limit }),
+      };
+    }
     if (r.type !== "inhibit") return { type: "no-restart", id: r.id, label: r.label, holds: holds.get(r.id) ?? false };
     const forbids = r.forbidInput < 0 ? "drive" : `input ${c.inputs[r.forbidInput]!.label} (${c.inputs[r.forbidInput]!.id}) energized`;
     return {

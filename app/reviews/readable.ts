@@ -3,6 +3,7 @@ import type { GroupsDocument, WhyDocument } from "~/engine";
 
 export type RuleReading =
   | { type: "inhibit"; id: string; label: string; forbids: string; holds: boolean; unsafe: GroupsDocument; violating: GroupsDocument; why: WhyDocument | null }
+  | { type: "require-drive"; id: string; label: string; holds: boolean; demand: GroupsDocument; failing: GroupsDocument }
   | { type: "no-restart"; id: string; label: string; holds: boolean };
 
 export type FaultReading = { component: string; label: string; mode: string; defeats: string[]; broken: GroupsDocument };

@@ -94,7 +94,9 @@ const [csvMs] = time(() => {
 // Every set the design has (spec section 4), grouped once each after one warm-up run.
 const groupSets = [
   "drive",
-  ...c.rules.flatMap((r) => (r.type === "inhibit" ? [`unsafe:${r.id}`, `violating:${r.id}`] : [])),
+  ...c.rules.flatMap((r) =>
+    r.type === "inhibit" ? [`unsafe:${r.id}`, `violating:${r.id}`] : r.type === "require-drive" ? [`demand:${r.id}`, `failing:${r.id}`] : [],
+  ),
   ...c.contacts.flatMap((k) => [`broken:${k.id}/stuck-closed`, `broken:${k.id}/stuck-open`]),
 ];
 groupRows(c, "drive");

@@ -74,6 +74,26 @@ function RuleBlock({ rule, conditions, table, ruleLabels }: { rule: RuleReading;
       </li>
     );
   }
+  if (rule.type === "require-drive") {
+    return (
+      <li className="py-3" data-testid="rule-reading" data-rule={rule.id}>
+        {head}
+        <p className="mt-1 text-sm text-ink-700">
+          Demands drive in {plural(rule.demand.rows, "row")}
+          {rule.failing.rows === 0 ? ", and every one of them drives:" : `; ${plural(rule.failing.rows, "row does", "rows do")} not drive:`}
+        </p>
+        <div className="mt-1">
+          <GroupList conditions={conditions} doc={rule.demand} table={table} />
+        </div>
+        {rule.failing.rows > 0 ? (
+          <div className="mt-1 rounded border border-brick-200 bg-brick-50/50 px-2">
+            <p className="pt-1 text-xs font-semibold text-brick-700">Demand rows without drive</p>
+            <GroupList conditions={conditions} doc={rule.failing} table={table} />
+          </div>
+        ) : null}
+      </li>
+    );
+  }
   const violating = rule.violating.rows;
   return (
     <li className="py-3" data-testid="rule-reading" data-rule={rule.id}>
@@ -150,7 +170,7 @@ export function ReadableSummary({
         </p>
         <GroupList conditions={conditions} doc={drive} table={table} empty="No row drives: this design can never drive, so its inhibit rules prove nothing." />
       </Block>
-      <Block title="Rules and why they hold" testId="rule-readings">
+      <Block title="Rules: why each holds, what each demands" testId="rule-readings">
         <ul className="divide-y divide-ink-100">
           {readable.rules.map((r) => (
             <RuleBlock key={r.id} rule={r} conditions={conditions} table={table} ruleLabels={ruleLabels} />

@@ -98,6 +98,11 @@ function referenceSets(d: Design): Map<string, Set<number>> {
   const where = (f: (i: number) => boolean) => new Set(Array.from({ length: n }, (_, i) => i).filter(f));
   sets.set("drive", where((i) => clean[i].drive));
   const inhibit = d.rules.flatMap((r) => (r.type === "inhibit" ? [r] : []));
+  for (const r of d.rules) {
+    if (r.type !== "require-drive") continue;
+    sets.set(`demand:${r.id}`, where((i) => refHolds(r.when, states[i])));
+    sets.set(`failing:${r.id}`, where((i) => refHolds(r.when, states[i]) && !clean[i].drive));
+  }
   for (const r of inhibit) {
     sets.set(`unsafe:${r.id}`, where((i) => refHolds(r.when, states[i])));
     sets.set(`violating:${r.id}`, where((i) => refHolds(r.when, states[i]) && refForbidden(r, clean[i])));
@@ -131,8 +136,7 @@ describe("groups of the yard-tug example", () => {
   // The example computes groups with the spec's baseline; another grouping of the same rows with no
   // more groups is equally right, so rows and counts are compared, not the groups themselves.
   const design = readJson("yard-tug.design.json") as Design;
-  const supported = { ...design, rules: design.rules.filter((r) => r.type !== ("require-drive" as string)) };
-  const c = compileDesign(supported);
+  const c = compileDesign(design);
   const conds = design.conditions;
 
   it("drive: the same rows as the example, in no more groups", () => {
@@ -167,6 +171,13 @@ describe("groups of the yard-tug example", () => {
       { rows: 2, states: { key: ["on"], seat: ["occupied"], plug: ["inserted"], dir: ["forward", "reverse"], pedal: ["up"], thr: ["pressed"] } },
     ]);
     expect(groupRows(c, "broken:KEY/stuck-open")).toMatchObject({ rows: 0, groups: [], groupCount: 0 });
+  });
+
+  it("demand and failing rows of the require-drive rule", () => {
+    expect(groupRows(c, "demand:D1").groups).toEqual(readJson("yard-tug.groups-drive.json").groups);
+    expect(groupRows(c, "failing:D1")).toMatchObject({ rows: 0, groups: [] });
+    expect(() => groupRows(c, "unsafe:D1")).toThrow(/needs an inhibit rule; "D1" is a require-drive rule/);
+    expect(() => groupRows(c, "demand:R1")).toThrow(/needs a require-drive rule; "R1" is an inhibit rule/);
   });
 });
 
@@ -347,13 +358,15 @@ describe("rows whose outcome changed between two revisions", () => {
         const rowsA = refRows(before);
         const rowsB = refRows(after);
         const violates = (d: Design, rows: RefRow[], id: string, i: number) => {
-          const r = d.rules.find((x) => x.id === id && x.type === "inhibit");
-          return r !== undefined && r.type === "inhibit" && refHolds(r.when, refDecode(d, i)) && refForbidden(r, rows[i]);
+          const r = d.rules.find((x) => x.id === id);
+          if (r === undefined || r.type === "no-restart" || !refHolds(r.when, refDecode(d, i))) return false;
+          return r.type === "require-drive" ? !rows[i].drive : refForbidden(r, rows[i]);
         };
+        const kindOf = (id: string) => ([...after.rules, ...before.rules].find((r) => r.id === id)!.type === "require-drive" ? "failing" : "violating");
         const expected = new Map<string, Set<number>>();
         const put = (key: string, i: number) => expected.set(key, (expected.get(key) ?? new Set()).add(i));
         const changed = new Set<number>();
-        const ids = new Set([...before.rules, ...after.rules].filter((r) => r.type === "inhibit").map((r) => r.id));
+        const ids = new Set([...before.rules, ...after.rules].filter((r) => r.type !== "no-restart").map((r) => r.id));
         for (let i = 0; i < n; i++) {
           if (rowsB[i].drive && !rowsA[i].drive) put("drive-on", i);
           if (rowsA[i].drive && !rowsB[i].drive) put("drive-off", i);
@@ -361,8 +374,8 @@ describe("rows whose outcome changed between two revisions", () => {
           for (const id of ids) {
             const va = violates(before, rowsA, id, i);
             const vb = violates(after, rowsB, id, i);
-            if (vb && !va) put(`now-violating ${id}`, i);
-            if (va && !vb) put(`no-longer-violating ${id}`, i);
+            if (vb && !va) put(`now-${kindOf(id)} ${id}`, i);
+            if (va && !vb) put(`no-longer-${kindOf(id)} ${id}`, i);
             if (va !== vb) changed.add(i);
           }
         }
@@ -377,7 +390,6 @@ describe("rows whose outcome changed between two revisions", () => {
 
   it("are not comparable when the conditions differ", () => {
     const d = readJson("yard-tug.design.json") as Design;
-    d.rules = d.rules.filter((r) => r.type !== ("require-drive" as string));
     const e = JSON.parse(JSON.stringify(d)) as Design;
     e.conditions[3].states = ["forward", "neutral", "reverse", "tow"];
     expect(compareOutcomes(compileDesign(d), compileDesign(e))).toMatchObject({ comparable: false });
