@@ -1,7 +1,7 @@
 // The whole check of a record (command line `check-controller` and the API alike):
 // chainproof/controller-check@1 = derived values and sorted findings, optionally against a design.
 import type { Design, Problem } from "../engine/index";
-import { deriveValues, uncomputable, type DerivedValues } from "./derive";
+import { deriveValues, type DerivedValues } from "./derive";
 import { designFindings, recordFindings, sortFindings, type Finding } from "./findings";
 import { validateRecord, type ControllerRecord } from "./schema";
 
@@ -15,14 +15,11 @@ export type ControllerCheck = {
 
 export type ParsedRecord = { ok: true; record: ControllerRecord; derived: DerivedValues } | { ok: false; problems: Problem[] };
 
-/** Validates a record and derives its values; a record whose values cannot be computed is invalid too. */
+/** Validates a record and derives its values. */
 export function parseRecord(input: unknown): ParsedRecord {
   const v = validateRecord(input);
   if (!v.ok) return v;
-  const derived = deriveValues(v.record);
-  const problems = uncomputable(derived);
-  if (problems.length > 0) return { ok: false, problems };
-  return { ok: true, record: v.record, derived };
+  return { ok: true, record: v.record, derived: deriveValues(v.record) };
 }
 
 /** Derived values and findings of a valid record, against a design when one is given. */

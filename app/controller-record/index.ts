@@ -6,6 +6,7 @@ export {
   SENSORS,
   DESCRIPTION_MAX,
   controllerRecordShape,
+  controllerRecordSchema,
   validateRecord,
   orderProblems,
   recordLockouts,
@@ -44,3 +45,14 @@ export {
 export { CONTROLLER_CHECK_FORMAT, checkRecord, parseRecord, hasErrors, type ControllerCheck, type ParsedRecord } from "./check";
 export { roundHalfAway } from "./round";
 export { FIELD_WORDS, CHEMISTRY_WORDS, SENSOR_WORDS, LOCKOUT_WORDS, CLASS_WORDS, type RecordField, type FieldWords } from "./words";
+export {
+  NUMBER_FIELDS,
+  OPTIONAL_FIELDS,
+  PRECHARGE_FIELDS,
+  controllerFormSchema,
+  formToRecord,
+  recordToForm,
+  lockoutField,
+  type RecordForm,
+} from "./form";
+export { compareRecords, leaves, showValue, type RecordChange } from "./compare";

@@ -2,6 +2,7 @@
 // must keep, and validation that names every problem by its path. Pure: no React, no database, no Node.
 import { z } from "zod";
 import { LOCKOUTS, formatPath, type Lockout, type Problem } from "../engine/index";
+import { deriveValues, uncomputable } from "./derive";
 
 export const CONTROLLER_RECORD_FORMAT = "chainproof/controller-record@1";
 
@@ -138,19 +139,37 @@ function nulProblems(input: unknown, path: (string | number)[], out: Problem[]):
   }
 }
 
+/**
+ * The whole record: its shape, the orders between fields, no NUL character anywhere, and derived values
+ * that can be computed. Every problem comes with its path, all at once (the orders are checked even
+ * when another field is broken). The API, the form and the command line validate with this one schema.
+ */
+export const controllerRecordSchema = controllerRecordShape.superRefine(
+  (value, ctx) => {
+    const raw: unknown = value;
+    const more: Problem[] = [...orderProblems(raw)];
+    nulProblems(raw, [], more);
+    if (more.length === 0) {
+      const shaped = controllerRecordShape.safeParse(raw);
+      if (shaped.success) more.push(...uncomputable(deriveValues(shaped.data)));
+    }
+    for (const p of more) ctx.addIssue({ code: "custom", path: p.path === "" ? [] : pathOf(p.path), message: p.message });
+  },
+  { when: () => true },
+);
+
+/** "settings.lockouts[1]" -> ["settings", "lockouts", 1] */
+function pathOf(path: string): (string | number)[] {
+  return path.split(/\.|(?=\[)/).map((seg) => (seg.startsWith("[") ? Number(seg.slice(1, -1)) : seg));
+}
+
 export type RecordValidation = { ok: true; record: ControllerRecord } | { ok: false; problems: Problem[] };
 
-/** The record's shape and orders; every problem with its path. Derived values must also be computable. */
+/** The record checked whole; every problem with its path. */
 export function validateRecord(input: unknown): RecordValidation {
-  const problems: Problem[] = [];
-  const parsed = controllerRecordShape.safeParse(input);
-  if (!parsed.success) {
-    for (const issue of parsed.error.issues) problems.push({ path: formatPath(issue.path), message: issue.message });
-  }
-  problems.push(...orderProblems(input));
-  nulProblems(input, [], problems);
-  if (problems.length > 0 || !parsed.success) return { ok: false, problems: dedupe(problems) };
-  return { ok: true, record: parsed.data };
+  const parsed = controllerRecordSchema.safeParse(input);
+  if (parsed.success) return { ok: true, record: parsed.data };
+  return { ok: false, problems: dedupe(parsed.error.issues.map((i) => ({ path: formatPath(i.path), message: i.message }))) };
 }
 
 function dedupe(problems: Problem[]): Problem[] {
