@@ -20,6 +20,7 @@ export default [
       route("vehicles", "routes/vehicles.tsx"),
       route("vehicles/:vehicleId", "routes/vehicle.tsx"),
       route("vehicles/:vehicleId/why", "routes/vehicle-diagnose.tsx"),
+      route("vehicles/:vehicleId/controller", "routes/vehicle-controller.tsx"),
       route("designs", "routes/designs.tsx"),
       route("designs/new", "routes/design-new.tsx"),
       route("designs/:designId", "routes/design.tsx"),

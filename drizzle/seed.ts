@@ -1,7 +1,8 @@
 // Demo data of our own invented scenario: Larkspur Light Vehicles, a small maker of electric utility
-// vehicles, with four people (one per role), three vehicles and a design for each. Runs only on an
+// vehicles, with four people (one per role), four vehicles and a design for three. Runs only on an
 // empty database; `tsx drizzle/seed.ts --designs` adds the demo designs to an existing demo
-// workspace that has none, and `--release` approves and releases the demo revision to its vehicle.
+// workspace that has none, `--release` approves and releases the demo revision to its vehicle, and
+// `--controller-records` adds the controller settings records (and hauler #5 with its release).
 import { readFileSync } from "node:fs";
 import { and, eq, sql } from "drizzle-orm";
 import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
@@ -37,6 +38,13 @@ const VEHICLES = [
     notes: "Pilot unit at the sports field.",
   },
   {
+    name: "Haybarn campus hauler #5",
+    serial: "LLV-CH-0005",
+    model: "Haybarn CH-2 utility cart",
+    controllerDescription: "48 V series-wound drive controller (replacement unit fitted in November), same loom as hauler #3.",
+    notes: "Maintenance crew vehicle. Runs the hauler #3 design.",
+  },
+  {
     name: "Scree trail bike prototype P2",
     serial: "LLV-TB-P002",
     model: "Scree lightweight trail bike",
@@ -64,6 +72,7 @@ export async function seed(databaseUrl: string, log: (s: string) => void = conso
       for (const v of VEHICLES) await tx.insert(schema.vehicle).values({ id: crypto.randomUUID(), workspaceId, ...v });
       await seedDemoDesigns(tx, workspaceId);
       await seedDemoRelease(tx, workspaceId);
+      await seedDemoControllerRecords(tx, workspaceId);
     });
     log(`seeded the demo workspace "${DEMO_WORKSPACE.name}"`);
     return true;
@@ -270,6 +279,116 @@ export async function seedReleaseOnly(databaseUrl: string, log: (s: string) => v
   }
 }
 
+// Controller settings records (docs/decisions/123): hauler #3's record agrees with the revision released
+// to it; hauler #5 runs the same revision, but the replacement controller fitted to it came with the
+// brake-release lockout off, so its proof does not hold for its settings.
+const HAULER_SETTINGS = {
+  format: "chainproof/controller-record@1",
+  pack: { chemistry: "lead-acid", seriesCells: 24, capacityAh: 150, continuousC: 1, fuseA: 200 },
+  controller: { description: "48 V series-wound drive controller, 300 A", ratedCurrentA: 300, minVoltageV: 36, maxVoltageV: 63 },
+  settings: {
+    lowVoltageCutbackV: 43,
+    overVoltageCutoffV: 61,
+    batteryCurrentPercent: 40,
+    motorCurrentPercent: 100,
+    throttle: { sensor: "hall", restV: 0.8, fullV: 4.2, releasedBelowV: 1.0, appliedFromV: 1.2, faultBelowV: 0.5, faultAboveV: 4.6 },
+    brakeCutsDrive: true,
+    lockouts: ["power-on", "enable-restore", "direction-engage", "brake-release"],
+    precharge: { resistorOhm: 100, capacitanceUF: 2200, delayMs: 800 },
+  },
+};
+
+const DEMO_RECORDS: { vehicle: string; hoursAgo: number; by: string; document: Record<string, unknown> }[] = [
+  { vehicle: "Haybarn campus hauler #3", hoursAgo: 22, by: DEMO_USERS[2].email, document: HAULER_SETTINGS },
+  { vehicle: "Haybarn campus hauler #5", hoursAgo: 22, by: DEMO_USERS[2].email, document: HAULER_SETTINGS },
+  {
+    vehicle: "Haybarn campus hauler #5",
+    hoursAgo: 3,
+    by: DEMO_USERS[2].email,
+    document: {
+      ...HAULER_SETTINGS,
+      controller: { ...HAULER_SETTINGS.controller, description: "48 V series-wound drive controller, 300 A (replacement unit)" },
+      settings: { ...HAULER_SETTINGS.settings, lockouts: ["power-on", "enable-restore", "direction-engage"] },
+    },
+  },
+];
+
+/**
+ * Releases the demo revision to hauler #5 too and adds the demo controller records, when no vehicle of
+ * the workspace has a record yet; returns whether it did.
+ */
+export async function seedDemoControllerRecords(db: Seeder, workspaceId: string): Promise<boolean> {
+  const any = await db.select({ id: schema.controllerRecord.id }).from(schema.controllerRecord).where(eq(schema.controllerRecord.workspaceId, workspaceId)).limit(1);
+  if (any[0]) return false;
+  const vehicles = await db.select({ id: schema.vehicle.id, name: schema.vehicle.name }).from(schema.vehicle).where(eq(schema.vehicle.workspaceId, workspaceId));
+  const people = await db
+    .select({ id: schema.user.id, email: schema.user.email })
+    .from(schema.member)
+    .innerJoin(schema.user, eq(schema.member.userId, schema.user.id))
+    .where(eq(schema.member.workspaceId, workspaceId));
+  const hauler3 = vehicles.find((v) => v.name === "Haybarn campus hauler #3");
+  const hauler5 = vehicles.find((v) => v.name === "Haybarn campus hauler #5");
+  const engineer = people.find((p) => p.email === DEMO_USERS[1].email);
+  if (!hauler3 || !hauler5 || !engineer) return false;
+  const release = await db
+    .select({ revisionId: schema.vehicleRelease.revisionId })
+    .from(schema.vehicleRelease)
+    .where(and(eq(schema.vehicleRelease.workspaceId, workspaceId), eq(schema.vehicleRelease.vehicleId, hauler3.id)))
+    .limit(1);
+  if (!release[0]) return false;
+  const hour = 3600 * 1000;
+  const now = Date.now();
+  await db.insert(schema.vehicleRelease).values({
+    id: crypto.randomUUID(),
+    workspaceId,
+    vehicleId: hauler5.id,
+    revisionId: release[0].revisionId,
+    releasedBy: engineer.id,
+    at: new Date(now - 23 * hour),
+    note: "Same loom as hauler #3.",
+  });
+  const version = new Map<string, number>();
+  for (const r of DEMO_RECORDS) {
+    const v = vehicles.find((x) => x.name === r.vehicle)!;
+    const by = people.find((p) => p.email === r.by);
+    if (!by) throw new Error(`${r.by} must be a member of the workspace`);
+    const n = (version.get(v.id) ?? 0) + 1;
+    version.set(v.id, n);
+    await db.insert(schema.controllerRecord).values({
+      id: crypto.randomUUID(),
+      workspaceId,
+      vehicleId: v.id,
+      version: n,
+      document: r.document,
+      recordedBy: by.id,
+      recordedAt: new Date(now - r.hoursAgo * hour),
+    });
+  }
+  return true;
+}
+
+/** For an installation seeded before controller records existed: adds hauler #5, its release and the records. */
+export async function seedControllerRecordsOnly(databaseUrl: string, log: (s: string) => void = console.log) {
+  const pool = new pg.Pool({ connectionString: databaseUrl, max: 2 });
+  const db = drizzle(pool, { schema });
+  try {
+    const ws = await db.select({ id: schema.workspace.id }).from(schema.workspace).where(eq(schema.workspace.slug, DEMO_WORKSPACE.slug));
+    if (!ws[0]) return log(`no workspace "${DEMO_WORKSPACE.slug}"; nothing to do`);
+    const workspaceId = ws[0].id;
+    const done = await db.transaction(async (tx) => {
+      const has5 = await tx
+        .select({ id: schema.vehicle.id })
+        .from(schema.vehicle)
+        .where(and(eq(schema.vehicle.workspaceId, workspaceId), eq(schema.vehicle.name, "Haybarn campus hauler #5")));
+      if (!has5[0]) await tx.insert(schema.vehicle).values({ id: crypto.randomUUID(), workspaceId, ...VEHICLES.find((v) => v.name === "Haybarn campus hauler #5")! });
+      return seedDemoControllerRecords(tx, workspaceId);
+    });
+    log(done ? "added the demo controller records" : "the demo workspace already has controller records (or no release); nothing done");
+  } finally {
+    await pool.end();
+  }
+}
+
 if (import.meta.url === `file://${process.argv[1]}`) {
   const url = process.env.DATABASE_URL;
   if (!url) {
@@ -278,5 +397,6 @@ if (import.meta.url === `file://${process.argv[1]}`) {
   }
   if (process.argv.includes("--designs")) await seedDesignsOnly(url);
   else if (process.argv.includes("--release")) await seedReleaseOnly(url);
+  else if (process.argv.includes("--controller-records")) await seedControllerRecordsOnly(url);
   else await seed(url);
 }

@@ -9,3 +9,4 @@ export * from "./schema/api-key.server";
 export * from "./schema/release.server";
 export * from "./schema/bench-run.server";
 export * from "./schema/review.server";
+export * from "./schema/controller-record.server";

@@ -28,4 +28,6 @@ export const CAN = {
   review: ["reviewer"],
   // Engineers explain how a defeating fault is dealt with; reviewers may record what they accept (decision 161).
   disposeFaults: ["engineer", "reviewer"],
+  // The controller settings record: typed in at the vehicle by the people who set the controller up.
+  recordControllerSettings: ["engineer", "technician"],
 } as const satisfies Record<string, readonly Role[]>;

@@ -8,13 +8,17 @@ import { currentRelease, getVehicle } from "~/vehicles/vehicles.server";
 import { WhyNotPanel } from "~/components/diagnosis/why-not-panel";
 import { EmptyState } from "~/components/empty-state";
 import { SafetyNote } from "~/components/safety-note";
+import { vehicleControllerStatus } from "~/vehicles/controller-records.server";
+import { differenceInWords, proofDoesNotHold } from "~/vehicles/controller-status";
+import { ProofMark } from "~/components/controller-record/proof-mark";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, params.ws, CAN.view);
   const v = await getVehicle(m.workspace.id, params.vehicleId);
   if (!v) throw new Response("Not found", { status: 404 });
-  const release = await currentRelease(m.workspace.id, v.id);
+  const [release, controller] = await Promise.all([currentRelease(m.workspace.id, v.id), vehicleControllerStatus(m.workspace.id, v.id)]);
   return {
+    controllerDifferences: proofDoesNotHold(controller.status) ? differenceInWords(controller.status) : [],
     slug: m.workspace.slug,
     vehicle: { id: v.id, name: v.name },
     release: release
@@ -43,6 +47,14 @@ export default function VehicleDiagnose({ loaderData }: Route.ComponentProps) {
           </Link>{" "}
           <span className="font-mono text-xs">({release.contentHash.slice(0, 12)})</span>, released to this vehicle.
         </p>
+      ) : null}
+      {loaderData.controllerDifferences.length > 0 ? (
+        <div className="mt-4">
+          <ProofMark differences={loaderData.controllerDifferences} to={`/w/${slug}/vehicles/${vehicle.id}/controller`} />
+          <p className="mt-2 text-sm text-ink-700">
+            The answers below follow the released design; where the controller is set differently, the vehicle may behave differently from them.
+          </p>
+        </div>
       ) : null}
       <SafetyNote className="my-4" />
       {release ? (

@@ -1,5 +1,6 @@
 // One vehicle: its details, the revision released to it (and the history of releases), photos,
 // "needs attention" flags, bench-test runs, and the ways into diagnosis and bench testing.
+import { useState } from "react";
 import { data, Form, Link, redirect, useNavigation } from "react-router";
 import type { Route } from "./+types/vehicle";
 import { requireMember } from "~/auth/guard.server";
@@ -24,6 +25,9 @@ import { SafetyNote } from "~/components/safety-note";
 import { Button, buttonClass, Notice, SelectField, TextArea, TextField } from "~/components/ui/form";
 import { HashPrefix, When } from "~/designs/design-bits";
 import { RunList } from "~/components/diagnosis/run-list";
+import { statusAgainstRevisions, vehicleControllerStatus } from "~/vehicles/controller-records.server";
+import { differenceInWords, proofDoesNotHold } from "~/vehicles/controller-status";
+import { ProofMark } from "~/components/controller-record/proof-mark";
 
 const may = (roles: readonly Role[], role: Role) => roles.includes(role);
 
@@ -33,13 +37,20 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const v = await getVehicle(m.workspace.id, params.vehicleId);
   if (!v) throw new Response("Not found", { status: 404 });
   const canRelease = may(CAN.releaseRevisions, m.role);
-  const [photos, history, attention, runs, releasable] = await Promise.all([
+  const [photos, history, attention, runs, releasable, controller] = await Promise.all([
     listUploads(m.workspace.id, "vehicle", v.id),
     releaseHistory(m.workspace.id, v.id),
     openAttention(m.workspace.id, v.id),
     listRuns(m.workspace.id, { vehicleId: v.id }),
     canRelease ? releasableRevisions(m.workspace.id, v.id) : Promise.resolve([]),
+    vehicleControllerStatus(m.workspace.id, v.id),
   ]);
+  // Which revisions the controller record contradicts: releasing one of them needs a reason.
+  const against = canRelease ? await statusAgainstRevisions(m.workspace.id, v.id, releasable.map((r) => r.id)) : null;
+  const conflictOf = (id: string) => {
+    const s = against?.byRevision.get(id);
+    return s && proofDoesNotHold(s) ? differenceInWords(s) : [];
+  };
   return {
     slug: m.workspace.slug,
     canEdit: may(CAN.manageVehicles, m.role),
@@ -50,14 +61,28 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     releases: history.map((r) => ({ ...r, at: r.at.toISOString() })),
     attention: attention.map((a) => ({ ...a, raisedAt: a.raisedAt.toISOString() })),
     runs: runs.map((r) => ({ ...r, startedAt: r.startedAt.toISOString(), completedAt: r.completedAt?.toISOString() ?? null })),
-    releasable: releasable.map((r) => ({ id: r.id, number: r.number, designName: r.designName, forThisVehicle: r.forThisVehicle, approval: r.approval })),
+    releasable: releasable.map((r) => ({
+      id: r.id,
+      number: r.number,
+      designName: r.designName,
+      forThisVehicle: r.forThisVehicle,
+      approval: r.approval,
+      controllerConflicts: conflictOf(r.id),
+    })),
+    controller: {
+      state: controller.status.state,
+      mark: proofDoesNotHold(controller.status),
+      differences: differenceInWords(controller.status),
+      warnings: controller.status.warnings.length,
+      latest: controller.latest ? { version: controller.latest.version, recordedAt: controller.latest.recordedAt.toISOString(), recordedBy: controller.latest.recordedBy.name } : null,
+    },
   };
 }
 
-type ActionResult = { intent: string; fields: FieldErrors; done?: string };
+type ActionResult = { intent: string; fields: FieldErrors; done?: string; contradictions?: string[]; revisionId?: string };
 
-function fail(intent: string, fields: FieldErrors, status = 400) {
-  return data<ActionResult>({ intent, fields }, { status });
+function fail(intent: string, fields: FieldErrors, status = 400, more: Partial<ActionResult> = {}) {
+  return data<ActionResult>({ intent, fields, ...more }, { status });
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
@@ -100,7 +125,7 @@ export async function action({ request, params }: Route.ActionArgs) {
       const parsed = releaseSchema.safeParse(form);
       if (!parsed.success) return fail(intent, fieldErrors(parsed.error));
       const out = await releaseRevision(m.workspace.id, v.id, m.user.id, parsed.data);
-      if (!out.ok) return fail(intent, out.fields, 409);
+      if (!out.ok) return fail(intent, out.fields, 409, { contradictions: out.contradictions, revisionId: parsed.data.revisionId });
       return { intent, fields: {}, done: "Released." } satisfies ActionResult;
     }
     case "start-bench-run": {
@@ -166,6 +191,8 @@ export default function Vehicle({ loaderData, actionData }: Route.ComponentProps
           ) : null}
         </div>
         {errorsOf("start-bench-run") ? <Notice tone="error">{Object.values(errorsOf("start-bench-run")!)[0]}</Notice> : null}
+
+        {loaderData.controller.mark ? <ProofMark differences={loaderData.controller.differences} to="controller" /> : null}
 
         {attention.length > 0 ? (
           <section className="rounded-lg border-2 border-brick-600 bg-brick-50 p-5" aria-labelledby="attention-h">
@@ -233,8 +260,18 @@ export default function Vehicle({ loaderData, actionData }: Route.ComponentProps
               </ul>
             </details>
           ) : null}
-          {loaderData.canRelease ? <ReleaseForm releasable={loaderData.releasable} errors={errorsOf("release")} busy={busy} /> : null}
+          {loaderData.canRelease ? (
+            <ReleaseForm
+              releasable={loaderData.releasable}
+              errors={errorsOf("release")}
+              contradictions={result?.intent === "release" ? result.contradictions : undefined}
+              chosen={result?.intent === "release" ? result.revisionId : undefined}
+              busy={busy}
+            />
+          ) : null}
         </section>
+
+        <ControllerSection controller={loaderData.controller} />
 
         <section className="rounded-lg border border-ink-200 bg-white p-5" aria-labelledby="runs-h">
           <h2 id="runs-h" className="font-semibold">
@@ -300,15 +337,29 @@ export default function Vehicle({ loaderData, actionData }: Route.ComponentProps
 
 type Releasable = Route.ComponentProps["loaderData"]["releasable"][number];
 
-function ReleaseForm({ releasable, errors, busy }: { releasable: Releasable[]; errors?: FieldErrors; busy: boolean }) {
+function ReleaseForm({
+  releasable,
+  errors,
+  contradictions,
+  chosen,
+  busy,
+}: {
+  releasable: Releasable[];
+  errors?: FieldErrors;
+  contradictions?: string[];
+  chosen?: string;
+  busy: boolean;
+}) {
   const { errors: shown, onSubmit } = useFormCheck(releaseSchema, errors);
+  const [selected, setSelected] = useState(chosen ?? "");
   if (releasable.length === 0) return <p className="mt-4 text-sm text-ink-600">No design in this workspace has a saved revision to release yet.</p>;
+  const conflicts = releasable.find((r) => r.id === selected)?.controllerConflicts ?? contradictions ?? [];
   return (
     <Form method="post" className="mt-5 space-y-3 border-t border-ink-200 pt-4" onSubmit={onSubmit} noValidate>
       <input type="hidden" name="intent" value="release" />
       <h3 className="text-sm font-semibold">Release a revision to this vehicle</h3>
       <p className="text-xs text-ink-600">Only a revision a reviewer has approved can be released.</p>
-      <SelectField label="Revision" name="revisionId" defaultValue="" error={shown.revisionId}>
+      <SelectField label="Revision" name="revisionId" value={selected} onChange={(e) => setSelected(e.target.value)} error={shown.revisionId}>
         <option value="" disabled>
           Choose a revision
         </option>
@@ -317,14 +368,64 @@ function ReleaseForm({ releasable, errors, busy }: { releasable: Releasable[]; e
             {r.designName} · revision {r.number}
             {r.approval === "approved" ? " · approved" : " · not approved"}
             {r.forThisVehicle ? "" : " (design for another vehicle)"}
+            {r.controllerConflicts.length > 0 ? " · contradicted by the controller record" : ""}
           </option>
         ))}
       </SelectField>
       <TextField label="Note (optional)" name="note" error={shown.note} />
+      {conflicts.length > 0 || shown.override ? (
+        <div className="space-y-2 rounded-md border-2 border-brick-600 bg-brick-50 p-3" data-testid="release-override">
+          <p className="text-sm font-semibold text-brick-700">The vehicle's controller settings record contradicts this revision:</p>
+          <ul className="list-disc pl-5 text-sm text-brick-700">
+            {conflicts.map((c) => (
+              <li key={c}>{c}</li>
+            ))}
+          </ul>
+          <TextArea
+            label="Reason to release it anyway (kept in the audit log)"
+            name="override"
+            rows={2}
+            error={shown.override}
+            hint="For example: the controller is being reprogrammed before the vehicle returns to service."
+          />
+        </div>
+      ) : null}
       <Button type="submit" disabled={busy}>
-        Release
+        {conflicts.length > 0 ? "Release over these findings" : "Release"}
       </Button>
     </Form>
+  );
+}
+
+function ControllerSection({ controller }: { controller: Route.ComponentProps["loaderData"]["controller"] }) {
+  const { latest, state } = controller;
+  return (
+    <section className="rounded-lg border border-ink-200 bg-white p-5" aria-labelledby="controller-h">
+      <h2 id="controller-h" className="font-semibold">
+        Controller settings
+      </h2>
+      <p className="mt-2 text-sm" data-testid="controller-summary">
+        {latest ? (
+          <>
+            Version {latest.version}, recorded by {latest.recordedBy}, <When iso={latest.recordedAt} />.{" "}
+            {state === "holds"
+              ? "The released revision's assumptions agree with it."
+              : state === "no-release"
+                ? "No revision is released to check it against."
+                : controller.mark
+                  ? "The released proof does not hold for it (see above)."
+                  : ""}
+            {controller.warnings > 0 ? ` ${controller.warnings} warning${controller.warnings === 1 ? "" : "s"}.` : ""}
+          </>
+        ) : (
+          "Not recorded yet: the released proof's assumptions about the controller (lockouts, brake, throttle) are unchecked."
+        )}
+      </p>
+      <p className="mt-1 text-xs text-ink-600">What a technician entered, not what the controller holds: verify on the vehicle.</p>
+      <Link to="controller" className={buttonClass("secondary", "mt-3 min-h-12")}>
+        {latest ? "Controller settings and versions" : "Record the controller settings"}
+      </Link>
+    </section>
   );
 }
 

@@ -5,6 +5,8 @@ import { CAN } from "~/lib/roles";
 import { fieldErrors, formObject, vehicleSchema } from "~/lib/forms";
 import { useFormCheck } from "~/lib/use-form-check";
 import { createVehicle, listVehicles } from "~/vehicles/vehicles.server";
+import { fleetControllerStatus } from "~/vehicles/controller-records.server";
+import { differenceInWords, proofDoesNotHold, PROOF_DOES_NOT_HOLD } from "~/vehicles/controller-status";
 import { PageHeader } from "~/components/page-header";
 import { EmptyState } from "~/components/empty-state";
 import { Button, TextArea, TextField } from "~/components/ui/form";
@@ -13,7 +15,7 @@ export const meta: Route.MetaFunction = () => [{ title: "Vehicles · Chainproof"
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, params.ws, CAN.view);
-  const vehicles = await listVehicles(m.workspace.id);
+  const [vehicles, controller] = await Promise.all([listVehicles(m.workspace.id), fleetControllerStatus(m.workspace.id)]);
   return {
     canAdd: (CAN.manageVehicles as readonly string[]).includes(m.role),
     vehicles: vehicles.map((v) => ({
@@ -23,6 +25,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       model: v.model,
       needsAttention: v.needsAttention,
       release: v.release ? { designName: v.release.designName, number: v.release.number } : null,
+      controllerDifferences: (() => {
+        const c = controller.get(v.id);
+        return c && proofDoesNotHold(c.status) ? differenceInWords(c.status) : [];
+      })(),
     })),
   };
 }
@@ -57,6 +63,16 @@ export default function Vehicles({ loaderData, actionData }: Route.ComponentProp
                 </span>
                 {v.needsAttention ? (
                   <span className="mt-2 inline-block rounded-full bg-brick-600 px-2 py-0.5 text-xs font-semibold text-white">Needs attention</span>
+                ) : null}
+                {v.controllerDifferences.length > 0 ? (
+                  <span className="mt-2 block rounded-md border-2 border-brick-600 bg-brick-50 p-2 text-xs text-brick-700" data-testid="proof-mark">
+                    <span className="block font-semibold">{PROOF_DOES_NOT_HOLD}.</span>
+                    {v.controllerDifferences.map((d) => (
+                      <span key={d} className="mt-1 block">
+                        {d}
+                      </span>
+                    ))}
+                  </span>
                 ) : null}
               </Link>
             </li>

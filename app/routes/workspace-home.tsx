@@ -5,12 +5,20 @@ import { CAN, ROLE_DUTIES, ROLE_LABELS } from "~/lib/roles";
 import { countVehicles } from "~/vehicles/vehicles.server";
 import { PageHeader } from "~/components/page-header";
 import { SafetyNote } from "~/components/safety-note";
+import { fleetControllerStatus } from "~/vehicles/controller-records.server";
+import { differenceInWords, proofDoesNotHold } from "~/vehicles/controller-status";
+import { ProofMark } from "~/components/controller-record/proof-mark";
 
 export const meta: Route.MetaFunction = () => [{ title: "Overview · Chainproof" }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, params.ws, CAN.view);
-  return { workspace: m.workspace, role: m.role, vehicleCount: await countVehicles(m.workspace.id) };
+  const [vehicleCount, fleet] = await Promise.all([countVehicles(m.workspace.id), fleetControllerStatus(m.workspace.id)]);
+  const marked = [...fleet.values()]
+    .filter((f) => proofDoesNotHold(f.status))
+    .map((f) => ({ id: f.vehicleId, name: f.vehicleName, differences: differenceInWords(f.status) }))
+    .sort((a, b) => (a.name < b.name ? -1 : a.name > b.name ? 1 : 0));
+  return { workspace: m.workspace, role: m.role, vehicleCount, marked };
 }
 
 const NEXT_STEP: Record<string, { text: string; to: string; label: string }> = {
@@ -28,6 +36,23 @@ export default function WorkspaceHome({ loaderData }: Route.ComponentProps) {
         title={loaderData.workspace.name}
         description={`You are ${ROLE_LABELS[loaderData.role].toLowerCase()} here: you ${ROLE_DUTIES[loaderData.role]}.`}
       />
+      {loaderData.marked.length > 0 ? (
+        <section className="mb-6 rounded-lg border border-ink-200 bg-white p-5" aria-labelledby="marked-h">
+          <h2 id="marked-h" className="font-semibold">
+            Vehicles whose controller settings break their released proof
+          </h2>
+          <ul className="mt-3 space-y-4">
+            {loaderData.marked.map((v) => (
+              <li key={v.id}>
+                <Link to={`vehicles/${v.id}`} className="font-semibold text-copper-700 underline">
+                  {v.name}
+                </Link>
+                <ProofMark differences={v.differences} to={`vehicles/${v.id}/controller`} compact />
+              </li>
+            ))}
+          </ul>
+        </section>
+      ) : null}
       <div className="grid gap-4 sm:grid-cols-2">
         <section className="rounded-lg border border-ink-200 bg-white p-5">
           <h2 className="font-semibold">Your next step</h2>

@@ -4,6 +4,8 @@ import { z } from "zod";
 export const releaseSchema = z.object({
   revisionId: z.string().trim().min(1, "Choose a revision to release."),
   note: z.string().trim().max(1000, "Use at most 1000 characters.").default(""),
+  /** Only asked for when the controller settings record contradicts the revision. */
+  override: z.string().trim().max(1000, "Use at most 1000 characters.").default(""),
 });
 
 export const clearAttentionSchema = z.object({

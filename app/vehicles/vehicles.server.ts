@@ -6,6 +6,8 @@ import { recordAudit } from "~/audit/audit.server";
 import type { z } from "zod";
 import type { vehicleSchema } from "~/lib/forms";
 import { revisionApproval } from "./approval.server";
+import { statusAgainstRevisions } from "./controller-records.server";
+import { differenceInWords, proofDoesNotHold, PROOF_DOES_NOT_HOLD } from "./controller-status";
 
 const { vehicle, vehicleRelease, vehicleAttention, designRevision, design, user } = schema;
 
@@ -145,17 +147,21 @@ export async function releasableRevisions(workspaceId: string, vehicleId: string
   return rows.map((r, i) => ({ ...r, approval: approved[i] }));
 }
 
-export type ReleaseOutcome = { ok: true; id: string } | { ok: false; fields: Record<string, string> };
+export type ReleaseOutcome =
+  | { ok: true; id: string }
+  | { ok: false; fields: Record<string, string>; /** What the controller record contradicts, in words. */ contradictions?: string[] };
 
 /**
  * Releases a revision to a vehicle: only a revision of this workspace with an approval record.
- * The history is append-only; the newest row is the current release.
+ * When the vehicle's controller settings record contradicts the revision (an error finding), only with
+ * an override reason, kept in the audit with the findings it overrode. The history is append-only;
+ * the newest row is the current release.
  */
 export async function releaseRevision(
   workspaceId: string,
   vehicleId: string,
   actorId: string,
-  input: { revisionId: string; note: string },
+  input: { revisionId: string; note: string; override?: string },
 ): Promise<ReleaseOutcome> {
   const rev = await db
     .select({ id: designRevision.id, number: designRevision.number, designName: design.name, contentHash: designRevision.contentHash })
@@ -173,13 +179,27 @@ export async function releaseRevision(
       },
     };
   }
-  return db.transaction(async (tx) => {
+  return db.transaction(async (tx): Promise<ReleaseOutcome> => {
     const v = await tx
       .select({ id: vehicle.id, name: vehicle.name })
       .from(vehicle)
       .where(and(eq(vehicle.id, vehicleId), eq(vehicle.workspaceId, workspaceId)))
       .for("update");
-    if (!v[0]) return { ok: false, fields: { vehicleId: "No such vehicle." } } as const;
+    if (!v[0]) return { ok: false, fields: { vehicleId: "No such vehicle." } };
+    // Read while the vehicle is locked: a record saved meanwhile waits for this release (saveRecord locks it too).
+    const against = await statusAgainstRevisions(workspaceId, vehicleId, [input.revisionId], tx);
+    const status = against.byRevision.get(input.revisionId);
+    const contradictions = status && proofDoesNotHold(status) ? differenceInWords(status) : [];
+    const override = (input.override ?? "").trim();
+    if (contradictions.length > 0 && override === "") {
+      return {
+        ok: false,
+        fields: {
+          override: `${PROOF_DOES_NOT_HOLD} (record version ${against.version}). To release revision ${rev[0].number} anyway, give the reason.`,
+        },
+        contradictions,
+      };
+    }
     const id = crypto.randomUUID();
     await tx.insert(vehicleRelease).values({ id, workspaceId, vehicleId, revisionId: input.revisionId, releasedBy: actorId, note: input.note });
     await recordAudit(
@@ -188,11 +208,20 @@ export async function releaseRevision(
         actorId,
         action: "vehicle.revision-released",
         subject: v[0].name,
-        detail: { vehicleId, revisionId: input.revisionId, number: rev[0].number, design: rev[0].designName, contentHash: rev[0].contentHash },
+        detail: {
+          vehicleId,
+          revisionId: input.revisionId,
+          number: rev[0].number,
+          design: rev[0].designName,
+          contentHash: rev[0].contentHash,
+          ...(contradictions.length > 0
+            ? { controllerOverride: { reason: override, recordVersion: against.version, findings: status!.errors.map((f) => ({ code: f.code, message: f.message })), problems: status!.problems } }
+            : {}),
+        },
       },
       tx,
     );
-    return { ok: true, id } as const;
+    return { ok: true, id };
   });
 }
 
