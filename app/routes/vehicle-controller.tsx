@@ -204,9 +204,7 @@ export default function VehicleController({ loaderData, actionData }: Route.Comp
           {comparison && "error" in comparison ? <p className="mt-3 text-sm text-brick-700">{comparison.error}</p> : null}
           {comparison && "changes" in comparison ? (
             <div className="mt-4 overflow-x-auto" data-testid="record-comparison">
-              <h3 className="text-sm font-semibold">
-                From version {comparison.from} to version {comparison.to}
-              </h3>
+              <h3 className="text-sm font-semibold">{`From version ${comparison.from} to version ${comparison.to}`}</h3>
               {comparison.changes.length === 0 ? (
                 <p className="mt-2 text-sm text-ink-600">No setting differs.</p>
               ) : (

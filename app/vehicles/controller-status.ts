@@ -1,7 +1,7 @@
 // Whether a vehicle's released proof holds for its controller settings record: the record's findings
 // against the released revision's design (controller-record.md section 4). Pure; shared by the pages.
-import { checkRecord, hasErrors, parseRecord, type DerivedValues, type Finding } from "~/controller-record";
-import type { Design, Problem } from "~/engine";
+import { checkRecord, hasErrors, parseRecord, type DerivedValues, type Finding } from "../controller-record";
+import type { Design, Problem } from "../engine";
 
 /** The mark a vehicle carries when any error finding stands between its record and its released proof. */
 export const PROOF_DOES_NOT_HOLD = "The proof does not hold for this controller's settings";
