@@ -63,6 +63,12 @@ export const MATRIX: Row[] = [
     method: "POST", path: "/w/larkspur/bench-tests/no-such-run", body: { intent: "outcome", step: "1", outcome: "pass" },
     expect: all(403, { technician: 404 }),
   },
+  { name: "controller settings of an unknown vehicle", method: "GET", path: "/w/larkspur/vehicles/no-such-vehicle/controller", expect: all(404) },
+  {
+    name: "record controller settings (no such vehicle: technicians and engineers get 404, others 403)",
+    method: "POST", path: "/w/larkspur/vehicles/no-such-vehicle/controller", body: { baseVersion: "0" },
+    expect: all(403, { technician: 404, engineer: 404 }),
+  },
   { name: "settings", method: "GET", path: "/w/larkspur/settings", expect: all(200) },
   {
     name: "invite a member (invalid e-mail: admin gets 400, others 403)",
