@@ -39,7 +39,7 @@ export default function WorkspaceHome({ loaderData }: Route.ComponentProps) {
       {loaderData.marked.length > 0 ? (
         <section className="mb-6 rounded-lg border border-ink-200 bg-white p-5" aria-labelledby="marked-h">
           <h2 id="marked-h" className="font-semibold">
-            Vehicles whose controller settings break their released proof
+            Controller settings that break a released proof
           </h2>
           <ul className="mt-3 space-y-4">
             {loaderData.marked.map((v) => (
