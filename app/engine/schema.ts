@@ -2,30 +2,9 @@
 // Cross-reference rules (unknown ids, states, terminals...) live in validate.ts.
 import { z } from "zod";
 
-export const DESIGN_FORMAT = "chainproof/design@1";
-export const VERDICT_FORMAT = "chainproof/verdict@1";
+import { DESIGN_FORMAT, ID_PATTERN, INPUT_FUNCTIONS, LOCKOUTS, VERDICT_FORMAT, type InputFunction, type Lockout } from "./vocabulary";
 
-export const INPUT_FUNCTIONS = ["power", "enable", "forward", "reverse", "brake"] as const;
-export type InputFunction = (typeof INPUT_FUNCTIONS)[number];
-
-export const LOCKOUTS = [
-  "power-on",
-  "enable-restore",
-  "direction-engage",
-  "brake-release",
-  "throttle-fault",
-] as const;
-export type Lockout = (typeof LOCKOUTS)[number];
-
-export const ID_PATTERN = /^[A-Za-z0-9_.-]{1,64}$/;
-
-/** Terminals each component type offers, in display order. */
-export const TERMINALS = {
-  supply: ["+"],
-  contact: ["1", "2"],
-  junction: ["j"],
-  input: ["in"],
-} as const;
+export { DESIGN_FORMAT, VERDICT_FORMAT, INPUT_FUNCTIONS, LOCKOUTS, ID_PATTERN, TERMINALS, type InputFunction, type Lockout } from "./vocabulary";
 
 // ---------------------------------------------------------------- types
 
