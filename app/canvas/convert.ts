@@ -1,7 +1,8 @@
 // Pure conversion between the design document (spec chainproof/design@1) and xyflow nodes/edges.
 // Loading is tolerant: the editor must open invalid documents too, so every field is coerced to
 // the nearest shape the canvas can draw, and what cannot be drawn is reported, never thrown.
-import { DESIGN_FORMAT, INPUT_FUNCTIONS, type Component, type Condition, type Controller, type Design, type InputFunction, type Rule, type Wire } from "../engine";
+import type { Component, Condition, Controller, Design, InputFunction, Rule, Wire } from "../engine";
+import { DESIGN_FORMAT, INPUT_FUNCTIONS } from "../engine/vocabulary";
 import type { CanvasEdge, CanvasNode, DesignRest, XY } from "./types";
 
 export type FlowGraph = { rest: DesignRest; nodes: CanvasNode[]; edges: CanvasEdge[] };

@@ -7,7 +7,7 @@ const Editor = lazy(() => import("./editor"));
 
 function Placeholder() {
   return (
-    <div role="status" className="flex h-[60vh] min-h-[320px] items-center md:h-[calc(100dvh-10.5rem)] md:min-h-[560px] justify-center rounded-lg border border-ink-200 bg-white text-sm text-ink-500">
+    <div role="status" className="flex h-[60vh] min-h-[320px] items-center justify-center rounded-lg border border-ink-200 bg-white text-sm text-ink-500 md:h-auto md:min-h-[480px] md:flex-1">
       Opening the canvas…
     </div>
   );

@@ -36,3 +36,26 @@ export function fitPadding(pane: Size, drawing: Size, overlays: { minimap: Size 
   const pick = a >= b ? above : beside;
   return px(m, pick.right, pick.bottom, pick.left);
 }
+
+/**
+ * The viewport that shows `bounds` (flow coordinates) inside the pane less `padding`, at a zoom
+ * between `minZoom` and `maxZoom`. When the drawing is too large to fit at `minZoom`, it is not
+ * shrunk further: along each axis that does not fit, its start (left or top) is shown and the rest
+ * is left to panning; along an axis that fits, it is centred.
+ */
+export function fitViewport(
+  pane: Size,
+  bounds: { x: number; y: number; width: number; height: number },
+  padding: FitPadding,
+  minZoom: number,
+  maxZoom: number,
+): { x: number; y: number; zoom: number } {
+  const n = (p: Px) => Number.parseFloat(p);
+  const [top, right, bottom, left] = [n(padding.top), n(padding.right), n(padding.bottom), n(padding.left)];
+  const w = Math.max(1, pane.width - left - right);
+  const h = Math.max(1, pane.height - top - bottom);
+  const zoom = Math.min(maxZoom, Math.max(minZoom, Math.min(w / Math.max(bounds.width, 1), h / Math.max(bounds.height, 1))));
+  const along = (start: number, room: number, size: number, at: number) =>
+    size * zoom <= room ? start + (room - size * zoom) / 2 - at * zoom : start - at * zoom;
+  return { x: along(left, w, bounds.width, bounds.x), y: along(top, h, bounds.height, bounds.y), zoom };
+}

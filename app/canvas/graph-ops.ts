@@ -1,9 +1,11 @@
-// Pure graph edits: which wires the spec can express, new components, series/parallel, duplicate.
-import { TERMINALS, type InputFunction } from "../engine";
+// Pure graph edits: which wires the spec can express, new components, series/parallel,
+// duplicate, copy and paste. New parts land in free space (placement.ts).
+import { TERMINALS, type InputFunction } from "../engine/vocabulary";
 import type { Connection } from "@xyflow/react";
 import { wireId, terminalRef } from "./convert";
 import { freshId, ID_PREFIX, INPUT_ID } from "./ids";
-import { NODE_KINDS } from "./nodes/registry";
+import { KIND_INFO, sizeOf } from "./node-kinds";
+import { freeSpot, PLACE_MARGIN } from "./placement";
 import type { CanvasEdge, CanvasNode, ComponentKind, ContactNode, DesignRest, XY } from "./types";
 
 export type ConnectionCheck = { ok: true; edge: CanvasEdge } | { ok: false; reason: string };
@@ -58,15 +60,20 @@ function takenIds(nodes: readonly CanvasNode[], rest: DesignRest): Set<string> {
   return new Set([...nodes.map((n) => n.id), ...rest.conditions.map((c) => c.id)]);
 }
 
-export function newNode(kind: ComponentKind, position: XY, nodes: readonly CanvasNode[], rest: DesignRest, fn?: InputFunction): CanvasNode {
+/**
+ * A new component of `kind` at the free spot nearest `position` (its top-left corner), with a
+ * fresh id. `prefer` is the direction searched first when `position` is taken.
+ */
+export function newNode(kind: ComponentKind, position: XY, nodes: readonly CanvasNode[], rest: DesignRest, fn?: InputFunction, prefer?: XY): CanvasNode {
   const taken = takenIds(nodes, rest);
-  const spec = NODE_KINDS[kind];
-  const data = spec.defaultData({ rest, fn });
+  const info = KIND_INFO[kind];
+  const data = info.defaultData({ rest, fn });
   const id =
     kind === "input"
       ? freshId(INPUT_ID[(data as { function: InputFunction }).function], taken, false)
       : freshId(ID_PREFIX[kind], taken);
-  return { id, type: kind, position, data } as CanvasNode;
+  const spot = freeSpot(position, [{ dx: 0, dy: 0, ...info.size }], nodes, prefer);
+  return { id, type: kind, position: spot, data } as CanvasNode;
 }
 
 type Added = { nodes: CanvasNode[]; edges: CanvasEdge[]; added: string };
@@ -80,16 +87,19 @@ const edge = (from: [string, string], to: [string, string]): CanvasEdge => ({
   targetHandle: to[1],
 });
 
-function newContactNear(c: ContactNode, nodes: readonly CanvasNode[], rest: DesignRest, offset: XY): ContactNode {
-  const n = newNode("contact", { x: c.position.x + offset.x, y: c.position.y + offset.y }, nodes, rest) as ContactNode;
-  return n;
+/** A new contact in the free spot nearest `side` of `c`. */
+function newContactNear(c: ContactNode, nodes: readonly CanvasNode[], rest: DesignRest, side: "right" | "below"): ContactNode {
+  const size = sizeOf(c);
+  const gap = PLACE_MARGIN * 2;
+  const wanted = side === "right" ? { x: c.position.x + size.width + gap, y: c.position.y } : { x: c.position.x, y: c.position.y + size.height + gap };
+  return newNode("contact", wanted, nodes, rest, undefined, side === "right" ? { x: 1, y: 0 } : { x: 0, y: 1 }) as ContactNode;
 }
 
 /** A new contact after `contactId`: whatever was wired to its terminal 2 moves to the new one's 2. */
 export function addInSeries(contactId: string, nodes: readonly CanvasNode[], edges: readonly CanvasEdge[], rest: DesignRest): Added | null {
   const c = nodes.find((n) => n.id === contactId);
   if (!c || c.type !== "contact") return null;
-  const n = newContactNear(c, nodes, rest, { x: 200, y: 0 });
+  const n = newContactNear(c, nodes, rest, "right");
   const moved = edges.map((e) => {
     if (e.source === c.id && e.sourceHandle === "2") return { ...e, source: n.id, id: wireId(terminalRef(n.id, "2"), terminalRef(e.target, e.targetHandle ?? "")) };
     if (e.target === c.id && e.targetHandle === "2") return { ...e, target: n.id, id: wireId(terminalRef(e.source, e.sourceHandle ?? ""), terminalRef(n.id, "2")) };
@@ -102,31 +112,79 @@ export function addInSeries(contactId: string, nodes: readonly CanvasNode[], edg
 export function addInParallel(contactId: string, nodes: readonly CanvasNode[], edges: readonly CanvasEdge[], rest: DesignRest): Added | null {
   const c = nodes.find((n) => n.id === contactId);
   if (!c || c.type !== "contact") return null;
-  const n = newContactNear(c, nodes, rest, { x: 0, y: 120 });
+  const n = newContactNear(c, nodes, rest, "below");
   return { nodes: [...nodes, n], edges: [...edges, edge([c.id, "1"], [n.id, "1"]), edge([c.id, "2"], [n.id, "2"])], added: n.id };
 }
 
-/** Copies the selected components (and the wires among them) beside the originals, selecting the copies. */
-export function duplicateNodes(nodes: readonly CanvasNode[], edges: readonly CanvasEdge[], rest: DesignRest): { nodes: CanvasNode[]; edges: CanvasEdge[] } | null {
+/** What Copy keeps: components (inputs included) and the wires among them. */
+export type Clip = { nodes: CanvasNode[]; edges: CanvasEdge[] };
+
+export function copyOf(nodes: readonly CanvasNode[], edges: readonly CanvasEdge[]): Clip | null {
   const picked = nodes.filter((n) => n.selected);
   if (picked.length === 0) return null;
+  const ids = new Set(picked.map((n) => n.id));
+  return {
+    nodes: picked.map((n) => structuredClone({ ...n, selected: false }) as CanvasNode),
+    edges: edges.filter((e) => ids.has(e.source) && ids.has(e.target)).map((e) => ({ ...e, selected: false })),
+  };
+}
+
+/**
+ * Places copies of `clip` beside `anchor` (default: right of the copied parts) in free space, with
+ * fresh ids, and selects them. An input whose function the design already has is left out (a
+ * second one would be invalid); the count of those is returned so the editor can say so.
+ */
+export function pasteClip(
+  clip: Clip,
+  nodes: readonly CanvasNode[],
+  edges: readonly CanvasEdge[],
+  rest: DesignRest,
+  anchor?: XY,
+): { nodes: CanvasNode[]; edges: CanvasEdge[]; added: string[]; skippedInputs: number } | null {
   const taken = takenIds(nodes, rest);
+  const usedFunctions = new Set(nodes.flatMap((n) => (n.type === "input" ? [n.data.function] : [])));
   const rename = new Map<string, string>();
   const copies: CanvasNode[] = [];
-  for (const n of picked) {
-    // A second input of the same function would be invalid, so inputs are not copied.
-    if (n.type === "input") continue;
-    const id = freshId(ID_PREFIX[n.type], taken);
+  let skippedInputs = 0;
+  for (const n of clip.nodes) {
+    if (n.type === "input") {
+      if (usedFunctions.has(n.data.function)) {
+        skippedInputs++;
+        continue;
+      }
+      usedFunctions.add(n.data.function);
+    }
+    const id = n.type === "input" ? freshId(INPUT_ID[n.data.function], taken, false) : freshId(ID_PREFIX[n.type], taken);
     taken.add(id);
     rename.set(n.id, id);
-    copies.push({ ...n, id, selected: true, position: { x: n.position.x + 40, y: n.position.y + 40 }, data: structuredClone(n.data) } as CanvasNode);
+    copies.push({ id, type: n.type, position: n.position, data: structuredClone(n.data), selected: true, ...(n.measured ? { measured: n.measured } : {}) } as CanvasNode);
   }
-  if (copies.length === 0) return null;
-  const copiedEdges = edges
+  if (copies.length === 0) return skippedInputs > 0 ? { nodes: [...nodes], edges: [...edges], added: [], skippedInputs } : null;
+  // The group keeps its shape; it moves as a whole to the nearest spot where none of it overlaps.
+  const left = Math.min(...copies.map((n) => n.position.x));
+  const top = Math.min(...copies.map((n) => n.position.y));
+  const right = Math.max(...copies.map((n) => n.position.x + sizeOf(n).width));
+  const group = copies.map((n) => ({ dx: n.position.x - left, dy: n.position.y - top, ...sizeOf(n) }));
+  const at = freeSpot(anchor ?? { x: right + PLACE_MARGIN * 2, y: top }, group, nodes);
+  const placed = copies.map((n, i) => ({ ...n, position: { x: at.x + group[i].dx, y: at.y + group[i].dy } }) as CanvasNode);
+  const copiedEdges = clip.edges
     .filter((e) => rename.has(e.source) && rename.has(e.target))
-    .map((e) => edge([rename.get(e.source)!, e.sourceHandle ?? ""], [rename.get(e.target)!, e.targetHandle ?? ""]));
+    .map((e) => ({ ...edge([rename.get(e.source)!, e.sourceHandle ?? ""], [rename.get(e.target)!, e.targetHandle ?? ""]), selected: false }));
   return {
-    nodes: [...nodes.map((n) => (n.selected ? ({ ...n, selected: false } as CanvasNode) : n)), ...copies],
+    nodes: [...nodes.map((n) => (n.selected ? ({ ...n, selected: false } as CanvasNode) : n)), ...placed],
     edges: [...edges.map((e) => (e.selected ? { ...e, selected: false } : e)), ...copiedEdges],
+    added: placed.map((n) => n.id),
+    skippedInputs,
   };
+}
+
+/** Copies the selected components (and the wires among them) beside the originals, selecting the copies. Inputs are not copied. */
+export function duplicateNodes(nodes: readonly CanvasNode[], edges: readonly CanvasEdge[], rest: DesignRest): { nodes: CanvasNode[]; edges: CanvasEdge[] } | null {
+  const clip = copyOf(nodes, edges);
+  if (!clip) return null;
+  // A second input of the same function would be invalid, so Duplicate leaves inputs out.
+  const kept = { nodes: clip.nodes.filter((n) => n.type !== "input"), edges: clip.edges };
+  if (kept.nodes.length === 0) return null;
+  const out = pasteClip(kept, nodes, edges, rest);
+  return out && out.added.length > 0 ? { nodes: out.nodes, edges: out.edges } : null;
 }

@@ -1,19 +1,27 @@
-// Editor effects: live proof in a worker, the simulation driver, layout requests, autosave.
+// Editor effects: live proof in a worker, the simulation driver, the row the editor opened with,
+// layout requests and fitting the view, autosave. What the first paint does not need (the engine
+// on this thread for simulation, elkjs) is imported when it is first used.
 import { useEffect, useRef, useState } from "react";
 import { useReactFlow, useStoreApi } from "@xyflow/react";
 import { contentKey, flowToDocument } from "./convert";
-import { fitPadding, type Size } from "./fit";
+import { fitPadding, fitViewport, type Size } from "./fit";
 import { autoLayout } from "./layout";
-import { proveHere, type ProofReply } from "./proof-protocol";
-import { compiledOf, viewFor } from "./simulation";
+import type { ProofReply, ProofRequest } from "./proof-protocol";
 import { useEditor, useEditorStore, type EditorState } from "./store";
 import type { SaveDraftResult } from "./contract";
 
 export const PROOF_DEBOUNCE_MS = 150;
 export const AUTOSAVE_DEBOUNCE_MS = 1000;
 const FIT_MAX_ZOOM = 1.2;
+/**
+ * Fit view never zooms out further than this: a node's label (14 px) stays above 10 px on screen.
+ * A drawing too large to fit at this zoom is shown from its top-left corner, and the rest is
+ * reached by panning (decision 141).
+ */
+export const FIT_MIN_ZOOM = 0.75;
 
 const docOf = (s: EditorState) => flowToDocument(s.rest, s.nodes, s.edges);
+const simulationModule = () => import("./simulation");
 
 /** Proves the design on every change of its content (debounced), in a Web Worker when there is one. */
 export function useLiveProof() {
@@ -28,14 +36,20 @@ export function useLiveProof() {
     let latest = 0;
     let timer: ReturnType<typeof setTimeout> | undefined;
     let lastKey = "";
+    let stopped = false;
     const receive = (reply: ProofReply) => {
-      if (reply.id !== latest) return; // a newer request is on its way
+      if (stopped || reply.id !== latest) return; // a newer request is on its way
       const s = store.getState();
       if (reply.kind === "invalid") s.setProof({ status: "invalid", problems: reply.problems });
       else if (reply.kind === "verdict") s.setProof({ status: "done", verdict: reply.verdict, ms: reply.ms });
       else s.setProof({ status: "error", message: reply.message });
     };
     if (worker) worker.onmessage = (e: MessageEvent<ProofReply>) => receive(e.data);
+    const send = (request: ProofRequest) => {
+      if (worker) return worker.postMessage(request);
+      // No workers (unit tests): the same work, loaded on demand, on this thread.
+      void import("./proof-protocol").then((m) => receive(m.proveHere(request)));
+    };
     const schedule = (s: EditorState) => {
       const doc = docOf(s);
       const key = contentKey(doc);
@@ -45,9 +59,7 @@ export function useLiveProof() {
       if (s.proof.status !== "pending") s.setProof({ status: "pending" });
       timer = setTimeout(() => {
         latest += 1;
-        const request = { id: latest, doc };
-        if (worker) worker.postMessage(request);
-        else receive(proveHere(request));
+        send({ id: latest, doc });
       }, PROOF_DEBOUNCE_MS);
     };
     schedule(store.getState());
@@ -55,6 +67,7 @@ export function useLiveProof() {
       if (s.rest !== prev.rest || s.nodes !== prev.nodes || s.edges !== prev.edges) schedule(s);
     });
     return () => {
+      stopped = true;
       unsubscribe();
       clearTimeout(timer);
       worker?.terminate();
@@ -66,15 +79,31 @@ export function useLiveProof() {
 export function useSimulationDriver() {
   const store = useEditorStore();
   const simulation = useEditor((s) => s.simulation);
+  const openRow = useEditor((s) => s.openRow);
+  useEffect(() => {
+    if (openRow === null) return;
+    let cancelled = false;
+    void simulationModule().then((m) => {
+      if (!cancelled) store.getState().startAt(m.rowStart(openRow, docOf(store.getState())));
+    });
+    return () => {
+      cancelled = true;
+    };
+  }, [store, openRow]);
   useEffect(() => {
     const s = store.getState();
     if (!simulation) return s.setSimView(null);
-    const c = compiledOf(docOf(s));
-    if (!c) {
-      s.simulate(null);
-      return;
-    }
-    s.setSimView(viewFor(c, simulation));
+    let cancelled = false;
+    void simulationModule().then((m) => {
+      if (cancelled) return;
+      const now = store.getState();
+      const c = m.compiledOf(docOf(now));
+      if (!c) return now.simulate(null);
+      now.setSimView(m.viewFor(c, simulation));
+    });
+    return () => {
+      cancelled = true;
+    };
   }, [store, simulation]);
 }
 
@@ -89,7 +118,7 @@ export function useLayoutRequests() {
   fit.current = () => {
     const pane = flowStore.getState().domNode?.getBoundingClientRect();
     const nodes = flow.getNodes();
-    if (!pane || nodes.length === 0) return void flow.fitView({ padding: 0.2, maxZoom: FIT_MAX_ZOOM, duration: 0 });
+    if (!pane || nodes.length === 0) return void flow.fitView({ padding: 0.2, minZoom: FIT_MIN_ZOOM, maxZoom: FIT_MAX_ZOOM, duration: 0 });
     const bounds = flow.getNodesBounds(nodes);
     const box = (selector: string) => flowStore.getState().domNode?.querySelector(selector)?.getBoundingClientRect() ?? null;
     const mm = box(".react-flow__minimap");
@@ -98,17 +127,19 @@ export function useLayoutRequests() {
     const minimap: Size | null = mm && mm.width > 0 ? { width: pane.right - mm.left, height: pane.bottom - mm.top } : null;
     const controls: Size | null = ctl && ctl.width > 0 ? { width: ctl.right - pane.left, height: pane.bottom - ctl.top } : null;
     const padding = fitPadding(pane, bounds, { minimap, controls }, FIT_MAX_ZOOM);
-    void flow.fitView({ padding, maxZoom: FIT_MAX_ZOOM, duration: 0 });
+    void flow.setViewport(fitViewport(pane, bounds, padding, FIT_MIN_ZOOM, FIT_MAX_ZOOM), { duration: 0 });
   };
   useEffect(() => {
     if (layoutRequest === 0) return;
     let cancelled = false;
     const { nodes, edges } = store.getState();
-    autoLayout(nodes, edges).then((positions) => {
-      if (cancelled) return;
-      store.getState().setPositions(positions);
-      store.getState().requestFit();
-    });
+    autoLayout(nodes, edges)
+      .then((positions) => {
+        if (cancelled) return;
+        store.getState().setPositions(positions);
+        store.getState().requestFit();
+      })
+      .catch((e: unknown) => store.getState().setCanvasNote({ tone: "error", text: e instanceof Error ? e.message : String(e) }));
     return () => {
       cancelled = true;
     };
@@ -132,7 +163,7 @@ export type DraftState =
 export function useAutosave(opts: { enabled: boolean; draftVersion: number; onSaveDraft: (doc: unknown, version: number) => Promise<SaveDraftResult> }) {
   const store = useEditorStore();
   const [state, setState] = useState<DraftState>({ kind: "saved" });
-  const ref = useRef({ version: opts.draftVersion, saved: JSON.stringify(docOf(store.getState())), busy: false, stopped: false });
+  const ref = useRef({ version: opts.draftVersion, saved: JSON.stringify(docOf(store.getState())), busy: false, stopped: false, force: false });
   const onSave = useRef(opts.onSaveDraft);
   onSave.current = opts.onSaveDraft;
   const [kick, setKick] = useState(0);
@@ -145,7 +176,9 @@ export function useAutosave(opts: { enabled: boolean; draftVersion: number; onSa
       if (r.busy || r.stopped) return;
       const doc = docOf(store.getState());
       const json = JSON.stringify(doc);
-      if (json === r.saved) return setState({ kind: "saved" });
+      const forced = r.force;
+      r.force = false;
+      if (json === r.saved && !forced) return setState({ kind: "saved" });
       r.busy = true;
       setState({ kind: "saving" });
       try {
@@ -163,7 +196,7 @@ export function useAutosave(opts: { enabled: boolean; draftVersion: number; onSa
       } finally {
         r.busy = false;
       }
-      if (!r.stopped && JSON.stringify(docOf(store.getState())) !== r.saved) {
+      if (!r.stopped && (r.force || JSON.stringify(docOf(store.getState())) !== r.saved)) {
         clearTimeout(timer);
         timer = setTimeout(save, AUTOSAVE_DEBOUNCE_MS);
       }
@@ -186,6 +219,14 @@ export function useAutosave(opts: { enabled: boolean; draftVersion: number; onSa
   return {
     state,
     dirty: state.kind !== "saved",
+    /**
+     * Saves the draft again even when its content is unchanged: after a revision is saved, so the
+     * draft records its new base (a draft save that raced the revision recorded the old one).
+     */
+    saveAgain() {
+      ref.current.force = true;
+      setKick((k) => k + 1);
+    },
     /** After a conflict: take the other tab's version as the base and save this copy over it. */
     keepMine(currentVersion: number) {
       ref.current.version = currentVersion;

@@ -2,7 +2,7 @@
 // (optionally with a contact fault), or replay a trace up to a step.
 import { compileDesign, decodeRow, evaluateRow, replayTrace, encodeRow, rowCount, validateDesign, type CompiledDesign, type ContactFault, type Design } from "../engine";
 import { contentKey } from "./convert";
-import type { Simulation, SimView } from "./store";
+import type { Simulation, SimView } from "./types";
 
 let cache: { key: string; compiled: CompiledDesign | null } | null = null;
 
@@ -34,7 +34,7 @@ export function viewFor(c: CompiledDesign, sim: Simulation): SimView {
     if (index < 0) throw new Error("pick a state for every condition");
     const faults: ContactFault[] = sim.source.kind === "fault" ? [sim.source.fault] : [];
     const row = evaluateRow(c, index, faults);
-    return { contacts: row.contacts, inputs: row.inputs, energized: new Set(row.nets.energizedTerminals), drive: row.drive };
+    return { contacts: row.contacts, inputs: row.inputs, energized: new Set(row.nets.energizedTerminals), drive: row.drive, ...(faults[0] ? { fault: faults[0] } : {}) };
   } catch (e) {
     return { contacts: {}, inputs: {}, energized: new Set(), drive: false, error: e instanceof Error ? e.message : String(e) };
   }

@@ -1,6 +1,6 @@
 // Canvas-side shapes: one typed `data` per node kind (a union), and the non-graph part of a design.
 import type { Edge, Node } from "@xyflow/react";
-import type { Condition, Controller, InputFunction, Rule } from "../engine";
+import type { Condition, ContactFault, Controller, InputFunction, RowStates, Rule } from "../engine";
 
 export type SupplyData = { label?: string };
 export type ContactData = { label?: string; condition: string; closedIn: string[]; part?: string };
@@ -29,3 +29,25 @@ export type DesignRest = {
 };
 
 export type XY = { x: number; y: number };
+
+/** What the canvas shows in simulation: one row (by hand, from a counterexample, or a step of a trace). */
+export type SimSource =
+  | { kind: "hand" }
+  | { kind: "row"; index: number }
+  | { kind: "example"; ruleId: string }
+  | { kind: "fault"; ruleId: string; fault: ContactFault }
+  | { kind: "trace"; ruleId: string; rows: RowStates[]; step: number };
+export type Simulation = { states: RowStates; source: SimSource };
+
+/** The evaluated row the nodes and wires draw from (computed by the simulation driver). */
+export type SimView = {
+  contacts: Record<string, boolean>;
+  inputs: Record<string, boolean>;
+  energized: ReadonlySet<string>;
+  drive: boolean;
+  latched?: boolean;
+  armed?: string[];
+  /** The contact held stuck in the fault view. */
+  fault?: ContactFault;
+  error?: string;
+};

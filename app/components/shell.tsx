@@ -1,7 +1,9 @@
-// The app shell: navigation, workspace switcher, user menu, demo banner. Phone-first.
+// The app shell: navigation, workspace switcher, user menu, demo banner. Phone-first. A route
+// whose handle says `{ layout: "canvas" }` (the design editor) gets the whole window: the
+// navigation collapses to a rail of icons (it can be opened again) and the page fills the height.
 import { useState, type ReactNode } from "react";
-import { Form, Link, NavLink, useNavigate } from "react-router";
-import { Logo } from "./logo";
+import { Form, Link, NavLink, useMatches, useNavigate } from "react-router";
+import { Logo, LogoMark } from "./logo";
 import { ROLE_LABELS, type Role } from "~/lib/roles";
 
 export type ShellProps = {
@@ -30,7 +32,7 @@ function Icon({ d }: { d: string }) {
   );
 }
 
-function Nav({ slug, onNavigate }: { slug: string; onNavigate?: () => void }) {
+function Nav({ slug, onNavigate, compact = false }: { slug: string; onNavigate?: () => void; compact?: boolean }) {
   return (
     <nav aria-label="Sections">
       <ul className="space-y-1">
@@ -39,14 +41,15 @@ function Nav({ slug, onNavigate }: { slug: string; onNavigate?: () => void }) {
             <NavLink
               to={`/w/${slug}/${s.to}`}
               onClick={onNavigate}
+              title={compact ? s.label : undefined}
               className={({ isActive }) =>
-                `flex min-h-11 items-center gap-3 rounded-md px-3 py-2 text-sm font-medium ${
+                `flex min-h-11 items-center gap-3 rounded-md py-2 text-sm font-medium ${compact ? "justify-center px-2" : "px-3"} ${
                   isActive ? "bg-ink-800 text-white" : "text-ink-700 hover:bg-ink-100"
                 }`
               }
             >
               <Icon d={s.icon} />
-              {s.label}
+              <span className={compact ? "sr-only" : undefined}>{s.label}</span>
             </NavLink>
           </li>
         ))}
@@ -78,19 +81,19 @@ function WorkspaceSwitcher({ current, workspaces }: { current: string; workspace
   );
 }
 
-function UserMenu({ user, role }: { user: ShellProps["user"]; role: Role }) {
+function UserMenu({ user, role, side = "below" }: { user: ShellProps["user"]; role: Role; side?: "below" | "right" }) {
   return (
     <details className="group relative">
       <summary className="flex min-h-11 cursor-pointer list-none items-center gap-2 rounded-md px-2 py-1 hover:bg-ink-100" aria-label="Account menu">
         <span className="flex h-8 w-8 items-center justify-center rounded-full bg-ink-800 text-sm font-semibold text-white" aria-hidden="true">
           {user.name.slice(0, 1).toUpperCase()}
         </span>
-        <span className="hidden text-left text-sm sm:block">
+        <span className={side === "right" ? "sr-only" : "hidden text-left text-sm sm:block"}>
           <span className="block font-medium leading-tight">{user.name}</span>
           <span className="block text-xs text-ink-500">{ROLE_LABELS[role]}</span>
         </span>
       </summary>
-      <div className="absolute right-0 z-30 mt-2 w-64 rounded-lg border border-ink-200 bg-white p-3 shadow-lg">
+      <div className={`absolute z-30 w-64 rounded-lg border border-ink-200 bg-white p-3 shadow-lg ${side === "right" ? "bottom-0 left-full ml-2" : "right-0 mt-2"}`}>
         <p className="text-sm font-medium">{user.name}</p>
         <p className="text-xs text-ink-600">{user.email}</p>
         <p className="mt-1 text-xs text-ink-600">Role here: {ROLE_LABELS[role]}</p>
@@ -104,10 +107,18 @@ function UserMenu({ user, role }: { user: ShellProps["user"]; role: Role }) {
   );
 }
 
+/** True when the current route asks for the whole window (its handle: `{ layout: "canvas" }`). */
+function useCanvasLayout(): boolean {
+  return useMatches().some((m) => (m.handle as { layout?: string } | undefined)?.layout === "canvas");
+}
+
 export function Shell({ workspace, workspaces, user, role, demo, localMail, children }: ShellProps) {
   const [open, setOpen] = useState(false);
+  const canvas = useCanvasLayout();
+  const [navOpen, setNavOpen] = useState(false);
+  const rail = canvas && !navOpen;
   return (
-    <div className="min-h-screen">
+    <div className={canvas ? "min-h-screen md:flex md:h-dvh md:flex-col" : "min-h-screen"}>
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2">
         Skip to content
       </a>
@@ -143,19 +154,56 @@ export function Shell({ workspace, workspaces, user, role, demo, localMail, chil
           <Nav slug={workspace.slug} onNavigate={() => setOpen(false)} />
         </div>
       ) : null}
-      <div className="md:flex">
-        <aside className="hidden w-60 flex-none flex-col gap-6 border-r border-ink-200 bg-white px-4 py-5 md:flex md:min-h-screen">
-          <Link to={`/w/${workspace.slug}`} className="text-ink-800">
-            <Logo />
-          </Link>
-          <WorkspaceSwitcher current={workspace.slug} workspaces={workspaces} />
-          <Nav slug={workspace.slug} />
-        </aside>
-        <div className="min-w-0 flex-1">
-          <div className="hidden items-center justify-end border-b border-ink-200 bg-white px-6 py-2 md:flex">
-            <UserMenu user={user} role={role} />
-          </div>
-          <main id="main" className="mx-auto max-w-6xl px-4 py-6 md:px-8">
+      <div className={canvas ? "md:flex md:min-h-0 md:flex-1" : "md:flex"}>
+        {rail ? (
+          <aside className="hidden w-14 flex-none flex-col items-center gap-4 border-r border-ink-200 bg-white px-1 py-3 md:flex" aria-label="Workspace navigation (collapsed)">
+            <Link to={`/w/${workspace.slug}`} className="text-ink-800" title={`${workspace.name}: home`}>
+              <LogoMark />
+              <span className="sr-only">Chainproof: {workspace.name}</span>
+            </Link>
+            <button
+              type="button"
+              className="flex min-h-11 min-w-11 items-center justify-center rounded-md text-ink-700 hover:bg-ink-100"
+              aria-expanded={false}
+              onClick={() => setNavOpen(true)}
+              title="Show the navigation"
+            >
+              <span className="sr-only">Show the navigation</span>
+              <Icon d="M3 6h14M3 10h14M3 14h14" />
+            </button>
+            <Nav slug={workspace.slug} compact />
+            <div className="mt-auto">
+              <UserMenu user={user} role={role} side="right" />
+            </div>
+          </aside>
+        ) : (
+          <aside className={`hidden w-60 flex-none flex-col gap-6 border-r border-ink-200 bg-white px-4 py-5 md:flex ${canvas ? "md:overflow-y-auto" : "md:min-h-screen"}`}>
+            <div className="flex items-center justify-between gap-2">
+              <Link to={`/w/${workspace.slug}`} className="text-ink-800">
+                <Logo />
+              </Link>
+              {canvas ? (
+                <button type="button" className="rounded-md px-2 py-1 text-xs font-medium text-ink-600 hover:bg-ink-100" aria-expanded={true} onClick={() => setNavOpen(false)}>
+                  Hide
+                </button>
+              ) : null}
+            </div>
+            <WorkspaceSwitcher current={workspace.slug} workspaces={workspaces} />
+            <Nav slug={workspace.slug} />
+            {canvas ? (
+              <div className="mt-auto">
+                <UserMenu user={user} role={role} side="right" />
+              </div>
+            ) : null}
+          </aside>
+        )}
+        <div className={canvas ? "min-w-0 flex-1 md:flex md:min-h-0 md:flex-col" : "min-w-0 flex-1"}>
+          {canvas ? null : (
+            <div className="hidden items-center justify-end border-b border-ink-200 bg-white px-6 py-2 md:flex">
+              <UserMenu user={user} role={role} />
+            </div>
+          )}
+          <main id="main" className={canvas ? "px-3 py-3 md:flex md:min-h-0 md:flex-1 md:flex-col md:px-4" : "mx-auto max-w-6xl px-4 py-6 md:px-8"}>
             {children}
           </main>
         </div>

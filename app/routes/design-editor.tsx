@@ -45,6 +45,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   };
 }
 
+/** The editor gets the whole window: the shell collapses its navigation to a rail. */
+export const handle = { layout: "canvas" };
+
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.design.name ?? "Design"} · Editor · Chainproof` }];
 
 /** A sentence for an answer the editor has no special handling for (the server unreachable, signed out...). */
@@ -104,8 +107,8 @@ export default function DesignEditorPage({ loaderData }: Route.ComponentProps) {
   );
 
   return (
-    <>
-      <div className="mb-3 flex flex-wrap items-center justify-between gap-x-4 gap-y-2">
+    <div className="flex min-w-0 flex-col md:min-h-0 md:flex-1">
+      <div className="mb-2 flex flex-wrap items-center justify-between gap-x-4 gap-y-1">
         <div className="min-w-0">
           <p className="text-sm">
             <Link to={designPath(slug, design.id)} className="text-copper-700 underline">
@@ -133,7 +136,7 @@ export default function DesignEditorPage({ loaderData }: Route.ComponentProps) {
         onSaveDraft={onSaveDraft}
         onSaveRevision={onSaveRevision}
       />
-      <SafetyNote className="mt-4" />
-    </>
+      <SafetyNote className="mt-2" />
+    </div>
   );
 }

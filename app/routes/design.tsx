@@ -8,6 +8,7 @@ import { HashPrefix, Holds, NotProven, Section, StatusBadge, When } from "~/desi
 import { proveOffThread } from "~/proofs/pool.server";
 import type { Verdict } from "~/designs/types";
 import { PageHeader } from "~/components/page-header";
+import { CommonCauseNote } from "~/components/common-cause-note";
 import { SafetyNote } from "~/components/safety-note";
 import { buttonClass } from "~/components/ui/form";
 import { reviewStatusOf } from "~/reviews/reviews.server";
@@ -286,6 +287,7 @@ function VerdictSummary({
             ))}
           </ul>
         )}
+        <CommonCauseNote className="mt-1" />
       </div>
     </div>
   );

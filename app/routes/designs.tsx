@@ -9,6 +9,7 @@ import { DESIGN_STATUSES, STATUS_LABELS, type DesignSummary } from "~/designs/ty
 import { HashPrefix, NotProven, StatusBadge, When } from "~/designs/design-bits";
 import { designPath, editorPath } from "~/designs/paths";
 import { PageHeader } from "~/components/page-header";
+import { CommonCauseNote } from "~/components/common-cause-note";
 import { EmptyState } from "~/components/empty-state";
 import { buttonClass } from "~/components/ui/form";
 import { reviewStatusOf } from "~/reviews/reviews.server";
@@ -115,11 +116,15 @@ export default function Designs({ loaderData }: Route.ComponentProps) {
           </EmptyState>
         )
       ) : (
-        <ul className="space-y-3" aria-label="Designs">
-          {designs.map((d) => (
-            <DesignRow key={d.id} d={d} canEdit={canEdit} slug={slug} review={review[d.id]} />
-          ))}
-        </ul>
+        <>
+          <ul className="space-y-3" aria-label="Designs">
+            {designs.map((d) => (
+              <DesignRow key={d.id} d={d} canEdit={canEdit} slug={slug} review={review[d.id]} />
+            ))}
+          </ul>
+          {/* The rows count single faults: say once what such a count does not cover. */}
+          <CommonCauseNote className="mt-4" />
+        </>
       )}
     </>
   );

@@ -1,11 +1,17 @@
-// Canvas figures, measured in Debian's Chromium against the standalone editor harness
-// (app/canvas/bench): `npx tsx test/bench/canvas-bench.ts`.
-// 1. Live proof: worker round trip (post -> validate, compile, prove -> reply) of a 20-contact
-//    design (21 conditions, 2^21 rows), 50 runs, p50/p95.
-// 2. 200 nodes: time from page start until 200 nodes are in the DOM, then frame times (rAF
-//    deltas) while the pane is dragged for ~2 s.
-import { chromium } from "playwright-core";
+// Canvas figures, measured in Debian's Chromium: `npx tsx test/bench/canvas-bench.ts`.
+// 1. Live proof (standalone editor harness, app/canvas/bench): worker round trip (post -> validate,
+//    compile, prove -> reply) of a 20-contact design (21 conditions, 2^21 rows), 50 runs, p50/p95.
+// 2. 200 nodes (harness): time from page start until 200 nodes are in the DOM, then frame times
+//    (rAF deltas) while the pane is dragged for ~2 s.
+// 3. Opening the editor in the app (production build, compression on, a demo engineer signed in;
+//    its own stack unless CHAINPROOF_URL names a running one): the JavaScript transferred (encoded
+//    bytes of every script, workers included) and the time from navigation to a usable canvas
+//    (nodes drawn and the live proof's result in the status bar), with the CPU slowed 4x and a slow
+//    connection (1.6 Mbit/s down, 750 kbit/s up, 150 ms round trip), cache empty. Decision 143.
+//    `--weight` runs only this part.
+import { chromium, type Browser } from "playwright-core";
 import { serveHarness } from "../../app/canvas/bench/serve";
+import { bringUp, run, type Stack } from "../../scripts/stack";
 
 const PORT = Number(process.env.CANVAS_BENCH_PORT ?? 5193);
 const pct = (xs: number[], p: number) => {
@@ -14,12 +20,21 @@ const pct = (xs: number[], p: number) => {
 };
 const ms = (x: number) => `${x.toFixed(1)} ms`;
 
-const server = await serveHarness(PORT);
+const onlyWeight = process.argv.includes("--weight");
 const browser = await chromium.launch({
   executablePath: "/usr/bin/chromium",
   args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking"],
 });
 try {
+  if (!onlyWeight) await harnessFigures(browser);
+  await editorWeight(browser);
+} finally {
+  await browser.close();
+}
+
+async function harnessFigures(browser: Browser) {
+  const server = await serveHarness(PORT);
+  try {
   const page = await browser.newPage({ viewport: { width: 1400, height: 860 } });
   const base = `http://127.0.0.1:${PORT}/`;
 
@@ -68,7 +83,86 @@ try {
   });
   console.log(`canvas with ${count} nodes: rendered ${ms(renderMs)} after navigation start`);
   console.log(`panning: ${frames.length} frames, frame time p50 ${ms(pct(frames, 50))}, p95 ${ms(pct(frames, 95))}, max ${ms(Math.max(...frames))}`);
-} finally {
-  await browser.close();
-  await server.close();
+  } finally {
+    await server.close();
+  }
+}
+
+async function editorWeight(browser: Browser) {
+  let stack: Stack | null = null;
+  let base = process.env.CHAINPROOF_URL ?? "";
+  const offset = Number(process.env.CHAINPROOF_PORT_OFFSET ?? 0);
+  try {
+    if (!base) {
+      stack = await bringUp({
+        name: "canvas-bench", dataDir: ".data/canvas-bench", pgPort: 54359 + offset, database: "chainproof_canvas_bench", freshDatabase: true,
+        smtpPort: 2555 + offset, s3Port: 4599 + offset, appPort: 3300 + offset, demo: true, extraEnv: { NODE_ENV: "production", WEB_CONCURRENCY: "1" },
+      });
+      if ((await run("npx", ["react-router", "build"], { NODE_ENV: "production" })) !== 0) throw new Error("the build failed");
+      await stack.startApp();
+      base = stack.appUrl;
+    }
+    const runs: Array<{ scripts: number; encoded: number; decoded: number; usableMs: number }> = [];
+    for (let i = 0; i < 3; i++) runs.push(await openEditorOnce(browser, base));
+    const median = <T,>(xs: T[], f: (x: T) => number) => [...xs.map(f)].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+    const kb = (n: number) => `${(n / 1000).toFixed(1)} kB`;
+    console.log(
+      `editor, opened in the app (CPU 4x slower, 1.6 Mbit/s, 150 ms RTT, cache empty; ${runs.length} runs): ` +
+        `${runs[0].scripts} scripts, ${kb(runs[0].encoded)} of JavaScript transferred (${kb(runs[0].decoded)} uncompressed); ` +
+        `usable canvas after ${ms(median(runs, (r) => r.usableMs))} (median; runs: ${runs.map((r) => ms(r.usableMs)).join(", ")})`,
+    );
+    console.log(JSON.stringify({ editorOpen: { scripts: runs[0].scripts, jsTransferredBytes: runs[0].encoded, jsUncompressedBytes: runs[0].decoded, usableCanvasMs: runs.map((r) => Math.round(r.usableMs)) } }));
+  } finally {
+    await stack?.stop();
+  }
+}
+
+/** One cold open of the demo design's editor; counts every script response of the page and its workers. */
+async function openEditorOnce(browser: Browser, base: string) {
+  const context = await browser.newContext({ viewport: { width: 1440, height: 900 }, extraHTTPHeaders: { "x-forwarded-for": "198.18.77.1" } });
+  try {
+    const page = await context.newPage();
+    await page.goto(`${base}/sign-in`);
+    await page.getByLabel("E-mail").fill("engineer@example.com");
+    await page.getByLabel("Password").fill("chainproof-demo");
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await page.waitForURL((url) => !url.pathname.startsWith("/sign-in"));
+    const list = await page.request.get(`${base}/api/v1/designs?workspace=larkspur`);
+    const { designs } = (await list.json()) as { designs: Array<{ id: string; name: string }> };
+    const design = designs.find((d) => d.name.startsWith("Haybarn")) ?? designs[0];
+
+    const cdp = await context.newCDPSession(page);
+    await cdp.send("Network.enable");
+    await cdp.send("Network.setCacheDisabled", { cacheDisabled: true });
+    await cdp.send("Network.emulateNetworkConditions", { offline: false, latency: 150, downloadThroughput: (1.6e6 / 8) * 0.9, uploadThroughput: (750e3 / 8) * 0.9 });
+    await cdp.send("Emulation.setCPUThrottlingRate", { rate: 4 });
+
+    const scripts: Array<Promise<{ encoded: number; decoded: number }>> = [];
+    context.on("response", (res) => {
+      const url = res.url();
+      if (!/\.m?js(\?|$)/.test(new URL(url).pathname)) return;
+      scripts.push(
+        (async () => {
+          const [sizes, body] = await Promise.all([res.request().sizes(), res.body().catch(() => Buffer.alloc(0))]);
+          return { encoded: sizes.responseBodySize, decoded: body.length };
+        })(),
+      );
+    });
+    await page.goto(`${base}/w/larkspur/designs/${design.id}/edit`);
+    const usable = await page.waitForFunction(
+      () => {
+        const nodes = document.querySelectorAll(".react-flow__node").length;
+        const status = document.querySelector("[data-testid=proof-status]")?.textContent ?? "";
+        return nodes > 0 && status !== "" && !status.startsWith("Checking") ? performance.now() : 0;
+      },
+      null,
+      { timeout: 120_000, polling: 50 },
+    );
+    const usableMs = (await usable.jsonValue()) as number;
+    await page.waitForLoadState("networkidle");
+    const sizes = await Promise.all(scripts);
+    return { scripts: sizes.length, encoded: sizes.reduce((a, s) => a + s.encoded, 0), decoded: sizes.reduce((a, s) => a + s.decoded, 0), usableMs };
+  } finally {
+    await context.close();
+  }
 }

@@ -57,9 +57,13 @@ async function addCondition(page: Page, id: string, states: [string, string]) {
   await page.getByRole("tab", { name: "Conditions" }).click();
   await page.getByRole("button", { name: "+ Condition" }).click();
   const card = page.getByRole("group", { name: /^Condition c\d+$/ }).last();
+  // Ids and state names change when the field is committed (Enter), as one undo step.
   await card.getByLabel("State 1 of", { exact: false }).fill(states[0]);
+  await card.getByLabel("State 1 of", { exact: false }).press("Enter");
   await card.getByLabel("State 2 of", { exact: false }).fill(states[1]);
+  await card.getByLabel("State 2 of", { exact: false }).press("Enter");
   await card.getByLabel("Id").fill(id);
+  await card.getByLabel("Id").press("Enter");
   await expect(page.getByTestId(`condition-${id}`)).toBeVisible();
 }
 
@@ -73,6 +77,13 @@ async function setContact(page: Page, id: string, condition: string, closedIn: s
 }
 
 const status = (page: Page) => page.getByTestId("proof-status");
+
+/** Auto-layout (elkjs in its worker, loaded on first use), waited for, then Fit view. */
+export async function layout(page: Page) {
+  await page.getByRole("button", { name: "Auto-layout" }).click();
+  await expect(page.getByRole("button", { name: "Auto-layout" })).toBeEnabled({ timeout: 20_000 });
+  await page.getByRole("button", { name: "Fit view" }).first().click();
+}
 
 export async function buildInletDesign(page: Page) {
   await expect(status(page)).toBeVisible();
@@ -88,8 +99,7 @@ export async function buildInletDesign(page: Page) {
   await dropFromPalette(page, "input-enable", 40, 520);
   await expect(page.locator(".react-flow__node")).toHaveCount(5);
   // Spread them out (elkjs) and fit them in view, so every terminal is clear to grab.
-  await page.getByRole("button", { name: "Auto-layout" }).click();
-  await page.getByRole("button", { name: "Fit view" }).first().click();
+  await layout(page);
   await wire(page, "B1.+", "K1.1");
   await wire(page, "K1.2", "K2.1");
   await wire(page, "K2.2", "K3.1");
@@ -104,6 +114,7 @@ export async function buildInletDesign(page: Page) {
   await page.getByRole("button", { name: "+ Inhibit rule" }).click();
   const rule = page.getByTestId("rule-R1");
   await rule.getByLabel("Label").fill("No drive while charging");
+  await rule.getByLabel("Label").press("Enter");
   await rule.getByLabel("Condition", { exact: true }).selectOption("plug");
   await rule.getByRole("button", { name: "inserted" }).click();
 }
@@ -119,8 +130,7 @@ test("an engineer builds, proves and saves a design from an empty one; an unsafe
   // With a key contact in parallel across it, the inlet contact no longer cuts drive while charging.
   await page.getByTestId("node-K3").click();
   await page.getByRole("button", { name: "Add in parallel" }).first().click();
-  await page.getByRole("button", { name: "Auto-layout" }).click();
-  await page.getByRole("button", { name: "Fit view" }).first().click();
+  await layout(page);
   await setContact(page, "K4", "key", "on");
   await expect(status(page)).toContainText("1 of 1 rule fails");
   await page.getByRole("tab", { name: "Problems" }).click();

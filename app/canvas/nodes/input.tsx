@@ -1,18 +1,10 @@
 // Controller input: one terminal "in"; the function (power, enable, forward, reverse, brake) is a badge.
 import { memo } from "react";
 import type { NodeProps } from "@xyflow/react";
-import { INPUT_FUNCTIONS, TERMINALS, type InputFunction } from "../../engine";
+import { FUNCTION_LABEL } from "../node-kinds";
 import { useEditor } from "../store";
-import type { DesignRest, InputNode } from "../types";
+import type { InputNode } from "../types";
 import { Position, TerminalHandle } from "./terminal-handle";
-
-export const FUNCTION_LABEL: Record<InputFunction, string> = {
-  power: "Power",
-  enable: "Enable",
-  forward: "Forward",
-  reverse: "Reverse",
-  brake: "Brake",
-};
 
 function InputView({ id, data, selected }: NodeProps<InputNode>) {
   const lit = useEditor((s) => (s.simView ? (s.simView.inputs[id] ?? false) : null));
@@ -30,7 +22,7 @@ function InputView({ id, data, selected }: NodeProps<InputNode>) {
         {FUNCTION_LABEL[data.function] ?? data.function}
       </span>
       <div className="min-w-0 leading-tight">
-        <div className="text-xs font-semibold text-ink-500">{id}</div>
+        <div className="truncate text-xs font-semibold text-ink-500">{id}</div>
         <div className="truncate text-sm font-medium text-ink-900" title={data.label || undefined}>{data.label || "Controller input"}</div>
         {lit !== null ? <div className={`text-xs font-semibold ${lit ? "text-moss-700" : "text-ink-500"}`}>{lit ? "energized" : "dead"}</div> : null}
       </div>
@@ -38,16 +30,4 @@ function InputView({ id, data, selected }: NodeProps<InputNode>) {
   );
 }
 
-export const inputKind = {
-  kind: "input" as const,
-  title: "Controller input",
-  description: "Power, enable, forward, reverse or brake",
-  terminals: TERMINALS.input,
-  defaultData: ({ fn }: { rest: DesignRest; fn?: InputFunction }) => {
-    const f = fn ?? "enable";
-    return { label: `${FUNCTION_LABEL[f]} input`, function: f };
-  },
-  component: memo(InputView),
-};
-
-export { INPUT_FUNCTIONS };
+export const InputNodeView = memo(InputView);

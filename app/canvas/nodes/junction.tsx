@@ -1,7 +1,6 @@
 // Junction: a tie point with one terminal "j" where any number of wires meet.
 import { memo } from "react";
 import type { NodeProps } from "@xyflow/react";
-import { TERMINALS } from "../../engine";
 import { useEditor } from "../store";
 import type { JunctionNode } from "../types";
 import { Position, TerminalHandle } from "./terminal-handle";
@@ -19,11 +18,4 @@ function JunctionView({ id, selected }: NodeProps<JunctionNode>) {
   );
 }
 
-export const junctionKind = {
-  kind: "junction" as const,
-  title: "Junction",
-  description: "Tie point for several wires",
-  terminals: TERMINALS.junction,
-  defaultData: () => ({}),
-  component: memo(JunctionView),
-};
+export const JunctionNodeView = memo(JunctionView);

@@ -1,34 +1,15 @@
-// The node-type registry: one module per component kind, each with its component, terminals and
-// default data. `nodeTypes` is built once at module scope so xyflow never sees a new object.
-import type { ComponentType } from "react";
-import type { NodeProps, NodeTypes } from "@xyflow/react";
-import type { InputFunction } from "../../engine";
-import type { CanvasNode, ComponentKind, DesignRest } from "../types";
-import { supplyKind } from "./supply";
-import { contactKind } from "./contact";
-import { junctionKind } from "./junction";
-import { inputKind } from "./input";
-
-export type NodeKind<K extends ComponentKind> = {
-  kind: K;
-  /** Palette name. */
-  title: string;
-  description: string;
-  terminals: readonly string[];
-  defaultData(ctx: { rest: DesignRest; fn?: InputFunction }): Extract<CanvasNode, { type: K }>["data"];
-  component: ComponentType<NodeProps<Extract<CanvasNode, { type: K }>>>;
-};
-
-export const NODE_KINDS: { [K in ComponentKind]: NodeKind<K> } = {
-  supply: supplyKind,
-  contact: contactKind,
-  junction: junctionKind,
-  input: inputKind,
-};
+// The node-type registry: each component kind's view, built once at module scope so xyflow never
+// sees a new object. What a kind is (terminals, default data, size, names) lives in
+// ../node-kinds.ts, which imports no React and nothing of the store.
+import type { NodeTypes } from "@xyflow/react";
+import { ContactNodeView } from "./contact";
+import { InputNodeView } from "./input";
+import { JunctionNodeView } from "./junction";
+import { SupplyNodeView } from "./supply";
 
 export const nodeTypes: NodeTypes = {
-  supply: supplyKind.component,
-  contact: contactKind.component,
-  junction: junctionKind.component,
-  input: inputKind.component,
+  supply: SupplyNodeView,
+  contact: ContactNodeView,
+  junction: JunctionNodeView,
+  input: InputNodeView,
 } as NodeTypes;

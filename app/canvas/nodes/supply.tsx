@@ -1,10 +1,20 @@
-// Supply: always live; one terminal "+".
+// Supply: always live; one terminal "+". Drawn with Chainproof's own supply mark (a pack with a
+// plus), not an earth or ground symbol: a supply here is the live side.
 import { memo } from "react";
 import type { NodeProps } from "@xyflow/react";
-import { TERMINALS } from "../../engine";
 import { useEditor } from "../store";
 import type { SupplyNode } from "../types";
 import { Position, TerminalHandle } from "./terminal-handle";
+
+export function SupplyMark({ live }: { live: boolean }) {
+  return (
+    <svg viewBox="0 0 24 24" className={`h-6 w-6 flex-none ${live ? "text-moss-600" : "text-ink-700"}`} data-symbol="supply" role="img" aria-label="Supply, always live">
+      <rect x="2" y="6" width="17" height="12" rx="2.5" fill="none" stroke="currentColor" strokeWidth="2" />
+      <path d="M19 10h2.5v4H19" fill="currentColor" stroke="currentColor" strokeWidth="1.5" strokeLinejoin="round" />
+      <path d="M6.5 12h8M10.5 8v8" stroke="currentColor" strokeWidth="2" strokeLinecap="round" />
+    </svg>
+  );
+}
 
 function SupplyView({ id, data, selected }: NodeProps<SupplyNode>) {
   const simulating = useEditor((s) => s.simView !== null);
@@ -14,12 +24,9 @@ function SupplyView({ id, data, selected }: NodeProps<SupplyNode>) {
       data-testid={`node-${id}`}
       className={`cp-node flex w-44 items-center gap-2 rounded-md border-2 bg-white px-3 py-2 ${selected ? "border-copper-500" : "border-ink-700"} ${simulating ? "cp-live" : ""}`}
     >
-      <svg viewBox="0 0 24 24" className="h-6 w-6 flex-none" aria-hidden="true">
-        <path d="M4 9h16M7 14h10M10 19h4" stroke="currentColor" strokeWidth="2" strokeLinecap="round" className={simulating ? "text-moss-600" : "text-ink-700"} />
-        <path d="M12 2v7" stroke="currentColor" strokeWidth="2" className={simulating ? "text-moss-600" : "text-ink-700"} />
-      </svg>
+      <SupplyMark live={simulating} />
       <div className="min-w-0 leading-tight">
-        <div className="text-xs font-semibold text-ink-500">{id}</div>
+        <div className="truncate text-xs font-semibold text-ink-500">{id}</div>
         <div className="truncate text-sm font-medium text-ink-900" title={data.label || undefined}>{data.label || "Supply"}</div>
       </div>
       <TerminalHandle component={id} terminal="+" position={Position.Right} connectable={connectable} />
@@ -27,11 +34,4 @@ function SupplyView({ id, data, selected }: NodeProps<SupplyNode>) {
   );
 }
 
-export const supplyKind = {
-  kind: "supply" as const,
-  title: "Supply",
-  description: "Always-live source (+)",
-  terminals: TERMINALS.supply,
-  defaultData: () => ({ label: "Supply +" }),
-  component: memo(SupplyView),
-};
+export const SupplyNodeView = memo(SupplyView);

@@ -1,6 +1,7 @@
-// Small pieces shared by the side panels: compact labelled fields, field problems, the document.
-import { useId, useMemo, type ButtonHTMLAttributes, type InputHTMLAttributes, type ReactNode } from "react";
-import { validateDesign, type Problem } from "../../engine";
+// Small pieces shared by the side panels: compact labelled fields (text fields that commit on
+// Enter or when left), field problems, the document.
+import { useEffect, useId, useMemo, useRef, useState, type ButtonHTMLAttributes, type InputHTMLAttributes, type KeyboardEvent, type ReactNode } from "react";
+import type { Problem } from "../../engine";
 import { flowToDocument } from "../convert";
 import { useEditor } from "../store";
 
@@ -11,13 +12,9 @@ export function useDocument() {
   return useMemo(() => flowToDocument(rest, nodes, edges), [rest, nodes, edges]);
 }
 
-/** Immediate validation of the document being edited (the engine's own rules). */
+/** The engine's problems with the document, from the latest check in the proof worker. */
 export function useValidation(): Problem[] {
-  const doc = useDocument();
-  return useMemo(() => {
-    const v = validateDesign(doc);
-    return v.ok ? [] : v.problems;
-  }, [doc]);
+  return useEditor((s) => s.problems);
 }
 
 /** Problems at `path` or anywhere inside it. */
@@ -28,7 +25,7 @@ export function problemsUnder(problems: readonly Problem[], path: string): Probl
 export function FieldProblems({ problems }: { problems: readonly Problem[] }) {
   if (problems.length === 0) return null;
   return (
-    <ul className="mt-1 space-y-0.5 text-xs text-brick-700" role="alert">
+    <ul className="mt-1 space-y-0.5 text-xs text-brick-700 [overflow-wrap:anywhere]" role="alert">
       {problems.map((p) => (
         <li key={`${p.path}:${p.message}`}>
           <code className="font-mono text-[11px]">{p.path || "(document)"}</code> {p.message}
@@ -49,6 +46,98 @@ export function Text({ label, invalid, ...rest }: { label: string; invalid?: boo
         {label}
       </label>
       <input id={id} aria-invalid={invalid || undefined} className={`${inputClass} ${invalid ? "border-brick-600" : ""}`} {...rest} />
+    </div>
+  );
+}
+
+/**
+ * A text field that changes the design only when it is committed (Enter, or leaving the field),
+ * as one undo step. `onCommit` gives null when the value was taken, or the reason it was refused;
+ * a refusal stays at the field with the typed text until it is fixed or Escape restores the value.
+ */
+export function CommitText({
+  label,
+  value,
+  onCommit,
+  disabled,
+  invalid,
+  hideLabel,
+  className = "",
+  ...rest
+}: {
+  label: string;
+  value: string;
+  onCommit: (typed: string) => string | null;
+  disabled?: boolean;
+  invalid?: boolean;
+  hideLabel?: boolean;
+  className?: string;
+} & Omit<InputHTMLAttributes<HTMLInputElement>, "value" | "onChange" | "onBlur" | "onKeyDown" | "className">) {
+  const id = useId();
+  const [draft, setDraft] = useState(value);
+  const [error, setError] = useState<string | null>(null);
+  const focused = useRef(false);
+  const committed = useRef(false);
+  // The value changed under the field (undo, another field's rename, or this commit as the design
+  // took it): show it, unless it is being typed in.
+  useEffect(() => {
+    if (!focused.current || committed.current) {
+      committed.current = false;
+      setDraft(value);
+      setError(null);
+    }
+  }, [value]);
+  const latest = useRef({ draft, value, onCommit, disabled });
+  latest.current = { draft, value, onCommit, disabled };
+  // Leaving by unmounting (the selection moved on) still commits what was typed.
+  useEffect(
+    () => () => {
+      const l = latest.current;
+      if (!l.disabled && focused.current && l.draft !== l.value) l.onCommit(l.draft);
+    },
+    [],
+  );
+  const commit = () => {
+    if (draft === value) return setError(null);
+    const why = onCommit(draft);
+    committed.current = why === null;
+    setError(why);
+  };
+  const onKeyDown = (e: KeyboardEvent<HTMLInputElement>) => {
+    if (e.key === "Enter") {
+      e.preventDefault();
+      commit();
+    } else if (e.key === "Escape") {
+      setDraft(value);
+      setError(null);
+    }
+  };
+  return (
+    <div className={className}>
+      <label htmlFor={id} className={hideLabel ? "sr-only" : "block text-xs font-medium text-ink-600"}>
+        {label}
+      </label>
+      <input
+        id={id}
+        value={draft}
+        disabled={disabled}
+        aria-invalid={invalid || error ? true : undefined}
+        aria-describedby={error ? `${id}-error` : undefined}
+        className={`${inputClass} ${invalid || error ? "border-brick-600" : ""} ${hideLabel ? "mt-0" : ""}`}
+        onFocus={() => (focused.current = true)}
+        onChange={(e) => setDraft(e.target.value)}
+        onBlur={() => {
+          focused.current = false;
+          commit();
+        }}
+        onKeyDown={onKeyDown}
+        {...rest}
+      />
+      {error ? (
+        <p id={`${id}-error`} role="alert" className="mt-1 text-xs text-brick-700 [overflow-wrap:anywhere]">
+          Not changed: {error}. {draft !== value ? `Escape puts back “${value}”.` : ""}
+        </p>
+      ) : null}
     </div>
   );
 }

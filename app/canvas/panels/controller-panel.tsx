@@ -1,6 +1,7 @@
 // The motor controller: the throttle's condition and the class of each of its states, whether
 // braking cuts drive, and the lockouts (each explained in one line).
-import { LOCKOUTS, type Lockout, type ThrottleMapping } from "../../engine";
+import type { Lockout, ThrottleMapping } from "../../engine";
+import { LOCKOUTS } from "../../engine/vocabulary";
 import { useEditor } from "../store";
 import { FieldProblems, Section, Select, problemsUnder, useValidation } from "./common";
 

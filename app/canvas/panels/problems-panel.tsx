@@ -1,39 +1,20 @@
 // Everything that stops the design from being proven: validation problems by field path, every
 // failing rule with its counterexample, every single fault that defeats a rule, and the server's
 // refusal of a revision. Each counterexample opens in simulation on the canvas.
-import type { Problem, RuleVerdict, Verdict } from "../../engine";
+import type { RuleVerdict, Verdict } from "../../engine";
+import { CommonCauseNote } from "../../components/common-cause-note";
 import { SafetyNote } from "../../components/safety-note";
 import { compiledOf, faultRow } from "../simulation";
 import { useEditor, useEditorStore } from "../store";
 import { Section, Small, useDocument } from "./common";
+import { ProblemList } from "./problem-list";
+
+export { ProblemList };
 
 const statesText = (row: Record<string, string>) =>
   Object.entries(row)
     .map(([k, v]) => `${k} = ${v}`)
     .join(", ");
-
-export function ProblemList({ problems }: { problems: readonly Problem[] }) {
-  const store = useEditorStore();
-  const nodes = useEditor((s) => s.nodes);
-  return (
-    <ul className="space-y-1" aria-label="Problems by field">
-      {problems.map((p) => {
-        const m = /^components\[(\d+)\]/.exec(p.path);
-        const node = m ? nodes[Number(m[1])] : undefined;
-        return (
-          <li key={`${p.path}:${p.message}`} className="rounded border border-brick-100 bg-brick-50 px-2 py-1 text-sm text-brick-700">
-            <code className="font-mono text-xs font-semibold">{p.path || "(document)"}</code> {p.message}
-            {node ? (
-              <Small tone="ghost" className="ml-1" onClick={() => (store.getState().select(node.id), store.getState().setPanel("properties"))}>
-                Select {node.id}
-              </Small>
-            ) : null}
-          </li>
-        );
-      })}
-    </ul>
-  );
-}
 
 export function VerdictList({ verdict }: { verdict: Verdict }) {
   const store = useEditorStore();
@@ -52,7 +33,7 @@ export function VerdictList({ verdict }: { verdict: Verdict }) {
       {failing.length === 0 ? <p className="text-sm text-moss-700">Every rule holds.</p> : null}
       <ul className="space-y-2">
         {failing.map((r) => (
-          <li key={r.id} className="rounded border border-brick-600/40 bg-white p-2 text-sm" data-testid={`failing-${r.id}`}>
+          <li key={r.id} className="rounded border border-brick-600/40 bg-white p-2 text-sm [overflow-wrap:anywhere]" data-testid={`failing-${r.id}`}>
             <div className="font-semibold text-brick-700">
               {label(r.id)} <span className="font-normal text-ink-500">({r.id}) fails</span>
             </div>
@@ -74,7 +55,12 @@ export function VerdictList({ verdict }: { verdict: Verdict }) {
           </li>
         ))}
       </ul>
-      {verdict.singleFaults.length > 0 ? (
+      {verdict.singleFaults.length === 0 ? (
+        <div>
+          <p className="text-sm text-moss-700">No single stuck contact defeats a rule.</p>
+          <CommonCauseNote className="mt-1" />
+        </div>
+      ) : (
         <div>
           <h4 className="text-xs font-bold uppercase tracking-wide text-ink-500">Single faults that defeat a rule</h4>
           <ul className="mt-1 space-y-1">
@@ -97,8 +83,9 @@ export function VerdictList({ verdict }: { verdict: Verdict }) {
               </li>
             ))}
           </ul>
+          <CommonCauseNote className="mt-1" />
         </div>
-      ) : null}
+      )}
     </div>
   );
 }

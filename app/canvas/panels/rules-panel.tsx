@@ -1,7 +1,7 @@
 // Safety rules: inhibit rules (a visual predicate and what it forbids) and the no-restart rule.
 import type { InhibitRule, Rule } from "../../engine";
-import { useEditor } from "../store";
-import { FieldProblems, Section, Select, Small, Text, problemsUnder, useValidation } from "./common";
+import { useEditor, useEditorStore } from "../store";
+import { CommitText, FieldProblems, Section, Select, Small, problemsUnder, useValidation } from "./common";
 import { PredicateEditor } from "./predicate-editor";
 
 function freshRuleId(rules: readonly Rule[], base: string) {
@@ -14,11 +14,12 @@ export function RulesPanel() {
   const inputs = useEditor((s) => s.nodes.filter((n) => n.type === "input").map((n) => n.id).join("\u0000"));
   const editable = useEditor((s) => !s.readOnly && s.simulation === null);
   const updateRest = useEditor((s) => s.updateRest);
+  const store = useEditorStore();
   const problems = useValidation();
   const noRestart = rules.findIndex((r) => r.type === "no-restart");
   const inputIds = inputs ? inputs.split("\u0000") : [];
 
-  const setRule = (i: number, r: Rule, tag?: string) => updateRest((rest) => ({ ...rest, rules: rest.rules.map((x, k) => (k === i ? r : x)) }), tag);
+  const setRule = (i: number, r: Rule) => store.getState().updateRule(i, () => r);
 
   return (
     <div>
@@ -52,8 +53,9 @@ export function RulesPanel() {
               editable={editable}
               conditions={conditions}
               inputs={inputIds}
-              onChange={(next, tag) => setRule(i, next, tag)}
-              onRemove={() => updateRest((rest) => ({ ...rest, rules: rest.rules.filter((_, k) => k !== i) }))}
+              onChange={(next) => setRule(i, next)}
+              onRename={(next) => store.getState().renameRule(i, next)}
+              onRemove={() => store.getState().removeRule(i)}
               problems={problemsUnder(problems, `rules[${i}]`)}
             />
           ) : null,
@@ -93,6 +95,7 @@ function InhibitRuleForm({
   conditions,
   inputs,
   onChange,
+  onRename,
   onRemove,
   problems,
 }: {
@@ -101,7 +104,8 @@ function InhibitRuleForm({
   editable: boolean;
   conditions: Parameters<typeof PredicateEditor>[0]["conditions"];
   inputs: string[];
-  onChange: (r: InhibitRule, tag?: string) => void;
+  onChange: (r: InhibitRule) => void;
+  onRename: (id: string) => string | null;
   onRemove: () => void;
   problems: ReturnType<typeof problemsUnder>;
 }) {
@@ -109,8 +113,8 @@ function InhibitRuleForm({
   return (
     <fieldset className="space-y-2 rounded border border-ink-200 bg-white p-2" aria-label={`Rule ${rule.id}`} data-testid={`rule-${rule.id}`}>
       <div className="grid grid-cols-[6rem_1fr] gap-2">
-        <Text label="Id" value={rule.id} disabled={!editable} onChange={(e) => onChange({ ...rule, id: e.target.value }, `rule:${index}:id`)} invalid={problems.some((p) => p.path === `rules[${index}].id`)} />
-        <Text label="Label" value={rule.label ?? ""} disabled={!editable} onChange={(e) => onChange({ ...rule, label: e.target.value }, `rule:${index}:label`)} />
+        <CommitText label="Id" value={rule.id} disabled={!editable} onCommit={onRename} invalid={problems.some((p) => p.path === `rules[${index}].id`)} />
+        <CommitText label="Label" value={rule.label ?? ""} disabled={!editable} onCommit={(label) => (onChange({ ...rule, label }), null)} />
       </div>
       <PredicateEditor value={rule.when ?? { always: true }} onChange={(when) => onChange({ ...rule, when })} conditions={conditions} disabled={!editable} path={`rules[${index}].when`} />
       <Select

@@ -1,10 +1,12 @@
 // Simulation: set the row by clicking each condition's state, see drive and what blocks it
-// (engine diagnose); step through a no-restart counterexample with the lockout latch.
+// (engine diagnose); step through a no-restart counterexample, each step saying what changed,
+// where the lockout latch stands and which lockout would have caught the start.
 import { useMemo } from "react";
 import { diagnose, type Diagnosis } from "../../engine";
 import { SafetyNote } from "../../components/safety-note";
 import { compiledOf, restRow } from "../simulation";
 import { useEditor } from "../store";
+import { explainTrace, LOCKOUT_NAME, type TraceExplanation } from "../trace-explain";
 import { Section, Small, useDocument } from "./common";
 
 export function SimulatePanel() {
@@ -27,6 +29,9 @@ export function SimulatePanel() {
     }
   }, [compiled, simulation]);
 
+  const src0 = simulation?.source;
+  const explanation = useMemo(() => (src0?.kind === "trace" ? explainTrace(doc, src0.rows) : null), [doc, src0]);
+
   if (!compiled) {
     return (
       <Section title="Simulate">
@@ -47,6 +52,7 @@ export function SimulatePanel() {
   const src = simulation.source;
   const states = src.kind === "trace" ? src.rows[src.step - 1] : simulation.states;
   const ruleLabel = (id: string) => doc.rules.find((r) => r.id === id)?.label || id;
+  const violatingHere = src.kind === "trace" && explanation !== null && explanation.violatingStep === src.step;
 
   return (
     <div>
@@ -84,16 +90,21 @@ export function SimulatePanel() {
           </div>
         ) : null}
         <div
-          className={`rounded px-3 py-2 text-sm font-bold ${simView?.drive ? "bg-moss-600 text-white" : "bg-ink-800 text-white"}`}
+          className={`rounded px-3 py-2 text-sm font-bold ${violatingHere ? "bg-brick-600 text-white" : simView?.drive ? "bg-moss-600 text-white" : "bg-ink-800 text-white"}`}
           data-testid="sim-drive"
+          data-violating={violatingHere || undefined}
         >
           Drive {simView?.drive ? "ON" : "OFF"}
+          {violatingHere ? <span className="ml-1">: it started on a throttle that was already applied</span> : null}
           {simView?.latched !== undefined ? (
             <span className="ml-2 font-normal">· lockout latch {simView.latched ? "set" : "clear"}{simView.armed?.length ? ` (armed: ${simView.armed.join(", ")})` : ""}</span>
           ) : null}
         </div>
         {simView?.error ? <p className="text-sm text-brick-700">{simView.error}</p> : null}
       </Section>
+      {src.kind === "trace" && explanation ? (
+        <TraceSteps explanation={explanation} current={src.step} go={(step) => simulate({ ...simulation, source: { ...src, step } })} />
+      ) : null}
       <Section title="Conditions">
         {doc.conditions.map((c) => (
           <div key={c.id}>
@@ -141,5 +152,56 @@ export function SimulatePanel() {
         <SafetyNote />
       </div>
     </div>
+  );
+}
+
+/** Every step of a no-restart counterexample: what changed, the latch, and what would have caught it. */
+function TraceSteps({ explanation, current, go }: { explanation: TraceExplanation; current: number; go: (step: number) => void }) {
+  const { steps, violatingStep, catchers } = explanation;
+  return (
+    <Section title="Step by step">
+      <ol className="space-y-1.5" aria-label="Steps of the counterexample">
+        {steps.map((st) => (
+          <li key={st.step} data-testid={`trace-step-${st.step}`}>
+            <button
+              type="button"
+              onClick={() => go(st.step)}
+              aria-current={st.step === current ? "step" : undefined}
+              className={`w-full rounded border px-2 py-1.5 text-left text-xs ${st.step === current ? "border-copper-600 bg-white" : "border-ink-200 bg-white hover:border-ink-400"}`}
+            >
+              <div className="flex items-center justify-between gap-2">
+                <span className="font-semibold text-ink-800">Step {st.step}</span>
+                <span className={`rounded px-1.5 py-0.5 font-bold ${st.restart ? "bg-brick-600 text-white" : st.drive ? "bg-moss-600 text-white" : "bg-ink-200 text-ink-800"}`}>
+                  drive {st.drive ? "on" : "off"}
+                </span>
+              </div>
+              <p className="mt-0.5 text-ink-700">
+                {st.step === 1 ? "From power-up: " : "Changed: "}
+                {st.changed.length === 0 ? "nothing" : st.changed.map((c) => (st.step === 1 ? `${c.cond} ${c.to}` : `${c.cond} ${c.from} → ${c.to}`)).join(", ")}
+                {st.controllerChanges.length ? <span className="text-ink-500"> ({st.controllerChanges.join(", ")})</span> : null}
+              </p>
+              <p className="text-ink-600">
+                Latch {st.latched ? "set: drive held off until the throttle is released" : "clear"}
+                {st.armed.length ? ` · set by ${st.armed.map((l) => LOCKOUT_NAME[l]).join(", ")}` : ""}
+              </p>
+              {st.wouldArm.map((l) => (
+                <p key={l} className="text-copper-700">
+                  The {LOCKOUT_NAME[l]} is off: with it on, the latch would set here and hold drive off until the throttle is released.
+                </p>
+              ))}
+              {st.restart ? (
+                <p className="font-semibold text-brick-700">
+                  Drive came on while the throttle was already applied at the step before.{" "}
+                  {catchers.length > 0
+                    ? `Switching on the ${catchers.map((l) => LOCKOUT_NAME[l]).join(" or the ")} would have kept it off here.`
+                    : "No single lockout would have kept it off here: change the wiring or the rule's situation."}
+                </p>
+              ) : null}
+            </button>
+          </li>
+        ))}
+      </ol>
+      {violatingStep === 0 ? <p className="text-xs text-ink-500">These steps no longer start on a held throttle (the design changed since).</p> : null}
+    </Section>
   );
 }

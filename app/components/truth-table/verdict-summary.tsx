@@ -1,6 +1,7 @@
 // A revision's verdict in words: every rule with its unsafe / violating counts, the no-restart
 // result with its counterexample, and the single contact faults that defeat a rule.
 import type { Verdict } from "~/engine";
+import { CommonCauseNote } from "~/components/common-cause-note";
 
 export type TraceStepView = { step: number; states: Record<string, string>; drive: boolean; restart: boolean; armed: string[] };
 
@@ -108,6 +109,7 @@ export function VerdictSummary({
             ))}
           </ul>
         )}
+        <CommonCauseNote className="mt-1" />
       </div>
     </div>
   );

@@ -71,18 +71,23 @@ describe("editor store opened with a row", () => {
   it("starts in simulation on the Simulate panel; a reviewer's read-only store too", () => {
     for (const readOnly of [false, true]) {
       const store = createEditorStore({ initial: hauler, readOnly, designName: "Haybarn", baseRevision: 1, row: "3" });
+      expect(store.getState().openRow).toBe("3");
+      store.getState().startAt(rowStart(store.getState().openRow, store.getState().document()));
       const s = store.getState();
       expect(s.panel).toBe("simulate");
       expect(s.simulation).toEqual({ states: evaluateRow(compiled, 3).states, source: { kind: "row", index: 3 } });
-      expect(s.rowNotice).toBeNull();
+      expect(s.banner).toBeNull();
+      expect(s.openRow).toBeNull();
     }
   });
 
   it("opens for editing with the notice when the row is bad", () => {
-    const s = createEditorStore({ initial: hauler, readOnly: false, designName: "Haybarn", baseRevision: 1, row: "-2" }).getState();
+    const store = createEditorStore({ initial: hauler, readOnly: false, designName: "Haybarn", baseRevision: 1, row: "-2" });
+    store.getState().startAt(rowStart(store.getState().openRow, store.getState().document()));
+    const s = store.getState();
     expect(s.simulation).toBeNull();
     expect(s.panel).toBe("properties");
-    expect(s.rowNotice).toContain("not a row number");
+    expect(s.banner?.text).toContain("not a row number");
   });
 });
 

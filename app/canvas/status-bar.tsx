@@ -1,0 +1,54 @@
+// The line under the canvas: the live proof's result, whether this is a proven revision or a
+// draft, and the draft's save state.
+import { useMemo } from "react";
+import { contentKey } from "./convert";
+import type { DraftState } from "./hooks";
+import { useDocument } from "./panels/common";
+import { useEditor } from "./store";
+
+export function StatusBar({ draft, readOnly }: { draft: DraftState; readOnly: boolean }) {
+  const proof = useEditor((s) => s.proof);
+  const revision = useEditor((s) => s.revision);
+  const simulating = useEditor((s) => s.simulation !== null);
+  const doc = useDocument();
+  const key = useMemo(() => contentKey(doc), [doc]);
+  const isRevision = revision.number > 0 && revision.key === key;
+  let proofText = "Checking…";
+  let tone = "text-ink-600";
+  if (proof.status === "invalid") {
+    proofText = `${proof.problems.length} ${proof.problems.length === 1 ? "problem" : "problems"} to fix before proving`;
+    tone = "text-brick-700";
+  } else if (proof.status === "error") {
+    proofText = `Check failed: ${proof.message}`;
+    tone = "text-brick-700";
+  } else if (proof.status === "done") {
+    const failing = proof.verdict.rules.filter((r) => !r.holds).length;
+    proofText = failing === 0 ? "Proven: every rule holds" : `${failing} of ${proof.verdict.rules.length} ${proof.verdict.rules.length === 1 ? "rule fails" : "rules fail"}`;
+    tone = failing === 0 ? "text-moss-700" : "text-brick-700";
+    proofText += ` · ${proof.verdict.rows.toLocaleString("en-US")} rows, ${proof.verdict.driveRows.toLocaleString("en-US")} with drive`;
+    if (proof.verdict.singleFaults.length) proofText += ` · ${proof.verdict.singleFaults.length} single ${proof.verdict.singleFaults.length === 1 ? "fault defeats" : "faults defeat"} a rule`;
+  }
+  const draftText = readOnly
+    ? ""
+    : draft.kind === "saving"
+      ? "Saving draft…"
+      : draft.kind === "pending"
+        ? "Unsaved changes"
+        : draft.kind === "conflict"
+          ? "Autosave paused (saved elsewhere)"
+          : draft.kind === "error"
+            ? `Draft not saved: ${draft.message}`
+            : "Draft saved";
+  return (
+    <div role="status" aria-live="polite" data-testid="status-bar" className="flex flex-wrap items-center gap-x-4 gap-y-1 border-t border-ink-200 bg-white px-3 py-1.5 text-sm">
+      <span className={`font-semibold ${tone}`} data-testid="proof-status">
+        {proofText}
+      </span>
+      <span className={`font-semibold ${isRevision ? "text-moss-700" : "text-ink-600"}`} data-testid="revision-status">
+        {isRevision ? `Revision ${revision.number}, proven` : `Draft, not proven${revision.number > 0 ? ` (based on revision ${revision.number})` : ""}`}
+      </span>
+      {simulating ? <span className="font-semibold text-copper-700">Simulating</span> : null}
+      {draftText ? <span className="ml-auto text-ink-500">{draftText}</span> : null}
+    </div>
+  );
+}
