@@ -9,6 +9,7 @@
 //    (nodes drawn and the live proof's result in the status bar), with the CPU slowed 4x and a slow
 //    connection (1.6 Mbit/s down, 750 kbit/s up, 150 ms round trip), cache empty. Decision 143.
 //    `--weight` runs only this part.
+import { randomBytes } from "node:crypto";
 import { chromium, type Browser } from "playwright-core";
 import { serveHarness } from "../../app/canvas/bench/serve";
 import { bringUp, run, type Stack } from "../../scripts/stack";
@@ -96,7 +97,7 @@ async function editorWeight(browser: Browser) {
     if (!base) {
       stack = await bringUp({
         name: "canvas-bench", dataDir: ".data/canvas-bench", pgPort: 54359 + offset, database: "chainproof_canvas_bench", freshDatabase: true,
-        smtpPort: 2555 + offset, s3Port: 4599 + offset, appPort: 3300 + offset, demo: true, extraEnv: { NODE_ENV: "production", WEB_CONCURRENCY: "1" },
+        smtpPort: 2555 + offset, s3Port: 4599 + offset, appPort: 3300 + offset, demo: true, authSecret: randomBytes(48).toString("base64url"), extraEnv: { NODE_ENV: "production", WEB_CONCURRENCY: "1" },
       });
       if ((await run("npx", ["react-router", "build"], { NODE_ENV: "production" })) !== 0) throw new Error("the build failed");
       await stack.startApp();

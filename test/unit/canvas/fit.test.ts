@@ -1,6 +1,6 @@
 // The fit padding keeps every node clear of the minimap and the zoom controls.
 import { describe, expect, it } from "vitest";
-import { FIT_MARGIN, fitPadding, type FitPadding, type Size } from "../../../app/canvas/fit";
+import { FIT_MARGIN, fitPadding, fitViewport, type FitPadding, type Size } from "../../../app/canvas/fit";
 
 const minimap = { width: 215, height: 165 };
 const controls = { width: 47, height: 105 };
@@ -47,5 +47,28 @@ describe("fitPadding", () => {
     const plain = { top: `${FIT_MARGIN}px`, right: `${FIT_MARGIN}px`, bottom: `${FIT_MARGIN}px`, left: `${FIT_MARGIN}px` };
     expect(fitPadding({ width: 900, height: 600 }, { width: 100, height: 100 }, { minimap: null, controls: null }, 1.2)).toEqual(plain);
     expect(fitPadding({ width: 150, height: 120 }, { width: 100, height: 100 }, { minimap, controls }, 1.2)).toEqual(plain);
+  });
+});
+
+describe("fitViewport (Fit view with a readable floor)", () => {
+  const pad: FitPadding = { top: "24px", right: "24px", bottom: "24px", left: "24px" };
+  it("centres a drawing that fits, at no more than the largest zoom", () => {
+    const small = fitViewport({ width: 1000, height: 600 }, { x: 0, y: 0, width: 476, height: 276 }, pad, 0.75, 1.2);
+    expect(small.zoom).toBe(1.2);
+    expect(small.x).toBeCloseTo(24 + (952 - 476 * 1.2) / 2, 6);
+    const v = fitViewport({ width: 1000, height: 600 }, { x: 0, y: 0, width: 1058, height: 300 }, pad, 0.75, 1.2);
+    expect(v.zoom).toBeCloseTo(952 / 1058, 9);
+  });
+  it("never goes below the floor: a large drawing shows from its top-left and the rest is panned to", () => {
+    const v = fitViewport({ width: 1000, height: 600 }, { x: 100, y: 50, width: 5000, height: 3000 }, pad, 0.75, 1.2);
+    expect(v.zoom).toBe(0.75);
+    expect(v.x).toBe(24 - 100 * 0.75);
+    expect(v.y).toBe(24 - 50 * 0.75);
+  });
+  it("a wide, flat drawing: top-left along x, centred along y", () => {
+    const v = fitViewport({ width: 1000, height: 600 }, { x: 0, y: 0, width: 5000, height: 100 }, pad, 0.75, 1.2);
+    expect(v.zoom).toBe(0.75);
+    expect(v.x).toBe(24);
+    expect(v.y).toBeCloseTo(24 + (552 - 75) / 2, 6);
   });
 });
