@@ -2,7 +2,7 @@
 import { useState } from "react";
 import { autoLayout } from "../layout";
 import { useEditor, useEditorStore } from "../store";
-import { toolButton as btn } from "./toolbar";
+import { toolButton as btn } from "./tool-button";
 
 export function EditTools({ readOnly }: { readOnly: boolean }) {
   const store = useEditorStore();

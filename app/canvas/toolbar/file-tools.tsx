@@ -1,12 +1,10 @@
 // Import and export of the design document; an import with problems opens a dialog listing them.
 import { useRef, useState } from "react";
-import type { Problem } from "../../engine";
 import { useDocument } from "../panels/common";
 import { useEditor, useEditorStore } from "../store";
-import { ImportProblemsDialog } from "./import-problems-dialog";
-import { toolButton as btn } from "./toolbar";
+import { ImportProblemsDialog, type ImportTrouble } from "./import-problems-dialog";
+import { toolButton as btn } from "./tool-button";
 
-export type ImportTrouble = { doc: unknown; problems: Problem[]; file: string };
 
 export function FileTools({ readOnly }: { readOnly: boolean }) {
   const store = useEditorStore();

@@ -1,8 +1,11 @@
 // The problems of a document that was imported, with the choice to open it anyway and fix them.
 import { useEffect, useRef } from "react";
 import { ProblemList } from "../panels/problem-list";
-import type { ImportTrouble } from "./file-tools";
-import { toolButton as btn } from "./toolbar";
+import type { Problem } from "../../engine";
+import { toolButton as btn } from "./tool-button";
+
+/** A document that could not be imported as it is: its parsed value (null when not JSON) and its problems. */
+export type ImportTrouble = { doc: unknown; problems: Problem[]; file: string };
 
 export function ImportProblemsDialog({ trouble, onClose, onOpenAnyway }: { trouble: ImportTrouble; onClose: () => void; onOpenAnyway?: () => void }) {
   const ref = useRef<HTMLDialogElement>(null);
