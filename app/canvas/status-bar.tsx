@@ -1,6 +1,7 @@
 // The line under the canvas: the live proof's result, whether this is a proven revision or a
 // draft, and the draft's save state.
 import { useMemo } from "react";
+import { COMMON_CAUSE_TEXT } from "../components/common-cause-note";
 import { contentKey } from "./convert";
 import type { DraftState } from "./hooks";
 import { useDocument } from "./panels/common";
@@ -10,6 +11,7 @@ export function StatusBar({ draft, readOnly }: { draft: DraftState; readOnly: bo
   const proof = useEditor((s) => s.proof);
   const revision = useEditor((s) => s.revision);
   const simulating = useEditor((s) => s.simulation !== null);
+  const setPanel = useEditor((s) => s.setPanel);
   const doc = useDocument();
   const key = useMemo(() => contentKey(doc), [doc]);
   const isRevision = revision.number > 0 && revision.key === key;
@@ -26,8 +28,8 @@ export function StatusBar({ draft, readOnly }: { draft: DraftState; readOnly: bo
     proofText = failing === 0 ? "Proven: every rule holds" : `${failing} of ${proof.verdict.rules.length} ${proof.verdict.rules.length === 1 ? "rule fails" : "rules fail"}`;
     tone = failing === 0 ? "text-moss-700" : "text-brick-700";
     proofText += ` · ${proof.verdict.rows.toLocaleString("en-US")} rows, ${proof.verdict.driveRows.toLocaleString("en-US")} with drive`;
-    if (proof.verdict.singleFaults.length) proofText += ` · ${proof.verdict.singleFaults.length} single ${proof.verdict.singleFaults.length === 1 ? "fault defeats" : "faults defeat"} a rule`;
   }
+  const faults = proof.status === "done" ? proof.verdict.singleFaults.length : 0;
   const draftText = readOnly
     ? ""
     : draft.kind === "saving"
@@ -44,6 +46,12 @@ export function StatusBar({ draft, readOnly }: { draft: DraftState; readOnly: bo
       <span className={`font-semibold ${tone}`} data-testid="proof-status">
         {proofText}
       </span>
+      {faults > 0 ? (
+        // A single-fault count, with the way to what it does and does not cover (the Problems panel).
+        <button type="button" className="text-copper-700 underline" title={COMMON_CAUSE_TEXT} onClick={() => setPanel("problems")}>
+          {faults} single {faults === 1 ? "fault defeats" : "faults defeat"} a rule
+        </button>
+      ) : null}
       <span className={`font-semibold ${isRevision ? "text-moss-700" : "text-ink-600"}`} data-testid="revision-status">
         {isRevision ? `Revision ${revision.number}, proven` : `Draft, not proven${revision.number > 0 ? ` (based on revision ${revision.number})` : ""}`}
       </span>

@@ -122,7 +122,7 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
           >
             {latest ? (
               <>
-                <p className="text-sm text-ink-600">
+                <p className="text-sm text-ink-600 [overflow-wrap:anywhere]">
                   Saved by {latest.authorName}, <When iso={latest.createdAt} />
                   {latest.message ? <> — “{latest.message}”</> : null}
                 </p>
@@ -210,7 +210,7 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
                       <td className="px-5 py-2 font-semibold">{h.number}</td>
                       <td className="px-3 py-2">{h.authorName}</td>
                       <td className="whitespace-nowrap px-3 py-2"><When iso={h.createdAt} /></td>
-                      <td className="min-w-48 px-3 py-2 text-ink-700">{h.message || <span className="text-ink-400">—</span>}</td>
+                      <td className="min-w-48 px-3 py-2 text-ink-700 [overflow-wrap:anywhere]">{h.message || <span className="text-ink-400">—</span>}</td>
                       <td className="px-3 py-2"><HashPrefix hash={h.contentHash} /></td>
                       <td className="whitespace-nowrap px-3 py-2">
                         <Link to={reviewPath(slug, design.id, h.number)} aria-label={`Review of revision ${h.number}`}>

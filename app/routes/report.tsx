@@ -134,7 +134,7 @@ export default function Report({ loaderData }: Route.ComponentProps) {
             <dt className="text-ink-500">Design</dt>
             <dd>{d.design.name}</dd>
             <dt className="text-ink-500">Revision</dt>
-            <dd>
+            <dd className="[overflow-wrap:anywhere]">
               {d.revision.number}, saved by {d.revision.authorName} on {iso(d.revision.createdAt)}
               {d.revision.message ? ` — “${d.revision.message}”` : ""}
             </dd>

@@ -180,7 +180,7 @@ export default function Review({ loaderData }: Route.ComponentProps) {
       <div className="grid grid-cols-1 gap-5 lg:grid-cols-3">
         <div className="min-w-0 space-y-5 lg:col-span-2">
           {revision.message ? (
-            <p className="rounded-md border border-ink-200 bg-white px-4 py-3 text-sm">
+            <p className="rounded-md border border-ink-200 bg-white px-4 py-3 text-sm [overflow-wrap:anywhere]">
               <span className="text-ink-500">Revision message:</span> “{revision.message}”
             </p>
           ) : null}

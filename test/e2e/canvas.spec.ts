@@ -120,6 +120,8 @@ export async function buildInletDesign(page: Page) {
 }
 
 test("an engineer builds, proves and saves a design from an empty one; an unsafe save is refused", async ({ page }) => {
+  // Many steps by hand (three conditions, five parts, four wires, a rule, two saves): more than a minute on a busy machine.
+  test.setTimeout(150_000);
   await signIn(page, "engineer");
   const id = await newDesign(page, `Meadowline deck mower M-11 canvas ${Date.now()}`, { empty: true });
   await openEditor(page, id);
@@ -139,7 +141,8 @@ test("an engineer builds, proves and saves a design from an empty one; an unsafe
   // Saving the unsafe design is refused with its counterexample.
   await page.getByLabel("Revision message").fill("Key contact across the inlet switch");
   await page.getByRole("button", { name: "Save revision" }).click();
-  await expect(page.getByText("Revision refused")).toBeVisible();
+  // The server proves the design again before answering: on a busy machine that takes a while.
+  await expect(page.getByText("Revision refused")).toBeVisible({ timeout: 30_000 });
   await expect(page.getByText("Not proven: only a design whose every rule holds")).toBeVisible();
   await page.getByRole("button", { name: "Show this row on the canvas" }).first().click();
   await expect(page.getByTestId("sim-drive")).toContainText("Drive ON");
@@ -153,7 +156,7 @@ test("an engineer builds, proves and saves a design from an empty one; an unsafe
   await expect(status(page)).toContainText("Proven");
   await page.getByLabel("Revision message").fill("Inlet switch in series");
   await page.getByRole("button", { name: "Save revision" }).click();
-  await expect(page.getByText("Revision 1 saved")).toBeVisible();
+  await expect(page.getByText("Revision 1 saved")).toBeVisible({ timeout: 30_000 });
   await expect(page.getByTestId("revision-status")).toHaveText("Revision 1, proven");
   await expect(page.getByText("Draft saved")).toBeVisible();
 

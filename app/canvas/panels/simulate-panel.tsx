@@ -95,7 +95,7 @@ export function SimulatePanel() {
           data-violating={violatingHere || undefined}
         >
           Drive {simView?.drive ? "ON" : "OFF"}
-          {violatingHere ? <span className="ml-1">: it started on a throttle that was already applied</span> : null}
+          {violatingHere ? <span>: it started on a throttle that was already applied</span> : null}
           {simView?.latched !== undefined ? (
             <span className="ml-2 font-normal">· lockout latch {simView.latched ? "set" : "clear"}{simView.armed?.length ? ` (armed: ${simView.armed.join(", ")})` : ""}</span>
           ) : null}
@@ -181,8 +181,11 @@ function TraceSteps({ explanation, current, go }: { explanation: TraceExplanatio
                 {st.controllerChanges.length ? <span className="text-ink-500"> ({st.controllerChanges.join(", ")})</span> : null}
               </p>
               <p className="text-ink-600">
-                Latch {st.latched ? "set: drive held off until the throttle is released" : "clear"}
-                {st.armed.length ? ` · set by ${st.armed.map((l) => LOCKOUT_NAME[l]).join(", ")}` : ""}
+                {st.latched
+                  ? `Latch set${st.armed.length ? ` by the ${st.armed.map((l) => LOCKOUT_NAME[l]).join(" and the ")}` : ""}: drive held off until the throttle is released`
+                  : st.armed.length
+                    ? `Latch clear: the ${st.armed.map((l) => LOCKOUT_NAME[l]).join(" and the ")} armed here, but ${st.controller.powered ? "the throttle reads released" : "the controller has no power"}`
+                    : "Latch clear"}
               </p>
               {st.wouldArm.map((l) => (
                 <p key={l} className="text-copper-700">
