@@ -44,7 +44,8 @@ export function run(cmd: string, args: string[], env: Record<string, string> = {
   });
 }
 
-async function waitForHealth(url: string, child: ChildProcess, timeoutMs = 60_000) {
+async function waitForHealth(url: string, child: ChildProcess, timeoutMs = 180_000) {
+  // Generous: on a machine shared by several test runs the server can take minutes to come up.
   const until = Date.now() + timeoutMs;
   while (Date.now() < until) {
     if (child.exitCode !== null) throw new Error("the app exited during start-up");

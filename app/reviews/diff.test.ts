@@ -46,12 +46,25 @@ describe("structuralDiff", () => {
     b.rules = b.rules.filter((r) => r.id !== "brake");
     b.controller.lockouts = ["power-on"];
     const d = structuralDiff(a, b);
-    expect(d.components).toEqual({ added: [], removed: ["BKB"], changed: [{ id: "KEY", fields: ["label"] }] });
+    expect(d.components).toEqual({
+      added: [],
+      removed: ["BKB"],
+      changed: [{ id: "KEY", fields: ["label"], values: [{ field: "label", before: '"KEY"', after: '"Key, two pole"' }] }],
+    });
     expect(d.wires.added).toEqual(["BKA.2 — JP.j"]);
     expect(d.wires.removed).toContain("BKB.1 — JP.j");
     expect(d.rules.removed).toEqual(["brake"]);
     expect(d.controller).toEqual(["lockouts"]);
+    expect(d.controllerValues).toEqual([{ field: "lockouts", before: JSON.stringify(a.controller.lockouts), after: '["power-on"]' }]);
     expect(d.empty).toBe(false);
     expect(structuralDiff(a, structuredClone(a)).empty).toBe(true);
+  });
+
+  it("gives every changed field's value before and after, not just its name", () => {
+    const a = generatedDesign(8);
+    const b = structuredClone(a);
+    const key = b.components.find((c) => c.id === "KEY") as { closedIn: string[] };
+    key.closedIn = ["off", "on"];
+    expect(structuralDiff(a, b).components.changed).toEqual([{ id: "KEY", fields: ["closedIn"], values: [{ field: "closedIn", before: '["on"]', after: '["off","on"]' }] }]);
   });
 });

@@ -3,7 +3,9 @@
 // evaluated by the engine on both designs when their conditions are identical (same row numbering).
 import { csvChunks, decodeRow, evaluateRow, type CompiledDesign, type Design, type RowFilter } from "../engine";
 
-export type ItemChange = { id: string; fields: string[] };
+/** A changed field with its value before and after, as compact JSON (`["released"]`, `"Seat switch"`). */
+export type FieldChange = { field: string; before: string; after: string };
+export type ItemChange = { id: string; fields: string[]; values: FieldChange[] };
 export type ListDiff = { added: string[]; removed: string[]; changed: ItemChange[] };
 
 export type StructuralDiff = {
@@ -13,6 +15,7 @@ export type StructuralDiff = {
   rules: ListDiff;
   /** Controller keys whose value changed (throttle, brakeCutsDrive, lockouts). */
   controller: string[];
+  controllerValues: FieldChange[];
   name: { before: string; after: string } | null;
   empty: boolean;
 };
@@ -29,6 +32,11 @@ function canonical(v: unknown): string {
   return JSON.stringify(v) ?? "null";
 }
 
+/** A value as people read it in a diff: compact JSON, "(none)" when absent. */
+function shown(v: unknown): string {
+  return v === undefined ? "(none)" : JSON.stringify(v);
+}
+
 function listDiff<T extends { id: string }>(before: readonly T[], after: readonly T[]): ListDiff {
   const a = new Map(before.map((x) => [x.id, x]));
   const b = new Map(after.map((x) => [x.id, x]));
@@ -38,7 +46,8 @@ function listDiff<T extends { id: string }>(before: readonly T[], after: readonl
     if (!y) continue;
     const keys = [...new Set([...Object.keys(x), ...Object.keys(y)])].sort();
     const fields = keys.filter((k) => canonical((x as Record<string, unknown>)[k]) !== canonical((y as Record<string, unknown>)[k]));
-    if (fields.length > 0) changed.push({ id, fields });
+    const values = fields.map((k) => ({ field: k, before: shown((y as Record<string, unknown>)[k]), after: shown((x as Record<string, unknown>)[k]) }));
+    if (fields.length > 0) changed.push({ id, fields, values });
   }
   return {
     added: [...b.keys()].filter((id) => !a.has(id)),
@@ -64,6 +73,7 @@ export function structuralDiff(before: Design, after: Design): StructuralDiff {
     conditions: listDiff(before.conditions, after.conditions),
     rules: listDiff(before.rules, after.rules),
     controller,
+    controllerValues: controller.map((k) => ({ field: k, before: shown(ca[k]), after: shown(cb[k]) })),
     name: before.name === after.name ? null : { before: before.name, after: after.name },
   };
   const lists = [d.components, d.conditions, d.rules];

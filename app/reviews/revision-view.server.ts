@@ -1,11 +1,11 @@
 // What the review page and the report show about one revision, computed from its stored document
 // and verdict with the engine: labels, replayed counterexamples, and the comparison with the last
 // approved revision of the same design.
-import { replayTrace, type CompiledDesign, type Design, type Verdict } from "~/engine";
+import { compareOutcomes, replayTrace, type CompiledDesign, type Design, type OutcomeComparison, type Verdict } from "~/engine";
 import { getRevision } from "~/designs/designs.server";
 import type { TraceStepView } from "~/components/truth-table/verdict-summary";
 import { compiledFor } from "./compiled.server";
-import { rowDiff, structuralDiff, type RowDiff, type StructuralDiff } from "./diff";
+import { structuralDiff, type StructuralDiff } from "./diff";
 import { lastApprovedBefore } from "./reviews.server";
 
 export function labelsOf(design: Design) {
@@ -37,7 +37,13 @@ export async function loadRevision(workspaceId: string, designId: string, number
 
 export type Comparison =
   | { baseline: null }
-  | { baseline: { number: number; approved: boolean }; structural: StructuralDiff; rows: RowDiff };
+  | {
+      baseline: { number: number; approved: boolean; chosen: boolean };
+      structural: StructuralDiff;
+      /** Rows whose drive or rule outcome changed, as groups (engine's compareOutcomes). */
+      outcomes: OutcomeComparison;
+      verdict: { before: Verdict; after: Verdict };
+    };
 
 const comparisons = new Map<string, Comparison>();
 const MAX_COMPARISONS = 16;
@@ -46,21 +52,33 @@ const MAX_COMPARISONS = 16;
  * The diff against the newest approved revision numbered below this one or, when none is approved,
  * against the previous revision (what the last review asked to change). Cached: revisions never change.
  */
-export async function compareWithLastApproved(workspaceId: string, designId: string, number: number, current: CompiledDesign): Promise<Comparison> {
-  const approved = await lastApprovedBefore(workspaceId, designId, number);
-  const previous = approved ? null : number > 1 ? await getRevision(workspaceId, designId, number - 1) : null;
-  const base = approved ?? (previous ? { id: previous.id, number: previous.number } : null);
+export async function compareWithLastApproved(
+  workspaceId: string,
+  designId: string,
+  number: number,
+  current: CompiledDesign,
+  currentVerdict: Verdict,
+  against?: number | null,
+): Promise<Comparison> {
+  const chosen = against && against !== number ? await getRevision(workspaceId, designId, against) : null;
+  const approved = chosen ? null : await lastApprovedBefore(workspaceId, designId, number);
+  const previous = chosen || approved ? null : number > 1 ? await getRevision(workspaceId, designId, number - 1) : null;
+  const base = chosen ? { id: chosen.id, number: chosen.number } : (approved ?? (previous ? { id: previous.id, number: previous.number } : null));
   if (!base) return { baseline: null };
-  const key = `${base.id}:${designId}:${number}`;
+  const key = `${base.id}:${designId}:${number}:${chosen ? "chosen" : "default"}`;
   const hit = comparisons.get(key);
   if (hit) return hit;
   const before = await loadRevision(workspaceId, designId, base.number);
   if (!before) return { baseline: null };
-  const result: Comparison = {
-    baseline: { number: base.number, approved: approved !== null },
-    structural: structuralDiff(before.design, current.design),
-    rows: rowDiff(before.compiled, current),
-  };
+  // Plain JSON: the engine's group states have no prototype.
+  const result: Comparison = JSON.parse(
+    JSON.stringify({
+      baseline: { number: base.number, approved: approved !== null, chosen: chosen !== null },
+      structural: structuralDiff(before.design, current.design),
+      outcomes: compareOutcomes(before.compiled, current, { limit: 12 }),
+      verdict: { before: before.verdict, after: currentVerdict },
+    } satisfies Comparison),
+  );
   comparisons.set(key, result);
   while (comparisons.size > MAX_COMPARISONS) comparisons.delete(comparisons.keys().next().value!);
   return result;

@@ -6,7 +6,11 @@ import type { Route } from "./+types/report";
 import { CAN } from "~/lib/roles";
 import { requireRevisionPage } from "~/reviews/access.server";
 import { getReview } from "~/reviews/reviews.server";
-import { labelsOf, loadRevision, tracesOf } from "~/reviews/revision-view.server";
+import { compareWithLastApproved, labelsOf, loadRevision, tracesOf } from "~/reviews/revision-view.server";
+import { readableSummary } from "~/reviews/readable.server";
+import { currentDispositions, dispositionHistory } from "~/reviews/dispositions.server";
+import { ReportChanges, ReportReading, type ReportDisposition } from "~/components/review/report-sections";
+import { env } from "~/env.server";
 import { tableColumns } from "~/reviews/truth-table.server";
 import { tableRow, type TableColumns, type TableRow } from "~/reviews/truth-table";
 import { describeBand, printBands } from "~/reviews/print-bands";
@@ -19,8 +23,10 @@ import { TruthTableGrid } from "~/components/truth-table/grid";
 import { WiringDiagram } from "~/components/truth-table/wiring-diagram";
 import { Logo } from "~/components/logo";
 
-/** Tables up to this many rows are printed in full; larger ones point to the CSV. */
-const INLINE_ROWS = 256;
+/** The full table is printed when it fits this many A4 pages (bands × pages of rows); else the CSV's URL. */
+const TABLE_PAGE_LIMIT = 24;
+/** Rows of the dense printed table on one A4 page (9 px type, 14 mm margins). */
+const ROWS_PER_PAGE = 80;
 const SIZES = { a4: "A4", letter: "Letter" } as const;
 type Size = keyof typeof SIZES;
 
@@ -33,6 +39,15 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const size: Size = sizeParam === "letter" ? "letter" : "a4";
   const c = loaded.compiled;
   const columns = tableColumns(c);
+  const tablePages = printBands(columns, c.rows).length * Math.ceil(c.rows / ROWS_PER_PAGE);
+  const [history, comparison] = await Promise.all([
+    dispositionHistory(member.workspace.id, ref.id, ref.contentHash),
+    compareWithLastApproved(member.workspace.id, design.id, ref.number, c, loaded.verdict),
+  ]);
+  const dispositions: Record<string, ReportDisposition> = {};
+  for (const [key, x] of currentDispositions(history)) {
+    dispositions[key] = { disposition: x.disposition, justification: x.justification, authorName: x.authorName, createdAt: x.createdAt.toISOString() };
+  }
   const wiring = loaded.design.wires.map((w) => ({ from: w.from, to: w.to, net: c.terminalNet[w.from] ?? -1 }));
   return {
     size,
@@ -62,7 +77,21 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     wiring,
     nets: c.nets,
     columns,
-    table: c.rows <= INLINE_ROWS ? pageRows(c, { from: 0, count: c.rows }).rows.map((v) => tableRow(columns, v)) : null,
+    table: tablePages <= TABLE_PAGE_LIMIT ? pageRows(c, { from: 0, count: c.rows }).rows.map((v) => tableRow(columns, v)) : null,
+    tablePages,
+    csvUrl: new URL(csvApiPath(design.id, ref.number), env.APP_URL).toString(),
+    readable: readableSummary(ref.id, c, loaded.verdict),
+    dispositions,
+    comparison,
+    comments: review.comments.map((x) => ({
+      id: x.id,
+      authorName: x.authorName,
+      body: x.body,
+      anchor: x.anchor,
+      rowIndex: x.rowIndex,
+      componentId: x.componentId,
+      createdAt: x.createdAt.toISOString(),
+    })),
     rows: c.rows,
     generatedAt: new Date().toISOString(),
   };
@@ -270,6 +299,26 @@ export default function Report({ loaderData }: Route.ComponentProps) {
           </div>
         </section>
 
+        <ReportReading readable={d.readable} dispositions={d.dispositions} />
+        <ReportChanges comparison={d.comparison} conditions={d.readable.conditions} number={d.revision.number} />
+        <section aria-label="Review comments" data-testid="report-comments">
+          <h2 className={h2}>Review comments</h2>
+          {d.comments.length === 0 ? <p className="mt-2">No comments.</p> : (
+            <ul className="mt-2 space-y-2">
+              {d.comments.map((x) => (
+                <li key={x.id} className="break-inside-avoid">
+                  <p className="text-xs text-ink-500">
+                    {x.authorName}, {iso(x.createdAt)}
+                    {x.anchor === "row" && x.rowIndex !== null ? ` · on row ${x.rowIndex}` : ""}
+                    {x.anchor === "component" && x.componentId ? ` · on component ${x.componentId}` : ""}
+                  </p>
+                  <p className="whitespace-pre-wrap">{x.body}</p>
+                </li>
+              ))}
+            </ul>
+          )}
+        </section>
+
         <section aria-label="Truth table">
           <h2 className={h2}>Truth table</h2>
           <p className="mt-2">
@@ -283,10 +332,12 @@ export default function Report({ loaderData }: Route.ComponentProps) {
             <TruthTableBands columns={d.columns} rows={d.table} />
           ) : (
             <p className="mt-2">
-              The full table is too long to print ({d.rows.toLocaleString("en-US")} rows, more than {INLINE_ROWS}). Download it as CSV:{" "}
-              <a href={csvApiPath(d.design.id, d.revision.number)} className="break-all text-copper-700 underline">
-                {csvApiPath(d.design.id, d.revision.number)}
-              </a>
+              The full table is not printed: it would take about {d.tablePages.toLocaleString("en-US")} pages, more than {TABLE_PAGE_LIMIT}. The groups above
+              describe every row; the whole table is the CSV at{" "}
+              <a href={d.csvUrl} className="break-all text-copper-700 underline" data-testid="report-csv-url">
+                {d.csvUrl}
+              </a>{" "}
+              (members of the workspace, signed in).
             </p>
           )}
         </section>

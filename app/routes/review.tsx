@@ -12,19 +12,22 @@ import { VERDICT_LABELS } from "~/reviews/status";
 import { reportPath, reviewPath, truthTablePath } from "~/reviews/paths";
 import { designPath, editorPath } from "~/designs/paths";
 import { HashPrefix, Section, When } from "~/designs/design-bits";
-import type { Comparison } from "~/reviews/revision-view.server";
 import { PageHeader } from "~/components/page-header";
 import { SafetyNote } from "~/components/safety-note";
 import { Button, buttonClass, Notice, SelectField, TextArea, TextField } from "~/components/ui/form";
 import { VerdictSummary } from "~/components/truth-table/verdict-summary";
 import { ReviewStatusBadge } from "~/components/truth-table/review-status";
-import type { ListDiff } from "~/reviews/diff";
 import { readableSummary } from "~/reviews/readable.server";
 import { currentDispositions, dispositionHistory, recordDisposition } from "~/reviews/dispositions.server";
 import { dispositionSchema } from "~/reviews/dispositions";
 import { ReadableSummary, type DispositionView } from "~/components/review/readable-summary";
+import { ChangesView } from "~/components/review/changes-view";
 
 const has = (roles: readonly Role[], role: Role) => roles.includes(role);
+const compareParam = (request: Request) => {
+  const raw = new URL(request.url).searchParams.get("compare");
+  return raw && /^[1-9][0-9]{0,8}$/.test(raw) ? Number(raw) : null;
+};
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const { member, design, ref } = await requireRevisionPage(request, params, CAN.view);
@@ -33,7 +36,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   if (!loaded || !review) throw new Response("Not found", { status: 404 });
   const [reviewers, comparison, statuses, history] = await Promise.all([
     listReviewers(member.workspace.id),
-    compareWithLastApproved(member.workspace.id, design.id, ref.number, loaded.compiled),
+    compareWithLastApproved(member.workspace.id, design.id, ref.number, loaded.compiled, loaded.verdict, compareParam(request)),
     reviewStatusOf(member.workspace.id, [design.id]),
     dispositionHistory(member.workspace.id, ref.id, ref.contentHash),
   ]);
@@ -42,6 +45,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     dispositions[key] = { component: d.component, mode: d.mode, disposition: d.disposition, justification: d.justification, authorName: d.authorName, createdAt: d.createdAt.toISOString() };
   }
   const latestNumber = statuses.get(design.id)?.latest?.number ?? ref.number;
+  const otherNumbers = [...(statuses.get(design.id)?.byNumber.keys() ?? [])].filter((x) => x !== ref.number).sort((a, b) => b - a);
   const iso = (d: Date) => d.toISOString();
   return {
     slug: member.workspace.slug,
@@ -62,6 +66,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     traces: tracesOf(loaded.compiled, loaded.verdict),
     components: loaded.design.components.map((c) => ({ id: c.id, label: ("label" in c && c.label) || c.id, type: c.type })),
     comparison,
+    otherNumbers,
     readable: readableSummary(ref.id, loaded.compiled, loaded.verdict),
     dispositions,
     status: review.status,
@@ -196,7 +201,13 @@ export default function Review({ loaderData }: Route.ComponentProps) {
             <VerdictSummary verdict={verdict} ruleLabels={labels.rules} componentLabels={labels.components} traces={traces} />
           </Section>
           <Section title="Changes">
-            <ChangesView comparison={comparison} slug={slug} designId={design.id} number={revision.number} />
+            <ChangesView
+              comparison={comparison}
+              number={revision.number}
+              others={loaderData.otherNumbers}
+              conditions={loaderData.readable.conditions}
+              table={truthTablePath(slug, design.id, revision.number)}
+            />
           </Section>
           <Section title={`Comments (${comments.length})`}>
             <CommentsView comments={comments} slug={slug} designId={design.id} number={revision.number} labels={labels.components} />
@@ -235,130 +246,6 @@ export default function Review({ loaderData }: Route.ComponentProps) {
         </div>
       </div>
     </>
-  );
-}
-
-function ListChanges({ title, diff, labels }: { title: string; diff: ListDiff; labels?: Record<string, string> }) {
-  const n = diff.added.length + diff.removed.length + diff.changed.length;
-  if (n === 0) return null;
-  const name = (id: string) => (labels?.[id] && labels[id] !== id ? `${labels[id]} (${id})` : id);
-  return (
-    <div>
-      <h3 className="font-semibold">{title}</h3>
-      <ul className="mt-1 space-y-0.5">
-        {diff.added.map((id) => (
-          <li key={`a${id}`}>
-            <span className="font-mono text-moss-700">+ added</span> {name(id)}
-          </li>
-        ))}
-        {diff.removed.map((id) => (
-          <li key={`r${id}`}>
-            <span className="font-mono text-brick-700">− removed</span> {name(id)}
-          </li>
-        ))}
-        {diff.changed.map((c) => (
-          <li key={`c${c.id}`}>
-            <span className="font-mono text-copper-700">~ changed</span> {name(c.id)}: {c.fields.join(", ")}
-          </li>
-        ))}
-      </ul>
-    </div>
-  );
-}
-
-function ChangesView({ comparison, slug, designId, number }: { comparison: Comparison; slug: string; designId: string; number: number }) {
-  if (comparison.baseline === null) {
-    return <p className="text-sm text-ink-600">This is the design's first revision, so there is nothing to compare with: review the whole design.</p>;
-  }
-  const { structural: s, rows } = comparison;
-  return (
-    <div className="space-y-4 text-sm" data-testid="review-diff">
-      <p>
-        Compared with revision {comparison.baseline.number},{" "}
-        {comparison.baseline.approved ? "the last approved one." : "the previous one (no earlier revision is approved)."}
-        {s.empty ? " The structure is the same." : ""}
-      </p>
-      {s.name ? (
-        <p>
-          Renamed from “{s.name.before}” to “{s.name.after}”.
-        </p>
-      ) : null}
-      <ListChanges title="Components" diff={s.components} />
-      {s.wires.added.length + s.wires.removed.length > 0 ? (
-        <div>
-          <h3 className="font-semibold">Wires</h3>
-          <ul className="mt-1 space-y-0.5 font-mono text-xs">
-            {s.wires.added.map((w) => (
-              <li key={`a${w}`}>
-                <span className="text-moss-700">+ added</span> {w}
-              </li>
-            ))}
-            {s.wires.removed.map((w) => (
-              <li key={`r${w}`}>
-                <span className="text-brick-700">− removed</span> {w}
-              </li>
-            ))}
-          </ul>
-        </div>
-      ) : null}
-      <ListChanges title="Conditions" diff={s.conditions} />
-      <ListChanges title="Rules" diff={s.rules} />
-      {s.controller.length > 0 ? <p>Controller settings changed: {s.controller.join(", ")}.</p> : null}
-      <div>
-        <h3 className="font-semibold">Truth-table rows</h3>
-        {!rows.comparable ? (
-          <p className="mt-1 text-ink-700">{rows.reason}</p>
-        ) : rows.changedRows === 0 ? (
-          <p className="mt-1 text-moss-700">No row changed its drive or the rules it violates ({rows.rows.toLocaleString("en-US")} rows compared).</p>
-        ) : (
-          <>
-            <p className="mt-1">
-              {rows.changedRows.toLocaleString("en-US")} of {rows.rows.toLocaleString("en-US")} rows changed their drive or violated rules
-              {rows.truncated ? `; the first ${rows.listed.length} are listed` : ""}.
-            </p>
-            <div className="mt-2 max-h-80 overflow-auto rounded border border-ink-200">
-              <table className="min-w-full text-left text-xs">
-                <thead className="sticky top-0 bg-ink-50 text-ink-600">
-                  <tr>
-                    <th scope="col" className="px-2 py-1">Row</th>
-                    <th scope="col" className="px-2 py-1">States</th>
-                    <th scope="col" className="px-2 py-1">Before (r{comparison.baseline.number})</th>
-                    <th scope="col" className="px-2 py-1">Now (r{number})</th>
-                  </tr>
-                </thead>
-                <tbody className="divide-y divide-ink-100">
-                  {rows.listed.map((r) => (
-                    <tr key={r.index}>
-                      <td className="px-2 py-1">
-                        <Link to={`${truthTableRowHref(slug, designId, number, r.index)}`} className="text-copper-700 underline">
-                          {r.index}
-                        </Link>
-                      </td>
-                      <td className="px-2 py-1 font-mono">
-                        {Object.entries(r.states)
-                          .map(([k, v]) => `${k}=${v}`)
-                          .join(" ")}
-                      </td>
-                      <td className="px-2 py-1">{outcomeText(r.before)}</td>
-                      <td className="px-2 py-1">{outcomeText(r.after)}</td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
-            </div>
-          </>
-        )}
-      </div>
-    </div>
-  );
-}
-
-function outcomeText(o: { drive: boolean; violated: string[] }) {
-  return (
-    <span>
-      {o.drive ? "▶ drive" : "■ no drive"}
-      {o.violated.length > 0 ? <span className="font-semibold text-brick-700"> · ✕ violates {o.violated.join(", ")}</span> : null}
-    </span>
   );
 }
 

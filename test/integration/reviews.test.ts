@@ -353,5 +353,23 @@ describe("review and sign-off", () => {
     expect(html).toMatch(/data-testid="report-status"[^>]*>Approved</);
     expect(html).toContain("Checked against the loom.");
     expect(html).toContain('data-testid="wiring-diagram"');
+    // Groups, rules with reasons, dispositions, comments; the 192-row table fits its page budget.
+    expect(html).toContain("What the table says, in groups");
+    expect(html).toContain("Rules with their reasons");
+    expect(html).toContain("Forced-guided contacts: cannot weld closed.");
+    expect(html).not.toContain("No disposition recorded.");
+    expect(html).toContain("Seat switch part number?");
+    expect(html).toContain('data-testid="truth-table"');
+    expect(html).not.toContain('data-testid="report-csv-url"');
+  });
+
+  it("compares any two revisions: every changed field before and after, and the verdict's differences", async () => {
+    const html = await pageText(reviewer, `${reviewUrl(id, 3)}?compare=2`);
+    expect(html).toContain("Compared with revision 2.");
+    expect(html).toContain("&quot;Seat switch, sealed&quot;</code> → <code");
+    expect(html).toContain("The verdict is the same.");
+    const report = await pageText(reviewer, `/w/${WS}/designs/${id}/revisions/2/report`);
+    expect(report).toContain("Changes since revision 1");
+    expect(report).toMatch(/Component SEAT, label: &quot;[^&]+&quot; → &quot;Seat switch, sealed&quot;/);
   });
 });

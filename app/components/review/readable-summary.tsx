@@ -258,7 +258,7 @@ function FaultBlock({
               <input type="hidden" name="intent" value="dispose" />
               <input type="hidden" name="component" value={fault.component} />
               <input type="hidden" name="mode" value={fault.mode} />
-              <SelectField label="Disposition" name="disposition" defaultValue={current?.disposition ?? ""} error={errors.disposition}>
+              <SelectField id={`disposition-${key}`} label="Disposition" name="disposition" defaultValue={current?.disposition ?? ""} error={errors.disposition}>
                 <option value="" disabled>
                   Choose…
                 </option>
@@ -268,7 +268,7 @@ function FaultBlock({
                   </option>
                 ))}
               </SelectField>
-              <TextArea label="Justification" name="justification" rows={2} required minLength={10} maxLength={2000} error={errors.justification ?? errors.component} hint={DISPOSITION_HINTS.accepted} />
+              <TextArea id={`justification-${key}`} label="Justification" name="justification" rows={2} required minLength={10} maxLength={2000} error={errors.justification ?? errors.component} hint={DISPOSITION_HINTS.accepted} />
               <Button type="submit" tone="secondary" disabled={busy}>
                 {busy ? "Saving…" : "Save"}
               </Button>
