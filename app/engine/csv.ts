@@ -7,8 +7,15 @@ import { lowestBit, popcount, WORD } from "./table";
 
 const CHUNK_CHARS = 1 << 16;
 
+/**
+ * One CSV field. A cell a spreadsheet would run as a formula (it begins with = + - @ tab or carriage
+ * return; OWASP "CSV Injection") gets a leading single quote and is quoted, so it opens as the text it
+ * is. The rule column's lone "-" stays: an operator alone is no formula.
+ */
 function csvField(s: string): string {
-  return /[",\r\n]/.test(s) || s.trim() !== s ? `"${s.replace(/"/g, '""')}"` : s;
+  const formula = /^[=+\-@\t\r]/.test(s) && s !== "-";
+  const text = formula ? `'${s}` : s;
+  return formula || /[",\r\n]/.test(text) || text.trim() !== text ? `"${text.replace(/"/g, '""')}"` : text;
 }
 
 /** The rules with a column, in design order: inhibit and require-drive rules (no-restart is about sequences). */
