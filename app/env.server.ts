@@ -26,8 +26,8 @@ const schema = z.object({
   SIGNIN_RATE_LIMIT: z.coerce.number().int().positive().default(5),
   // JSON API (/api/v1) requests per minute per API key, session, or client address when anonymous (docs/decisions/080).
   API_RATE_LIMIT: z.coerce.number().int().positive().default(6000),
-  // Trust X-Forwarded-For for the client address (only behind a proxy you run).
-  TRUST_PROXY: z.enum(["0", "1"]).default("0"),
+  // Proxies in front of the app whose X-Forwarded-* headers are believed (scripts/serve.ts; decision 103).
+  TRUST_PROXY: z.coerce.number().int().min(0).max(10).default(0),
 });
 
 const checked = schema

@@ -24,7 +24,13 @@ if (secretProblem) {
 const CLIENT_IP_HEADER = "x-chainproof-client-ip";
 const port = Number(process.env.PORT ?? 3000);
 const host = process.env.HOST ?? "127.0.0.1";
-const trustProxy = process.env.TRUST_PROXY === "1";
+// How many proxies in front of this server to believe (load balancer, TLS terminator): 0 by default.
+// Their X-Forwarded-For entries and X-Forwarded-Proto/Host are used; anything a client wrote before them is not.
+const proxyHops = Number(process.env.TRUST_PROXY ?? 0);
+if (!Number.isInteger(proxyHops) || proxyHops < 0 || proxyHops > 10) {
+  console.error(`chainproof: not starting: TRUST_PROXY is the number of proxies in front of this server (0 to 10), not "${process.env.TRUST_PROXY}".`);
+  process.exit(1);
+}
 const buildDir = path.resolve(process.argv[2] ?? "build");
 
 const processes = Math.max(1, Number(process.env.WEB_CONCURRENCY ?? os.availableParallelism()));
@@ -33,9 +39,9 @@ if (cluster.isPrimary && processes > 1) await runPrimary();
 else await runServer();
 
 async function runPrimary() {
-  const { answerRateLimit, apiRateCounter, RATE_LIMIT_TOPIC } = await import("../app/api/rate-limit.server");
   const { serveWorker } = await import("../app/lib/instances.server");
-  const answers = { [RATE_LIMIT_TOPIC]: answerRateLimit(apiRateCounter()) };
+  // Nothing is asked of the primary today (the API rate limit is counted in PostgreSQL); it relays what workers tell.
+  const answers = {};
   // Proof threads are shared out between the processes, so they do not outnumber the cores.
   const proofThreads = process.env.PROOF_THREADS ?? String(Math.max(1, Math.floor(os.availableParallelism() / processes)));
   let stopping = false;
@@ -101,11 +107,13 @@ async function runServer() {
 
   const app = express();
   app.disable("x-powered-by");
+  // Express then takes the client address the last trusted proxy added (counting from this server), and the
+  // scheme and host from X-Forwarded-Proto and X-Forwarded-Host, so behind TLS termination request.url is https.
+  if (proxyHops > 0) app.set("trust proxy", proxyHops);
   app.use(compression());
   app.use((req, res, next) => {
     // The client address is ours to set: a client-sent value is always replaced.
-    const forwarded = trustProxy ? String(req.headers["x-forwarded-for"] ?? "").split(",")[0]?.trim() : "";
-    req.headers[CLIENT_IP_HEADER] = forwarded || req.socket.remoteAddress || "unknown";
+    req.headers[CLIENT_IP_HEADER] = (proxyHops > 0 ? req.ip : req.socket.remoteAddress) || "unknown";
     // A response sent before the request body was read (too large, wrong type) closes the connection,
     // so a client never reuses a socket that still carries the rest of that body.
     const writeHead = res.writeHead;
@@ -118,6 +126,12 @@ async function runServer() {
     res.setHeader("X-Frame-Options", "DENY");
     res.setHeader("Permissions-Policy", "camera=(self), geolocation=()");
     next();
+  });
+  // No id, slug or token holds a NUL character (PostgreSQL text cannot): a path with %00 names nothing.
+  app.use((req, res, next) => {
+    if (!/%00/i.test(req.originalUrl.split("?")[0] ?? "")) return next();
+    if (req.path.startsWith("/api/")) res.status(404).json({ error: { code: "not_found", message: "Nothing is at this address.", fields: [] } });
+    else res.status(404).type("text/plain").send("Not found");
   });
   app.use("/assets", express.static(path.join(buildDir, "client/assets"), { immutable: true, maxAge: "1y" }));
   app.use(express.static(path.join(buildDir, "client"), { maxAge: "1h" }));

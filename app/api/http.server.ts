@@ -4,7 +4,7 @@
 import type { z } from "zod";
 import { databaseDownResponse, isDatabaseDown } from "~/db/unavailable.server";
 import { formatPath } from "~/engine";
-import { withRateLimit } from "~/api/rate-limit.server";
+import { withRateLimit } from "~/api/api-rate-limit.server";
 import type { ErrorAnswer } from "./answers";
 import type { Endpoint, ReplyAt, StatusOf } from "./endpoints";
 import type { FieldProblem } from "~/designs/types";
@@ -108,6 +108,18 @@ async function readLimited(request: Request, maxBytes: number, tooLarge: () => R
     if (done) break;
     total += value.byteLength;
     if (total > maxBytes) {
+      // Read on (and drop) what the client is still sending, up to a budget, so that it reads the 413
+      // instead of a reset; a client that sends more than that is cut off.
+      let seen = total;
+      try {
+        while (seen < 4 * maxBytes) {
+          const more = await reader.read();
+          if (more.done) break;
+          seen += more.value.byteLength;
+        }
+      } catch {
+        // The client went away.
+      }
       await reader.cancel().catch(() => {});
       throw tooLarge();
     }

@@ -1,12 +1,12 @@
-// Per-client request limit of the JSON API (/api/v1): fixed one-minute windows counted in memory,
-// in the primary process when the app runs as a cluster (docs/decisions/080, 090). Checked before
-// authentication, so a refused request costs no database lookup.
+// Per-client request limit of the JSON API (/api/v1): fixed one-minute windows counted in PostgreSQL
+// with rate-limiter-flexible, one count for every process and machine (docs/decisions/080, 104).
+// Checked before authentication, so a refused request costs one upsert and no session lookup.
 import { createHash } from "node:crypto";
 import { env } from "../env.server";
-import { askPrimary, inClusterWorker } from "../lib/instances.server";
+import { RateLimiterRes, type RateLimiterAbstract } from "rate-limiter-flexible";
 import { sessionCookieOf } from "../auth/session-cache.server";
 
-/** Set by our HTTP server from the socket (or X-Forwarded-For with TRUST_PROXY=1); decision 003. */
+/** Set by our HTTP server from the socket, or the address the last trusted proxy added (TRUST_PROXY hops); decisions 003, 103. */
 const CLIENT_IP_HEADER = "x-chainproof-client-ip";
 
 export type Hit = { ok: true; limit: number; remaining: number; resetSeconds: number } | { ok: false; limit: number; retryAfterSeconds: number };
@@ -110,7 +110,7 @@ export function admit(counter: FixedWindowCounter, who: Who): Hit {
   return counter.hit(who.key);
 }
 
-/** Where the counts live: this process, or (in a cluster) the primary, so every worker counts into one. */
+/** Where the counts live: this process (tests), or the shared store (countsInStore: PostgreSQL in production). */
 export type Counts = { admit(who: Who): Hit | Promise<Hit>; charge(address: string): void };
 
 export const countsHere = (counter: FixedWindowCounter): Counts => ({
@@ -118,23 +118,32 @@ export const countsHere = (counter: FixedWindowCounter): Counts => ({
   charge: (address) => counter.charge(address),
 });
 
-// Should the primary not answer (this process is stopping), the count goes on here.
-const countsInPrimary = (local: FixedWindowCounter): Counts => ({
-  admit: (who) => askPrimary<Hit>(RATE_LIMIT_TOPIC, { op: "admit", who }, () => admit(local, who)),
-  charge: (address) => void askPrimary(RATE_LIMIT_TOPIC, { op: "charge", address }, () => local.charge(address)),
-});
-
-/** The primary's side of countsInPrimary. */
-export function answerRateLimit(counter: FixedWindowCounter) {
-  return (payload: unknown): Hit | null => {
-    const p = payload as { op: "admit"; who: Who } | { op: "charge"; address: string };
-    if (p.op === "admit") return admit(counter, p.who);
-    counter.charge(p.address);
-    return null;
+/**
+ * The same rules over a rate-limiter-flexible store: fixed windows of `duration` seconds, `points`
+ * requests each. Behind a load balancer every instance counts into PostgreSQL, so a client gets the
+ * limit once, not once per machine (issue 11; decision 104).
+ */
+export function countsInStore(limiter: RateLimiterAbstract): Counts {
+  const refused = (msBeforeNext: number): Hit => ({ ok: false, limit: limiter.points, retryAfterSeconds: Math.max(1, Math.ceil(msBeforeNext / 1000)) });
+  return {
+    async admit(who) {
+      if (!who.anonymous) {
+        const address = await limiter.get(who.address);
+        if (address && address.consumedPoints >= limiter.points) return refused(address.msBeforeNext);
+      }
+      try {
+        const r = await limiter.consume(who.key);
+        return { ok: true, limit: limiter.points, remaining: r.remainingPoints, resetSeconds: Math.max(1, Math.ceil(r.msBeforeNext / 1000)) };
+      } catch (err) {
+        if (err instanceof RateLimiterRes) return refused(err.msBeforeNext);
+        throw err;
+      }
+    },
+    charge(address) {
+      limiter.penalty(address, 1).catch(() => {});
+    },
   };
 }
-
-export const RATE_LIMIT_TOPIC = "api-rate-limit";
 
 /** Runs API requests under the limit; every answer says how much of it is left. */
 export function createRateLimit(source: FixedWindowCounter | Counts) {
@@ -155,9 +164,3 @@ export function createRateLimit(source: FixedWindowCounter | Counts) {
     return response;
   };
 }
-
-/** A new counter of API_RATE_LIMIT requests a minute per client. */
-export const apiRateCounter = () => new FixedWindowCounter(env.API_RATE_LIMIT, 60_000);
-
-/** The limit every /api/v1 request goes through (handleApi): API_RATE_LIMIT a minute per client, for the whole cluster. */
-export const withRateLimit = createRateLimit(inClusterWorker ? countsInPrimary(apiRateCounter()) : apiRateCounter());

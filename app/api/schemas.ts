@@ -2,6 +2,7 @@
 // pagination. The routes validate with these and the OpenAPI document is generated from the same
 // schemas (the endpoint table, app/api/endpoints.ts), so the description cannot drift from what is checked.
 import { z } from "zod";
+import { storable } from "../lib/text";
 import { vehicleSchema } from "~/lib/forms";
 import { STEP_OUTCOMES } from "~/bench-runs/outcomes";
 
@@ -84,7 +85,7 @@ export const vehiclePatchBodySchema = z
 /** PUT /api/v1/bench-runs/:runId/steps/:n */
 export const stepResultBodySchema = z.object({
   status: z.enum(STEP_OUTCOMES, { message: `status is one of ${STEP_OUTCOMES.join(", ")}.` }),
-  note: z.string({ message: "note is text." }).max(2000, "Use at most 2000 characters.").optional(),
+  note: storable(z.string({ message: "note is text." }).max(2000, "Use at most 2000 characters.")).optional(),
 });
 
 const rowStatesSchema = z.record(z.string(), z.string({ message: "a state name is text" }), {

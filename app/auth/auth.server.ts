@@ -1,10 +1,26 @@
 // better-auth: e-mail and password, verification and reset by mail, sessions in PostgreSQL.
 import { betterAuth } from "better-auth";
+import { APIError } from "better-auth/api";
 import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { db, schema } from "~/db/client.server";
 import { env } from "~/env.server";
 import { composeMail, sendMail } from "~/mail/mailer.server";
 import { forgetSessions } from "./session-cache.server";
+import { userNameSchema } from "~/lib/forms";
+
+/**
+ * The sign-up form's limits on every way a user row is written, better-auth's own endpoints
+ * (/api/auth/sign-up/email, /api/auth/update-user) included: 400 naming the field, nothing saved.
+ */
+function checkUserFields(user: { name?: unknown; image?: unknown }) {
+  if (user.name !== undefined) {
+    const parsed = userNameSchema.safeParse(user.name);
+    if (!parsed.success) throw new APIError("BAD_REQUEST", { message: `name: ${parsed.error.issues[0]!.message}`, code: "INVALID_NAME" });
+  }
+  if (user.image !== undefined && user.image !== null && (typeof user.image !== "string" || user.image.length > 2000)) {
+    throw new APIError("BAD_REQUEST", { message: "image: Use a URL of at most 2000 characters.", code: "INVALID_IMAGE" });
+  }
+}
 
 /** Header our HTTP server sets from the socket (or a trusted proxy); never taken from the client. */
 export const CLIENT_IP_HEADER = "x-chainproof-client-ip";
@@ -58,7 +74,11 @@ export const auth = betterAuth({
   // session or changing any user drops them all, so sign-out and revocation take effect at once here.
   databaseHooks: {
     session: { delete: { after: async () => forgetSessions() }, update: { after: async () => forgetSessions() } },
-    user: { update: { after: async () => forgetSessions() }, delete: { after: async () => forgetSessions() } },
+    user: {
+      create: { before: async (user) => void checkUserFields(user) },
+      update: { before: async (user) => void checkUserFields(user), after: async () => forgetSessions() },
+      delete: { after: async () => forgetSessions() },
+    },
   },
   rateLimit: {
     enabled: true,

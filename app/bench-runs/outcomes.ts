@@ -1,5 +1,6 @@
 // Step outcomes and the forms of a bench run, shared by the run page (instant feedback) and its action.
 import { z } from "zod";
+import { storable } from "../lib/text";
 
 export const STEP_OUTCOMES = ["pass", "fail", "skip"] as const;
 export type StepOutcome = (typeof STEP_OUTCOMES)[number];
@@ -18,7 +19,7 @@ export const outcomeSchema = z.object({
 export const noteSchema = z.object({
   intent: z.literal("note"),
   step,
-  note: z.string().max(2000, "Use at most 2000 characters."),
+  note: storable(z.string().max(2000, "Use at most 2000 characters.")),
 });
 
 export const runFormSchema = z.discriminatedUnion("intent", [outcomeSchema, noteSchema, z.object({ intent: z.literal("complete") })], {

@@ -1,7 +1,7 @@
 // Schemas of the design pages and API bodies, shared by the browser (immediate feedback) and the
 // server (the authority).
 import { z } from "zod";
-import { storableText } from "~/lib/storable-json";
+import { textProblem } from "../lib/text";
 import { DESIGN_STATUSES, REVISION_MESSAGE_MAX } from "./types";
 
 /** How a new design starts: blank, or a copy of one of the demo designs. */
@@ -14,7 +14,10 @@ export const STARTS = [
 export type StartKey = (typeof STARTS)[number]["key"];
 const startKeys = STARTS.map((s) => s.key) as [StartKey, ...StartKey[]];
 
-const UNSTORABLE_MESSAGE = "Remove the NUL character or the broken surrogate pair.";
+// PostgreSQL text refuses the NUL character, an unpaired surrogate has no UTF-8 form, and direction
+// overrides disguise text (lib/text.ts).
+const storableText = (s: string) => textProblem(s) === null;
+const UNSTORABLE_MESSAGE = "Remove the NUL character, the broken surrogate pair or the text-direction override.";
 /** The largest number a PostgreSQL integer column (versions, revision numbers) holds. */
 const PG_INT_MAX = 2_147_483_647;
 

@@ -1,13 +1,14 @@
 // Form schemas of the review page, shared by the page and the action (the authority).
 import { z } from "zod";
+import { ID_MAX, storable } from "../lib/text";
 
 const comment = (what: string) =>
-  z.string().trim().min(1, `Write ${what}.`).max(4000, "Use at most 4000 characters.");
+  storable(z.string().trim().min(1, `Write ${what}.`).max(4000, "Use at most 4000 characters."));
 
 export const requestReviewSchema = z.object({
   intent: z.literal("request"),
-  reviewers: z.array(z.string().min(1)).min(1, "Choose at least one reviewer."),
-  note: z.string().trim().max(2000, "Use at most 2000 characters.").default(""),
+  reviewers: z.array(storable(z.string().min(1).max(ID_MAX, "Choose reviewers from the list."))).max(50, "Choose at most 50 reviewers.").min(1, "Choose at least one reviewer."),
+  note: storable(z.string().trim().max(2000, "Use at most 2000 characters.")).default(""),
 });
 
 export const commentSchema = z.discriminatedUnion("anchor", [
@@ -21,7 +22,7 @@ export const commentSchema = z.discriminatedUnion("anchor", [
   z.object({
     intent: z.literal("comment"),
     anchor: z.literal("component"),
-    component: z.string().trim().min(1, "Choose a component."),
+    component: storable(z.string().trim().min(1, "Choose a component.").max(ID_MAX, "Choose a component.")),
     body: comment("a comment"),
   }),
 ]);

@@ -5,6 +5,7 @@ import { requireMember } from "~/auth/guard.server";
 import { CAN, ROLES, ROLE_DUTIES, ROLE_LABELS } from "~/lib/roles";
 import { fieldErrors, formObject, inviteSchema, roleChangeSchema } from "~/lib/forms";
 import { useFormCheck } from "~/lib/use-form-check";
+import { ID_MAX, storable } from "~/lib/text";
 import { changeRole, inviteMember, listMembers, listOpenInvitations, removeMember, revokeInvitation } from "~/workspace/workspace.server";
 import { recentAudit } from "~/audit/audit.server";
 import { createApiKey, listApiKeys, revokeApiKey } from "~/auth/api-keys.server";
@@ -32,8 +33,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   };
 }
 
-const idSchema = z.object({ id: z.string().min(1, "Missing id.") });
-const keyNameSchema = z.object({ name: z.string().trim().min(1, "Name the key, e.g. after the script that uses it.").max(80, "Use at most 80 characters.") });
+const idSchema = z.object({ id: storable(z.string().min(1, "Missing id.").max(ID_MAX, "No such id.")) });
+const keyNameSchema = z.object({ name: storable(z.string().trim().min(1, "Name the key, e.g. after the script that uses it.").max(80, "Use at most 80 characters.")) });
 
 export async function action({ request, params }: Route.ActionArgs) {
   const form = await request.formData();
@@ -77,7 +78,8 @@ export async function action({ request, params }: Route.ActionArgs) {
     case "revoke": {
       const parsed = idSchema.safeParse(values);
       if (!parsed.success) return data({ intent: "revoke", ok: false, fields: fieldErrors(parsed.error), message: null, newKey: null }, { status: 400 });
-      await revokeInvitation(m.workspace.id, m.user.id, parsed.data.id);
+      if (!(await revokeInvitation(m.workspace.id, m.user.id, parsed.data.id)))
+        return data({ intent: "revoke", ok: false, fields: {}, message: "No such open invitation in this workspace.", newKey: null }, { status: 404 });
       return { intent: "revoke", ok: true, fields: {}, message: "Invitation withdrawn.", newKey: null };
     }
     default:
