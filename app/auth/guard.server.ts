@@ -47,9 +47,13 @@ export function getSignedIn(request: Request): Promise<SignedIn | null> {
 
 const signedInOf = new WeakMap<Request, Promise<SignedIn | null>>();
 
+/** Personal API keys open the JSON API only: never a page, a form action, a file or the report PDF. */
+export const API_KEY_PATH_PREFIX = "/api/v1/";
+
 async function lookUpSignedIn(request: Request): Promise<SignedIn | null> {
   const authorization = request.headers.get("authorization");
-  if (authorization?.toLowerCase().startsWith("bearer ")) {
+  // Elsewhere the header is ignored, so a leaked key cannot make another key or a workspace (issue 11).
+  if (authorization?.toLowerCase().startsWith("bearer ") && new URL(request.url).pathname.startsWith(API_KEY_PATH_PREFIX)) {
     const key = await resolveApiKey(authorization.slice(7).trim());
     if (!key) return null;
     return { user: { id: key.userId, email: key.email, name: key.name }, sessionId: `key:${key.id}`, apiKeyWorkspaceId: key.workspaceId };

@@ -2,16 +2,23 @@
 import type { Route } from "./+types/report-pdf";
 import { CAN } from "~/lib/roles";
 import { requireRevisionPage } from "~/reviews/access.server";
-import { printPdf } from "~/reviews/pdf.server";
+import { printPdf, PrintBusyError } from "~/reviews/pdf.server";
 import { reportPath } from "~/reviews/paths";
+import { create as contentDisposition } from "content-disposition";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const { member, design, ref } = await requireRevisionPage(request, params, CAN.view);
   const size = new URL(request.url).searchParams.get("size") === "letter" ? "letter" : "a4";
   let pdf: Buffer;
   try {
-    pdf = await printPdf(reportPath(member.workspace.slug, design.id, ref.number, size), request.headers.get("cookie") ?? "", size === "letter" ? "Letter" : "A4");
+    pdf = await printPdf(reportPath(member.workspace.slug, design.id, ref.number, size), request.headers.get("cookie") ?? "", size === "letter" ? "Letter" : "A4", {
+      userId: member.user.id,
+      signal: request.signal,
+    });
   } catch (e) {
+    if (e instanceof PrintBusyError) throw new Response(e.message, { status: 429, headers: { "retry-after": "5" } });
+    // The requester has gone: nobody reads the answer.
+    if (request.signal.aborted) throw new Response("The request was cancelled.", { status: 499 });
     console.error("report PDF:", e);
     throw new Response("The PDF could not be made just now. Print the report page from the browser instead, or try again.", { status: 503 });
   }
@@ -19,7 +26,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   return new Response(new Uint8Array(pdf), {
     headers: {
       "content-type": "application/pdf",
-      "content-disposition": `attachment; filename="${base}-r${ref.number}-report-${size}.pdf"`,
+      "content-disposition": contentDisposition(`${base}-r${ref.number}-report-${size}.pdf`),
       "cache-control": "private, no-store",
     },
   });

@@ -5,6 +5,7 @@ import { fileTypeFromBuffer } from "file-type";
 import { db, schema } from "~/db/client.server";
 import { recordAudit } from "~/audit/audit.server";
 import { deleteObject, getObject, putObject } from "./storage.server";
+import { create as contentDisposition } from "content-disposition";
 
 export const MAX_UPLOAD_BYTES = 20 * 1024 * 1024;
 export const ACCEPTED_TYPES: Record<string, string> = {
@@ -155,7 +156,8 @@ export async function uploadResponse(workspaceId: string, uploadId: string): Pro
     headers: {
       "content-type": row.contentType,
       "content-length": String(row.size),
-      "content-disposition": `${inline ? "inline" : "attachment"}; filename="${row.filename}"`,
+      // RFC 6266: an ASCII filename for old clients and filename* (UTF-8) for the name as uploaded.
+      "content-disposition": contentDisposition(row.filename, { type: inline ? "inline" : "attachment" }),
       "cache-control": "private, max-age=3600",
       "x-content-sha256": row.sha256,
       "content-security-policy": "default-src 'none'; img-src 'self'; style-src 'unsafe-inline'; sandbox",

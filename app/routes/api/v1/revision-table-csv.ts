@@ -5,6 +5,7 @@ import { CAN } from "~/lib/roles";
 import { handleApi, requireMethod } from "~/api/http.server";
 import { requireRevisionApi } from "~/reviews/access.server";
 import { csvStream, requestFilter } from "~/reviews/truth-table.server";
+import { create as contentDisposition } from "content-disposition";
 
 /** A file name of safe characters: "haybarn-campus-hauler-3-r2-unsafe.csv". */
 function fileName(designName: string, number: number, params: URLSearchParams): string {
@@ -22,7 +23,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     return new Response(csvStream(compiled, filter), {
       headers: {
         "content-type": "text/csv; charset=utf-8",
-        "content-disposition": `attachment; filename="${fileName(design.name, ref.number, search)}"`,
+        "content-disposition": contentDisposition(fileName(design.name, ref.number, search)),
         "cache-control": "private, no-store",
         "x-content-type-options": "nosniff",
       },
