@@ -83,7 +83,7 @@ async function withStack() {
     authSecret: randomBytes(48).toString("base64url"),
     // Tests stand in for many clients: each sends its own X-Forwarded-For, so rate limits apply per test.
     // A lower API limit than the default keeps the test that reaches it short.
-    extraEnv: { TRUST_PROXY: "1", NODE_ENV: "production", API_RATE_LIMIT: "3000" },
+    extraEnv: { TRUST_PROXY: "1", NODE_ENV: "production", API_RATE_LIMIT: "600" },
   });
 
   try {

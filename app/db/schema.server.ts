@@ -10,3 +10,4 @@ export * from "./schema/release.server";
 export * from "./schema/bench-run.server";
 export * from "./schema/review.server";
 export * from "./schema/controller-record.server";
+export * from "./schema/rate-limit.server";

@@ -14,7 +14,24 @@ export function slugify(name: string): string {
   return base || "workspace";
 }
 
+/** PostgreSQL's unique_violation: another request took the slug first. */
+const isUniqueViolation = (err: unknown) => (err as { code?: string; cause?: { code?: string } })?.code === "23505" || (err as { cause?: { code?: string } })?.cause?.code === "23505";
+
+/**
+ * A new workspace with its owner as admin. Workspaces of one name made at the same moment race for
+ * the same slug: the loser tries again with the next free one (issue 11), a few times at most.
+ */
 export async function createWorkspace(name: string, ownerId: string) {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await insertWorkspace(name, ownerId);
+    } catch (err) {
+      if (!isUniqueViolation(err) || attempt >= 8) throw err;
+    }
+  }
+}
+
+async function insertWorkspace(name: string, ownerId: string) {
   return db.transaction(async (tx) => {
     const base = slugify(name);
     const taken = await tx
@@ -102,6 +119,8 @@ export async function findInvitation(token: string) {
 
 export async function acceptInvitation(token: string, user: { id: string; email: string }) {
   return db.transaction(async (tx) => {
+    const peek = await tx.select({ workspaceId: schema.invitation.workspaceId }).from(schema.invitation).where(eq(schema.invitation.tokenHash, hashToken(token))).limit(1);
+    if (peek[0]) await lockWorkspace(tx, peek[0].workspaceId);
     const found = await tx
       .select()
       .from(schema.invitation)
@@ -112,6 +131,13 @@ export async function acceptInvitation(token: string, user: { id: string; email:
     if (!inv || inv.acceptedAt || inv.revokedAt || inv.expiresAt < new Date()) return { ok: false as const, reason: "This invitation is no longer valid." };
     if (inv.email.toLowerCase() !== user.email.toLowerCase())
       return { ok: false as const, reason: `This invitation is for ${inv.email}. Sign in with that address to accept it.` };
+    // Accepting a lesser role as the workspace's only admin would leave it without one.
+    const current = await tx
+      .select({ role: schema.member.role })
+      .from(schema.member)
+      .where(and(eq(schema.member.workspaceId, inv.workspaceId), eq(schema.member.userId, user.id)));
+    if (current[0]?.role === "admin" && inv.role !== "admin" && (await adminCount(tx, inv.workspaceId)) <= 1)
+      return { ok: false as const, reason: "You are this workspace's only admin: make someone else admin before taking another role." };
     await tx
       .insert(schema.member)
       .values({ id: crypto.randomUUID(), workspaceId: inv.workspaceId, userId: user.id, role: inv.role })
@@ -122,18 +148,29 @@ export async function acceptInvitation(token: string, user: { id: string; email:
   });
 }
 
-export async function revokeInvitation(workspaceId: string, actorId: string, invitationId: string) {
-  await db.transaction(async (tx) => {
+/** Withdraws an open invitation of this workspace; false when there is none by that id (another workspace's, say). */
+export async function revokeInvitation(workspaceId: string, actorId: string, invitationId: string): Promise<boolean> {
+  return db.transaction(async (tx) => {
     const r = await tx
       .update(schema.invitation)
       .set({ revokedAt: new Date() })
-      .where(and(eq(schema.invitation.id, invitationId), eq(schema.invitation.workspaceId, workspaceId)))
+      .where(and(eq(schema.invitation.id, invitationId), eq(schema.invitation.workspaceId, workspaceId), isNull(schema.invitation.acceptedAt), isNull(schema.invitation.revokedAt)))
       .returning({ email: schema.invitation.email });
     if (r[0]) await recordAudit({ workspaceId, actorId, action: "member.invitation-revoked", subject: r[0].email }, tx);
+    return r.length > 0;
   });
 }
 
 type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
+
+/**
+ * Every change of who belongs to a workspace, or with which role, first locks the workspace's row, so
+ * such changes run one after another: two admins demoting each other at once neither deadlock nor both
+ * succeed, and the admin count each one reads is the one the other left.
+ */
+async function lockWorkspace(tx: Tx, workspaceId: string): Promise<void> {
+  await tx.select({ id: schema.workspace.id }).from(schema.workspace).where(eq(schema.workspace.id, workspaceId)).for("no key update");
+}
 
 async function adminCount(tx: Tx, workspaceId: string): Promise<number> {
   const rows = await tx
@@ -146,7 +183,7 @@ async function adminCount(tx: Tx, workspaceId: string): Promise<number> {
 /** The member (with e-mail and role), locked for the rest of the transaction. */
 async function lockMember(tx: Tx, workspaceId: string, memberId: string) {
   const rows = await tx
-    .select({ id: schema.member.id, role: schema.member.role, email: schema.user.email })
+    .select({ id: schema.member.id, userId: schema.member.userId, role: schema.member.role, email: schema.user.email })
     .from(schema.member)
     .innerJoin(schema.user, eq(schema.member.userId, schema.user.id))
     .where(and(eq(schema.member.id, memberId), eq(schema.member.workspaceId, workspaceId)))
@@ -157,6 +194,7 @@ async function lockMember(tx: Tx, workspaceId: string, memberId: string) {
 /** Changes a member's role; refuses to leave the workspace without an admin. */
 export async function changeRole(workspaceId: string, actorId: string, memberId: string, role: Role) {
   return db.transaction(async (tx) => {
+    await lockWorkspace(tx, workspaceId);
     const target = await lockMember(tx, workspaceId, memberId);
     if (!target) return { ok: false as const, message: "No such member." };
     if (target.role === "admin" && role !== "admin") {
@@ -170,12 +208,18 @@ export async function changeRole(workspaceId: string, actorId: string, memberId:
 
 export async function removeMember(workspaceId: string, actorId: string, memberId: string) {
   return db.transaction(async (tx) => {
+    await lockWorkspace(tx, workspaceId);
     const target = await lockMember(tx, workspaceId, memberId);
     if (!target) return { ok: false as const, message: "No such member." };
     if (target.role === "admin") {
       if ((await adminCount(tx, workspaceId)) <= 1) return { ok: false as const, message: "A workspace needs at least one admin." };
     }
     await tx.delete(schema.member).where(eq(schema.member.id, memberId));
+    // Their API keys for this workspace end with the membership, so a later invitation does not revive them.
+    await tx
+      .update(schema.apiKey)
+      .set({ revokedAt: new Date() })
+      .where(and(eq(schema.apiKey.workspaceId, workspaceId), eq(schema.apiKey.userId, target.userId), isNull(schema.apiKey.revokedAt)));
     await recordAudit({ workspaceId, actorId, action: "member.removed", subject: target.email }, tx);
     return { ok: true as const };
   });

@@ -11,7 +11,7 @@ import { apiError, handleApi, readJsonBody, reply, requireMethod, zodFields } fr
 import { api } from "~/api/endpoints";
 import { storableJsonProblem } from "~/lib/storable-json";
 import { listRevisions, requireDesign, saveRevision } from "~/designs/designs.server";
-import { proveOffThread } from "~/proofs/pool.server";
+import { proofLimitAnswer, proveOffThread } from "~/proofs/pool.server";
 import { revisionRefusal } from "~/designs/proof";
 import { jsonObjectSchema, saveRevisionBodySchema } from "~/designs/forms";
 import { DESIGN_BODY_MAX_BYTES } from "~/designs/types";
@@ -54,7 +54,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     // Before the engine: text jsonb cannot store (NUL, broken surrogates) and nesting too deep to walk.
     const unstorable = storableJsonProblem(document, "");
     if (unstorable) return apiError(400, "invalid_design", "The design holds something that cannot be stored; nothing was saved.", [unstorable]);
-    const proof = await proveOffThread(document);
+    const proof = await proveOffThread(document, { userId: member.user.id }).catch(proofLimitAnswer);
     if (!proof.ok) {
       const n = proof.problems.length;
       return apiError(400, "invalid_design", `The design breaks the format in ${n} ${n === 1 ? "place" : "places"}; nothing was saved.`, proof.problems);

@@ -6,7 +6,7 @@ import { CAN } from "~/lib/roles";
 import { apiError, handleApi, methodNotAllowed, readJsonBody, reply, requireMethod, zodFields } from "~/api/http.server";
 import { api } from "~/api/endpoints";
 import { storableJsonProblem } from "~/lib/storable-json";
-import { proveOffThread } from "~/proofs/pool.server";
+import { proofLimitAnswer, proveOffThread } from "~/proofs/pool.server";
 import { jsonObjectSchema, proofBodySchema } from "~/designs/forms";
 import { DESIGN_BODY_MAX_BYTES } from "~/designs/types";
 
@@ -19,14 +19,14 @@ export async function action({ request }: Route.ActionArgs) {
     requireMethod(request, "POST");
     const slug = new URL(request.url).searchParams.get("workspace");
     if (!slug) return apiError(400, "invalid_query", "Name the workspace: ?workspace=SLUG.", [{ path: "workspace", message: "required" }]);
-    await requireMember(request, slug, CAN.view, "api");
+    const member = await requireMember(request, slug, CAN.view, "api");
     const raw = jsonObjectSchema.safeParse(await readJsonBody(request, DESIGN_BODY_MAX_BYTES));
     if (!raw.success) return apiError(400, "invalid_body", "The request body is a JSON object.", zodFields(raw.error));
     const body = proofBodySchema.safeParse(raw.data);
     if (!body.success) return apiError(400, "invalid_body", "Send { \"document\": ... }.", zodFields(body.error));
     const unstorable = storableJsonProblem(body.data.document, "");
     if (unstorable) return apiError(400, "invalid_design", "The design holds something the server does not read.", [unstorable]);
-    const proof = await proveOffThread(body.data.document);
+    const proof = await proveOffThread(body.data.document, { userId: member.user.id }).catch(proofLimitAnswer);
     if (!proof.ok) {
       const n = proof.problems.length;
       return apiError(400, "invalid_design", `The design breaks the format in ${n} ${n === 1 ? "place" : "places"}.`, proof.problems);
