@@ -72,7 +72,7 @@ const fail = <S extends z.ZodType = typeof A.errorSchema>(description: string, s
 
 /** Answers any endpoint can give. */
 const always = {
-  429: fail("Too many requests from this key, session or address; wait and retry (Retry-After)."),
+  429: fail("Too many requests from this key, session or address (rate_limited), or two proofs of yours still running (too_many_proofs); wait and retry (Retry-After)."),
   500: fail("Something unexpected; nothing was saved."),
   503: fail("The database cannot be reached; nothing was changed. Retry after Retry-After seconds."),
 };
@@ -270,7 +270,11 @@ export const api = {
     description: MEMBER,
     query: workspaceQuerySchema,
     body: proofBodySchema.extend({ document: A.designDocumentSchema }),
-    replies: { 200: ok("The verdict.", A.proofAnswer), ...writing },
+    replies: {
+      200: ok("The verdict.", A.proofAnswer),
+      422: fail("The proof took longer than the server's limit (PROOF_TIME_LIMIT_MS) and was stopped (proof_too_long)."),
+      ...writing,
+    },
   }),
   listVehicles: endpoint({
     method: "get",

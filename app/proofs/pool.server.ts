@@ -6,7 +6,7 @@ import path from "node:path";
 import { pathToFileURL } from "node:url";
 import { Piscina } from "piscina";
 import { proveDocument, type ProofOutcome } from "~/designs/proof";
-import { apiError } from "~/designs/api.server";
+import { apiError } from "~/api/http.server";
 
 const WORKER_FILE = path.resolve(process.cwd(), "app/proofs/prove.worker.ts");
 
