@@ -30,8 +30,10 @@ function getPool(): Piscina | null {
 
 /** A proof running longer than this is stopped (its worker thread ends) with a clear answer. */
 export const PROOF_TIME_LIMIT_MS = Math.max(1, Number(process.env.PROOF_TIME_LIMIT_MS ?? 20_000));
-/** Proofs one user may have running at once in this process (each holds a worker thread). */
+/** Proofs one user may have running at once in this process (each holds a worker thread); more wait their turn. */
 export const PROOFS_PER_USER = 2;
+/** Proofs of one user that may wait for a turn; one more is refused (429). */
+export const PROOFS_WAITING_PER_USER = 8;
 
 /** A proof refused (too many of the user's at once: 429) or stopped (over the time limit: 422). */
 export class ProofLimitError extends Error {
@@ -44,15 +46,33 @@ export class ProofLimitError extends Error {
   }
 }
 
-const runningPerUser = new Map<string, number>();
+/** Per user: how many proofs run, and who waits for a turn (first come, first served). */
+const perUser = new Map<string, { running: number; waiting: Array<() => void> }>();
+
+async function takeTurn(user: string): Promise<void> {
+  const slot = perUser.get(user) ?? { running: 0, waiting: [] };
+  perUser.set(user, slot);
+  if (slot.running < PROOFS_PER_USER) {
+    slot.running += 1;
+    return;
+  }
+  if (slot.waiting.length >= PROOFS_WAITING_PER_USER) {
+    throw new ProofLimitError(429, "too_many_proofs", `You have ${slot.running} proofs running and ${slot.waiting.length} waiting; wait for them to finish.`);
+  }
+  await new Promise<void>((resolve) => slot.waiting.push(resolve));
+}
+
+function giveTurn(user: string): void {
+  const slot = perUser.get(user);
+  if (!slot) return;
+  const next = slot.waiting.shift();
+  if (next) next(); // the turn passes on: running stays the same
+  else if (--slot.running <= 0) perUser.delete(user);
+}
 
 export async function proveOffThread(document: unknown, opts: { userId?: string } = {}): Promise<ProofOutcome> {
   const user = opts.userId;
-  if (user !== undefined) {
-    const running = runningPerUser.get(user) ?? 0;
-    if (running >= PROOFS_PER_USER) throw new ProofLimitError(429, "too_many_proofs", `You have ${running} proofs running; wait for one to finish.`);
-    runningPerUser.set(user, running + 1);
-  }
+  if (user !== undefined) await takeTurn(user);
   try {
     const p = getPool();
     if (!p) return proveDocument(document);
@@ -67,11 +87,7 @@ export async function proveOffThread(document: unknown, opts: { userId?: string 
       );
     }
   } finally {
-    if (user !== undefined) {
-      const left = (runningPerUser.get(user) ?? 1) - 1;
-      if (left > 0) runningPerUser.set(user, left);
-      else runningPerUser.delete(user);
-    }
+    if (user !== undefined) giveTurn(user);
   }
 }
 
