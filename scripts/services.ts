@@ -114,8 +114,15 @@ export async function startMailSink(opts: { port: number; databaseUrl: string; l
         .then(async (mail) => {
           const to = (session.envelope.rcptTo ?? []).map((r) => r.address).join(", ");
           await pool.query(
-            "INSERT INTO mail_message (id, sender, recipients, subject, text_body, html_body) VALUES (gen_random_uuid()::text, $1, $2, $3, $4, $5)",
-            [session.envelope.mailFrom ? session.envelope.mailFrom.address : "", to, mail.subject ?? "", mail.text ?? "", typeof mail.html === "string" ? mail.html : ""],
+            "INSERT INTO mail_message (id, sender, recipients, subject, text_body, html_body, attachments) VALUES (gen_random_uuid()::text, $1, $2, $3, $4, $5, $6)",
+            [
+              session.envelope.mailFrom ? session.envelope.mailFrom.address : "",
+              to,
+              mail.subject ?? "",
+              mail.text ?? "",
+              typeof mail.html === "string" ? mail.html : "",
+              mail.attachments.map((a) => `${a.filename ?? "unnamed"} (${a.contentType}, ${a.size} bytes)`).join("\n"),
+            ],
           );
           opts.log?.(`mail to ${to}: ${mail.subject ?? ""}`);
           callback();

@@ -359,7 +359,16 @@ export const reviewInboxAnswer = z.object({
 export type ReviewInbox = z.output<typeof reviewInboxAnswer>;
 
 export const outboxAnswer = z.object({
-  mail: z.array(z.object({ id: z.string(), recipients: z.string(), subject: z.string(), textBody: z.string(), receivedAt: isoTime })),
+  mail: z.array(
+    z.object({
+      id: z.string(),
+      recipients: z.string(),
+      subject: z.string(),
+      textBody: z.string(),
+      attachments: z.string().meta({ description: "Attachments as name (type, size), one per line." }),
+      receivedAt: isoTime,
+    }),
+  ),
 });
 export type OutboxAnswer = z.output<typeof outboxAnswer>;
 

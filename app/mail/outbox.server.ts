@@ -8,6 +8,7 @@ export async function recentMail(limit = 100) {
       recipients: schema.mailMessage.recipients,
       subject: schema.mailMessage.subject,
       textBody: schema.mailMessage.textBody,
+      attachments: schema.mailMessage.attachments,
       receivedAt: schema.mailMessage.receivedAt,
     })
     .from(schema.mailMessage)

@@ -70,6 +70,13 @@ export default function Outbox({ loaderData }: Route.ComponentProps) {
               </div>
               <p className="mb-2 text-xs text-ink-600">To: {m.recipients}</p>
               <Body text={m.textBody} />
+              {m.attachments ? (
+                <ul className="mt-2 text-sm text-ink-700" data-testid="attachments">
+                  {m.attachments.split("\n").map((a) => (
+                    <li key={a}>Attached: {a}</li>
+                  ))}
+                </ul>
+              ) : null}
             </li>
           ))}
         </ul>

@@ -2,7 +2,7 @@
 // completion the signed record (who, when, the revision's content hash and a hash of the results).
 import { check, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
 import { sql } from "drizzle-orm";
-import type { BenchPlan } from "~/bench-tests/generate";
+import type { BenchPlan } from "~/bench-tests/types";
 import { user } from "./auth.server";
 import { workspace } from "./workspace.server";
 import { vehicle } from "./vehicle.server";
@@ -49,6 +49,8 @@ export const benchStepResult = pgTable(
     note: text("note").notNull().default(""),
     updatedBy: text("updated_by").references(() => user.id, { onDelete: "set null" }),
     updatedAt: timestamp("updated_at", { withTimezone: true }),
+    /** When the failure of this step was mailed to the revision's author (once per step: decision 137). */
+    failureMailedAt: timestamp("failure_mailed_at", { withTimezone: true }),
   },
   (t) => [
     uniqueIndex("bench_step_result_run_n_idx").on(t.runId, t.n),

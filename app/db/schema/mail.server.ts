@@ -10,6 +10,8 @@ export const mailMessage = pgTable(
     subject: text("subject").notNull(),
     textBody: text("text_body").notNull(),
     htmlBody: text("html_body").notNull(),
+    /** The attachments' names, types and sizes, one per line (the sink keeps no content). */
+    attachments: text("attachments").notNull().default(""),
     receivedAt: timestamp("received_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("mail_received_idx").on(t.receivedAt)],
