@@ -7,6 +7,7 @@ import { designSchema, INPUT_FUNCTIONS, LOCKOUTS, VERDICT_FORMAT } from "~/engin
 import { DESIGN_STATUSES } from "~/designs/types";
 import { STEP_OUTCOMES } from "~/bench-runs/outcomes";
 import { REVIEW_STATUSES } from "~/reviews/status";
+import { CONTROLLER_CHECK_FORMAT, FINDING_CODES, controllerRecordShape } from "~/controller-record";
 
 // ---------------------------------------------------------------- small pieces
 
@@ -31,7 +32,7 @@ const errorShape = {
 /** Every answer that is not a success. */
 export const errorSchema = z.object(errorShape).meta({
   id: "Error",
-  description: "Every answer that is not a success. A few add a field beside error: currentVersion (409 stale_draft), latestRevision (409 stale_revision), verdict (422 rules_fail and never_drives).",
+  description: "Every answer that is not a success. A few add a field beside error: currentVersion (409 stale_draft, 409 stale_record), latestRevision (409 stale_revision), verdict (422 rules_fail and never_drives).",
 });
 export type ErrorAnswer = z.output<typeof errorSchema>;
 
@@ -326,6 +327,81 @@ export type RunJson = z.output<typeof runSchema>;
 export const runListAnswer = z.object({ runs: z.array(runSummarySchema), nextCursor: nextCursorSchema });
 export const runAnswer = z.object({ run: runSchema });
 export const stepSavedAnswer = z.object({ step: runStepSchema, mailed: z.boolean().meta({ description: "The author was mailed about a new failure." }) });
+
+// ---------------------------------------------------------------- controller settings records
+
+/** A stored record (chainproof/controller-record@1), unknown keys included. */
+export const controllerRecordDocumentSchema = controllerRecordShape.meta({
+  id: "ControllerRecord",
+  description:
+    "A vehicle's controller settings record (chainproof/controller-record@1): the pack, the controller's ratings and its settings, as a technician entered them. Unknown keys are kept.",
+});
+
+const throttleClass = z.enum(["released", "applied", "fault", "dead-band"]);
+const fixed = z.number();
+
+export const findingSchema = z
+  .object({
+    code: z.enum(Object.keys(FINDING_CODES) as [keyof typeof FINDING_CODES, ...(keyof typeof FINDING_CODES)[]]),
+    severity: z.enum(["error", "warning"]),
+    path: z.string().meta({ description: "The record's field the finding is about.", example: "settings.lockouts" }),
+    message: z.string().meta({ description: "The difference in words." }),
+  })
+  .meta({ id: "ControllerFinding" });
+
+export const controllerCheckSchema = z
+  .object({
+    format: z.literal(CONTROLLER_CHECK_FORMAT),
+    derived: z.object({
+      pack: z.object({ minV: fixed, nominalV: fixed, maxV: fixed }).meta({ description: "Volts, to 0.01 V." }),
+      batteryCurrentA: fixed,
+      motorCurrentA: fixed,
+      packContinuousA: fixed.optional(),
+      precharge: z
+        .object({ tauMs: fixed, t95Ms: fixed, t99Ms: fixed, inrushA: fixed, energyJ: fixed, reachedAtDelay: fixed })
+        .optional()
+        .meta({ description: "At the pack's maximum voltage; absent without a precharge." }),
+      throttle: z.object({ rest: throttleClass, full: throttleClass, openSignal: throttleClass, openGround: throttleClass.optional() }),
+    }),
+    findings: z.array(findingSchema).meta({ description: "Errors first, then by code, then by path." }),
+  })
+  .meta({ id: "ControllerCheck", description: "The derived values and findings of a record (chainproof/controller-check@1), against a design when one is given." });
+
+export const PROOF_STATES = ["no-record", "no-release", "holds", "does-not-hold", "record-invalid"] as const;
+
+export const controllerRecordVersionSchema = z
+  .object({
+    version: int.meta({ description: "From 1; every change is a new version." }),
+    recordedAt: isoTime,
+    recordedBy: person,
+  })
+  .meta({ id: "ControllerRecordVersion" });
+
+export const controllerRecordAnswer = z.object({
+  record: controllerRecordVersionSchema
+    .extend({
+      document: controllerRecordDocumentSchema,
+      check: controllerCheckSchema.meta({ description: "This version's check, against the vehicle's released revision when it has one." }),
+    })
+    .nullable()
+    .meta({ description: "The newest version (or the one asked for with ?version=); null when nothing is recorded." }),
+  versions: z.array(controllerRecordVersionSchema).meta({ description: "Every version, newest first." }),
+  proof: z
+    .object({
+      state: z.enum(PROOF_STATES),
+      holds: z
+        .boolean()
+        .nullable()
+        .meta({ description: "Whether the released proof holds for the newest record; null without a record or a release." }),
+      differences: z.array(z.string()).meta({ description: "Every error finding's message: why the proof does not hold." }),
+    })
+    .meta({ description: "The vehicle's released revision against its newest record." }),
+  caution: z.string().meta({ description: "The record is what was entered, not what the controller holds." }),
+});
+export type ControllerRecordAnswer = z.output<typeof controllerRecordAnswer>;
+
+export const staleRecordError = errorSchema.extend({ currentVersion: int.meta({ description: "The record's newest version now (0: none)." }) });
+export const controllerCheckAnswer = z.object({ check: controllerCheckSchema });
 
 // ---------------------------------------------------------------- reviews, mail, the description
 

@@ -10,6 +10,9 @@ import * as A from "./answers";
 import { groupsDocumentSchema, groupsQuerySchema, whyDocumentSchema, whyQuerySchema } from "./row-groups";
 import {
   benchRunListQuerySchema,
+  controllerCheckBodySchema,
+  controllerRecordPutBodySchema,
+  controllerRecordQuerySchema,
   diagnosisBodySchema,
   pageQuerySchema,
   stepResultBodySchema,
@@ -57,6 +60,8 @@ export const TAGS = {
   Vehicles: "Vehicles, their released revisions and needs-attention flags.",
   "Bench runs": "Step-by-step bench tests generated from a vehicle's released revision.",
   Reviews: "Review requests and reviewers' decisions on revisions.",
+  "Controller records":
+    "What a technician recorded of a vehicle's traction pack and motor-controller settings, every change a version, and its checks against the pack and the released proof. The record is what was entered, not what the controller holds: verify on the vehicle.",
   Local: "Only when running locally.",
   About: "This description.",
 } as const;
@@ -364,6 +369,41 @@ export const api = {
     params: runId.extend({ n: z.string().regex(/^[1-9][0-9]*$/).meta({ description: "The step number, from 1." }) }),
     body: stepResultBodySchema,
     replies: { 200: ok("Saved.", A.stepSavedAnswer), 409: fail("The run is completed and signed (run_completed)."), ...writing },
+  }),
+  getControllerRecord: endpoint({
+    method: "get",
+    path: "/api/v1/vehicles/{vehicleId}/controller-record",
+    tag: "Controller records",
+    summary: "Get a vehicle's controller settings record",
+    description: `${MEMBER} The newest version (or ?version=N) with its check against the revision released to the vehicle, every version's who and when, and whether the released proof holds for the newest record.`,
+    params: vehicleId,
+    query: controllerRecordQuerySchema,
+    replies: { 200: ok("The record.", A.controllerRecordAnswer), ...badQuery, ...reading },
+  }),
+  putControllerRecord: endpoint({
+    method: "put",
+    path: "/api/v1/vehicles/{vehicleId}/controller-record",
+    tag: "Controller records",
+    summary: "Record a new version of the controller settings",
+    description:
+      "Technicians and engineers. Saved as a new version with who and when; nothing is overwritten. Send the version you read: another version saved since answers 409 stale_record with currentVersion. An impossible value answers 400 invalid_record naming each field (record.settings.throttle.restV); nothing is saved.",
+    params: vehicleId,
+    body: controllerRecordPutBodySchema,
+    replies: {
+      200: ok("Saved; the record as GET answers it.", A.controllerRecordAnswer),
+      409: fail("Another version was saved since the one sent (stale_record; currentVersion beside error).", A.staleRecordError),
+      ...writing,
+    },
+  }),
+  checkControllerRecord: endpoint({
+    method: "post",
+    path: "/api/v1/controller-checks",
+    tag: "Controller records",
+    summary: "Check a controller settings record without saving",
+    description: `${MEMBER} The record's derived values and findings (chainproof/controller-check@1), against the design when one is sent. Stateless: nothing is read or saved.`,
+    query: workspaceQuerySchema,
+    body: controllerCheckBodySchema,
+    replies: { 200: ok("The check.", A.controllerCheckAnswer), ...writing },
   }),
   reviewInbox: endpoint({
     method: "get",

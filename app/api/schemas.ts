@@ -5,6 +5,8 @@ import { z } from "zod";
 import { storable } from "../lib/text";
 import { vehicleSchema } from "~/lib/forms";
 import { STEP_OUTCOMES } from "~/bench-runs/outcomes";
+import { controllerRecordSchema } from "~/controller-record";
+import { designSchema } from "~/engine";
 
 /** Items per page when ?limit is not given (lists that page by default), and the most allowed. */
 export const PAGE_LIMIT_DEFAULT = 50;
@@ -106,4 +108,38 @@ export const diagnosisBodySchema = z.object({
     .max(100, "At most 100 earlier rows.")
     .optional()
     .meta({ description: "Earlier rows, oldest first: the row is replayed after them from power-up, so a latched lockout shows." }),
+});
+
+/** The record as a request body: every rule of the record (the orders, the limits) is checked. */
+const recordBody = controllerRecordSchema.meta({
+  id: "ControllerRecordInput",
+  description: "A controller settings record (chainproof/controller-record@1). Every impossible value is refused with its path; unknown keys are kept.",
+});
+
+/** GET /api/v1/vehicles/:vehicleId/controller-record[?version=N] */
+export const controllerRecordQuerySchema = z.object({
+  version: z.coerce
+    .number({ message: "version is a whole number from 1." })
+    .int("version is a whole number from 1.")
+    .min(1, "version is a whole number from 1.")
+    .optional()
+    .meta({ description: "An earlier version; the newest without it." }),
+});
+
+/** PUT /api/v1/vehicles/:vehicleId/controller-record */
+export const controllerRecordPutBodySchema = z.object({
+  version: z
+    .number({ message: "version is the record's newest version as you read it (0 when it has none)." })
+    .int("version is a whole number.")
+    .min(0, "version is 0 or more.")
+    .meta({ description: "The version this change was made on: the newest as you read it, 0 when the vehicle has none. Another version saved since answers 409." }),
+  record: recordBody,
+});
+
+/** POST /api/v1/controller-checks?workspace=SLUG */
+export const controllerCheckBodySchema = z.object({
+  record: recordBody,
+  design: designSchema
+    .optional()
+    .meta({ description: "A design (chainproof/design@1) whose proof's assumptions the record is checked against (section 4 of the record's spec)." }),
 });

@@ -4,7 +4,11 @@ import type { z } from "zod";
 import type { listVehicles, openAttention, ReleaseSummary } from "~/vehicles/vehicles.server";
 import { verifyRecord, type RunDetail, type RunSummary } from "~/bench-runs/bench-runs.server";
 import type { Vehicle } from "~/db/schema.server";
-import type { releaseSchema, runSchema, runSummarySchema, vehicleSchema, vehicleSummarySchema } from "./answers";
+import type { controllerRecordAnswer, controllerRecordDocumentSchema, releaseSchema, runSchema, runSummarySchema, vehicleSchema, vehicleSummarySchema } from "./answers";
+import { CONTROLLER_CHECK_FORMAT } from "~/controller-record";
+import type { recordWithStatus } from "~/vehicles/controller-records.server";
+import { differenceInWords } from "~/vehicles/controller-status";
+import { RECORD_CAUTION } from "~/components/controller-record/record-caution";
 
 type Listed = Awaited<ReturnType<typeof listVehicles>>[number];
 type Current = NonNullable<Listed["release"]>;
@@ -109,5 +113,32 @@ export function runJson(run: RunDetail, slug: string): z.input<typeof runSchema>
         photos: (r?.photos ?? []).map((p) => ({ id: p.id, filename: p.filename, contentType: p.contentType, url: `/w/${slug}/files/${p.id}` })),
       };
     }),
+  };
+}
+
+/** A vehicle's controller settings record as the API answers it. */
+export function controllerRecordJson(r: Awaited<ReturnType<typeof recordWithStatus>>): z.input<typeof controllerRecordAnswer> {
+  const version = (v: { version: number; recordedAt: Date; recordedBy: { id: string; name: string } }) => ({
+    version: v.version,
+    recordedAt: v.recordedAt.toISOString(),
+    recordedBy: v.recordedBy,
+  });
+  const s = r.newestStatus;
+  const chosen = r.chosen && r.chosenStatus?.derived ? { chosen: r.chosen, status: r.chosenStatus, derived: r.chosenStatus.derived } : null;
+  return {
+    record: chosen
+      ? {
+          ...version(chosen.chosen),
+          document: chosen.chosen.document as z.input<typeof controllerRecordDocumentSchema>,
+          check: { format: CONTROLLER_CHECK_FORMAT, derived: chosen.derived, findings: [...chosen.status.errors, ...chosen.status.warnings] },
+        }
+      : null,
+    versions: r.history.map(version),
+    proof: {
+      state: s.state,
+      holds: s.state === "holds" ? true : s.state === "does-not-hold" || s.state === "record-invalid" ? false : null,
+      differences: differenceInWords(s),
+    },
+    caution: RECORD_CAUTION,
   };
 }

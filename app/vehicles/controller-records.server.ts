@@ -128,6 +128,22 @@ async function releasedDesign(workspaceId: string, vehicleId: string): Promise<u
   return rows[0] ? { controller: rows[0].controller } : null;
 }
 
+/**
+ * What the API answers of a vehicle's record: every version, the one asked for (the newest by default;
+ * null when there is no such version) with its status against the released revision, and the newest's.
+ */
+export async function recordWithStatus(workspaceId: string, vehicleId: string, version?: number) {
+  const [history, released] = await Promise.all([recordHistory(workspaceId, vehicleId), releasedDesign(workspaceId, vehicleId)]);
+  const newest = history[0] ?? null;
+  const chosen = version === undefined ? newest : (history.find((h) => h.version === version) ?? null);
+  return {
+    history,
+    chosen,
+    chosenStatus: chosen ? controllerStatus(chosen.document, released) : null,
+    newestStatus: controllerStatus(newest?.document ?? null, released),
+  };
+}
+
 /** The vehicle's newest record against its released revision. */
 export async function vehicleControllerStatus(workspaceId: string, vehicleId: string): Promise<{ status: ControllerStatus; latest: RecordVersion | null }> {
   const [latest, released] = await Promise.all([recordVersion(workspaceId, vehicleId), releasedDesign(workspaceId, vehicleId)]);

@@ -193,3 +193,134 @@ describe("the demo", () => {
     expect(card("Haybarn campus hauler #5")).toContain("brake-release");
   });
 });
+
+describe("the API", () => {
+  const recordPath = (vehicleId: string) => `/api/v1/vehicles/${vehicleId}/controller-record`;
+  const put = (c: Client, vehicleId: string, version: number, record: unknown) => c.fetch(recordPath(vehicleId), json("PUT", { version, record }));
+
+  it("round trip: nothing, a first version, its check and the proof against the released revision, an earlier version", async () => {
+    const id = await newVehicle("API cart");
+    const empty = await reviewer.fetch(recordPath(id));
+    expect(empty.status).toBe(200);
+    expect(await empty.json()).toMatchObject({ record: null, versions: [], proof: { state: "no-record", holds: null, differences: [] } });
+
+    const withKept = withValue(agreeing(), "settings.throttle.note", "grip replaced in March");
+    const first = await technician.fetch(recordPath(id), json("PUT", { version: 0, record: withKept }));
+    expect(first.status).toBe(200);
+    const body = (await first.json()) as any;
+    expect(body.record).toMatchObject({ version: 1, recordedBy: { name: expect.any(String) } });
+    expect(body.record.document).toEqual(withKept); // unknown keys kept
+    expect(body.record.check.format).toBe("chainproof/controller-check@1");
+    expect(body.proof.state).toBe("no-release");
+    expect(body.caution).toContain("not what the controller holds");
+
+    // Released revision assumes brake-release; version 2 drops it.
+    expect((await engineer.fetch(`/w/larkspur/vehicles/${id}`, formBody({ intent: "release", revisionId: approvedRevisionId }))).status).toBe(200);
+    const dropped = withValue(agreeing(), "settings.lockouts", ["power-on", "enable-restore", "direction-engage"]);
+    const second = await put(engineer, id, 1, dropped);
+    expect(second.status).toBe(200);
+    const after = (await second.json()) as any;
+    expect(after.versions.map((v: { version: number }) => v.version)).toEqual([2, 1]);
+    expect(after.proof).toMatchObject({ state: "does-not-hold", holds: false });
+    expect(after.proof.differences).toEqual([expect.stringContaining("brake-release")]);
+    expect(after.record.check.findings).toEqual([expect.objectContaining({ code: "lockout-missing", severity: "error", path: "settings.lockouts" })]);
+
+    const old = (await (await reviewer.fetch(`${recordPath(id)}?version=1`)).json()) as any;
+    expect(old.record.version).toBe(1);
+    expect(old.record.check.findings.filter((f: { severity: string }) => f.severity === "error")).toEqual([]);
+    expect(old.proof.state).toBe("does-not-hold"); // the proof is always about the newest version
+    expect((await reviewer.fetch(`${recordPath(id)}?version=9`)).status).toBe(404);
+    expect((await reviewer.fetch(`${recordPath(id)}?version=first`)).status).toBe(400);
+  });
+
+  it("a stale version answers 409 with the current version and saves nothing; of two saves on one base exactly one wins", async () => {
+    const id = await newVehicle("API stale cart");
+    expect((await put(technician, id, 0, agreeing())).status).toBe(200);
+    const stale = await put(engineer, id, 0, agreeing());
+    expect(stale.status).toBe(409);
+    expect(await stale.json()).toMatchObject({ error: { code: "stale_record" }, currentVersion: 1 });
+    expect((await versions(id)).length).toBe(1);
+    const both = await Promise.all([put(technician, id, 1, agreeing()), put(engineer, id, 1, withValue(agreeing(), "pack.capacityAh", 90))]);
+    expect(both.map((r) => r.status).sort()).toEqual([200, 409]);
+    expect((await versions(id)).map((r) => r.version)).toEqual([1, 2]);
+  });
+
+  it.each([
+    ["a rest voltage above full", "settings.throttle.restV", 4.3],
+    ["thresholds out of order", "settings.throttle.releasedBelowV", 1.15],
+    ["a negative capacity", "pack.capacityAh", -100],
+    ["an unknown chemistry", "pack.chemistry", "nickel-zinc"],
+    ["a percentage over 100", "settings.batteryCurrentPercent", 150],
+    ["an unknown lockout", "settings.lockouts", ["power-on", "seat-return"]],
+    ["a NUL character", "controller.description", "a\u0000b"],
+    ["a number as text", "settings.overVoltageCutoffV", "62"],
+  ])("refuses %s with 400 naming record.%s, and saves nothing", async (_what, path, value) => {
+    const id = await newVehicle("API bad cart");
+    const res = await put(technician, id, 0, withValue(agreeing(), path, value));
+    expect(res.status).toBe(400);
+    const body = (await res.json()) as any;
+    expect(body.error.code).toBe("invalid_record");
+    const expected = Array.isArray(value) ? `record.${path}[1]` : `record.${path}`;
+    expect(body.error.fields.map((f: { path: string }) => f.path)).toContain(expected);
+    expect((await versions(id)).length).toBe(0);
+  });
+
+  it("a bad version or no record is a 400 naming the field", async () => {
+    const id = await newVehicle("API body cart");
+    const noRecord = await technician.fetch(recordPath(id), json("PUT", { version: 0 }));
+    expect(noRecord.status).toBe(400);
+    expect(((await noRecord.json()) as any).error.fields.map((f: { path: string }) => f.path)).toContain("record");
+    const badVersion = await put(technician, id, -1, agreeing());
+    expect(badVersion.status).toBe(400);
+    expect(((await badVersion.json()) as any).error.fields.map((f: { path: string }) => f.path)).toEqual(["version"]);
+    expect((await versions(id)).length).toBe(0);
+  });
+
+  it("technicians and engineers write, everyone in the workspace reads, outsiders see nothing", async () => {
+    const id = await newVehicle("API roles cart");
+    for (const c of [admin, reviewer]) {
+      const res = await put(c, id, 0, agreeing());
+      expect(res.status).toBe(403);
+    }
+    expect((await versions(id)).length).toBe(0);
+    expect((await put(technician, id, 0, agreeing())).status).toBe(200);
+    expect((await put(engineer, id, 1, agreeing())).status).toBe(200);
+    for (const c of [admin, reviewer, technician, engineer]) expect((await c.fetch(recordPath(id))).status).toBe(200);
+    const { createOutsider } = await import("../support/outsider");
+    const outsider = (await createOutsider()).client;
+    expect((await outsider.fetch(recordPath(id))).status).toBe(404);
+    expect((await put(outsider, id, 2, agreeing())).status).toBe(404);
+  });
+
+  describe("POST /api/v1/controller-checks", () => {
+    const check = (c: Client, body: unknown) => c.fetch("/api/v1/controller-checks?workspace=larkspur", json("POST", body));
+
+    it("answers the module's own check, against a design when one is sent, and saves nothing", async () => {
+      const { checkRecord } = await import("../../app/controller-record");
+      const { validateDesign } = await import("../../app/engine");
+      const { readFileSync } = await import("node:fs");
+      const design = JSON.parse(readFileSync("/work/shared/spec/examples/campus-hauler.design.json", "utf8"));
+      const alone = await check(reviewer, { record: exampleRecord() });
+      expect(alone.status).toBe(200);
+      expect(((await alone.json()) as any).check).toEqual(JSON.parse(JSON.stringify(checkRecord(valid(exampleRecord())))));
+      const against = await check(reviewer, { record: exampleRecord(), design });
+      expect(against.status).toBe(200);
+      const validated = validateDesign(design);
+      if (!validated.ok) throw new Error("example design should be valid");
+      const body = (await against.json()) as any;
+      expect(body.check).toEqual(JSON.parse(JSON.stringify(checkRecord(valid(exampleRecord()), validated.design))));
+      expect(body.check.findings.filter((f: { code: string }) => f.code === "lockout-missing")).toHaveLength(2);
+    });
+
+    it("names a bad record's and a bad design's fields", async () => {
+      const badRecord = await check(technician, { record: withValue(exampleRecord(), "settings.throttle.faultAboveV", 6) });
+      expect(badRecord.status).toBe(400);
+      expect(await badRecord.json()).toMatchObject({ error: { code: "invalid_record", fields: [{ path: "record.settings.throttle.faultAboveV" }] } });
+      const badDesign = await check(technician, { record: exampleRecord(), design: { format: "chainproof/design@1" } });
+      expect(badDesign.status).toBe(400);
+      const body = (await badDesign.json()) as any;
+      expect(body.error.code).toBe("invalid_design");
+      expect(body.error.fields.every((f: { path: string }) => f.path.startsWith("design"))).toBe(true);
+    });
+  });
+});

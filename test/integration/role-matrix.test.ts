@@ -92,6 +92,13 @@ export const MATRIX: Row[] = [
   },
   { name: "API: unknown vehicle", method: "GET", path: "/api/v1/vehicles/no-such-vehicle", expect: api(404) },
   { name: "API: change an unknown vehicle", method: "PATCH", path: "/api/v1/vehicles/no-such-vehicle", json: { model: "x" }, expect: api(404) },
+  { name: "API: controller record of an unknown vehicle", method: "GET", path: "/api/v1/vehicles/no-such-vehicle/controller-record", expect: api(404) },
+  { name: "API: record controller settings on an unknown vehicle", method: "PUT", path: "/api/v1/vehicles/no-such-vehicle/controller-record", json: { version: 0, record: {} }, expect: api(404) },
+  {
+    name: "API: check a controller record (invalid record: members get 400)",
+    method: "POST", path: "/api/v1/controller-checks?workspace=larkspur", json: { record: {} },
+    expect: api(400),
+  },
   { name: "API: bench runs list", method: "GET", path: "/api/v1/bench-runs?workspace=larkspur", expect: api(200) },
   { name: "API: start a bench run on an unknown vehicle", method: "POST", path: "/api/v1/vehicles/no-such-vehicle/bench-runs", json: {}, expect: api(404) },
   { name: "API: unknown bench run", method: "GET", path: "/api/v1/bench-runs/no-such-run", expect: api(404) },
