@@ -116,7 +116,7 @@ describe("hostile text in every form action and API write", () => {
 
 describe("%00 in a path id", () => {
   const pages = ["/w/larkspur/vehicles/%00", "/w/larkspur/vehicles/%00/why", "/w/larkspur/designs/%00", "/w/larkspur/designs/%00/edit", "/w/larkspur/designs/x/revisions/%00/table", "/w/larkspur/bench-tests/%00", "/w/larkspur/files/%00", "/invite/%00", "/w/%00"];
-  const api = ["/api/v1/vehicles/%00", "/api/v1/designs/%00", "/api/v1/designs/%00/draft", "/api/v1/designs/%00/revisions", "/api/v1/bench-runs/%00", "/api/v1/bench-runs/%00/steps/1", "/api/v1/vehicles/%00/bench-runs"];
+  const api = ["/api/v1/vehicles/%00", "/api/v1/designs/%00", "/api/v1/designs/%00/draft", "/api/v1/designs/%00/revisions", "/api/v1/bench-runs/%00", "/api/v1/vehicles/%00/bench-runs"];
 
   it.each(pages)("GET and POST %s answer 404", async (path) => {
     expect((await admin.fetch(path)).status).toBe(404);
@@ -125,6 +125,13 @@ describe("%00 in a path id", () => {
 
   it.each(api)("GET %s answers 404 in the API's error shape", async (path) => {
     const res = await admin.fetch(path);
+    expect(res.status).toBe(404);
+    expect(((await res.json()) as { error: { code: string } }).error.code).toBe("not_found");
+  });
+
+  // A bench step is only written (PUT); its read is the run's GET above.
+  it("PUT /api/v1/bench-runs/%00/steps/1 answers 404 in the API's error shape", async () => {
+    const res = await admin.fetch("/api/v1/bench-runs/%00/steps/1", { method: "PUT", headers: { "content-type": "application/json" }, body: JSON.stringify({ result: "pass" }) });
     expect(res.status).toBe(404);
     expect(((await res.json()) as { error: { code: string } }).error.code).toBe("not_found");
   });
