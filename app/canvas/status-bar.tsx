@@ -25,8 +25,11 @@ export function StatusBar({ draft, readOnly }: { draft: DraftState; readOnly: bo
     tone = "text-brick-700";
   } else if (proof.status === "done") {
     const failing = proof.verdict.rules.filter((r) => !r.holds).length;
-    proofText = failing === 0 ? "Proven: every rule holds" : `${failing} of ${proof.verdict.rules.length} ${proof.verdict.rules.length === 1 ? "rule fails" : "rules fail"}`;
-    tone = failing === 0 ? "text-moss-700" : "text-brick-700";
+    const rules = proof.verdict.rules.length;
+    const failText = `${failing} of ${rules} ${rules === 1 ? "rule fails" : "rules fail"}`;
+    // Spec 1.1: a design that never drives proves nothing, even when every rule holds.
+    proofText = proof.verdict.driveRows === 0 ? `Never drives: proves nothing${failing ? ` · ${failText}` : ""}` : failing === 0 ? "Proven: every rule holds" : failText;
+    tone = proof.verdict.ok ? "text-moss-700" : "text-brick-700";
     proofText += ` · ${proof.verdict.rows.toLocaleString("en-US")} rows, ${proof.verdict.driveRows.toLocaleString("en-US")} with drive`;
   }
   const faults = proof.status === "done" ? proof.verdict.singleFaults.length : 0;

@@ -44,6 +44,7 @@ export function PredicateEditor({
   disabled,
   path = "when",
   depth = 0,
+  heading = "Forbidden when",
 }: {
   value: Predicate;
   onChange: (next: Predicate) => void;
@@ -51,11 +52,13 @@ export function PredicateEditor({
   disabled?: boolean;
   path?: string;
   depth?: number;
+  /** The top-level label: what the rule does where the predicate holds. */
+  heading?: string;
 }) {
   const kind = kindOf(value);
   return (
     <div className={`space-y-2 ${depth > 0 ? "rounded border border-ink-200 bg-ink-50 p-2" : ""}`} data-path={path}>
-      <Select label={depth === 0 ? "Forbidden when" : "Test"} value={kind} disabled={disabled} onChange={(e) => onChange(convert(value, e.target.value as Kind, conditions))}>
+      <Select label={depth === 0 ? heading : "Test"} value={kind} disabled={disabled} onChange={(e) => onChange(convert(value, e.target.value as Kind, conditions))}>
         {(Object.keys(KIND_LABEL) as Kind[]).map((k) => (
           <option key={k} value={k}>
             {KIND_LABEL[k]}

@@ -30,6 +30,12 @@ export function VerdictList({ verdict }: { verdict: Verdict }) {
   };
   return (
     <div className="space-y-2">
+      {verdict.driveRows === 0 ? (
+        <p className="rounded border border-brick-600/40 bg-white p-2 text-sm font-semibold text-brick-700" data-testid="never-drives">
+          The design never drives: no row of its truth table has the drive on, so its inhibit rules prove nothing. Revisions are refused until some
+          row drives.
+        </p>
+      ) : null}
       {failing.length === 0 ? <p className="text-sm text-moss-700">Every rule holds.</p> : null}
       <ul className="space-y-2">
         {failing.map((r) => (
@@ -40,6 +46,11 @@ export function VerdictList({ verdict }: { verdict: Verdict }) {
             {"violatingRows" in r ? (
               <p className="text-xs text-ink-600">
                 {r.violatingRows} of {r.unsafeRows} unsafe rows break it. For example: {r.example ? statesText(r.example) : "—"}
+              </p>
+            ) : null}
+            {"failingRows" in r ? (
+              <p className="text-xs text-ink-600">
+                {r.failingRows} of {r.demandRows} rows where it must drive have the drive off. For example: {r.example ? statesText(r.example) : "—"}
               </p>
             ) : null}
             {"trace" in r && r.trace ? (

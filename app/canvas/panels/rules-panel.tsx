@@ -1,5 +1,7 @@
-// Safety rules: inhibit rules (a visual predicate and what it forbids) and the no-restart rule.
-import type { InhibitRule, Rule } from "../../engine";
+// Safety rules: require-drive rules ("must drive when", a visual predicate), inhibit rules (a visual
+// predicate and what it forbids) and the no-restart rule. A rule whose situation matches no row is
+// shown at the rule by the live check (the engine reports it at rules[i].when).
+import type { InhibitRule, RequireDriveRule, Rule } from "../../engine";
 import { useEditor, useEditorStore } from "../store";
 import { CommitText, FieldProblems, Section, Select, Small, problemsUnder, useValidation } from "./common";
 import { PredicateEditor } from "./predicate-editor";
@@ -23,6 +25,45 @@ export function RulesPanel() {
 
   return (
     <div>
+      <Section
+        title="Must drive when"
+        actions={
+          <Small
+            tone="primary"
+            disabled={!editable}
+            onClick={() =>
+              updateRest((rest) => ({
+                ...rest,
+                rules: [...rest.rules, { id: freshRuleId(rest.rules, "D"), label: "", type: "require-drive", when: { cond: rest.conditions[0]?.id ?? "", in: [] } }],
+              }))
+            }
+          >
+            + Must drive when …
+          </Small>
+        }
+      >
+        {rules.every((r) => r.type !== "require-drive") ? (
+          <p className="text-sm text-ink-500">
+            No require-drive rule yet. Say when the vehicle must drive (seated, key on, in gear, throttle applied): without one, a design that never
+            drives would satisfy every inhibit rule.
+          </p>
+        ) : null}
+        {rules.map((r, i) =>
+          r.type === "require-drive" ? (
+            <RequireDriveRuleForm
+              key={i}
+              index={i}
+              rule={r}
+              editable={editable}
+              conditions={conditions}
+              onChange={(next) => setRule(i, next)}
+              onRename={(next) => store.getState().renameRule(i, next)}
+              onRemove={() => store.getState().removeRule(i)}
+              problems={problemsUnder(problems, `rules[${i}]`)}
+            />
+          ) : null,
+        )}
+      </Section>
       <Section
         title="Inhibit rules"
         actions={
@@ -85,6 +126,48 @@ export function RulesPanel() {
         {noRestart >= 0 ? <FieldProblems problems={problemsUnder(problems, `rules[${noRestart}]`)} /> : null}
       </Section>
     </div>
+  );
+}
+
+function RequireDriveRuleForm({
+  index,
+  rule,
+  editable,
+  conditions,
+  onChange,
+  onRename,
+  onRemove,
+  problems,
+}: {
+  index: number;
+  rule: RequireDriveRule;
+  editable: boolean;
+  conditions: Parameters<typeof PredicateEditor>[0]["conditions"];
+  onChange: (r: RequireDriveRule) => void;
+  onRename: (id: string) => string | null;
+  onRemove: () => void;
+  problems: ReturnType<typeof problemsUnder>;
+}) {
+  return (
+    <fieldset className="space-y-2 rounded border border-moss-600/40 bg-white p-2" aria-label={`Rule ${rule.id}`} data-testid={`rule-${rule.id}`}>
+      <div className="grid grid-cols-[6rem_1fr] gap-2">
+        <CommitText label="Id" value={rule.id} disabled={!editable} onCommit={onRename} invalid={problems.some((p) => p.path === `rules[${index}].id`)} />
+        <CommitText label="Label" value={rule.label ?? ""} disabled={!editable} onCommit={(label) => (onChange({ ...rule, label }), null)} />
+      </div>
+      <PredicateEditor
+        heading="Must drive when"
+        value={rule.when ?? { always: true }}
+        onChange={(when) => onChange({ ...rule, when })}
+        conditions={conditions}
+        disabled={!editable}
+        path={`rules[${index}].when`}
+      />
+      <p className="text-xs text-ink-600">In every row where this holds, the drive must be on.</p>
+      <FieldProblems problems={problems} />
+      <Small tone="danger" disabled={!editable} onClick={onRemove}>
+        Remove rule {rule.id}
+      </Small>
+    </fieldset>
   );
 }
 

@@ -72,7 +72,11 @@ export function SimulatePanel() {
         <p className="text-sm text-ink-700">
           {src.kind === "hand" ? "By hand." : null}
           {src.kind === "row" ? <span data-testid="sim-row">Row {src.index.toLocaleString("en-US")} of the truth table.</span> : null}
-          {src.kind === "example" ? `Counterexample of “${ruleLabel(src.ruleId)}”.` : null}
+          {src.kind === "example"
+            ? doc.rules.find((r) => r.id === src.ruleId)?.type === "require-drive"
+              ? `“${ruleLabel(src.ruleId)}” says the vehicle must drive in this row, and the drive is off.`
+              : `Counterexample of “${ruleLabel(src.ruleId)}”.`
+            : null}
           {src.kind === "fault" ? `${src.fault.component} ${src.fault.mode.replace("-", " ")} breaks “${ruleLabel(src.ruleId)}” in this row.` : null}
           {src.kind === "trace" ? `Steps that break “${ruleLabel(src.ruleId)}”.` : null}
         </p>

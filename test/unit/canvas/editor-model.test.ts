@@ -11,6 +11,7 @@ import { describe, expect, it } from "vitest";
 import { TERMINALS, validateDesign, type Design, type Predicate } from "../../../app/engine";
 import { createEditorStore, type EditorStore } from "../../../app/canvas/store";
 import { BASE_DESIGNS } from "../../support/fuzz-designs";
+import { refMatchesSomeRow } from "../engine/reference";
 
 // ---------------------------------------------------------------- the independent reference checker
 
@@ -74,9 +75,15 @@ function brokenReferences(d: Design): string[] {
   return out;
 }
 
-/** Invalid values the user chose (a contact closed in no state), each with the field it belongs to. */
+/**
+ * Invalid values the user chose, each with the field it belongs to: a contact closed in no state, and
+ * an inhibit or require-drive rule whose situation holds in no row (spec 1.1), found by brute force
+ * over every row (the reference of test/unit/engine/reference.ts, not the engine's own check).
+ */
 function typedInvalid(d: Design): string[] {
-  return d.components.flatMap((c, i) => (c.type === "contact" && c.closedIn.length === 0 ? [`components[${i}].closedIn`] : []));
+  const contacts = d.components.flatMap((c, i) => (c.type === "contact" && c.closedIn.length === 0 ? [`components[${i}].closedIn`] : []));
+  const rules = d.rules.flatMap((r, i) => ((r.type === "inhibit" || r.type === "require-drive") && !refMatchesSomeRow(d, r.when) ? [`rules[${i}].when`] : []));
+  return [...contacts, ...rules];
 }
 
 // ---------------------------------------------------------------- model and commands
@@ -253,6 +260,20 @@ const commands: Array<fc.Arbitrary<Cmd>> = [
           type: "inhibit",
           when: { cond: cond.id, in: cond.states.filter((_, k) => (mask >> k) & 1) },
           forbid: "drive",
+        })),
+      );
+    }),
+  ),
+  fc.tuple(fc.nat(), fc.nat()).map(([i, mask]) =>
+    cmd("add require-drive rule", (m, r) => {
+      // "Must drive when …": a when over one condition, possibly with no state (the field shows it).
+      const cond = pick(r.store.getState().rest.conditions, i);
+      if (!cond) return;
+      edit(m, r, () =>
+        r.store.getState().addRule((rest) => ({
+          id: `D${rest.rules.length + 1}x${i % 7}`,
+          type: "require-drive",
+          when: { all: [{ cond: cond.id, in: cond.states.filter((_, k) => (mask >> k) & 1) }] },
         })),
       );
     }),
