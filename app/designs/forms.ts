@@ -6,7 +6,7 @@ import { DESIGN_STATUSES, REVISION_MESSAGE_MAX } from "./types";
 
 /** How a new design starts: blank, or a copy of one of the demo designs. */
 export const STARTS = [
-  { key: "blank", label: "Blank", description: "A supply and a throttle, nothing else." },
+  { key: "blank", label: "Blank", description: "A supply, an unwired enable input, a throttle and one “must drive when” rule to complete." },
   { key: "haybarn", label: "Haybarn campus hauler", description: "Key, seat, charge inlet and park brake; every rule holds." },
   { key: "meadowline", label: "Meadowline deck mower", description: "Seat switch without its lockout; the no-restart rule fails." },
   { key: "scree", label: "Scree trail bike", description: "Side-stand switch bridged by a button; the side-stand rule fails." },

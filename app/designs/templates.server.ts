@@ -5,17 +5,35 @@ import meadowline from "../../drizzle/demo-designs/meadowline-deck-mower.draft.j
 import scree from "../../drizzle/demo-designs/scree-trail-bike.draft.json";
 import type { StartKey } from "./forms";
 
-/** The smallest valid design: one supply and a throttle condition; no wiring and no rules yet. */
+/**
+ * The rule a blank design starts with (decision 112): "must drive when the throttle is applied",
+ * valid (it matches rows) but failing until the engineer wires the supply to the enable input; its
+ * label says which conditions of driving are left to add.
+ */
+export const STARTING_RULE = {
+  id: "D1",
+  label: "Must drive when the throttle is applied (complete it: add seat, key, direction…)",
+  type: "require-drive",
+  when: { all: [{ cond: "throttle", in: ["applied"] }] },
+} as const;
+
+/**
+ * The smallest valid design that is plainly unfinished: a supply, an unwired enable input (so it
+ * never drives yet), a throttle condition and one require-drive rule to complete.
+ */
 export function blankDocument(name: string): Record<string, unknown> {
   return {
     format: DESIGN_FORMAT,
     name,
     conditions: [{ id: "throttle", label: "Throttle", states: ["released", "applied"] }],
-    components: [{ id: "PACK", type: "supply", label: "Battery +" }],
+    components: [
+      { id: "PACK", type: "supply", label: "Battery +" },
+      { id: "EN", type: "input", label: "Controller enable", function: "enable" },
+    ],
     wires: [],
     controller: { throttle: { condition: "throttle", released: ["released"], applied: ["applied"], fault: [] }, lockouts: [] },
-    rules: [],
-    layout: { PACK: { x: 0, y: 0 } },
+    rules: [structuredClone(STARTING_RULE)],
+    layout: { PACK: { x: 0, y: 0 }, EN: { x: 480, y: 0 } },
   };
 }
 
