@@ -5,7 +5,6 @@ import { useEditor, useEditorStore } from "../store";
 import { ImportProblemsDialog, type ImportTrouble } from "./import-problems-dialog";
 import { toolButton as btn } from "./tool-button";
 
-
 export function FileTools({ readOnly }: { readOnly: boolean }) {
   const store = useEditorStore();
   const editing = useEditor((s) => !s.readOnly && s.simulation === null);
@@ -62,20 +61,18 @@ export function FileTools({ readOnly }: { readOnly: boolean }) {
       <button type="button" className={btn} onClick={exportJson}>
         Export JSON
       </button>
-      {trouble ? (
-        <ImportProblemsDialog
-          trouble={trouble}
-          onClose={() => setTrouble(null)}
-          onOpenAnyway={
-            trouble.doc !== null && typeof trouble.doc === "object"
-              ? () => {
-                  store.getState().replace(trouble.doc, { keepHistory: true });
-                  setTrouble(null);
-                }
-              : undefined
-          }
-        />
-      ) : null}
+      <ImportProblemsDialog
+        trouble={trouble}
+        onClose={() => setTrouble(null)}
+        onOpenAnyway={
+          trouble && trouble.doc !== null && typeof trouble.doc === "object"
+            ? () => {
+                store.getState().replace(trouble.doc, { keepHistory: true });
+                setTrouble(null);
+              }
+            : undefined
+        }
+      />
     </>
   );
 }

@@ -1,43 +1,33 @@
 // The problems of a document that was imported, with the choice to open it anyway and fix them.
-import { useEffect, useRef } from "react";
 import { ProblemList } from "../panels/problem-list";
 import type { Problem } from "../../engine";
-import { toolButton as btn } from "./tool-button";
+import { Button } from "../../components/ui/button";
+import { Dialog } from "../../components/ui/dialog";
 
 /** A document that could not be imported as it is: its parsed value (null when not JSON) and its problems. */
 export type ImportTrouble = { doc: unknown; problems: Problem[]; file: string };
 
-export function ImportProblemsDialog({ trouble, onClose, onOpenAnyway }: { trouble: ImportTrouble; onClose: () => void; onOpenAnyway?: () => void }) {
-  const ref = useRef<HTMLDialogElement>(null);
-  useEffect(() => {
-    const d = ref.current;
-    if (d && !d.open) d.showModal?.();
-  }, []);
-  const n = trouble.problems.length;
+export function ImportProblemsDialog({ trouble, onClose, onOpenAnyway }: { trouble: ImportTrouble | null; onClose: () => void; onOpenAnyway?: () => void }) {
+  const n = trouble?.problems.length ?? 0;
   return (
-    <dialog
-      ref={ref}
-      aria-labelledby="cp-import-title"
+    <Dialog
+      open={trouble !== null}
       onClose={onClose}
-      onCancel={onClose}
-      className="m-auto max-h-[80vh] w-full max-w-lg overflow-y-auto rounded-lg bg-white p-4 shadow-xl backdrop:bg-ink-900/40"
+      title={trouble ? `${trouble.file} has ${n} ${n === 1 ? "problem" : "problems"}` : ""}
+      actions={
+        <>
+          <Button type="button" variant="ghost" size="sm" onClick={onClose}>
+            Cancel
+          </Button>
+          {onOpenAnyway ? (
+            <Button type="button" variant="action" size="sm" onClick={onOpenAnyway}>
+              Open it anyway and fix
+            </Button>
+          ) : null}
+        </>
+      }
     >
-      <h2 id="cp-import-title" className="text-base font-semibold [overflow-wrap:anywhere]">
-        {trouble.file} has {n} {n === 1 ? "problem" : "problems"}
-      </h2>
-      <div className="mt-2">
-        <ProblemList problems={trouble.problems} />
-      </div>
-      <div className="mt-3 flex justify-end gap-2">
-        <button type="button" className={btn} onClick={onClose}>
-          Cancel
-        </button>
-        {onOpenAnyway ? (
-          <button type="button" className="rounded bg-copper-600 px-3 py-1 text-sm font-semibold text-white" onClick={onOpenAnyway}>
-            Open it anyway and fix
-          </button>
-        ) : null}
-      </div>
-    </dialog>
+      {trouble ? <ProblemList problems={trouble.problems} /> : null}
+    </Dialog>
   );
 }

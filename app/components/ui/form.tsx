@@ -1,4 +1,5 @@
 // Form primitives: labelled fields with their error, buttons, notices.
+import { buttonVariants } from "./button";
 import type { InputHTMLAttributes, ReactNode, SelectHTMLAttributes, ButtonHTMLAttributes, TextareaHTMLAttributes } from "react";
 
 const fieldBase =
@@ -63,16 +64,12 @@ export function SelectField({
   );
 }
 
+// The older tone names, kept for the forms that use them; new code uses <Button variant> from ./button.
 type Tone = "primary" | "secondary" | "danger" | "ghost";
-const tones: Record<Tone, string> = {
-  primary: "bg-copper-600 text-white hover:bg-copper-700 disabled:bg-ink-300",
-  secondary: "bg-white text-ink-800 border border-ink-300 hover:bg-ink-100",
-  danger: "bg-brick-600 text-white hover:bg-brick-700",
-  ghost: "text-ink-700 hover:bg-ink-100",
-};
+const VARIANT = { primary: "action", secondary: "secondary", danger: "danger", ghost: "ghost" } as const;
 
 export function buttonClass(tone: Tone = "primary", extra = "") {
-  return `inline-flex min-h-10 items-center justify-center gap-2 rounded-md px-4 py-2 text-sm font-semibold shadow-sm transition-colors disabled:cursor-not-allowed ${tones[tone]} ${extra}`;
+  return buttonVariants({ variant: VARIANT[tone], className: extra });
 }
 
 export function Button({ tone = "primary", className = "", ...rest }: ButtonHTMLAttributes<HTMLButtonElement> & { tone?: Tone }) {
@@ -81,10 +78,10 @@ export function Button({ tone = "primary", className = "", ...rest }: ButtonHTML
 
 export function Notice({ tone = "info", children }: { tone?: "info" | "error" | "success" | "warning"; children: ReactNode }) {
   const styles = {
-    info: "border-ink-200 bg-white text-ink-800",
-    error: "border-brick-600 bg-brick-50 text-brick-700",
-    success: "border-moss-600 bg-moss-50 text-moss-700",
-    warning: "border-copper-500 bg-copper-50 text-copper-700",
+    info: "border-line bg-surface text-ink-800",
+    error: "border-failing bg-failing-soft text-failing-ink",
+    success: "border-proven bg-proven-soft text-proven-ink",
+    warning: "border-caution bg-caution-soft text-caution-ink",
   }[tone];
   return (
     <div role={tone === "error" ? "alert" : "status"} className={`rounded-md border-l-4 px-4 py-3 text-sm ${styles}`}>

@@ -1,0 +1,41 @@
+// Buttons: one look per role (action, secondary, danger, ghost, link) and size, over the role-named
+// colour tokens of app.css. Use <Button> for an action on this page and <ButtonLink> (link.tsx) to go
+// somewhere; buttonVariants gives the same look to what must stay another element.
+// No class merging: a className adds to the variant's classes, so change padding, colour or weight
+// through a variant (or add one) rather than by overriding it.
+import type { ButtonHTMLAttributes, Ref } from "react";
+import { cva, type VariantProps } from "class-variance-authority";
+
+export const buttonVariants = cva(
+  "inline-flex items-center justify-center gap-2 transition-colors disabled:cursor-not-allowed aria-disabled:cursor-not-allowed",
+  {
+    variants: {
+      variant: {
+        action: "bg-action text-white shadow-sm hover:bg-action-hover disabled:bg-ink-300",
+        secondary: "border border-line-strong bg-surface text-ink-800 shadow-sm hover:bg-subtle disabled:text-ink-400 disabled:hover:bg-surface",
+        danger: "bg-failing text-white shadow-sm hover:bg-failing-hover disabled:bg-ink-300",
+        ghost: "text-ink-700 hover:bg-subtle disabled:text-ink-300 disabled:hover:bg-transparent",
+        link: "text-action-ink underline underline-offset-2 hover:text-action-hover disabled:text-ink-400",
+      },
+      size: {
+        md: "min-h-10 rounded-md px-4 py-2 text-sm font-semibold",
+        sm: "rounded px-2 py-1 text-sm font-medium",
+        xs: "rounded px-2 py-0.5 text-xs font-semibold",
+        touch: "min-h-11 rounded-md px-3 text-sm font-medium",
+        icon: "min-h-11 min-w-11 rounded-md",
+        // For the link variant inside running text.
+        inline: "p-0 text-sm",
+      },
+    },
+    defaultVariants: { variant: "action", size: "md" },
+  },
+);
+
+export type ButtonVariants = VariantProps<typeof buttonVariants>;
+
+export type ButtonProps = ButtonHTMLAttributes<HTMLButtonElement> & ButtonVariants & { ref?: Ref<HTMLButtonElement> };
+
+/** A button. Like the element it is, it submits its form unless given type="button". */
+export function Button({ variant, size, className, ...rest }: ButtonProps) {
+  return <button className={buttonVariants({ variant, size, className })} {...rest} />;
+}
