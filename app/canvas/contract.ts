@@ -1,7 +1,7 @@
 // The props contract with the route that mounts the editor (types owned by app/designs/types.ts).
-import type { DesignEditorProps as RouteEditorProps } from "../designs/types";
+import type { EditorDocumentProps } from "../designs/types";
 
-export type DesignEditorProps = RouteEditorProps & {
+export type DesignEditorProps = EditorDocumentProps & {
   /** The `row` query parameter as given (a truth-table row index to simulate on open), or null. */
   row?: string | null;
   /** False when `initial` differs from revision `baseRevision` (a changed draft); the status bar then says "Draft". */

@@ -1,29 +1,8 @@
-// The content hash of a design document: SHA-256 (hex) of its canonical JSON.
-// Canonical JSON (docs/decisions/032) is the JSON Canonicalization Scheme of RFC 8785 for the
-// values a JSON body can carry: object keys sorted by UTF-16 code units, no whitespace, numbers
-// and strings written as JavaScript's JSON.stringify writes them. Key order and formatting of the
-// request therefore do not matter, and the hash can be recomputed from the stored jsonb.
+// The content hash of a design document: SHA-256 (hex) of its canonical JSON (app/lib/canonical-json.ts,
+// docs/decisions/032). Key order and formatting of the request therefore do not matter, and the hash
+// can be recomputed from the stored jsonb.
 import { createHash } from "node:crypto";
-
-export function canonicalJson(value: unknown): string {
-  if (value === null || typeof value === "boolean" || typeof value === "string") return JSON.stringify(value);
-  if (typeof value === "number") {
-    if (!Number.isFinite(value)) throw new TypeError("canonical JSON has no NaN or Infinity");
-    return JSON.stringify(value);
-  }
-  if (Array.isArray(value)) return `[${value.map((v) => (v === undefined ? "null" : canonicalJson(v))).join(",")}]`;
-  if (typeof value === "object") {
-    const obj = value as Record<string, unknown>;
-    const parts: string[] = [];
-    // Default sort compares UTF-16 code units, as RFC 8785 section 3.2.3 asks.
-    for (const key of Object.keys(obj).sort()) {
-      if (obj[key] === undefined) continue;
-      parts.push(`${JSON.stringify(key)}:${canonicalJson(obj[key])}`);
-    }
-    return `{${parts.join(",")}}`;
-  }
-  throw new TypeError(`canonical JSON cannot hold a ${typeof value}`);
-}
+import { canonicalJson } from "~/lib/canonical-json";
 
 export function contentHash(document: unknown): string {
   return createHash("sha256").update(canonicalJson(document), "utf8").digest("hex");

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { canonicalJson, contentHash } from "./content-hash.server";
+import { canonicalJson } from "~/lib/canonical-json";
+import { contentHash } from "./content-hash.server";
 
 describe("canonical JSON and content hash", () => {
   it("matches the canonical form of the RFC 8785 example (section 3.2.4; example recalled from memory)", () => {

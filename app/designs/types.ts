@@ -38,12 +38,13 @@ export type SaveRevisionResult =
   | { status: 409; latestRevision: number };
 
 /**
- * Props of the canvas editor (app/canvas/design-editor.tsx), mounted by the editor route.
+ * What the editor route hands the canvas editor: the document, its versions and the two save calls.
+ * The canvas adds its own view options to these (DesignEditorProps in app/canvas/contract.ts).
  * The two callbacks talk to the design API. They resolve with the outcomes above; any other
  * failure (signed out, no permission, network down, server error) rejects with an Error whose
  * message can be shown to the user as it is.
  */
-export type DesignEditorProps = {
+export type EditorDocumentProps = {
   /** The draft document, or the latest revision's when that is newer; may be invalid. */
   initial: unknown;
   /** The draft's version for optimistic concurrency (0 when the design has no draft). */

@@ -67,4 +67,15 @@ describe("structuralDiff", () => {
     key.closedIn = ["off", "on"];
     expect(structuralDiff(a, b).components.changed).toEqual([{ id: "KEY", fields: ["closedIn"], values: [{ field: "closedIn", before: '["on"]', after: '["off","on"]' }] }]);
   });
+
+  it("does not count key order as a change, and counts a field that appears as one", () => {
+    const a = generatedDesign(8);
+    const b = structuredClone(a);
+    // The same component with its keys written in reverse order: canonical JSON (RFC 8785) sorts them.
+    b.components = b.components.map((c) => Object.fromEntries(Object.entries(c).reverse()) as typeof c);
+    expect(structuralDiff(a, b).empty).toBe(true);
+    const key = b.components.find((c) => c.id === "KEY") as { note?: string };
+    key.note = "added";
+    expect(structuralDiff(a, b).components.changed).toEqual([{ id: "KEY", fields: ["note"], values: [{ field: "note", before: "(none)", after: '"added"' }] }]);
+  });
 });

@@ -1,6 +1,7 @@
 // What changed between two revisions: the structure (components, wires, conditions, rules,
 // controller) from the documents, and the truth-table rows whose drive or violated rules changed,
 // evaluated by the engine on both designs when their conditions are identical (same row numbering).
+import { canonicalJson } from "~/lib/canonical-json";
 import { csvChunks, decodeRow, evaluateRow, type CompiledDesign, type Design, type RowFilter } from "../engine";
 
 /** A changed field with its value before and after, as compact JSON (`["released"]`, `"Seat switch"`). */
@@ -20,16 +21,9 @@ export type StructuralDiff = {
   empty: boolean;
 };
 
-/** JSON with sorted keys, so key order never counts as a change. */
+/** JSON with sorted keys, so key order never counts as a change; an absent field differs from null. */
 function canonical(v: unknown): string {
-  if (Array.isArray(v)) return `[${v.map(canonical).join(",")}]`;
-  if (v && typeof v === "object") {
-    return `{${Object.keys(v)
-      .sort()
-      .map((k) => `${JSON.stringify(k)}:${canonical((v as Record<string, unknown>)[k])}`)
-      .join(",")}}`;
-  }
-  return JSON.stringify(v) ?? "null";
+  return v === undefined ? "(absent)" : canonicalJson(v);
 }
 
 /** A value as people read it in a diff: compact JSON, "(none)" when absent. */
