@@ -13,6 +13,7 @@ import { contentHash } from "./content-hash.server";
 import { startingDocument } from "./templates.server";
 import { NO_VEHICLE, type CreateDesignInput, type DesignFilter } from "./forms";
 import { checkDraft } from "./proof";
+import { readRevisionDesign } from "./revision-document";
 import type { DesignStatus, DesignSummary } from "./types";
 
 const { design, designRevision, designDraft, vehicle, user, workspace } = schema;
@@ -255,7 +256,7 @@ export async function listRevisions(workspaceId: string, designId: string) {
     .orderBy(desc(designRevision.number));
 }
 
-/** One revision with its document and verdict; the latest when number is omitted. */
+/** One revision with its document (validated, as the engine's Design) and verdict; the latest when number is omitted. */
 export async function getRevision(workspaceId: string, designId: string, number?: number) {
   const rows = await db
     .select({ revision: designRevision, authorName: user.name })
@@ -271,7 +272,7 @@ export async function getRevision(workspaceId: string, designId: string, number?
     .orderBy(desc(designRevision.number))
     .limit(1);
   const row = rows[0];
-  return row ? { ...row.revision, authorName: row.authorName } : null;
+  return row ? { ...row.revision, document: readRevisionDesign(row.revision.document, row.revision.id), authorName: row.authorName } : null;
 }
 
 // ---------------------------------------------------------------- drafts

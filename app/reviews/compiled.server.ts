@@ -3,22 +3,21 @@
 // so keeping it alive keeps later filtered pages fast. Never the table itself: rows are computed.
 import { and, eq } from "drizzle-orm";
 import { db, schema } from "~/db/client.server";
-import { compileDesign, validateDesign, type CompiledDesign } from "~/engine";
+import { compileDesign, type CompiledDesign, type Design } from "~/engine";
+import { readRevisionDesign } from "~/designs/revision-document";
 
 const MAX_ENTRIES = 8;
 const cache = new Map<string, CompiledDesign>();
 
-/** The compiled design of a stored document; throws if the stored document is not a valid design. */
-export function compiledFor(revisionId: string, document: unknown): CompiledDesign {
+/** The compiled design of a revision's design (read with readRevisionDesign). */
+export function compiledFor(revisionId: string, design: Design): CompiledDesign {
   const hit = cache.get(revisionId);
   if (hit) {
     cache.delete(revisionId);
     cache.set(revisionId, hit);
     return hit;
   }
-  const valid = validateDesign(document);
-  if (!valid.ok) throw new Error(`revision ${revisionId} holds an invalid design: ${valid.problems[0]?.message ?? "unknown problem"}`);
-  const compiled = compileDesign(valid.design);
+  const compiled = compileDesign(design);
   cache.set(revisionId, compiled);
   while (cache.size > MAX_ENTRIES) cache.delete(cache.keys().next().value!);
   return compiled;
@@ -40,7 +39,7 @@ export async function revisionRef(workspaceId: string, designId: string, number:
 /** The compiled design of a revision, reading its document only when it is not cached. */
 export async function compiledRevision(workspaceId: string, ref: RevisionRef): Promise<CompiledDesign> {
   const hit = cache.get(ref.id);
-  if (hit) return compiledFor(ref.id, null);
+  if (hit) return compiledFor(ref.id, hit.design);
   const t = schema.designRevision;
   const rows = await db
     .select({ document: t.document })
@@ -48,7 +47,7 @@ export async function compiledRevision(workspaceId: string, ref: RevisionRef): P
     .where(and(eq(t.workspaceId, workspaceId), eq(t.id, ref.id)))
     .limit(1);
   if (!rows[0]) throw new Error(`revision ${ref.id} is gone`);
-  return compiledFor(ref.id, rows[0].document);
+  return compiledFor(ref.id, readRevisionDesign(rows[0].document, ref.id));
 }
 
 /** Parses a revision number from a URL segment; null when it is not one. */

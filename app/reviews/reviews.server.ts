@@ -7,9 +7,8 @@ import { db, schema } from "~/db/client.server";
 import { recordAudit } from "~/audit/audit.server";
 import { composeMail, sendMail } from "~/mail/mailer.server";
 import { env } from "~/env.server";
-import { decodeRow, type RowStates } from "~/engine";
+import { decodeRow, type CompiledDesign, type RowStates } from "~/engine";
 import type { Membership } from "~/auth/guard.server";
-import { compiledFor } from "./compiled.server";
 import { reviewStatus, VERDICT_LABELS, type ReviewStatus, type ReviewVerdict } from "./status";
 import { reviewPath } from "./paths";
 import { openFaultsMessage, openFaultsOf } from "./dispositions.server";
@@ -317,20 +316,19 @@ export type CommentInput =
   | { anchor: "component"; component: string; body: string };
 
 /** Any member comments on a revision, on one truth-table row (index and states) or on a component. */
-export async function addComment(m: Membership, revisionId: string, document: unknown, input: CommentInput): Promise<ActOutcome> {
+export async function addComment(m: Membership, revisionId: string, compiled: CompiledDesign, input: CommentInput): Promise<ActOutcome> {
   const rev = await revisionById(m.workspace.id, revisionId);
   if (!rev) return { ok: false, status: 404, fields: { form: "No such revision." } };
   let rowIndex: number | null = null;
   let rowStates: RowStates | null = null;
   let componentId: string | null = null;
   if (input.anchor === "row") {
-    const c = compiledFor(rev.id, document);
+    const c = compiled;
     if (input.row >= c.rows) return { ok: false, status: 400, fields: { row: `Choose a row from 0 to ${c.rows - 1}.` } };
     rowIndex = input.row;
     rowStates = { ...decodeRow(c, input.row) }; // a plain object: the engine returns a prototype-less map
   } else if (input.anchor === "component") {
-    const list = (document as { components?: Array<{ id?: unknown }> }).components ?? [];
-    if (!list.some((x) => x.id === input.component)) {
+    if (!compiled.design.components.some((x) => x.id === input.component)) {
       return { ok: false, status: 400, fields: { component: `This revision has no component ${JSON.stringify(input.component)}.` } };
     }
     componentId = input.component;

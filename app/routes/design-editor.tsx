@@ -29,7 +29,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     const number = /^[1-9][0-9]{0,8}$/.test(wanted) ? Number(wanted) : null;
     const rev = number === null ? null : await getRevision(m.workspace.id, d.id, number);
     if (!rev) throw new Response(`This design has no revision ${wanted}.`, { status: 404 });
-    return { ...common, readOnly: true, initial: rev.document as unknown, baseRevision: rev.number, showing: { kind: "revision" as const, number: rev.number } };
+    return { ...common, readOnly: true, initial: rev.document, baseRevision: rev.number, showing: { kind: "revision" as const, number: rev.number } };
   }
   const latest = await getRevision(m.workspace.id, d.id);
   const start = editorStart(draft, latest);

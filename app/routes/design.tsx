@@ -13,21 +13,8 @@ import { SafetyNote } from "~/components/safety-note";
 import { buttonClass } from "~/components/ui/form";
 import { reviewStatusOf } from "~/reviews/reviews.server";
 import { reviewPath, truthTablePath } from "~/reviews/paths";
+import { labelsOf } from "~/reviews/revision-view.server";
 import { ReviewStatusBadge } from "~/components/truth-table/review-status";
-
-type Labelled = { id?: unknown; label?: unknown };
-
-/** id -> label of a list in a stored document (rules or components), for readable verdicts. */
-function labels(document: unknown, key: "rules" | "components"): Record<string, string> {
-  const list = (document as Record<string, unknown> | null)?.[key];
-  const out: Record<string, string> = {};
-  if (Array.isArray(list)) {
-    for (const item of list as Labelled[]) {
-      if (typeof item?.id === "string") out[item.id] = typeof item.label === "string" && item.label ? item.label : item.id;
-    }
-  }
-  return out;
-}
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, params.ws, CAN.view);
@@ -46,7 +33,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     // Over the time limit the page shows the stored check without the rule names.
     const proof = await proveOffThread(draft.document).catch(() => ({ ok: false as const }));
     if (proof.ok) {
-      const names = labels(draft.document, "rules");
+      const names = labelsOf(proof.design).rules;
       draftFailing = proof.verdict.rules.filter((r) => !r.holds).map((r) => names[r.id] ?? r.id);
     }
   }
@@ -62,8 +49,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
           authorName: latest.authorName,
           createdAt: latest.createdAt.toISOString(),
           verdict: latest.verdict,
-          ruleLabels: labels(latest.document, "rules"),
-          componentLabels: labels(latest.document, "components"),
+          ruleLabels: labelsOf(latest.document).rules,
+          componentLabels: labelsOf(latest.document).components,
         }
       : null,
     draft: draft

@@ -5,6 +5,7 @@ import type { Route } from "./+types/review";
 import { CAN, type Role } from "~/lib/roles";
 import { fieldErrors, type FieldErrors } from "~/lib/forms";
 import { requireRevisionPage } from "~/reviews/access.server";
+import { compiledRevision } from "~/reviews/compiled.server";
 import { addComment, decide, getReview, listReviewers, requestReview, reviewStatusOf } from "~/reviews/reviews.server";
 import { compareWithLastApproved, labelsOf, loadRevision, tracesOf } from "~/reviews/revision-view.server";
 import { commentSchema, decisionSchema, requestReviewSchema, reviewFormObject } from "~/reviews/forms";
@@ -104,8 +105,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   if (intent === "comment") {
     const parsed = commentSchema.safeParse(form);
     if (!parsed.success) return fail(400, fieldErrors(parsed.error));
-    const loaded = await loadRevision(member.workspace.id, ref.designId, ref.number);
-    const out = await addComment(member, ref.id, loaded?.rev.document, parsed.data);
+    const out = await addComment(member, ref.id, await compiledRevision(member.workspace.id, ref), parsed.data);
     if (!out.ok) return fail(out.status, out.fields);
     return { intent, ok: true, message: "Comment added." } satisfies ActionResult;
   }

@@ -3,6 +3,7 @@
 import { and, asc, desc, eq, isNull, sql } from "drizzle-orm";
 import { db, schema } from "~/db/client.server";
 import { recordAudit } from "~/audit/audit.server";
+import { readRevisionDesign } from "~/designs/revision-document";
 import type { z } from "zod";
 import type { vehicleSchema } from "~/lib/forms";
 import { revisionApproval } from "./approval.server";
@@ -125,7 +126,7 @@ export async function currentRelease(workspaceId: string, vehicleId: string) {
     .from(designRevision)
     .where(and(eq(designRevision.id, latest.revisionId), eq(designRevision.workspaceId, workspaceId)))
     .limit(1);
-  return { ...latest, document: rows[0]!.document, authorId: rows[0]!.authorId };
+  return { ...latest, document: readRevisionDesign(rows[0]!.document, latest.revisionId), authorId: rows[0]!.authorId };
 }
 
 /** Revisions that could be released: every revision of the workspace, designs for this vehicle first. */

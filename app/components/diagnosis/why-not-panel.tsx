@@ -81,10 +81,10 @@ function BlockerCard({ b, n, onSet }: { b: Blocker; n: number; onSet: (cond: str
   );
 }
 
-export function WhyNotPanel({ document, vehicleName }: { document: unknown; vehicleName: string }) {
+export function WhyNotPanel({ document, vehicleName }: { document: Design; vehicleName: string }) {
   const compiled = useMemo<CompiledDesign | null>(() => {
     try {
-      return compileDesign(document as Design);
+      return compileDesign(document);
     } catch {
       return null;
     }
