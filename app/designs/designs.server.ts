@@ -6,13 +6,15 @@ import type { DesignRecord } from "~/db/schema.server";
 import { requireMember, requireUser, type Membership } from "~/auth/guard.server";
 import { recordAudit } from "~/audit/audit.server";
 import { getVehicle } from "~/vehicles/vehicles.server";
-import type { Design, Verdict } from "~/engine";
+import type { Design, Problem, Verdict } from "~/engine";
+import { storableJsonProblem } from "~/lib/storable-json";
+import { proveOffThread } from "~/proofs/pool.server";
 import type { Role } from "~/lib/roles";
 import { apiError } from "~/api/http.server";
 import { contentHash } from "./content-hash.server";
 import { startingDocument } from "./templates.server";
 import { NO_VEHICLE, type CreateDesignInput, type DesignFilter } from "./forms";
-import { checkDraft } from "./proof";
+import { checkDraft, revisionRefusal } from "./proof";
 import { readRevisionDesign } from "./revision-document";
 import type { DesignStatus, DesignSummary } from "./types";
 
@@ -193,7 +195,7 @@ async function latestNumber(workspaceId: string, designId: string, executor: Pic
  * One transaction: the design row is locked (FOR UPDATE) so concurrent saves queue up and all but
  * the first see a newer latest number; the unique (design_id, number) index backs this up.
  */
-export async function saveRevision(
+async function saveRevision(
   workspaceId: string,
   designId: string,
   actorId: string,
@@ -237,6 +239,46 @@ export async function saveRevision(
     if (isUniqueViolation(e)) return { kind: "stale", latestRevision: await latestNumber(workspaceId, designId) };
     throw e;
   }
+}
+
+export type SaveProvenOutcome =
+  | { kind: "saved"; number: number; contentHash: string; verdict: Verdict }
+  /** PostgreSQL could not store it as it is (NUL, a broken surrogate, nesting too deep). */
+  | { kind: "unstorable"; problem: Problem }
+  /** Not a design of the format: the engine's problems. */
+  | { kind: "invalid"; problems: Problem[] }
+  /** Proven, but not proven safe: a rule fails or it never drives (spec 1.1). */
+  | { kind: "refused"; code: "never_drives" | "rules_fail"; message: string; verdict: Verdict }
+  | { kind: "stale"; latestRevision: number }
+  | { kind: "missing" };
+
+/**
+ * Only proven designs become revisions: the one way a document becomes a revision, for pages and
+ * API alike. Checks that PostgreSQL can store it, proves it with the engine (off the request thread,
+ * within the proof limits: a ProofLimitError escapes to the caller, who answers 422 or 429), refuses
+ * it unless every rule holds and it drives, then saves the engine's own copy of the document.
+ * Nothing is saved unless the outcome is "saved".
+ */
+export async function saveProvenRevision(
+  workspaceId: string,
+  designId: string,
+  actorId: string,
+  input: { document: unknown; baseRevision: number; message: string },
+): Promise<SaveProvenOutcome> {
+  // Before the engine: text jsonb cannot store and nesting too deep to walk.
+  const unstorable = storableJsonProblem(input.document, "");
+  if (unstorable) return { kind: "unstorable", problem: unstorable };
+  const proof = await proveOffThread(input.document, { userId: actorId });
+  if (!proof.ok) return { kind: "invalid", problems: proof.problems };
+  const refusal = revisionRefusal(proof.verdict);
+  if (refusal) return { kind: "refused", ...refusal, verdict: proof.verdict };
+  const saved = await saveRevision(workspaceId, designId, actorId, {
+    design: proof.design,
+    verdict: proof.verdict,
+    baseRevision: input.baseRevision,
+    message: input.message,
+  });
+  return saved.kind === "saved" ? { ...saved, verdict: proof.verdict } : saved;
 }
 
 export async function listRevisions(workspaceId: string, designId: string) {

@@ -9,10 +9,8 @@ import type { Route } from "./+types/design-revisions";
 import { CAN } from "~/lib/roles";
 import { apiError, handleApi, readJsonBody, reply, requireMethod, zodFields } from "~/api/http.server";
 import { api } from "~/api/endpoints";
-import { storableJsonProblem } from "~/lib/storable-json";
-import { listRevisions, requireDesign, saveRevision } from "~/designs/designs.server";
-import { proofLimitAnswer, proveOffThread } from "~/proofs/pool.server";
-import { revisionRefusal } from "~/designs/proof";
+import { listRevisions, requireDesign, saveProvenRevision } from "~/designs/designs.server";
+import { proofLimitAnswer } from "~/proofs/pool.server";
 import { jsonObjectSchema, saveRevisionBodySchema } from "~/designs/forms";
 import { DESIGN_BODY_MAX_BYTES } from "~/designs/types";
 import { parseQuery } from "~/api/access.server";
@@ -51,23 +49,15 @@ export async function action({ request, params }: Route.ActionArgs) {
     if (!body.success) return apiError(400, "invalid_body", "The revision request is incomplete.", zodFields(body.error));
     const { document, baseRevision, message } = body.data;
 
-    // Before the engine: text jsonb cannot store (NUL, broken surrogates) and nesting too deep to walk.
-    const unstorable = storableJsonProblem(document, "");
-    if (unstorable) return apiError(400, "invalid_design", "The design holds something that cannot be stored; nothing was saved.", [unstorable]);
-    const proof = await proveOffThread(document, { userId: member.user.id }).catch(proofLimitAnswer);
-    if (!proof.ok) {
-      const n = proof.problems.length;
-      return apiError(400, "invalid_design", `The design breaks the format in ${n} ${n === 1 ? "place" : "places"}; nothing was saved.`, proof.problems);
+    const saved = await saveProvenRevision(member.workspace.id, design.id, member.user.id, { document, baseRevision, message }).catch(proofLimitAnswer);
+    if (saved.kind === "unstorable") {
+      return apiError(400, "invalid_design", "The design holds something that cannot be stored; nothing was saved.", [saved.problem]);
     }
-    const refusal = revisionRefusal(proof.verdict);
-    if (refusal) return apiError(422, refusal.code, refusal.message, [], { verdict: proof.verdict });
-
-    const saved = await saveRevision(member.workspace.id, design.id, member.user.id, {
-      design: proof.design,
-      verdict: proof.verdict,
-      baseRevision,
-      message,
-    });
+    if (saved.kind === "invalid") {
+      const n = saved.problems.length;
+      return apiError(400, "invalid_design", `The design breaks the format in ${n} ${n === 1 ? "place" : "places"}; nothing was saved.`, saved.problems);
+    }
+    if (saved.kind === "refused") return apiError(422, saved.code, saved.message, [], { verdict: saved.verdict });
     if (saved.kind === "missing") return apiError(404, "not_found", "No such design.");
     if (saved.kind === "stale") {
       return apiError(
@@ -78,6 +68,6 @@ export async function action({ request, params }: Route.ActionArgs) {
         { latestRevision: saved.latestRevision },
       );
     }
-    return reply(api.saveRevision, 201, { revision: { number: saved.number, contentHash: saved.contentHash, verdict: proof.verdict } });
+    return reply(api.saveRevision, 201, { revision: { number: saved.number, contentHash: saved.contentHash, verdict: saved.verdict } });
   });
 }
