@@ -10,6 +10,7 @@ import {
 } from "./derive";
 import { recordBrakeCutsDrive, recordLockouts, type ControllerRecord } from "./schema";
 import { CHEMISTRY_WORDS, CLASS_WORDS, LOCKOUT_WORDS } from "./words";
+import { lockoutName } from "../lib/lockouts";
 
 export type Severity = "error" | "warning";
 
@@ -129,7 +130,7 @@ export function designFindings(r: ControllerRecord, d: DerivedValues, design: Pi
   for (const l of assumed) {
     if (!has.has(l)) {
       out.push(finding("lockout-missing",
-        `The proof assumes the ${l} lockout (${LOCKOUT_WORDS[l]}); the record does not have it.`));
+        `The proof assumes the ${lockoutName(l)} (${LOCKOUT_WORDS[l]}); the record does not have it.`));
     }
   }
   const designBrake = design.controller.brakeCutsDrive ?? true;
@@ -143,7 +144,7 @@ export function designFindings(r: ControllerRecord, d: DerivedValues, design: Pi
   const designFault = design.controller.throttle.fault ?? [];
   if (openFault && assumed.includes("throttle-fault") && designFault.length === 0) {
     out.push(finding("throttle-fault-unused",
-      "The controller reads a broken throttle wire as a fault and the design lists the throttle-fault lockout, but the design's throttle has no fault state, so the proof never looks at a throttle fault."));
+      `The controller reads a broken throttle wire as a fault and the design lists the ${lockoutName("throttle-fault")}, but the design's throttle has no fault state, so the proof never looks at a throttle fault.`));
   }
   return out;
 }

@@ -1,6 +1,8 @@
 // The record's words: every field's label and unit, and the names of chemistries, sensors, lockouts
 // and throttle classes. Plain trade words of our own, shared by the form, the findings and the pages.
 import type { Lockout } from "../engine/index";
+import { LOCKOUTS } from "../engine/vocabulary";
+import { LOCKOUT_TEXT } from "../lib/lockouts";
 import type { Chemistry, ThrottleSensor } from "./schema";
 import type { ThrottleClassName } from "./derive";
 
@@ -29,7 +31,7 @@ export const FIELD_WORDS = {
   "settings.throttle.faultBelowV": { label: "Wiring fault below", unit: "V" },
   "settings.throttle.faultAboveV": { label: "Wiring fault above", unit: "V" },
   "settings.brakeCutsDrive": { label: "The brake input cuts drive" },
-  "settings.lockouts": { label: "Start-up lockouts", hint: "Each one holds drive off until the throttle has been let go" },
+  "settings.lockouts": { label: "Lockouts", hint: "Each one holds drive off until the throttle has been let go" },
   "settings.precharge.resistorOhm": { label: "Precharge resistor", unit: "Ω" },
   "settings.precharge.capacitanceUF": { label: "Controller input capacitance", unit: "µF" },
   "settings.precharge.delayMs": { label: "Precharge time before the main contactor closes", unit: "ms" },
@@ -50,14 +52,8 @@ export const SENSOR_WORDS: Record<ThrottleSensor, string> = {
   voltage: "0-5 V signal from another device",
 };
 
-/** What each lockout makes the controller do, as a technician would check it on the vehicle. */
-export const LOCKOUT_WORDS: Record<Lockout, string> = {
-  "power-on": "after switching on, drive waits for the throttle to be let go",
-  "enable-restore": "when the enable line comes back (seat, key, interlock), drive waits for the throttle to be let go",
-  "direction-engage": "after choosing forward or reverse, drive waits for the throttle to be let go",
-  "brake-release": "after the brake is let off, drive waits for the throttle to be let go",
-  "throttle-fault": "after a throttle wiring fault, drive stays off until the throttle reads released",
-};
+/** What each lockout makes the controller do, as a technician would check it on the vehicle (one source: lib/lockouts). */
+export const LOCKOUT_WORDS: Record<Lockout, string> = Object.fromEntries(LOCKOUTS.map((l) => [l, LOCKOUT_TEXT[l].check])) as Record<Lockout, string>;
 
 export const CLASS_WORDS: Record<ThrottleClassName, string> = {
   released: "released",

@@ -60,6 +60,7 @@ export {
   type ContactToClose,
   type ReadingsExplanation,
 } from "./diagnose";
+export { smallestChange, MAX_CHANGES, type RestoreGoal, type ConditionChange, type SmallestChange } from "./restore";
 export {
   groupRows,
   groupBits,

@@ -45,7 +45,7 @@ describe("whyNot", () => {
     expect(held.drive).toBe(false);
     expect(held.steadyDrive).toBe(true);
     const lockout = held.blockers.find((b) => b.code === "lockout-latched")!;
-    expect(lockout.title).toContain("start-up lockout");
+    expect(lockout.title).toContain("power-on lockout");
     expect(lockout.advice).toContain("Return Accelerator pedal to up");
     const after = whyNot(hauler, ready, [...history, ready, { ...ready, pedal: "up" }]);
     expect(after.drive).toBe(true);

@@ -5,6 +5,10 @@
 import {
   diagnose,
   encodeRow,
+  replayTrace,
+  smallestChange,
+  type RestoreGoal,
+  type SmallestChange,
   evaluateRow,
   explainReadings,
   type CompiledDesign,
@@ -15,6 +19,7 @@ import {
   type Lockout,
   type RowView,
 } from "../engine";
+import { lockoutName } from "../lib/lockouts";
 
 export type WireEnd = { terminal: string; to: string[] };
 
@@ -33,11 +38,36 @@ export type ContactCheck = {
   terminals: WireEnd[];
 };
 
+/** One condition to change, in a technician's words. */
+export type ChangeStep = { condition: string; conditionLabel: string; from: string; to: string };
+
+/** A smallest change of conditions: what to set, and the rows to set it through, in order. */
+export type ChangeOption = {
+  changes: ChangeStep[];
+  /** A lockout latches on the way: the throttle must go back to rest and be applied again. */
+  cycleThrottle: boolean;
+  /**
+   * Even after that a lockout holds drive off (the throttle's own contacts re-arm it when it is
+   * applied): these conditions give drive in the steady table, but not when reached this way.
+   */
+  heldOff: boolean;
+  /** The conditions after each move (the Apply button replays them as taps). */
+  steps: Array<Record<string, string>>;
+};
+
+/** The smallest change of conditions that reaches a goal, or none: then only a wiring fault explains it. */
+export type ChangeAdvice = { kind: "none" } | { kind: "change"; size: number; options: ChangeOption[]; count: number };
+
 export type Blocker = {
   code: Diagnosis["reasons"][number]["code"];
   title: string;
   advice: string;
-  /** Each entry: a smallest set of contacts that must all change together (usually one contact). */
+  /** The smallest change of conditions that clears this blocker (absent for a latched lockout). */
+  change?: ChangeAdvice;
+  /**
+   * Where to measure: smallest sets of contacts in the way, each set one that some setting of the
+   * conditions closes (or opens) together. Sets no setting can give are left out.
+   */
   contactSets: ContactCheck[][];
   /** The engine listed only some of the smallest sets. */
   truncated?: boolean;
@@ -50,20 +80,12 @@ export type WhyNot = {
   steadyDrive: boolean;
   latched: boolean;
   row: RowView;
+  /** The smallest change of conditions that brings drive back (size 0 and no options when it runs). */
+  restore: ChangeAdvice;
   blockers: Blocker[];
 };
 
-const LOCKOUT_NAMES: Record<Lockout, string> = {
-  "power-on": "start-up",
-  "enable-restore": "enable-return",
-  "direction-engage": "direction-select",
-  "brake-release": "brake-release",
-  "throttle-fault": "throttle-fault",
-};
-
-export function lockoutName(l: Lockout): string {
-  return `${LOCKOUT_NAMES[l]} lockout`;
-}
+export { lockoutName };
 
 const list = (xs: string[], last = "or") => (xs.length <= 1 ? xs.join("") : `${xs.slice(0, -1).join(", ")} ${last} ${xs[xs.length - 1]}`);
 
@@ -126,6 +148,79 @@ function contactsFeeding(c: CompiledDesign, row: RowView, inputId: string): Cont
   return only.length > 0 ? only : all;
 }
 
+/** Some one setting of the conditions puts every contact of the set in its wanted position. */
+function settable(c: CompiledDesign, set: ContactCheck[]): boolean {
+  const allowed = new Map<string, string[]>();
+  for (const k of set) {
+    const prev = allowed.get(k.condition);
+    allowed.set(k.condition, prev ? prev.filter((s) => k.targetStates.includes(s)) : k.targetStates);
+  }
+  return [...allowed.values()].every((xs) => xs.length > 0);
+}
+
+const restStateOf = (c: CompiledDesign) => {
+  const t = c.conditions[c.throttle.cond];
+  return t.states.find((_, i) => c.throttle.classOf[i] === 0);
+};
+
+/**
+ * The moves of one change as taps: every other condition first, the throttle last; with a history,
+ * replayed (spec 1.5) and, when a lockout latches on the way, the throttle returned to rest and
+ * applied again.
+ */
+function optionOf(c: CompiledDesign, states: Record<string, string>, changes: ChangeStep[], history: Array<Record<string, string>> | undefined, goal: RestoreGoal): ChangeOption {
+  const t = c.conditions[c.throttle.cond].id;
+  const target = { ...states };
+  for (const ch of changes) target[ch.condition] = ch.to;
+  const steps: Array<Record<string, string>> = [];
+  const others = changes.filter((ch) => ch.condition !== t);
+  if (others.length > 0 && others.length < changes.length) {
+    const mid = { ...states };
+    for (const ch of others) mid[ch.condition] = ch.to;
+    steps.push(mid);
+  }
+  if (changes.length > 0) steps.push(target);
+  let cycleThrottle = false;
+  let heldOff = false;
+  if (goal === "drive" && history) {
+    const drives = (moves: Array<Record<string, string>>) => {
+      const trace = replayTrace(c, [...history, states, ...moves]);
+      return trace[trace.length - 1].drive;
+    };
+    const rest = restStateOf(c);
+    if (!drives(steps) && rest !== undefined && target[t] !== rest) {
+      steps.push({ ...target, [t]: rest }, target);
+      cycleThrottle = true;
+    }
+    heldOff = !drives(steps);
+  }
+  return { changes, cycleThrottle, heldOff, steps };
+}
+
+function adviceOf(c: CompiledDesign, states: Record<string, string>, found: SmallestChange, history: Array<Record<string, string>> | undefined, goal: RestoreGoal): ChangeAdvice {
+  if (!found.reachable) return { kind: "none" };
+  const label = (id: string) => c.conditions[c.conditionIndex[id]].label;
+  return {
+    kind: "change",
+    size: found.size,
+    count: found.count,
+    options: found.changes.map((set) =>
+      optionOf(
+        c,
+        states,
+        set.map((ch) => ({ ...ch, conditionLabel: label(ch.condition) })),
+        history,
+        goal,
+      ),
+    ),
+  };
+}
+
+/** The smallest change of conditions that reaches `goal` from `states` (after `history`, for drive). */
+export function changeFor(c: CompiledDesign, states: Record<string, string>, goal: RestoreGoal, history?: Array<Record<string, string>>): ChangeAdvice {
+  return adviceOf(c, states, smallestChange(c, states, goal), history, goal);
+}
+
 function inputName(c: CompiledDesign, fn: InputFunction): string {
   const i = c.inputOf[fn];
   if (i < 0) return fn;
@@ -142,7 +237,7 @@ export function whyNot(c: CompiledDesign, states: Record<string, string>, histor
     const x = inputOf(fn);
     if (!x) return { contactSets: [] as ContactCheck[][] };
     return {
-      contactSets: x.fixes.map((set) => set.map((k) => contactCheck(c, row, k.contact, "close"))),
+      contactSets: x.fixes.map((set) => set.map((k) => contactCheck(c, row, k.contact, "close"))).filter((set) => settable(c, set)),
       ...(x.truncated ? { truncated: true } : {}),
       ...(x.unreachable ? { unreachable: true } : {}),
     };
@@ -156,7 +251,8 @@ export function whyNot(c: CompiledDesign, states: Record<string, string>, histor
         blockers.push({
           code: r.code,
           title: `No power: ${inputName(c, "power")} is dead`,
-          advice: "Bring power to the controller first; nothing else can be checked without it. Close the contacts below.",
+          advice: "Bring power to the controller first; nothing else can be checked without it.",
+          change: changeFor(c, states, "powered"),
           ...setsFor("power"),
         });
         break;
@@ -164,7 +260,8 @@ export function whyNot(c: CompiledDesign, states: Record<string, string>, histor
         blockers.push({
           code: r.code,
           title: `Not enabled: ${inputName(c, "enable")} is dead`,
-          advice: "The enable line is open somewhere. Check the contacts below, in the order listed.",
+          advice: "The enable line is open somewhere.",
+          change: changeFor(c, states, "enabled"),
           ...setsFor("enable"),
         });
         break;
@@ -174,7 +271,8 @@ export function whyNot(c: CompiledDesign, states: Record<string, string>, histor
         blockers.push({
           code: r.code,
           title: "No direction selected",
-          advice: "Select a direction: one of the contact changes below makes a direction input live.",
+          advice: "Select a direction.",
+          change: changeFor(c, states, "direction"),
           contactSets: [...fwd.contactSets, ...rev.contactSets],
           ...(fwd.truncated || rev.truncated ? { truncated: true } : {}),
         });
@@ -185,7 +283,8 @@ export function whyNot(c: CompiledDesign, states: Record<string, string>, histor
         blockers.push({
           code: r.code,
           title: "Forward and reverse are both live",
-          advice: "The controller refuses to choose. Open one of the contacts below; if none should be closed here, look for a short between the direction lines.",
+          advice: "The controller refuses to choose. If none of the contacts below should be closed here, look for a short between the direction lines.",
+          change: changeFor(c, states, "direction"),
           contactSets: sets,
         });
         break;
@@ -194,7 +293,8 @@ export function whyNot(c: CompiledDesign, states: Record<string, string>, histor
         blockers.push({
           code: r.code,
           title: `Brake applied: ${inputName(c, "brake")} is live`,
-          advice: "Braking cuts the drive. Release the brake; if it is released, one of these contacts is feeding the brake input.",
+          advice: "Braking cuts the drive. Release the brake; if it is released, one of the contacts below is feeding the brake input.",
+          change: changeFor(c, states, "not-braking"),
           contactSets: contactsFeeding(c, row, c.inputs[c.inputOf.brake].id),
         });
         break;
@@ -203,6 +303,7 @@ export function whyNot(c: CompiledDesign, states: Record<string, string>, histor
           code: r.code,
           title: `${t.label} is at rest (${states[t.id]})`,
           advice: `Apply it: set ${t.label} to ${list(throttleStates(1))}.`,
+          change: changeFor(c, states, "throttle-applied"),
           contactSets: [],
         });
         break;
@@ -211,6 +312,7 @@ export function whyNot(c: CompiledDesign, states: Record<string, string>, histor
           code: r.code,
           title: `${t.label} reads a fault (${states[t.id]})`,
           advice: `The controller ignores a faulty throttle. Check the throttle unit and its wiring until it reads ${list([...throttleStates(0), ...throttleStates(1)])}.`,
+          change: changeFor(c, states, "throttle-applied"),
           contactSets: [],
         });
         break;
@@ -227,7 +329,10 @@ export function whyNot(c: CompiledDesign, states: Record<string, string>, histor
       }
     }
   }
-  return { drive: d.drive, steadyDrive: d.steadyDrive, latched: d.latched, row, blockers };
+  const restore: ChangeAdvice = d.drive
+    ? { kind: "change", size: 0, count: 1, options: [{ changes: [], cycleThrottle: false, heldOff: false, steps: [] }] }
+    : changeFor(c, states, "drive", history);
+  return { drive: d.drive, steadyDrive: d.steadyDrive, latched: d.latched, row, restore, blockers };
 }
 
 export type Suspect = {

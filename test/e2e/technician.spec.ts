@@ -41,6 +41,8 @@ test("the seat contact is named when the seat is empty, and a live enable points
   await expect(seat).toContainText("closes when Driver seat is occupied");
   await expect(seat).toContainText("SEAT.1");
   await expect(page.locator('[data-testid="wiring-diagram"] [data-contact="SEAT"]')).toHaveAttribute("data-ring", "check");
+  // The advice is a change of conditions the technician can make, not a set of contacts.
+  await expect(page.getByTestId("restore")).toContainText("Set Driver seat from empty to occupied.");
 
   // Measured mode: the enable input reads live although the seat is empty.
   await page.getByRole("button", { name: "EN reads live" }).tap();
@@ -56,9 +58,12 @@ test("the seat contact is named when the seat is empty, and a live enable points
   await expect(verdict).toHaveAttribute("data-drive", "no");
   await expect(page.getByTestId("blocker").first()).toHaveAttribute("data-code", "lockout-latched");
   await expect(page.getByTestId("blocker").first()).toContainText("Return Accelerator pedal to up");
-  await condition("pedal").getByRole("button", { name: "up", exact: true }).tap();
-  await condition("pedal").getByRole("button", { name: "down", exact: true }).tap();
+  await expect(page.getByTestId("blocker").first()).toContainText("enable-restore lockout");
+  const restore = page.getByTestId("restore");
+  await expect(restore).toContainText("return Accelerator pedal to rest and apply it again");
+  await restore.getByRole("button", { name: "Make this change" }).tap();
   await expect(verdict).toHaveAttribute("data-drive", "yes");
+  await expect(condition("pedal").getByRole("button", { name: "down", exact: true })).toHaveAttribute("aria-pressed", "true");
 });
 
 test("a generated bench test with a failed step and a photo; progress survives a reload; the engineer is mailed", async ({ page }) => {

@@ -2,16 +2,10 @@
 // braking cuts drive, and the lockouts (each explained in one line).
 import type { Lockout, ThrottleMapping } from "../../engine";
 import { LOCKOUTS } from "../../engine/vocabulary";
+import { LOCKOUT_TEXT, lockoutTitle } from "../../lib/lockouts";
 import { useEditor } from "../store";
 import { FieldProblems, Section, Select, problemsUnder, useValidation } from "./common";
 
-export const LOCKOUT_TEXT: Record<Lockout, { title: string; line: string }> = {
-  "power-on": { title: "Power-on", line: "When the power input comes on, drive waits until the throttle has read released once." },
-  "enable-restore": { title: "Enable restore", line: "When the enable line comes back, drive waits for a released throttle." },
-  "direction-engage": { title: "Direction engage", line: "Moving from neutral into forward or reverse holds drive off until the throttle is released." },
-  "brake-release": { title: "Brake release", line: "Letting the brake off holds drive off until the throttle is released." },
-  "throttle-fault": { title: "Throttle fault", line: "A throttle fault reading latches drive off until the throttle reads released." },
-};
 
 const CLASSES = ["released", "applied", "fault"] as const;
 
@@ -120,7 +114,7 @@ export function ControllerPanel() {
               }
             />
             <span>
-              <span className="font-semibold">{LOCKOUT_TEXT[l].title}</span>
+              <span className="font-semibold">{lockoutTitle(l)}</span>
               <span className="block text-xs text-ink-600">{LOCKOUT_TEXT[l].line}</span>
             </span>
           </label>

@@ -16,6 +16,7 @@ import {
   type RecordForm,
 } from "~/controller-record";
 import { LOCKOUTS } from "~/engine";
+import { lockoutTitle } from "~/lib/lockouts";
 import type { FieldErrors } from "~/lib/forms";
 import { useFormCheck } from "~/lib/use-form-check";
 import { Button } from "~/components/ui/form";
@@ -183,7 +184,7 @@ export function RecordFormFields({
         {n("settings.throttle.faultBelowV")}
         {n("settings.throttle.faultAboveV")}
       </Group>
-      <Group title="Brake and start-up lockouts">
+      <Group title="Brake and lockouts">
         <div role="radiogroup" aria-labelledby="cr-brake-label" aria-describedby={brakeError ? "cr-brake-error" : undefined}>
           <p id="cr-brake-label" className="text-sm font-medium text-ink-700">
             {FIELD_WORDS["settings.brakeCutsDrive"].label}
@@ -216,7 +217,7 @@ export function RecordFormFields({
                 <label className="flex min-h-11 items-start gap-3 rounded-md border border-ink-300 px-3 py-2 text-sm">
                   <input type="checkbox" name={lockoutField(l)} value="on" defaultChecked={values[lockoutField(l)] === "on"} className="mt-0.5 h-5 w-5 flex-none" />
                   <span>
-                    <span className="font-medium">{l}</span>: {LOCKOUT_WORDS[l]}
+                    <span className="font-medium">{lockoutTitle(l)}</span>: {LOCKOUT_WORDS[l]}
                   </span>
                 </label>
               </li>

@@ -3,7 +3,7 @@
 // controller inputs and see which stuck contact would explain them. Runs the engine in the browser.
 import { useMemo, useState } from "react";
 import { compileDesign, type CompiledDesign, type Design } from "~/engine";
-import { explainMeasured, restingStates, whyNot, type Blocker, type ContactCheck, type WireEnd } from "~/vehicles/why-not";
+import { explainMeasured, restingStates, whyNot, type Blocker, type ChangeAdvice, type ContactCheck, type WireEnd } from "~/vehicles/why-not";
 import { WiringDiagram } from "./wiring-diagram";
 
 const MAX_HISTORY = 1000;
@@ -25,41 +25,89 @@ function Terminals({ ends }: { ends: WireEnd[] }) {
   );
 }
 
-function ContactLine({ k, onSet }: { k: ContactCheck; onSet: (cond: string, state: string) => void }) {
+function ContactLine({ k }: { k: ContactCheck }) {
   return (
     <div data-testid="contact-check" data-contact={k.contact}>
       <p className="font-medium">
         <span className="font-mono">{k.contact}</span> {k.label !== k.contact ? <span>· {k.label}</span> : null}
       </p>
-      <p className="text-sm text-ink-700">
+      <p className="text-base text-ink-700">
         {k.want === "close" ? "Open now; it closes" : "Closed now; it opens"} when {k.conditionLabel} is {k.targetStates.join(" or ")} (now {k.state}).
         {k.part ? <span className="text-ink-500"> Part: {k.part}.</span> : null}
       </p>
       <Terminals ends={k.terminals} />
-      <div className="mt-2 flex flex-wrap gap-2">
-        {k.targetStates.map((s) => (
-          <button
-            key={s}
-            type="button"
-            onClick={() => onSet(k.condition, s)}
-            className="min-h-11 rounded-md border border-ink-300 bg-white px-3 text-sm font-medium hover:bg-ink-100"
-          >
-            Set {k.conditionLabel} to {s}
-          </button>
-        ))}
-      </div>
     </div>
   );
 }
 
-function BlockerCard({ b, n, onSet }: { b: Blocker; n: number; onSet: (cond: string, state: string) => void }) {
+type Apply = (steps: Array<Record<string, string>>) => void;
+
+const listWords = (xs: string[]) => (xs.length <= 1 ? xs.join("") : `${xs.slice(0, -1).join(", ")} and ${xs[xs.length - 1]}`);
+
+/** The smallest change of conditions (each way of making it, with a button that makes it), or why there is none. */
+export function ChangeAdviceView({ advice, what, throttleLabel, onApply }: { advice: ChangeAdvice; what: string; throttleLabel: string; onApply: Apply }) {
+  if (advice.kind === "none") {
+    return (
+      <p className="mt-2 rounded-md bg-brick-50 px-3 py-2 text-base text-brick-700" data-testid="change-none">
+        No setting of the conditions {what}: only a wiring fault explains it (the vehicle is not wired as the released drawing shows, or a part has failed). Isolate the traction pack before
+        you open the wiring.
+      </p>
+    );
+  }
+  const shown = advice.options.filter((o) => o.steps.length > 0);
+  if (shown.length === 0) return null;
+  return (
+    <div className="mt-2" data-testid="change" data-size={advice.size}>
+      <p className="text-base font-medium text-ink-800">
+        {advice.size === 0 ? "No condition needs to change:" : advice.size === 1 ? "The smallest change: one condition" : `The smallest change: ${advice.size} conditions together`}
+        {shown.length > 1 ? ` (${advice.count} ways${advice.count > shown.length ? `, the first ${shown.length} shown` : ""})` : ""}
+      </p>
+      <ul className="mt-2 space-y-2">
+        {shown.map((o, i) => {
+          const words = o.changes.map((ch) => `set ${ch.conditionLabel} from ${ch.from} to ${ch.to}`);
+          const sentence = words.length > 0 ? `${words[0][0].toUpperCase()}${listWords(words).slice(1)}.` : "";
+          return (
+            <li key={i} className="flex flex-wrap items-center gap-x-3 gap-y-2 rounded-md border border-ink-200 bg-ink-50 p-3" data-testid="change-option">
+              <span className="min-w-0 flex-1 text-base">
+                {sentence}
+                {o.cycleThrottle ? ` ${sentence ? "Then a" : "A"} lockout holds the drive off: return ${throttleLabel} to rest and apply it again.` : ""}
+                {o.heldOff ? " Even so a lockout latches again each time the throttle is applied here: the design's lockouts hold the drive off in these conditions." : ""}
+              </span>
+              <button
+                type="button"
+                onClick={() => onApply(o.steps)}
+                className="min-h-11 rounded-md border border-copper-600 bg-white px-3 text-base font-medium text-copper-700 hover:bg-copper-50"
+              >
+                Make this change
+              </button>
+            </li>
+          );
+        })}
+      </ul>
+    </div>
+  );
+}
+
+const GOAL_WORDS: Partial<Record<Blocker["code"], string>> = {
+  unpowered: "brings the power input live",
+  "not-enabled": "brings the enable input live",
+  neutral: "selects a direction",
+  "direction-conflict": "leaves exactly one direction live",
+  braking: "takes the brake input dead",
+  "throttle-released": "applies the throttle",
+  "throttle-fault": "brings the throttle out of its fault reading",
+};
+
+function BlockerCard({ b, n, throttleLabel, onApply }: { b: Blocker; n: number; throttleLabel: string; onApply: Apply }) {
   return (
     <li className="rounded-lg border border-ink-200 bg-white p-4" data-testid="blocker" data-code={b.code}>
       <h3 className="font-semibold">
         <span className="mr-2 inline-flex h-7 w-7 items-center justify-center rounded-full bg-brick-600 text-sm text-white">{n}</span>
         {b.title}
       </h3>
-      <p className="mt-1 text-sm text-ink-700">{b.advice}</p>
+      <p className="mt-1 text-base text-ink-700">{b.advice}</p>
+      {b.change ? <ChangeAdviceView advice={b.change} what={GOAL_WORDS[b.code] ?? "clears this"} throttleLabel={throttleLabel} onApply={onApply} /> : null}
+      {b.contactSets.length > 0 ? <p className="mt-3 text-base font-medium text-ink-800">Where to measure:</p> : null}
       {b.unreachable ? <p className="mt-2 text-sm text-brick-700">No contact change can bring this input live: it is not wired towards a supply. Check the drawing against the vehicle.</p> : null}
       {b.contactSets.length > 0 ? (
         <ul className="mt-3 space-y-3">
@@ -68,7 +116,7 @@ function BlockerCard({ b, n, onSet }: { b: Blocker; n: number; onSet: (cond: str
               {set.length > 1 ? <p className="mb-2 text-sm font-semibold text-brick-700">These {set.length} contacts must all change together:</p> : null}
               <div className="space-y-3">
                 {set.map((k) => (
-                  <ContactLine key={k.contact} k={k} onSet={onSet} />
+                  <ContactLine key={k.contact} k={k} />
                 ))}
               </div>
               {i < b.contactSets.length - 1 ? <p className="mt-2 text-xs font-semibold uppercase text-ink-500">or</p> : null}
@@ -106,6 +154,12 @@ function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
     setHistory((h) => [...h, states].slice(-MAX_HISTORY));
     setStates({ ...states, [cond]: state });
   };
+  const apply: Apply = (steps) => {
+    if (steps.length === 0) return;
+    setHistory((h) => [...h, states, ...steps.slice(0, -1)].slice(-MAX_HISTORY));
+    setStates(steps[steps.length - 1]);
+  };
+  const throttleLabel = c.conditions[c.throttle.cond].label;
   const restart = () => {
     setHistory([]);
     setStates(restingStates(c));
@@ -189,9 +243,13 @@ function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
           <h2 id="blockers-h" className="text-lg font-semibold">
             What blocks the drive, in the order to check
           </h2>
+          <div className="mt-3 rounded-lg border-2 border-copper-600 bg-white p-4" data-testid="restore">
+            <h3 className="font-semibold">To bring the drive back</h3>
+            <ChangeAdviceView advice={result.restore} what="lets this design drive" throttleLabel={throttleLabel} onApply={apply} />
+          </div>
           <ol className="mt-3 space-y-3">
             {result.blockers.map((b, i) => (
-              <BlockerCard key={b.code} b={b} n={i + 1} onSet={set} />
+              <BlockerCard key={b.code} b={b} n={i + 1} throttleLabel={throttleLabel} onApply={apply} />
             ))}
           </ol>
         </section>
