@@ -89,9 +89,13 @@ export const tableRowSchema = z
     braking: z.boolean(),
     throttle,
     drive: z.boolean(),
-    rules: z.array(z.enum(["-", "unsafe", "violating"])),
+    rules: z.array(z.enum(["-", "unsafe", "violating", "demand", "failing"])),
   })
-  .meta({ id: "TableRow", description: "One truth-table row, values in column order (conditions, contacts, inputs, inhibit rules)." });
+  .meta({
+    id: "TableRow",
+    description:
+      "One truth-table row, values in column order (conditions, contacts, inputs, rules). rules: one cell per inhibit or require-drive rule in design order; unsafe/violating for an inhibit rule, demand/failing (demand without drive) for a require-drive rule, - where its when does not hold.",
+  });
 export type TableRow = z.output<typeof tableRowSchema>;
 
 const contactToClose = z.object({ contact: z.string(), label: z.string(), condition: z.string(), closeIn: z.array(z.string()) });

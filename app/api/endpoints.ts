@@ -106,8 +106,8 @@ const runId = z.object({ runId: z.string().meta({ description: "The bench run's 
 
 // The truth-table filter (parsed by app/reviews/truth-table.ts, which names the parameter in its errors).
 const rowFilterQuery = z.object({
-  only: z.enum(ONLY).optional().meta({ description: "unsafe, violating or drive rows only." }),
-  rule: z.string().optional().meta({ description: "With only=unsafe|violating: that inhibit rule's rows." }),
+  only: z.enum(ONLY).optional().meta({ description: "unsafe, violating, drive, demand or failing rows only (demand and failing: of require-drive rules)." }),
+  rule: z.string().optional().meta({ description: "With only=unsafe|violating: that inhibit rule's rows; with only=demand|failing: that require-drive rule's." }),
   where: z.string().optional().meta({ description: "COND:STATE; repeat it; states of one condition are alternatives." }),
 });
 

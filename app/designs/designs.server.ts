@@ -284,6 +284,7 @@ export async function saveProvenRevision(
 export async function listRevisions(workspaceId: string, designId: string) {
   return db
     .select({
+      id: designRevision.id,
       number: designRevision.number,
       contentHash: designRevision.contentHash,
       message: designRevision.message,

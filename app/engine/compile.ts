@@ -10,7 +10,7 @@ import {
   type Lockout,
   type Predicate,
 } from "./schema";
-import { validateDesign } from "./validate";
+import { validateStoredDesign } from "./validate";
 
 export type CompiledCondition = {
   id: string;
@@ -91,9 +91,13 @@ export type CompiledDesign = {
 export const THROTTLE_CLASSES = ["released", "applied", "fault"] as const;
 export type ThrottleClass = (typeof THROTTLE_CLASSES)[number];
 
-/** Compiles a design; throws when the design is invalid (callers validate first). */
+/**
+ * Compiles a design; throws when the design is invalid (callers validate first). A rule whose
+ * `when` matches no row is compiled (it holds in no row, so vacuously): version 1.1 refuses such a
+ * design at validation, but a revision stored before 1.1 must stay readable.
+ */
 export function compileDesign(design: Design): CompiledDesign {
-  const checked = validateDesign(design);
+  const checked = validateStoredDesign(design);
   if (!checked.ok) {
     const first = checked.problems[0];
     throw new Error(`invalid design (${checked.problems.length} problems), first: ${first.path}: ${first.message}`);

@@ -26,6 +26,28 @@ const arr = (v: unknown): unknown[] => (Array.isArray(v) ? v : []);
 const q = (s: string) => JSON.stringify(s);
 
 export function validateDesign(input: unknown): ValidationResult {
+  const { parsed, problems, matchingNoRow } = check(input);
+  const all = [...problems, ...matchingNoRow];
+  if (all.length > 0 || !parsed.success) {
+    return { ok: false, problems: dedupe(all) };
+  }
+  return { ok: true, design: parsed.data };
+}
+
+export type StoredValidationResult = { ok: true; design: Design; rulesMatchingNoRow: Problem[] } | { ok: false; problems: Problem[] };
+
+/**
+ * A design stored before version 1.1: every check of `validateDesign` except "a rule whose `when`
+ * holds in no row", whose problems come back apart in `rulesMatchingNoRow`. Such a revision stays
+ * readable (its rows, verdict and report) while the server marks it as one 1.1 would refuse.
+ */
+export function validateStoredDesign(input: unknown): StoredValidationResult {
+  const { parsed, problems, matchingNoRow } = check(input);
+  if (problems.length > 0 || !parsed.success) return { ok: false, problems: dedupe([...problems, ...matchingNoRow]) };
+  return { ok: true, design: parsed.data, rulesMatchingNoRow: dedupe(matchingNoRow) };
+}
+
+function check(input: unknown) {
   const problems: Problem[] = [];
   const parsed = designSchema.safeParse(input);
   if (!parsed.success) {
@@ -34,11 +56,9 @@ export function validateDesign(input: unknown): ValidationResult {
     }
   }
   if (isObj(input)) crossReferences(input, problems);
-  if (isObj(input)) emptyRules(input, problems);
-  if (problems.length > 0 || !parsed.success) {
-    return { ok: false, problems: dedupe(problems) };
-  }
-  return { ok: true, design: parsed.data };
+  const matchingNoRow: Problem[] = [];
+  if (isObj(input)) emptyRules(input, problems, matchingNoRow);
+  return { parsed, problems, matchingNoRow };
 }
 
 function dedupe(problems: Problem[]): Problem[] {
@@ -238,7 +258,7 @@ function crossReferences(d: Obj, problems: Problem[]): void {
  * at or under its path), and only when the conditions themselves are sound (no problem under
  * `conditions`, so the rows are well defined and within the engine's limit).
  */
-function emptyRules(d: Obj, problems: Problem[]): void {
+function emptyRules(d: Obj, problems: readonly Problem[], out: Problem[]): void {
   if (problems.some((p) => p.path === "conditions" || p.path.startsWith("conditions["))) return;
   const statesOf = new Map<string, string[]>();
   for (const c of arr(d.conditions)) {
@@ -250,7 +270,7 @@ function emptyRules(d: Obj, problems: Problem[]): void {
     if (problems.some((p) => p.path === path || p.path.startsWith(`${path}.`) || p.path.startsWith(`${path}[`))) return;
     if (predicateMatchesSomeRow(r.when as Predicate, (id) => statesOf.get(id)!)) return;
     const why = 'holds in no row of the truth table (an empty list of states, an "any" of nothing, or states that cannot occur together)';
-    problems.push({
+    out.push({
       path,
       message: `"when" ${why}, so this rule ${r.type === "inhibit" ? "checks nothing" : "demands drive in no row"}`,
     });

@@ -27,6 +27,32 @@ describe("rowDiff", () => {
     expect(d.listed[0]!.before).not.toEqual(d.listed[0]!.after);
   });
 
+  it("counts a require-drive rule's failing rows as broken: its rows differ when the wiring changes what drives", () => {
+    // Must drive with the key on (c00) and the throttle applied: a demand row without drive is failing (spec 1.6, 1.1).
+    const drives = (d: ReturnType<typeof generatedDesign>) => {
+      const throttle = d.controller.throttle;
+      d.rules.push({ id: "D1", label: "Drives keyed, throttle applied", type: "require-drive", when: { all: [{ cond: "c00", in: ["on"] }, { cond: throttle.condition, in: throttle.applied }] } });
+      return d;
+    };
+    const a = drives(generatedDesign(10));
+    const b = structuredClone(a);
+    (b.components.find((c) => c.id === "KEY2") as { closedIn: string[] }).closedIn = ["off"];
+    const ca = compileDesign(a);
+    const cb = compileDesign(b);
+    const broken = (v: RowView) =>
+      JSON.stringify([v.drive, [...Object.keys(v.rules).filter((k) => v.rules[k]!.violating), ...Object.keys(v.demands).filter((k) => v.demands[k]!.failing)].sort()]);
+    const A = pageRows(ca, { from: 0, count: ca.rows }).rows;
+    const B = pageRows(cb, { from: 0, count: cb.rows }).rows;
+    const want = A.map((_, i) => i).filter((i) => broken(A[i]!) !== broken(B[i]!));
+    const d = rowDiff(ca, cb, want.length);
+    if (!d.comparable) throw new Error("comparable tables");
+    expect(d.changedRows).toBe(want.length);
+    expect(d.listed.map((r) => r.index)).toEqual(want);
+    expect(d.listed.some((r) => r.after.violated.includes("D1") && !r.before.violated.includes("D1"))).toBe(true);
+    // The structure names the rule when it is added or changed.
+    expect(structuralDiff(generatedDesign(10), a).rules.added).toEqual(["D1"]);
+  });
+
   it("refuses to compare tables whose conditions differ", () => {
     const a = generatedDesign(8);
     const b = structuredClone(a);

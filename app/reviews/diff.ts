@@ -84,6 +84,7 @@ export function sameConditions(before: Design, after: Design): boolean {
   return canonical(before.conditions.map((c) => [c.id, c.states])) === canonical(after.conditions.map((c) => [c.id, c.states]));
 }
 
+/** A row's drive and its broken rules: inhibit rules violated and require-drive rules failing there. */
 export type RowOutcome = { drive: boolean; violated: string[] };
 export type RowChange = { index: number; states: Record<string, string>; before: RowOutcome; after: RowOutcome };
 export type RowDiff =
@@ -121,19 +122,21 @@ function outcomeOf(c: CompiledDesign, index: number): RowOutcome {
   const v = evaluateRow(c, index);
   return {
     drive: v.drive,
-    violated: Object.keys(v.rules)
-      .filter((id) => v.rules[id]!.violating)
-      .sort(),
+    violated: [...Object.keys(v.rules).filter((id) => v.rules[id]!.violating), ...Object.keys(v.demands).filter((id) => v.demands[id]!.failing)].sort(),
   };
 }
 
-function inhibitIds(c: CompiledDesign): string[] {
-  return c.rules.filter((r) => r.type === "inhibit").map((r) => r.id);
+/** Rules checked row by row, with the filter of their broken rows: inhibit (violating), require-drive (failing). */
+function rowRules(c: CompiledDesign): Map<string, RowFilter["only"]> {
+  const out = new Map<string, RowFilter["only"]>();
+  for (const r of c.rules) if (r.type !== "no-restart") out.set(r.id, r.type === "inhibit" ? "violating" : "failing");
+  return out;
 }
 
 /**
- * Rows whose steady drive or set of violated inhibit rules differs: the symmetric differences of
- * the drive rows and of each rule's violating rows (the engine's filters on both designs). The
+ * Rows whose steady drive or set of broken rules differs (inhibit rules violated, require-drive rules
+ * failing): the symmetric differences of the drive rows and of each rule's violating or failing rows
+ * (the engine's filters on both designs; a rule whose type changed compares its broken rows). The
  * first `limit` changed rows are listed with both outcomes.
  */
 export function rowDiff(before: CompiledDesign, after: CompiledDesign, limit = 200): RowDiff {
@@ -155,11 +158,11 @@ export function rowDiff(before: CompiledDesign, after: CompiledDesign, limit = 2
     for (const i of b) if (!a.has(i)) changed.add(i);
   };
   addDifference(matchingIndexes(before, { only: "drive" }), matchingIndexes(after, { only: "drive" }));
-  const rulesBefore = inhibitIds(before);
-  const rulesAfter = inhibitIds(after);
-  for (const id of new Set([...rulesBefore, ...rulesAfter])) {
-    const a = rulesBefore.includes(id) ? matchingIndexes(before, { only: "violating", rule: id }) : new Set<number>();
-    const b = rulesAfter.includes(id) ? matchingIndexes(after, { only: "violating", rule: id }) : new Set<number>();
+  const rulesBefore = rowRules(before);
+  const rulesAfter = rowRules(after);
+  for (const id of new Set([...rulesBefore.keys(), ...rulesAfter.keys()])) {
+    const a = rulesBefore.has(id) ? matchingIndexes(before, { only: rulesBefore.get(id), rule: id }) : new Set<number>();
+    const b = rulesAfter.has(id) ? matchingIndexes(after, { only: rulesAfter.get(id), rule: id }) : new Set<number>();
     addDifference(a, b);
   }
   const sorted = [...changed].sort((x, y) => x - y);

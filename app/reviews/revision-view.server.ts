@@ -3,6 +3,7 @@
 // approved revision of the same design.
 import { compareOutcomes, replayTrace, type CompiledDesign, type Design, type OutcomeComparison, type Verdict } from "~/engine";
 import { getRevision } from "~/designs/designs.server";
+import { standingOf } from "~/designs/standing";
 import type { TraceStepView } from "~/components/truth-table/verdict-summary";
 import { compiledFor } from "./compiled.server";
 import { structuralDiff, type StructuralDiff } from "./diff";
@@ -27,12 +28,13 @@ export function tracesOf(c: CompiledDesign, verdict: Verdict): Record<string, Tr
   return out;
 }
 
-/** A full revision (document, verdict, author) with its compiled design. */
+/** A full revision (document, verdict, author) with its compiled design and its standing under format 1.1. */
 export async function loadRevision(workspaceId: string, designId: string, number: number) {
   const rev = await getRevision(workspaceId, designId, number);
   if (!rev) return null;
   const compiled = compiledFor(rev.id, rev.document);
-  return { rev, compiled, design: compiled.design, verdict: rev.verdict };
+  const standing = standingOf(rev.id, rev.document, rev.verdict);
+  return { rev, compiled, design: compiled.design, verdict: rev.verdict, standing, refused: standing.passes ? null : standing.reasons };
 }
 
 export type Comparison =

@@ -1,6 +1,6 @@
 // Serving the truth table of a saved revision: pages of rows, one row with its diagnosis, and the
 // CSV as a stream. All row work is the engine's (pageRows, countRows, diagnose, csvChunks).
-import { csvChunks, diagnose, evaluateRow, pageRows, type CompiledDesign, type RowFilter } from "~/engine";
+import { csvChunks, diagnose, evaluateRow, filterRuleType, pageRows, type CompiledDesign, type RowFilter } from "~/engine";
 import { apiError } from "~/api/http.server";
 import { filterOf, PAGE_MAX, parseFilterQuery, tableRow, type RowsPage, type TableColumns, type TableRow } from "./truth-table";
 
@@ -9,7 +9,8 @@ export function tableColumns(c: CompiledDesign): TableColumns {
     conditions: c.conditions.map((x) => ({ id: x.id, label: x.label || x.id, states: x.states })),
     contacts: c.contacts.map((x) => ({ id: x.id, label: x.label || x.id, condition: c.conditions[x.cond]!.id })),
     inputs: c.inputs.map((x) => ({ id: x.id, label: x.label || x.id, fn: x.fn })),
-    rules: c.rules.filter((r) => r.type === "inhibit").map((r) => ({ id: r.id, label: r.label || r.id })),
+    // Inhibit and require-drive rules in design order, as the CSV's rule:ID columns (decision 110).
+    rules: c.rules.flatMap((r) => (r.type === "inhibit" || r.type === "require-drive" ? [{ id: r.id, label: r.label || r.id, type: r.type }] : [])),
   };
 }
 
@@ -19,8 +20,10 @@ export function requestFilter(c: CompiledDesign, params: URLSearchParams): RowFi
   if (!parsed.ok) throw apiError(400, "invalid_filter", "The row filter is not valid.", parsed.fields);
   const filter = filterOf(parsed.query);
   // Ids and states are checked against the design here so the error names the parameter.
-  if (filter.rule !== undefined && !c.rules.some((r) => r.id === filter.rule && r.type === "inhibit")) {
-    throw apiError(400, "invalid_filter", "The row filter is not valid.", [{ path: "rule", message: `no inhibit rule with id ${JSON.stringify(filter.rule)}` }]);
+  const type = filterRuleType(filter.only);
+  if (filter.rule !== undefined && !c.rules.some((r) => r.id === filter.rule && r.type === type)) {
+    const what = type === "inhibit" ? "inhibit rule (only=unsafe or violating, or no only)" : "require-drive rule (only=demand or failing)";
+    throw apiError(400, "invalid_filter", "The row filter is not valid.", [{ path: "rule", message: `no ${what} with id ${JSON.stringify(filter.rule)}` }]);
   }
   for (const [cond, states] of Object.entries(filter.where ?? {})) {
     const ci = c.conditionIndex[cond];

@@ -4,11 +4,11 @@ import type { RowFilter, RowView } from "~/engine";
 import type { TableRow } from "~/api/answers";
 import type { FieldProblem } from "~/designs/types";
 
-export const ONLY = ["unsafe", "violating", "drive"] as const;
+export const ONLY = ["unsafe", "violating", "drive", "demand", "failing"] as const;
 export type Only = (typeof ONLY)[number];
 export const PAGE_MAX = 500;
 
-/** Query: only=unsafe|violating|drive, rule=ID, where=COND:STATE (repeatable; states of one condition are alternatives). */
+/** Query: only=unsafe|violating|drive|demand|failing, rule=ID, where=COND:STATE (repeatable; states of one condition are alternatives). */
 export type FilterQuery = { only?: Only; rule?: string; where: Array<{ cond: string; state: string }> };
 
 export function parseFilterQuery(params: URLSearchParams): { ok: true; query: FilterQuery } | { ok: false; fields: FieldProblem[] } {
@@ -52,10 +52,12 @@ export type TableColumns = {
   conditions: Array<{ id: string; label: string; states: string[] }>;
   contacts: Array<{ id: string; label: string; condition: string }>;
   inputs: Array<{ id: string; label: string; fn: string }>;
-  rules: Array<{ id: string; label: string }>;
+  /** Inhibit and require-drive rules, in design order. */
+  rules: Array<{ id: string; label: string; type: "inhibit" | "require-drive" }>;
 };
 
-export type RuleCell = "-" | "unsafe" | "violating";
+/** An inhibit rule's cell (unsafe, violating) or a require-drive rule's (demand, failing: demand without drive). */
+export type RuleCell = "-" | "unsafe" | "violating" | "demand" | "failing";
 
 // A row (values in column order) and a page of rows are API answers: typed by their schemas.
 export type { RowsPage, TableRow } from "~/api/answers";
@@ -72,7 +74,11 @@ export function tableRow(cols: TableColumns, v: RowView): TableRow {
     braking: v.controller.braking,
     throttle: v.controller.throttle,
     drive: v.drive,
-    rules: cols.rules.map((r) => {
+    rules: cols.rules.map((r): RuleCell => {
+      if (r.type === "require-drive") {
+        const d = v.demands[r.id];
+        return !d || !d.demand ? "-" : d.failing ? "failing" : "demand";
+      }
       const x = v.rules[r.id];
       return !x || !x.unsafe ? "-" : x.violating ? "violating" : "unsafe";
     }),

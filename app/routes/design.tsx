@@ -3,6 +3,8 @@ import type { Route } from "./+types/design";
 import { requireMember } from "~/auth/guard.server";
 import { CAN } from "~/lib/roles";
 import { getDesign, getDraft, getRevision, listRevisions, statusOf } from "~/designs/designs.server";
+import { standingsFor } from "~/designs/standing.server";
+import { RefusedBadge, RefusedNotice } from "~/components/refused-mark";
 import { designsPath, editorPath } from "~/designs/paths";
 import { HashPrefix, Holds, NotProven, Section, StatusBadge, When } from "~/designs/design-bits";
 import { proveOffThread } from "~/proofs/pool.server";
@@ -27,6 +29,11 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     reviewStatusOf(m.workspace.id, [d.id]),
   ]);
   const review = reviews.get(d.id);
+  const standings = await standingsFor(m.workspace.id, history.map((h) => h.id));
+  const refusedOf = (id: string) => {
+    const st = standings.get(id);
+    return st && !st.passes ? st.reasons : null;
+  };
   // Which rules the draft breaks, when its stored check says some do (small tables only, see decision 031).
   let draftFailing: string[] = [];
   if (draft?.check.state === "checked" && !draft.check.ok) {
@@ -49,6 +56,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
           authorName: latest.authorName,
           createdAt: latest.createdAt.toISOString(),
           verdict: latest.verdict,
+          refused: refusedOf(latest.id),
           ruleLabels: labelsOf(latest.document).rules,
           componentLabels: labelsOf(latest.document).components,
         }
@@ -64,7 +72,12 @@ export async function loader({ request, params }: Route.LoaderArgs) {
           failing: draftFailing,
         }
       : null,
-    history: history.map((h) => ({ ...h, createdAt: h.createdAt.toISOString(), review: review?.byNumber.get(h.number)?.status ?? "not-requested" })),
+    history: history.map(({ id, ...h }) => ({
+      ...h,
+      createdAt: h.createdAt.toISOString(),
+      review: review?.byNumber.get(h.number)?.status ?? "not-requested",
+      refused: refusedOf(id),
+    })),
   };
 }
 
@@ -122,6 +135,7 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
                     Truth table
                   </Link>
                 </p>
+                {latest.refused ? <RefusedNotice reasons={latest.refused} className="mt-3" /> : null}
                 <VerdictSummary verdict={latest.verdict} ruleLabels={latest.ruleLabels} componentLabels={latest.componentLabels} />
               </>
             ) : (
@@ -195,7 +209,10 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
                 <tbody className="divide-y divide-ink-100">
                   {history.map((h) => (
                     <tr key={h.number}>
-                      <td className="px-5 py-2 font-semibold">{h.number}</td>
+                      <td className="px-5 py-2 font-semibold">
+                        {h.number}
+                        {h.refused ? <RefusedBadge reasons={h.refused} className="ml-2" /> : null}
+                      </td>
                       <td className="px-3 py-2">{h.authorName}</td>
                       <td className="whitespace-nowrap px-3 py-2"><When iso={h.createdAt} /></td>
                       <td className="min-w-48 px-3 py-2 text-ink-700 [overflow-wrap:anywhere]">{h.message || <span className="text-ink-400">—</span>}</td>

@@ -3,6 +3,8 @@
 // no-restart result, the truth-table summary, and the caution. The PDF route prints this page.
 import { Link } from "react-router";
 import type { Route } from "./+types/report";
+import { RefusedNotice } from "~/components/refused-mark";
+import { REFUSED_MARK } from "~/designs/standing-words";
 import { CAN } from "~/lib/roles";
 import { requireRevisionPage } from "~/reviews/access.server";
 import { getReview } from "~/reviews/reviews.server";
@@ -63,6 +65,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     },
     document: loaded.design,
     verdict: loaded.verdict,
+    refused: loaded.refused,
     labels: labelsOf(loaded.design),
     traces: tracesOf(c, loaded.verdict),
     status: review.status,
@@ -174,8 +177,9 @@ export default function Report({ loaderData }: Route.ComponentProps) {
               {REVIEW_STATUS_LABELS[d.status]}
             </dd>
             <dt className="text-ink-500">Verdict</dt>
-            <dd>{d.verdict.ok ? "Every rule holds" : "Some rules fail"}</dd>
+            <dd>{d.refused ? REFUSED_MARK : d.verdict.ok ? "Every rule holds" : "Some rules fail"}</dd>
           </dl>
+          {d.refused ? <RefusedNotice reasons={d.refused} className="mt-4 break-inside-avoid" /> : null}
           <h2 className={h2}>Sign-offs</h2>
           {d.decisions.length === 0 ? (
             <p className="mt-2 text-ink-600">No reviewer has decided on this revision.</p>

@@ -17,6 +17,7 @@ import { PageHeader } from "~/components/page-header";
 import { SafetyNote } from "~/components/safety-note";
 import { Button, buttonClass, Notice, SelectField, TextArea, TextField } from "~/components/ui/form";
 import { VerdictSummary } from "~/components/truth-table/verdict-summary";
+import { RefusedNotice } from "~/components/refused-mark";
 import { ReviewStatusBadge } from "~/components/truth-table/review-status";
 import { readableSummary } from "~/reviews/readable.server";
 import { currentDispositions, dispositionHistory, recordDisposition } from "~/reviews/dispositions.server";
@@ -63,6 +64,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       latestNumber,
     },
     verdict: loaded.verdict,
+    refused: loaded.refused,
     labels: labelsOf(loaded.design),
     traces: tracesOf(loaded.compiled, loaded.verdict),
     components: loaded.design.components.map((c) => ({ id: c.id, label: ("label" in c && c.label) || c.id, type: c.type })),
@@ -160,6 +162,7 @@ export default function Review({ loaderData }: Route.ComponentProps) {
           </>
         }
       />
+      {loaderData.refused ? <RefusedNotice reasons={loaderData.refused} className="mb-4" /> : null}
       {revision.latestNumber > revision.number ? (
         <div className="mb-4">
           <Notice tone="warning">

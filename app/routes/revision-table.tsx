@@ -21,6 +21,8 @@ import { RowDrawer } from "~/components/truth-table/row-drawer";
 import { api as endpoints } from "~/api/endpoints";
 import { ApiError, apiFetcher } from "~/api/client";
 import { ReviewStatusBadge } from "~/components/truth-table/review-status";
+import { RefusedNotice } from "~/components/refused-mark";
+import { standingsFor } from "~/designs/standing.server";
 
 const PAGE = 100;
 const fetchRows = apiFetcher(endpoints.revisionRows);
@@ -61,11 +63,13 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     const p = pageRows(compiled, { from: 0, count: PAGE });
     page = { total: p.total, from: 0, rows: p.rows.map((v) => tableRow(columns, v)) };
   }
-  const status = (await reviewStatusOf(member.workspace.id, [design.id])).get(design.id)?.byNumber.get(ref.number)?.status ?? "not-requested";
+  const [statuses, standings] = await Promise.all([reviewStatusOf(member.workspace.id, [design.id]), standingsFor(member.workspace.id, [ref.id])]);
+  const status = statuses.get(design.id)?.byNumber.get(ref.number)?.status ?? "not-requested";
+  const standing = standings.get(ref.id);
   return {
     slug: member.workspace.slug,
     design: { id: design.id, name: design.name },
-    revision: { number: ref.number, contentHash: ref.contentHash, status },
+    revision: { number: ref.number, contentHash: ref.contentHash, status, refused: standing && !standing.passes ? standing.reasons : null },
     rows: compiled.rows,
     columns,
     initial: { key: pageKey(rowsApiPath(design.id, ref.number), query, page.from), page },
@@ -85,7 +89,15 @@ export const meta: Route.MetaFunction = ({ data }) => [
 
 const selectClass =
   "mt-1 block w-full rounded-md border border-ink-300 bg-white px-2 py-2 text-base sm:text-sm focus:border-copper-500 focus:outline-none focus:ring-2 focus:ring-copper-500/40";
-const ONLY_LABELS: Record<Only, string> = { unsafe: "Only unsafe rows", violating: "Only violating rows", drive: "Only rows that drive" };
+const ONLY_LABELS: Record<Only, string> = {
+  unsafe: "Only unsafe rows",
+  violating: "Only violating rows",
+  drive: "Only rows that drive",
+  demand: "Only rows where it must drive",
+  failing: "Only rows where it must drive and does not",
+};
+/** The rule type the rule picker offers for a row filter (require-drive for demand and failing). */
+const ruleTypeFor = (only: Only | undefined) => (only === "demand" || only === "failing" ? "require-drive" : "inhibit");
 
 export default function RevisionTable({ loaderData }: Route.ComponentProps) {
   const { slug, design, revision, rows: totalRows, columns, initial, filterError } = loaderData;
@@ -174,6 +186,7 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
         }
       />
 
+      {revision.refused ? <RefusedNotice reasons={revision.refused} className="mb-4" /> : null}
       {filterError ? <Notice tone="error">The filter in the address was ignored: {filterError}</Notice> : null}
 
       <div className="mb-4 grid gap-3 rounded-lg border border-ink-200 bg-white p-4 md:grid-cols-2" role="group" aria-label="Row filters">
@@ -185,7 +198,12 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
             id="tt-only"
             className={selectClass}
             value={query.only ?? ""}
-            onChange={(e) => setQuery({ ...query, only: (e.target.value || undefined) as Only | undefined })}
+            onChange={(e) => {
+              const only = (e.target.value || undefined) as Only | undefined;
+              // A rule of the other type does not go with the new choice.
+              const keep = query.rule && columns.rules.some((r) => r.id === query.rule && r.type === ruleTypeFor(only));
+              setQuery({ ...query, only, rule: keep ? query.rule : undefined });
+            }}
           >
             <option value="">All rows</option>
             {ONLY.map((o) => (
@@ -197,17 +215,17 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
         </div>
         <div>
           <label htmlFor="tt-rule" className="block text-sm font-medium text-ink-700">
-            Rule (for unsafe / violating)
+            Rule (for unsafe / violating, or must-drive demand / failing)
           </label>
           <select
             id="tt-rule"
             className={selectClass}
             value={query.rule ?? ""}
-            disabled={query.only !== "unsafe" && query.only !== "violating"}
+            disabled={query.only === undefined || query.only === "drive"}
             onChange={(e) => setQuery({ ...query, rule: e.target.value || undefined })}
           >
-            <option value="">Any inhibit rule</option>
-            {columns.rules.map((r) => (
+            <option value="">{ruleTypeFor(query.only) === "inhibit" ? "Any inhibit rule" : "Any must-drive rule"}</option>
+            {columns.rules.filter((r) => r.type === ruleTypeFor(query.only)).map((r) => (
               <option key={r.id} value={r.id}>
                 {r.id}: {r.label}
               </option>

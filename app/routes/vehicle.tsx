@@ -28,6 +28,9 @@ import { RunList } from "~/components/diagnosis/run-list";
 import { statusAgainstRevisions, vehicleControllerStatus } from "~/vehicles/controller-records.server";
 import { differenceInWords, proofDoesNotHold } from "~/vehicles/controller-status";
 import { ProofMark } from "~/components/controller-record/proof-mark";
+import { standingsFor } from "~/designs/standing.server";
+import { REFUSED_MARK } from "~/designs/standing-words";
+import { RefusedBadge, RefusedNotice } from "~/components/refused-mark";
 
 const may = (roles: readonly Role[], role: Role) => roles.includes(role);
 
@@ -46,7 +49,14 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     vehicleControllerStatus(m.workspace.id, v.id),
   ]);
   // Which revisions the controller record contradicts: releasing one of them needs a reason.
-  const against = canRelease ? await statusAgainstRevisions(m.workspace.id, v.id, releasable.map((r) => r.id)) : null;
+  const [against, standings] = await Promise.all([
+    canRelease ? statusAgainstRevisions(m.workspace.id, v.id, releasable.map((r) => r.id)) : null,
+    standingsFor(m.workspace.id, history.map((r) => r.revisionId)),
+  ]);
+  const refusedOf = (revisionId: string) => {
+    const st = standings.get(revisionId);
+    return st && !st.passes ? st.reasons : null;
+  };
   const conflictOf = (id: string) => {
     const s = against?.byRevision.get(id);
     return s && proofDoesNotHold(s) ? differenceInWords(s) : [];
@@ -58,7 +68,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     canRunBench: may(CAN.runBenchTests, m.role),
     vehicle: { id: v.id, name: v.name, serial: v.serial, model: v.model, controllerDescription: v.controllerDescription, notes: v.notes },
     photos: photos.map((p) => ({ id: p.id, filename: p.filename, contentType: p.contentType, size: p.size })),
-    releases: history.map((r) => ({ ...r, at: r.at.toISOString() })),
+    releases: history.map((r) => ({ ...r, at: r.at.toISOString(), refused: refusedOf(r.revisionId) })),
     attention: attention.map((a) => ({ ...a, raisedAt: a.raisedAt.toISOString() })),
     runs: runs.map((r) => ({ ...r, startedAt: r.startedAt.toISOString(), completedAt: r.completedAt?.toISOString() ?? null })),
     releasable: releasable.map((r) => ({
@@ -67,6 +77,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       designName: r.designName,
       forThisVehicle: r.forThisVehicle,
       approval: r.approval,
+      refused: r.refused,
       controllerConflicts: conflictOf(r.id),
     })),
     controller: {
@@ -239,6 +250,7 @@ export default function Vehicle({ loaderData, actionData }: Route.ComponentProps
                 {current.designName}
               </Link>{" "}
               <HashPrefix hash={current.contentHash} />
+              {current.refused ? <RefusedBadge reasons={current.refused} className="ml-2" /> : null}
               <span className="block text-sm text-ink-600">
                 Released by {current.releasedByName}, <When iso={current.at} />
                 {current.note ? ` — ${current.note}` : ""}
@@ -247,6 +259,7 @@ export default function Vehicle({ loaderData, actionData }: Route.ComponentProps
           ) : (
             <p className="mt-2 text-sm text-ink-600">No revision is released to this vehicle yet.</p>
           )}
+          {current?.refused ? <RefusedNotice reasons={current.refused} className="mt-3" /> : null}
           {releases.length > 1 ? (
             <details className="mt-3 text-sm">
               <summary className="cursor-pointer font-medium">Earlier releases ({releases.length - 1})</summary>
@@ -254,6 +267,7 @@ export default function Vehicle({ loaderData, actionData }: Route.ComponentProps
                 {releases.slice(1).map((r) => (
                   <li key={r.id}>
                     Revision {r.number} of {r.designName} · {r.releasedByName}, <When iso={r.at} />
+                    {r.refused ? <RefusedBadge reasons={r.refused} className="ml-2" /> : null}
                     {r.note ? ` — ${r.note}` : ""}
                   </li>
                 ))}
@@ -358,14 +372,15 @@ function ReleaseForm({
     <Form method="post" className="mt-5 space-y-3 border-t border-ink-200 pt-4" onSubmit={onSubmit} noValidate>
       <input type="hidden" name="intent" value="release" />
       <h3 className="text-sm font-semibold">Release a revision to this vehicle</h3>
-      <p className="text-xs text-ink-600">Only a revision a reviewer has approved can be released.</p>
+      <p className="text-xs text-ink-600">Only a revision a reviewer has approved, and that passes design format 1.1, can be released.</p>
       <SelectField label="Revision" name="revisionId" value={selected} onChange={(e) => setSelected(e.target.value)} error={shown.revisionId}>
         <option value="" disabled>
           Choose a revision
         </option>
         {releasable.map((r) => (
-          <option key={r.id} value={r.id} disabled={r.approval !== "approved"}>
+          <option key={r.id} value={r.id} disabled={r.approval !== "approved" || r.refused !== null}>
             {r.designName} · revision {r.number}
+            {r.refused ? ` · ${REFUSED_MARK.toLowerCase()}: cannot be released` : ""}
             {r.approval === "approved" ? " · approved" : " · not approved"}
             {r.forThisVehicle ? "" : " (design for another vehicle)"}
             {r.controllerConflicts.length > 0 ? " · contradicted by the controller record" : ""}

@@ -7,6 +7,8 @@ import { readRevisionDesign } from "~/designs/revision-document";
 import type { z } from "zod";
 import type { vehicleSchema } from "~/lib/forms";
 import { revisionApproval } from "./approval.server";
+import { standingsFor } from "~/designs/standing.server";
+import { standingSentence } from "~/designs/standing";
 import { statusAgainstRevisions } from "./controller-records.server";
 import { differenceInWords, proofDoesNotHold, PROOF_DOES_NOT_HOLD } from "./controller-status";
 
@@ -144,8 +146,11 @@ export async function releasableRevisions(workspaceId: string, vehicleId: string
     .innerJoin(design, and(eq(design.id, designRevision.designId), eq(design.workspaceId, designRevision.workspaceId)))
     .where(eq(designRevision.workspaceId, workspaceId))
     .orderBy(desc(sql`${design.vehicleId} is not distinct from ${vehicleId}`), asc(design.name), desc(designRevision.number));
-  const approved = await Promise.all(rows.map((r) => revisionApproval(workspaceId, r.id)));
-  return rows.map((r, i) => ({ ...r, approval: approved[i] }));
+  const [approved, standings] = await Promise.all([Promise.all(rows.map((r) => revisionApproval(workspaceId, r.id))), standingsFor(workspaceId, rows.map((r) => r.id))]);
+  return rows.map((r, i) => {
+    const st = standings.get(r.id);
+    return { ...r, approval: approved[i], refused: st && !st.passes ? st.reasons : null };
+  });
 }
 
 export type ReleaseOutcome =
@@ -171,6 +176,16 @@ export async function releaseRevision(
     .where(and(eq(designRevision.id, input.revisionId), eq(designRevision.workspaceId, workspaceId)))
     .limit(1);
   if (!rev[0]) return { ok: false, fields: { revisionId: "Choose a revision of a design in this workspace." } };
+  // A revision stored before format 1.1 that 1.1 would refuse stays readable but is not released (decision 111).
+  const standing = (await standingsFor(workspaceId, [input.revisionId])).get(input.revisionId);
+  if (standing && !standing.passes) {
+    return {
+      ok: false,
+      fields: {
+        revisionId: `Revision ${rev[0].number} of "${rev[0].designName}" cannot be released. ${standingSentence(standing)} Save a revision that passes format 1.1 and release that one.`,
+      },
+    };
+  }
   const approval = await revisionApproval(workspaceId, input.revisionId);
   if (approval !== "approved") {
     return {

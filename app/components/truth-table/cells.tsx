@@ -47,6 +47,20 @@ export function RuleCellView({ cell }: { cell: RuleCell }) {
       </span>
     );
   }
+  if (cell === "failing") {
+    return (
+      <span className="inline-flex items-center gap-1 rounded bg-brick-100 px-1.5 font-semibold text-brick-700" title="the vehicle must drive in this row and does not">
+        <span aria-hidden="true">✕</span>failing
+      </span>
+    );
+  }
+  if (cell === "demand") {
+    return (
+      <span className="inline-flex items-center gap-1 text-moss-700" title="the vehicle must drive in this row, and does">
+        <span aria-hidden="true">▷</span>demand
+      </span>
+    );
+  }
   if (cell === "unsafe") {
     return (
       <span className="inline-flex items-center gap-1 text-copper-700">

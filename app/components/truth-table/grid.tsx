@@ -77,7 +77,7 @@ export function TruthTableGrid({
           ) : null}
           {rules.length > 0 ? (
             <th scope="colgroup" colSpan={rules.length} className={groupClass}>
-              Inhibit rules (unsafe / violating)
+              Rules (unsafe / violating; must drive: demand / failing)
             </th>
           ) : null}
         </tr>
@@ -107,8 +107,9 @@ export function TruthTableGrid({
             </>
           ) : null}
           {rules.map((r, i) => (
-            <th key={r.id} scope="col" className={`${th} ${i === 0 ? "border-l border-ink-200" : ""}`} title={r.label}>
+            <th key={r.id} scope="col" className={`${th} ${i === 0 ? "border-l border-ink-200" : ""}`} title={r.type === "require-drive" ? `Must drive: ${r.label}` : r.label}>
               {r.id}
+              {r.type === "require-drive" ? <span className="font-normal text-ink-400"> must drive</span> : null}
             </th>
           ))}
         </tr>
@@ -116,7 +117,7 @@ export function TruthTableGrid({
       <tbody>
         {rows.map((r) => {
           const isSelected = selected === r.index;
-          const bad = r.rules.includes("violating");
+          const bad = r.rules.includes("violating") || r.rules.includes("failing");
           return (
             <tr
               key={r.index}

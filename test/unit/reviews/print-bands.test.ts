@@ -9,7 +9,7 @@ function columnsOf(n: { conditions: number; contacts: number; inputs: number; ru
     conditions: Array.from({ length: n.conditions }, (_, i) => ({ id: `c${i}`, label: `C${i}`, states: ["released", "pressed"] })),
     contacts: Array.from({ length: n.contacts }, (_, i) => ({ id: `K${i}`, label: `K${i}`, condition: `c${i % n.conditions}` })),
     inputs: Array.from({ length: n.inputs }, (_, i) => ({ id: `IN${i}`, label: `In ${i}`, fn: "enable" })),
-    rules: Array.from({ length: n.rules }, (_, i) => ({ id: n.ruleId?.(i) ?? `rule-${i}`, label: `Rule ${i}` })),
+    rules: Array.from({ length: n.rules }, (_, i) => ({ id: n.ruleId?.(i) ?? `rule-${i}`, label: `Rule ${i}`, type: i % 2 ? ("require-drive" as const) : ("inhibit" as const) })),
   };
 }
 
