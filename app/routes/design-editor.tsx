@@ -1,5 +1,5 @@
 import { useCallback, useEffect, useRef } from "react";
-import { Link } from "react-router";
+import { Link, useParams } from "react-router";
 import type { Route } from "./+types/design-editor";
 import { requireMember } from "~/auth/guard.server";
 import { CAN } from "~/lib/roles";
@@ -7,11 +7,10 @@ import { editorStart, getDesign, getDraft, getRevision } from "~/designs/designs
 import { blankDocument } from "~/designs/templates.server";
 import { designPath } from "~/designs/paths";
 import type { SaveDraftResult, SaveRevisionResult } from "~/designs/types";
-import { api } from "~/api/endpoints";
-import { ApiError, callApi } from "~/api/client";
 import type { ErrorAnswer } from "~/api/answers";
 import { DesignEditor } from "~/canvas/design-editor";
 import { SafetyNote } from "~/components/safety-note";
+import { SectionError } from "~/components/error-boundary";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, params.ws, CAN.view);
@@ -50,8 +49,19 @@ export const handle = { layout: "canvas" };
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.design.name ?? "Design"} · Editor · Chainproof` }];
 
+/** The API client and its endpoint table carry every answer's zod schema: loaded on the first save, not
+ *  with the canvas (decision 143). */
+const loadApi = () =>
+  Promise.all([import("~/api/client"), import("~/api/endpoints")]).then(
+    ([client, endpoints]) => ({ ...client, api: endpoints.api }),
+    () => {
+      throw new Error("The server could not be reached; nothing was saved. Check the connection and save again.");
+    },
+  );
+type ApiModule = Awaited<ReturnType<typeof loadApi>>;
+
 /** A sentence for an answer the editor has no special handling for (the server unreachable, signed out...). */
-function failure(e: unknown): Error {
+function failure({ ApiError }: ApiModule, e: unknown): Error {
   if (!(e instanceof ApiError)) return e instanceof Error ? e : new Error(String(e));
   if (e.status === 0) return new Error("The server could not be reached; nothing was saved. Check the connection and save again.");
   if (e.status === 401) return new Error("You are signed out. Sign in again in another tab, then save again; your changes are still here.");
@@ -60,8 +70,8 @@ function failure(e: unknown): Error {
 }
 
 /** An answer of a declared status with no special handling here: the API's message, as an Error. */
-function refused(a: { status: number; body: ErrorAnswer }): Error {
-  return failure(new ApiError(a.body.error.message, a.status, a.body.error.code, a.body.error.fields));
+function refused(m: ApiModule, a: { status: number; body: ErrorAnswer }): Error {
+  return failure(m, new m.ApiError(a.body.error.message, a.status, a.body.error.code, a.body.error.fields));
 }
 
 export default function DesignEditorPage({ loaderData }: Route.ComponentProps) {
@@ -76,20 +86,22 @@ export default function DesignEditorPage({ loaderData }: Route.ComponentProps) {
     async (doc: unknown, version: number): Promise<SaveDraftResult> => {
       // The editor hands over what it holds; the server refuses (400) anything but a JSON object.
       const document = doc as Record<string, unknown>;
-      const a = await callApi(api.saveDraft, { params: { designId: design.id }, body: { document, version, baseRevision: base.current } }).catch((e) => {
-        throw failure(e);
+      const m = await loadApi();
+      const a = await m.callApi(m.api.saveDraft, { params: { designId: design.id }, body: { document, version, baseRevision: base.current } }).catch((e) => {
+        throw failure(m, e);
       });
       if (a.status === 200) return { ok: true, version: a.body.version };
       if (a.status === 409) return { ok: false, status: 409, currentVersion: a.body.currentVersion };
-      throw refused(a);
+      throw refused(m, a);
     },
     [design.id],
   );
 
   const onSaveRevision = useCallback(
     async (doc: unknown, baseRevision: number, message: string): Promise<SaveRevisionResult> => {
-      const a = await callApi(api.saveRevision, { params: { designId: design.id }, body: { document: doc, baseRevision, message } }).catch((e) => {
-        throw failure(e);
+      const m = await loadApi();
+      const a = await m.callApi(m.api.saveRevision, { params: { designId: design.id }, body: { document: doc, baseRevision, message } }).catch((e) => {
+        throw failure(m, e);
       });
       if (a.status === 201) {
         base.current = a.body.revision.number;
@@ -101,7 +113,7 @@ export default function DesignEditorPage({ loaderData }: Route.ComponentProps) {
       }
       if (a.status === 422) return { status: 422, verdict: a.body.verdict };
       if (a.status === 409) return { status: 409, latestRevision: a.body.latestRevision };
-      throw refused(a);
+      throw refused(m, a);
     },
     [design.id],
   );
@@ -138,5 +150,21 @@ export default function DesignEditorPage({ loaderData }: Route.ComponentProps) {
       />
       <SafetyNote className="mt-2" />
     </div>
+  );
+}
+
+/** The editor's own boundary: inside the workspace, with the way back to the design's page. */
+export function ErrorBoundary() {
+  const { ws, designId } = useParams();
+  return (
+    <SectionError
+      back={
+        ws && designId ? (
+          <Link to={designPath(ws, designId)} className="font-semibold text-action-ink underline">
+            Back to the design
+          </Link>
+        ) : null
+      }
+    />
   );
 }

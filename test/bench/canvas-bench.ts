@@ -13,6 +13,7 @@ import { randomBytes } from "node:crypto";
 import { chromium, type Browser } from "playwright-core";
 import { serveHarness } from "../../app/canvas/bench/serve";
 import { bringUp, run, type Stack } from "../../scripts/stack";
+import { editorFirstPaint } from "../support/editor-weight";
 
 const PORT = Number(process.env.CANVAS_BENCH_PORT ?? 5193);
 const pct = (xs: number[], p: number) => {
@@ -103,7 +104,7 @@ async function editorWeight(browser: Browser) {
       await stack.startApp();
       base = stack.appUrl;
     }
-    const runs: Array<{ scripts: number; encoded: number; decoded: number; usableMs: number }> = [];
+    const runs: Array<{ files: string[]; scripts: number; encoded: number; decoded: number; usableMs: number }> = [];
     for (let i = 0; i < 3; i++) runs.push(await openEditorOnce(browser, base));
     const median = <T,>(xs: T[], f: (x: T) => number) => [...xs.map(f)].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
     const kb = (n: number) => `${(n / 1000).toFixed(1)} kB`;
@@ -112,7 +113,38 @@ async function editorWeight(browser: Browser) {
         `${runs[0].scripts} scripts, ${kb(runs[0].encoded)} of JavaScript transferred (${kb(runs[0].decoded)} uncompressed); ` +
         `usable canvas after ${ms(median(runs, (r) => r.usableMs))} (median; runs: ${runs.map((r) => ms(r.usableMs)).join(", ")})`,
     );
-    console.log(JSON.stringify({ editorOpen: { scripts: runs[0].scripts, jsTransferredBytes: runs[0].encoded, jsUncompressedBytes: runs[0].decoded, usableCanvasMs: runs.map((r) => Math.round(r.usableMs)) } }));
+    // What weighs: the first paint's chunks as the build lays them out (test/support/editor-weight.ts,
+    // the same count as the size check), largest first.
+    let build: ReturnType<typeof editorFirstPaint> | null = null;
+    try {
+      build = editorFirstPaint();
+    } catch (e) {
+      console.log(`(no local build to break down: ${e instanceof Error ? e.message : String(e)})`);
+    }
+    if (build) {
+      console.log(`first paint in the build: ${build.chunks.length} files, ${kb(build.gzip)} gzip (${kb(build.raw)} raw); largest:`);
+      for (const c of build.chunks.slice(0, 8)) console.log(`  ${kb(c.gzip).padStart(9)}  ${c.file}  (${c.why})`);
+      const counted = new Set(build.chunks.map((c) => c.file));
+      const fetched = new Set(runs[0].files);
+      const onlyFetched = [...fetched].filter((f) => !counted.has(f));
+      const onlyCounted = [...counted].filter((f) => !fetched.has(f));
+      if (onlyFetched.length + onlyCounted.length > 0)
+        console.log(`  the browser fetched but the build count leaves out: ${onlyFetched.join(", ") || "nothing"}; counted but not fetched: ${onlyCounted.join(", ") || "nothing"}`);
+    }
+    console.log(
+      JSON.stringify({
+        editorOpen: {
+          scripts: runs[0].scripts,
+          jsTransferredBytes: runs[0].encoded,
+          jsUncompressedBytes: runs[0].decoded,
+          usableCanvasMs: runs.map((r) => Math.round(r.usableMs)),
+          usableCanvasMedianMs: Math.round(median(runs, (r) => r.usableMs)),
+          conditions: "Chromium CPU 4x slower, 1.6 Mbit/s down, 750 kbit/s up, 150 ms RTT, cache empty",
+          buildFirstPaintGzipBytes: build?.gzip ?? null,
+          budgetBytes: 300_000,
+        },
+      }),
+    );
   } finally {
     await stack?.stop();
   }
@@ -138,14 +170,14 @@ async function openEditorOnce(browser: Browser, base: string) {
     await cdp.send("Network.emulateNetworkConditions", { offline: false, latency: 150, downloadThroughput: (1.6e6 / 8) * 0.9, uploadThroughput: (750e3 / 8) * 0.9 });
     await cdp.send("Emulation.setCPUThrottlingRate", { rate: 4 });
 
-    const scripts: Array<Promise<{ encoded: number; decoded: number }>> = [];
+    const scripts: Array<Promise<{ file: string; encoded: number; decoded: number }>> = [];
     context.on("response", (res) => {
       const url = res.url();
       if (!/\.m?js(\?|$)/.test(new URL(url).pathname)) return;
       scripts.push(
         (async () => {
           const [sizes, body] = await Promise.all([res.request().sizes(), res.body().catch(() => Buffer.alloc(0))]);
-          return { encoded: sizes.responseBodySize, decoded: body.length };
+          return { file: new URL(url).pathname.replace(/^.*\//, ""), encoded: sizes.responseBodySize, decoded: body.length };
         })(),
       );
     });
@@ -162,7 +194,7 @@ async function openEditorOnce(browser: Browser, base: string) {
     const usableMs = (await usable.jsonValue()) as number;
     await page.waitForLoadState("networkidle");
     const sizes = await Promise.all(scripts);
-    return { scripts: sizes.length, encoded: sizes.reduce((a, s) => a + s.encoded, 0), decoded: sizes.reduce((a, s) => a + s.decoded, 0), usableMs };
+    return { files: sizes.map((x) => x.file), scripts: sizes.length, encoded: sizes.reduce((a, s) => a + s.encoded, 0), decoded: sizes.reduce((a, s) => a + s.decoded, 0), usableMs };
   } finally {
     await context.close();
   }
