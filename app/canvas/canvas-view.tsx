@@ -15,6 +15,10 @@ import {
   type Edge,
   type FinalConnectionState,
 } from "@xyflow/react";
+import { kindColours } from "../lib/kind-colours";
+
+/** The minimap draws each node in its kind's colour, from the one table every diagram uses. */
+export const minimapNodeColor = (n: { type?: string }) => kindColours(n.type).mark;
 import type { InputFunction } from "../engine/vocabulary";
 import { checkConnection } from "./graph-ops";
 import { nodeTypes } from "./nodes/registry";
@@ -22,6 +26,7 @@ import { DRAG_TYPE } from "./palette";
 import { useEditor, useEditorStore } from "./store";
 import type { CanvasEdge, CanvasNode, ComponentKind } from "./types";
 import { edgeTypes } from "./wire-edge";
+import { Button } from "../components/ui/button";
 
 /** Smallest zoom a person can reach; Fit view stops higher (hooks.ts, FIT_MIN_ZOOM). */
 export const MIN_ZOOM = 0.25;
@@ -117,7 +122,7 @@ export function CanvasView() {
             </svg>
           </ControlButton>
         </Controls>
-        <MiniMap pannable zoomable ariaLabel="Overview of the wiring" style={{ width: 160, height: 110 }} nodeColor={(n) => (n.type === "supply" ? "#3f7a35" : n.type === "input" ? "#ad5520" : "#5f6878")} />
+        <MiniMap pannable zoomable ariaLabel="Overview of the wiring" style={{ width: 160, height: 110 }} nodeColor={minimapNodeColor} />
       </ReactFlow>
       <CanvasNoteView />
     </div>
@@ -147,9 +152,9 @@ function CanvasNoteView() {
       className={`absolute left-2 right-2 top-2 z-10 flex items-start gap-2 rounded border px-2 py-1 text-sm shadow-sm sm:right-auto sm:max-w-[36rem] ${note.tone === "error" ? "border-brick-600 bg-brick-50 text-brick-700" : "border-ink-300 bg-white text-ink-800"}`}
     >
       <span className="min-w-0 flex-1">{note.text}</span>
-      <button type="button" aria-label="Dismiss" className="px-1 text-xs" onClick={() => clear(null)}>
+      <Button type="button" variant="bare" size="xs" aria-label="Dismiss" onClick={() => clear(null)}>
         ✕
-      </button>
+      </Button>
     </div>
   );
 }

@@ -1,6 +1,7 @@
 // A static drawing of a design's wiring for the printed report: boxes at the canvas positions
 // (document.layout) or, without them, columns by distance from the supplies; wires as elbow lines.
 import type { Design } from "~/engine";
+import { kindColours } from "~/lib/kind-colours";
 
 type Box = { id: string; type: string; label: string; x: number; y: number; w: number; h: number; detail: string };
 
@@ -98,22 +99,22 @@ export function WiringDiagram({ design }: { design: Design }) {
       })}
       {list.map((b) =>
         b.type === "junction" ? (
-          <g key={b.id}>
-            <circle cx={b.x + b.w / 2} cy={b.y + b.h / 2} r={5} fill="#272c35" />
+          <g key={b.id} data-kind={b.type}>
+            <circle cx={b.x + b.w / 2} cy={b.y + b.h / 2} r={5} fill={kindColours("junction").fill} />
             <text x={b.x + b.w / 2} y={b.y - 4} fontSize={11} textAnchor="middle" fill="#5f6878">
               {b.id}
             </text>
           </g>
         ) : (
-          <g key={b.id}>
+          <g key={b.id} data-kind={b.type}>
             <rect
               x={b.x}
               y={b.y}
               width={b.w}
               height={b.h}
               rx={b.type === "input" ? 14 : 6}
-              fill={b.type === "supply" ? "#fdf5ef" : b.type === "input" ? "#f1f7ef" : "#ffffff"}
-              stroke={b.type === "supply" ? "#ad5520" : b.type === "input" ? "#3f7a35" : "#3b414d"}
+              fill={kindColours(b.type).fill}
+              stroke={kindColours(b.type).stroke}
               strokeWidth={1.5}
               strokeDasharray={b.type === "input" ? "5 3" : undefined}
             />

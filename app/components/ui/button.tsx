@@ -14,6 +14,11 @@ export const buttonVariants = cva(
         action: "bg-action text-white shadow-sm hover:bg-action-hover disabled:bg-ink-300",
         secondary: "border border-line-strong bg-surface text-ink-800 shadow-sm hover:bg-subtle disabled:text-ink-400 disabled:hover:bg-surface",
         danger: "bg-failing text-white shadow-sm hover:bg-failing-hover disabled:bg-ink-300",
+        "danger-quiet": "border border-failing bg-surface text-failing-ink hover:bg-failing-soft disabled:text-ink-400",
+        // In a coloured banner: takes the banner's text colour.
+        outline: "border border-current hover:bg-surface/60",
+        // Takes the surrounding text colour (a dismiss cross in a note).
+        bare: "hover:opacity-70",
         ghost: "text-ink-700 hover:bg-subtle disabled:text-ink-300 disabled:hover:bg-transparent",
         link: "text-action-ink underline underline-offset-2 hover:text-action-hover disabled:text-ink-400",
       },
@@ -21,6 +26,7 @@ export const buttonVariants = cva(
         md: "min-h-10 rounded-md px-4 py-2 text-sm font-semibold",
         sm: "rounded px-2 py-1 text-sm font-medium",
         xs: "rounded px-2 py-0.5 text-xs font-semibold",
+        compact: "gap-1 rounded px-2 py-1 text-xs font-semibold",
         touch: "min-h-11 rounded-md px-3 text-sm font-medium",
         icon: "min-h-11 min-w-11 rounded-md",
         // For the link variant inside running text.
@@ -38,4 +44,17 @@ export type ButtonProps = ButtonHTMLAttributes<HTMLButtonElement> & ButtonVarian
 /** A button. Like the element it is, it submits its form unless given type="button". */
 export function Button({ variant, size, className, ...rest }: ButtonProps) {
   return <button className={buttonVariants({ variant, size, className })} {...rest} />;
+}
+
+export const chipVariants = cva(
+  "inline-flex items-center rounded-full border px-2 py-0.5 text-xs font-medium disabled:cursor-not-allowed aria-pressed:border-action aria-pressed:bg-action aria-pressed:text-white",
+  {
+    variants: { pressed: { true: "", false: "border-line-strong bg-surface text-ink-700 hover:bg-subtle" } },
+    defaultVariants: { pressed: false },
+  },
+);
+
+/** A toggle in a row of choices (aria-pressed): a state picked, a filter on. */
+export function Chip({ pressed, className, ...rest }: Omit<ButtonHTMLAttributes<HTMLButtonElement>, "aria-pressed"> & { pressed: boolean; ref?: Ref<HTMLButtonElement> }) {
+  return <button type="button" aria-pressed={pressed} className={chipVariants({ pressed, className })} {...rest} />;
 }
