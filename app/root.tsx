@@ -1,7 +1,7 @@
-import { isRouteErrorResponse, Links, Meta, Outlet, Scripts, ScrollRestoration, useRouteLoaderData } from "react-router";
+import { Links, Meta, Outlet, Scripts, ScrollRestoration, useRouteLoaderData } from "react-router";
 import type { Route } from "./+types/root";
 import "./app.css";
-import { LogoMark } from "./components/logo";
+import { PageError } from "./components/error-boundary";
 
 export const meta: Route.MetaFunction = () => [
   { title: "Chainproof" },
@@ -39,32 +39,6 @@ export default function App() {
 }
 
 export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
-  let title = "Something went wrong";
-  let detail = "The page could not be shown. Try again; if it keeps happening, tell your workspace admin.";
-  let stack: string | undefined;
-  if (isRouteErrorResponse(error)) {
-    title = error.status === 404 ? "Not found" : error.status === 403 ? "Not allowed" : `Error ${error.status}`;
-    detail =
-      error.status === 404
-        ? "There is nothing here, or it belongs to a workspace you are not a member of."
-        : typeof error.data === "string" && error.data
-          ? error.data
-          : error.statusText || detail;
-  } else if (import.meta.env.DEV && error instanceof Error) {
-    detail = error.message;
-    stack = error.stack;
-  }
-  return (
-    <main className="mx-auto max-w-xl px-6 py-16">
-      <LogoMark className="h-10 w-10 text-ink-800" />
-      <h1 className="mt-6 text-2xl font-semibold">{title}</h1>
-      <p className="mt-3 text-ink-700">{detail}</p>
-      <p className="mt-6">
-        <a href="/" className="font-semibold text-copper-700 underline">
-          Back to Chainproof
-        </a>
-      </p>
-      {stack ? <pre className="mt-8 overflow-x-auto rounded bg-ink-100 p-4 text-xs">{stack}</pre> : null}
-    </main>
-  );
+  // Errors outside a section's own boundary (sign-in pages, an unknown URL, a workspace you are not in).
+  return <PageError error={error} />;
 }

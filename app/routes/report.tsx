@@ -1,7 +1,7 @@
 // The printable report of one revision (A4 or Letter through @page): cover with sign-offs, wiring
 // diagram and list, conditions and contacts, rules and their results, single faults, the
 // no-restart result, the truth-table summary, and the caution. The PDF route prints this page.
-import { Link } from "react-router";
+import { Link, useParams } from "react-router";
 import type { Route } from "./+types/report";
 import { RefusedNotice } from "~/components/refused-mark";
 import { REFUSED_MARK } from "~/designs/standing-words";
@@ -24,6 +24,7 @@ import { VerdictSummary } from "~/components/truth-table/verdict-summary";
 import { TruthTableGrid } from "~/components/truth-table/grid";
 import { WiringDiagram } from "~/components/truth-table/wiring-diagram";
 import { Logo } from "~/components/logo";
+import { SectionError } from "~/components/error-boundary";
 
 /** The full table is printed when it fits this many A4 pages (bands × pages of rows); else the CSV's URL. */
 const TABLE_PAGE_LIMIT = 24;
@@ -383,5 +384,24 @@ function TruthTableBands({ columns, rows }: { columns: TableColumns; rows: Table
         );
       })}
     </>
+  );
+}
+
+/** The report is paper, outside the shell: its error keeps the logo and leads back to the review. */
+export function ErrorBoundary() {
+  const { ws, designId, number } = useParams();
+  return (
+    <main className="mx-auto max-w-3xl px-6 py-8">
+      <Logo />
+      <SectionError
+        back={
+          ws && designId && number && /^[1-9][0-9]{0,8}$/.test(number) ? (
+            <Link to={reviewPath(ws, designId, Number(number))} className="font-semibold text-action-ink underline">
+              Back to the review
+            </Link>
+          ) : null
+        }
+      />
+    </main>
   );
 }

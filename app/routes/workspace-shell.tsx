@@ -1,6 +1,7 @@
 import { Outlet } from "react-router";
 import type { Route } from "./+types/workspace-shell";
 import { Shell } from "~/components/shell";
+import { WorkspaceErrorBoundary } from "~/components/workspace-error";
 import { requireMember, workspacesFor } from "~/auth/guard.server";
 import { CAN } from "~/lib/roles";
 import { demoAccountsExist } from "~/workspace/workspace.server";
@@ -18,4 +19,9 @@ export default function WorkspaceShell({ loaderData }: Route.ComponentProps) {
       <Outlet />
     </Shell>
   );
+}
+
+/** A failing page of the workspace keeps the workspace's navigation (app/components/workspace-error.tsx). */
+export function ErrorBoundary() {
+  return <WorkspaceErrorBoundary />;
 }

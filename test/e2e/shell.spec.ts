@@ -97,3 +97,23 @@ test("an unknown page shows a friendly error without a stack trace", async ({ pa
   await expect(page.getByRole("heading", { name: "Not found" })).toBeVisible();
   await expect(page.locator("pre")).toHaveCount(0);
 });
+
+test("a missing page inside a workspace keeps the workspace navigation", async ({ page }) => {
+  await signIn(page, "engineer");
+  const res = await page.goto("/w/larkspur/designs/00000000-0000-4000-8000-000000000000");
+  expect(res?.status()).toBe(404);
+  await expect(page.getByRole("heading", { name: "Not found" })).toBeVisible();
+  const nav = page.getByRole("navigation", { name: "Sections" }).filter({ visible: true }).first();
+  await expect(nav.getByRole("link", { name: "Designs" })).toBeVisible();
+  await expect(page.locator("pre")).toHaveCount(0);
+
+  // The editor's own boundary: a revision that does not exist, said so, with the way back.
+  const list = await page.request.get("/api/v1/designs?workspace=larkspur");
+  const { designs } = (await list.json()) as { designs: Array<{ id: string; name: string }> };
+  const editor = await page.goto(`/w/larkspur/designs/${designs[0].id}/edit?revision=999`);
+  expect(editor?.status()).toBe(404);
+  await expect(page.getByText("This design has no revision 999.")).toBeVisible();
+  await expect(page.getByRole("link", { name: "Back to the design" })).toBeVisible();
+  await page.getByRole("navigation", { name: "Sections" }).filter({ visible: true }).first().getByRole("link", { name: "Vehicles" }).click();
+  await expect(page.getByRole("heading", { name: "Vehicles" })).toBeVisible();
+});
