@@ -23,10 +23,18 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     isAdmin ? recentAudit(m.workspace.id, 30) : Promise.resolve([]),
     listApiKeys(m.workspace.id, m.user.id),
   ]);
+  // Only admins manage members, so only they need each member's address and ids; others see names
+  // and roles (and their own address). An address and a user id are what an account takeover needs.
+  const visible = isAdmin
+    ? members
+    : members.map((x, i) => {
+        const self = x.userId === m.user.id;
+        return { id: `member-${i + 1}`, role: x.role, userId: self ? x.userId : `member-${i + 1}`, name: x.name, email: self ? x.email : null };
+      });
   return {
     isAdmin,
     me: m.user.id,
-    members,
+    members: visible,
     invitations: invitations.map((i) => ({ ...i, expiresAt: i.expiresAt.toISOString() })),
     audit: audit.map((a) => ({ ...a, at: a.at.toISOString() })),
     keys: keys.map((k) => ({ id: k.id, name: k.name, prefix: k.prefix, createdAt: k.createdAt.toISOString(), lastUsedAt: k.lastUsedAt?.toISOString() ?? null })),
@@ -101,7 +109,7 @@ export default function Settings({ loaderData, actionData }: Route.ComponentProp
             <li key={member.id} className="flex flex-wrap items-center justify-between gap-3 px-5 py-3">
               <div>
                 <p className="font-medium">{member.name}</p>
-                <p className="text-sm text-ink-600">{member.email}</p>
+                {member.email ? <p className="text-sm text-ink-600">{member.email}</p> : null}
               </div>
               {loaderData.isAdmin ? (
                 <div className="flex flex-wrap items-center gap-2">

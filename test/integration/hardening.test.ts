@@ -203,3 +203,15 @@ describe("the report PDF", () => {
     expect(status).toBe(200);
   });
 });
+
+describe("who sees members' addresses", () => {
+  it("a technician's settings page names members and roles but shows no other member's address or user id; an admin's shows them", async () => {
+    const [admin] = await query<{ id: string }>('SELECT id FROM "user" WHERE email = $1', [DEMO.admin]);
+    const techPage = await (await (await signIn(DEMO.technician)).fetch("/w/larkspur/settings")).text();
+    expect(techPage).toContain(DEMO.technician);
+    for (const other of [DEMO.admin, DEMO.engineer, DEMO.reviewer]) expect(techPage).not.toContain(other);
+    expect(techPage).not.toContain(admin!.id);
+    const adminPage = await (await (await signIn(DEMO.admin)).fetch("/w/larkspur/settings")).text();
+    for (const each of [DEMO.admin, DEMO.engineer, DEMO.reviewer, DEMO.technician]) expect(adminPage).toContain(each);
+  });
+});
