@@ -1,6 +1,6 @@
 // The review of one revision: verdict, changes since the last approved revision, comments (on the
 // revision, a truth-table row or a component), the request for review and the decision.
-import { Form, Link, data, useActionData, useNavigation, useSearchParams } from "react-router";
+import { Link, data, useActionData } from "react-router";
 import type { Route } from "./+types/review";
 import { CAN, type Role } from "~/lib/roles";
 import { fieldErrors, type FieldErrors } from "~/lib/forms";
@@ -15,7 +15,7 @@ import { designPath, editorPath } from "~/designs/paths";
 import { HashPrefix, Section, When } from "~/designs/design-bits";
 import { PageHeader } from "~/components/page-header";
 import { SafetyNote } from "~/components/safety-note";
-import { Button, buttonClass, Notice, SelectField, TextArea, TextField } from "~/components/ui/form";
+import { buttonClass, Notice } from "~/components/ui/form";
 import { VerdictSummary } from "~/components/truth-table/verdict-summary";
 import { RefusedNotice } from "~/components/refused-mark";
 import { ReviewStatusBadge } from "~/components/truth-table/review-status";
@@ -24,6 +24,8 @@ import { currentDispositions, dispositionHistory, recordDisposition } from "~/re
 import { dispositionSchema } from "~/reviews/dispositions";
 import { ReadableSummary, type DispositionView } from "~/components/review/readable-summary";
 import { ChangesView } from "~/components/review/changes-view";
+import { CommentForm, CommentsView, type ActionResult } from "~/components/review/comments";
+import { DecisionForm, DecisionsView, RequestForm } from "~/components/review/decisions";
 
 const has = (roles: readonly Role[], role: Role) => roles.includes(role);
 const compareParam = (request: Request) => {
@@ -87,7 +89,6 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   };
 }
 
-type ActionResult = { intent: string; ok: boolean; errors?: FieldErrors; message?: string; fault?: string };
 
 export async function action({ request, params }: Route.ActionArgs) {
   const form = reviewFormObject(await request.formData());
@@ -213,7 +214,14 @@ export default function Review({ loaderData }: Route.ComponentProps) {
             />
           </Section>
           <Section title={`Comments (${comments.length})`}>
-            <CommentsView comments={comments} slug={slug} designId={design.id} number={revision.number} labels={labels.components} />
+            <CommentsView
+              comments={comments}
+              slug={slug}
+              designId={design.id}
+              number={revision.number}
+              labels={labels.components}
+              conditionOrder={loaderData.readable.conditions.map((c) => c.id)}
+            />
             <CommentForm key={`comment-form-${comments.length}`} result={result} components={loaderData.components} rows={revision.rows} />
           </Section>
         </div>
@@ -252,187 +260,3 @@ export default function Review({ loaderData }: Route.ComponentProps) {
   );
 }
 
-const truthTableRowHref = (slug: string, designId: string, number: number, row: number) =>
-  `${truthTablePath(slug, designId, number)}?from=${Math.floor(row / 100) * 100}&row=${row}`;
-
-type CommentView = Route.ComponentProps["loaderData"]["comments"][number];
-
-function CommentsView({
-  comments,
-  slug,
-  designId,
-  number,
-  labels,
-}: {
-  comments: CommentView[];
-  slug: string;
-  designId: string;
-  number: number;
-  labels: Record<string, string>;
-}) {
-  if (comments.length === 0) return <p className="text-sm text-ink-600">No comments yet.</p>;
-  return (
-    <ul className="space-y-3" aria-label="Comments">
-      {comments.map((c) => (
-        <li key={c.id} className="rounded-md border border-ink-200 p-3 text-sm" data-testid="comment">
-          <p className="text-xs text-ink-500">
-            <span className="font-semibold text-ink-700">{c.authorName}</span>, <When iso={c.createdAt} />
-            {c.anchor === "row" && c.rowIndex !== null ? (
-              <>
-                {" "}
-                · on{" "}
-                <Link to={truthTableRowHref(slug, designId, number, c.rowIndex)} className="text-copper-700 underline">
-                  row {c.rowIndex}
-                </Link>{" "}
-                <span className="font-mono">
-                  (
-                  {Object.entries(c.rowStates ?? {})
-                    .map(([k, v]) => `${k}=${v}`)
-                    .join(", ")}
-                  )
-                </span>
-              </>
-            ) : null}
-            {c.anchor === "component" && c.componentId ? (
-              <>
-                {" "}
-                · on component <span className="font-medium">{labels[c.componentId] ?? c.componentId}</span> <code>{c.componentId}</code>
-              </>
-            ) : null}
-          </p>
-          <p className="mt-1 whitespace-pre-wrap text-ink-900">{c.body}</p>
-        </li>
-      ))}
-    </ul>
-  );
-}
-
-function errorsOf(result: ActionResult | undefined, intent: string): FieldErrors {
-  return result && !result.ok && result.intent === intent ? (result.errors ?? {}) : {};
-}
-
-function CommentForm({ result, components, rows }: { result?: ActionResult; components: Array<{ id: string; label: string; type: string }>; rows: number }) {
-  const [params] = useSearchParams();
-  const presetRow = params.get("row");
-  const nav = useNavigation();
-  const errors = errorsOf(result, "comment");
-  const busy = nav.state !== "idle" && nav.formData?.get("intent") === "comment";
-  return (
-    <Form method="post" className="mt-4 space-y-3 border-t border-ink-200 pt-4" id="comment" aria-label="Add a comment">
-      <input type="hidden" name="intent" value="comment" />
-      <fieldset>
-        <legend className="text-sm font-medium text-ink-700">Pin the comment to</legend>
-        <div className="mt-1 grid gap-3 sm:grid-cols-3">
-          <SelectField label="Anchor" name="anchor" defaultValue={presetRow !== null ? "row" : "revision"} error={errors.anchor}>
-            <option value="revision">The revision</option>
-            <option value="row">A truth-table row</option>
-            <option value="component">A component</option>
-          </SelectField>
-          <TextField
-            label={`Row (0 – ${(rows - 1).toLocaleString("en-US")})`}
-            name="row"
-            inputMode="numeric"
-            defaultValue={presetRow ?? ""}
-            error={errors.row}
-            hint="Used when the anchor is a row."
-          />
-          <SelectField label="Component" name="component" defaultValue="" error={errors.component}>
-            <option value="">—</option>
-            {components
-              .filter((c) => c.type !== "junction")
-              .map((c) => (
-                <option key={c.id} value={c.id}>
-                  {c.label} ({c.id})
-                </option>
-              ))}
-          </SelectField>
-        </div>
-      </fieldset>
-      <TextArea label="Comment" name="body" rows={3} error={errors.body} required maxLength={4000} />
-      <Button type="submit" tone="secondary" disabled={busy}>
-        {busy ? "Adding…" : "Add comment"}
-      </Button>
-    </Form>
-  );
-}
-
-function DecisionsView({ decisions }: { decisions: Route.ComponentProps["loaderData"]["decisions"] }) {
-  if (decisions.length === 0) return <p className="text-sm text-ink-600">No decision yet.</p>;
-  return (
-    <ul className="space-y-2 text-sm" aria-label="Decisions">
-      {decisions.map((d) => (
-        <li key={d.id} className="rounded-md border border-ink-200 p-2" data-testid="decision">
-          <p>
-            <strong className={d.verdict === "approved" ? "text-moss-700" : "text-brick-700"}>
-              <span aria-hidden="true">{d.verdict === "approved" ? "✓ " : "✕ "}</span>
-              {VERDICT_LABELS[d.verdict]}
-            </strong>{" "}
-            by {d.reviewerName}, <When iso={d.decidedAt} />
-          </p>
-          <p className="text-xs text-ink-500">
-            Signed content hash <HashPrefix hash={d.contentHash} />
-          </p>
-          <p className="mt-1 whitespace-pre-wrap">{d.comment}</p>
-        </li>
-      ))}
-    </ul>
-  );
-}
-
-function DecisionForm({ result }: { result?: ActionResult }) {
-  const nav = useNavigation();
-  const errors = errorsOf(result, "decide");
-  const busy = nav.state !== "idle" && nav.formData?.get("intent") === "decide";
-  return (
-    <Form method="post" className="mt-4 space-y-3 border-t border-ink-200 pt-4" aria-label="Decide">
-      <input type="hidden" name="intent" value="decide" />
-      <TextArea label="Comment with your decision" name="comment" rows={3} error={errors.comment} required maxLength={4000} />
-      {errors.verdict ? <p className="text-sm text-brick-700">{errors.verdict}</p> : null}
-      <div className="flex flex-wrap gap-2">
-        <Button type="submit" name="verdict" value="approved" disabled={busy}>
-          Approve revision
-        </Button>
-        <Button type="submit" name="verdict" value="changes-requested" tone="danger" disabled={busy}>
-          Request changes
-        </Button>
-      </div>
-      <p className="text-xs text-ink-500">Your decision records your name, the time and this revision's content hash. A later revision needs its own review.</p>
-    </Form>
-  );
-}
-
-function RequestForm({ result, reviewers }: { result?: ActionResult; reviewers: Array<{ id: string; name: string; email: string }> }) {
-  const nav = useNavigation();
-  const errors = errorsOf(result, "request");
-  const busy = nav.state !== "idle" && nav.formData?.get("intent") === "request";
-  if (reviewers.length === 0) {
-    return <p className="mt-3 text-sm text-ink-600">This workspace has no member with the reviewer role; an admin can invite one in Settings.</p>;
-  }
-  return (
-    <Form method="post" className="mt-4 space-y-3 border-t border-ink-200 pt-4" aria-label="Request review">
-      <input type="hidden" name="intent" value="request" />
-      <fieldset aria-describedby={errors.reviewers ? "reviewers-error" : undefined}>
-        <legend className="text-sm font-medium text-ink-700">Ask for a review from</legend>
-        <ul className="mt-1 space-y-1">
-          {reviewers.map((r) => (
-            <li key={r.id}>
-              <label className="flex min-h-10 items-center gap-2 text-sm">
-                <input type="checkbox" name="reviewers" value={r.id} className="h-4 w-4" />
-                {r.name} <span className="text-ink-500">{r.email}</span>
-              </label>
-            </li>
-          ))}
-        </ul>
-        {errors.reviewers ? (
-          <p id="reviewers-error" className="text-sm text-brick-700" role="alert">
-            {errors.reviewers}
-          </p>
-        ) : null}
-      </fieldset>
-      <TextArea label="Note for the reviewers (optional)" name="note" rows={2} error={errors.note} maxLength={2000} />
-      <Button type="submit" disabled={busy}>
-        {busy ? "Sending…" : "Request review"}
-      </Button>
-    </Form>
-  );
-}

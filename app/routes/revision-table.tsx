@@ -1,6 +1,6 @@
 // The truth table of one saved revision, paged on the server: filters and the position live in the
 // URL; pages come from the rows API through swr (the first one is rendered by the loader).
-import { useState, type FormEvent } from "react";
+import { useEffect, useRef, useState, type FormEvent } from "react";
 import { Link, useSearchParams, type ShouldRevalidateFunctionArgs } from "react-router";
 import useSWR from "swr";
 import type { Route } from "./+types/revision-table";
@@ -121,6 +121,14 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
   const page = data ?? initial.page;
   const [cond, setCond] = useState(columns.conditions[0]?.id ?? "");
   const [jump, setJump] = useState("");
+  // The row a jump asked for: scrolled into view once its page is on screen.
+  const [scrollTarget, setScrollTarget] = useState<number | null>(null);
+  const tableBox = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    if (scrollTarget === null || !page.rows.some((r) => r.index === scrollTarget)) return;
+    tableBox.current?.querySelector(`tr[data-row="${scrollTarget}"]`)?.scrollIntoView({ block: "center", inline: "nearest" });
+    setScrollTarget(null);
+  }, [scrollTarget, page]);
 
   const update = (change: (p: URLSearchParams) => void) => {
     const next = new URLSearchParams(params);
@@ -149,7 +157,8 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
     e.preventDefault();
     const n = Number(jump);
     if (!/^[0-9]{1,10}$/.test(jump) || n >= totalRows) return;
-    // Row N of the whole table: clear the filters, page to it and open it.
+    // Row N of the whole table: clear the filters, page to it, open it and scroll it into view.
+    setScrollTarget(n);
     update((p) => {
       for (const k of ["only", "rule", "where"]) p.delete(k);
       p.set("from", String(Math.floor(n / PAGE) * PAGE));
@@ -158,6 +167,7 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
   }
 
   const last = Math.min(page.total, page.from + page.rows.length);
+  const filtered = Boolean(query.only || query.where.length > 0);
   const jumpInvalid = jump !== "" && (!/^[0-9]{1,10}$/.test(jump) || Number(jump) >= totalRows);
 
   return (
@@ -318,7 +328,7 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
 
       {error ? <Notice tone="error">{error instanceof ApiError ? error.detail : "The rows could not be loaded."}</Notice> : null}
 
-      <div className="max-h-[70vh] overflow-auto rounded-lg border border-ink-200 bg-white">
+      <div ref={tableBox} className="max-h-[70vh] overflow-auto rounded-lg border border-ink-200 bg-white" data-testid="table-scroller">
         {page.rows.length === 0 ? (
           <p className="p-6 text-center text-sm text-ink-600">No row matches these filters.</p>
         ) : (
@@ -327,8 +337,8 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
       </div>
 
       <nav className="mt-3 flex flex-wrap items-center justify-between gap-3 text-sm" aria-label="Pages">
-        <p>
-          {page.total === 0 ? "No rows" : `Rows ${(page.from + 1).toLocaleString("en-US")}–${last.toLocaleString("en-US")} of ${page.total.toLocaleString("en-US")} matching`}
+        <p data-testid="page-label">
+          <PageLabel rows={page.rows} total={page.total} totalRows={totalRows} from={page.from} last={last} filtered={filtered} />
         </p>
         <div className="flex gap-2">
           <button type="button" className={buttonClass("secondary")} disabled={from === 0} onClick={() => update((p) => p.set("from", String(Math.max(0, from - PAGE))))}>
@@ -360,4 +370,16 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
       ) : null}
     </>
   );
+}
+
+/**
+ * Which rows this page shows, by the row numbers the table prints (0-based, as "Jump to row" takes
+ * them); with a filter, also which of the matching rows they are (counted from 1).
+ */
+function PageLabel({ rows, total, totalRows, from, last, filtered }: { rows: Array<{ index: number }>; total: number; totalRows: number; from: number; last: number; filtered: boolean }) {
+  if (total === 0 || rows.length === 0) return <>No rows</>;
+  const n = (x: number) => x.toLocaleString("en-US");
+  const span = `Rows ${n(rows[0]!.index)}–${n(rows.at(-1)!.index)}`;
+  if (!filtered) return <>{`${span} of ${n(totalRows)}`}</>;
+  return <>{`${span}: matches ${n(from + 1)}–${n(last)} of ${n(total)}`}</>;
 }

@@ -14,9 +14,11 @@ test("the printed truth table keeps every column within the page", async ({ page
   const released = designs.designs.find((d) => d.name.startsWith("Haybarn") && d.latestRevision)!;
   const base = `/w/larkspur/designs/${released.id}/revisions/${released.latestRevision!.number}`;
 
+  // Columns by their ids (the screen heads them with labels first, paper with ids alone); the
+  // screen's pinned "rules in this row" column repeats the rule columns and is not printed.
   const headings = () =>
     page.$$eval("table[data-testid=truth-table] thead", (heads) =>
-      heads.map((h) => [...h.querySelectorAll("th")].map((th) => (th.textContent ?? "").trim().toLowerCase()).filter((t) => t && t !== "row" && t !== "conditions")),
+      heads.map((h) => [...h.querySelectorAll("th[data-col]")].map((th) => th.getAttribute("data-col")!).filter((t) => t !== "rules-summary")),
     );
 
   // The screen's table: all columns in one.

@@ -1,6 +1,6 @@
 // The truth table itself: grouped, sticky column headers and one line per row. Rows are given
 // (a page at a time on screen, or the whole small table in the printed report).
-import type { TableColumns, TableRow } from "~/reviews/truth-table";
+import type { RuleCell, TableColumns, TableRow } from "~/reviews/truth-table";
 import type { Band } from "~/reviews/print-bands";
 import { ContactCell, DriveCell, LiveCell, RuleCellView } from "./cells";
 
@@ -11,6 +11,31 @@ const group = "whitespace-nowrap border-b border-l border-ink-200 bg-ink-100 px-
 const groupDense = "whitespace-normal border-b border-l border-ink-200 bg-ink-100 px-1 py-0.5 text-left font-semibold uppercase tracking-wide text-ink-700";
 const tdScreen = "whitespace-nowrap px-2 py-1";
 const tdDense = "whitespace-nowrap px-1 py-0";
+
+// On screen the drive and rule columns are fixed-width and stick to the right edge while the table
+// scrolls sideways (from md up; a phone's width could not hold them and the conditions at once).
+// Past STICKY_RULES rules, pinning them all would cover the table: a pinned "Rules" column beside
+// the drive then says which rules the row violates or is unsafe for, and the rule columns scroll.
+const DRIVE_REM = 6;
+const RULE_REM = 7;
+const SUMMARY_REM = 10;
+const STICKY_RULES = 4;
+const stickyRight = "md:sticky";
+const stickyEdge = "shadow-[-6px_0_6px_-6px_rgba(24,27,33,0.35)]";
+const rem = (n: number) => `${n}rem`;
+
+/** A column heading on screen: the label a person knows, the id under it. */
+function Heading({ label, id, extra }: { label: string; id: string; extra?: string }) {
+  return (
+    <>
+      <span className="block max-w-[10rem] whitespace-normal font-sans text-xs font-semibold text-ink-800">{label || id}</span>
+      <span className="block font-mono text-[10px] font-normal text-ink-500">
+        {id}
+        {extra ? ` · ${extra}` : ""}
+      </span>
+    </>
+  );
+}
 
 export function TruthTableGrid({
   columns,
@@ -42,13 +67,27 @@ export function TruthTableGrid({
   const rules = pick(columns.rules, band?.rules);
   const showController = band?.controller ?? true;
   const showDrive = band?.drive ?? true;
-  const stickyHead = sticky ? "sticky z-10" : "";
+  // The whole heading is one sticky box (one stacking context): a heading cell pinned left or right
+  // then stays above the heading cells that scroll under it, whichever heading row they are in.
+  const stickyHead = sticky ? "sticky top-0 z-10" : "";
   const groupClass = dense ? groupDense : group;
+  // Labels first on screen; on paper the ids (the widths print-bands.ts counts with).
+  const labelled = !dense;
+  const pinRight = sticky && !dense;
+  const pinRules = pinRight && rules.length <= STICKY_RULES;
+  const pinSummary = pinRight && rules.length > STICKY_RULES;
+  const driveRight = pinRules ? rules.length * RULE_REM : pinSummary ? SUMMARY_REM : 0;
+  const driveStyle = pinRight ? { right: rem(driveRight), width: rem(DRIVE_REM), minWidth: rem(DRIVE_REM), maxWidth: rem(DRIVE_REM) } : undefined;
+  const summaryStyle = { right: 0, width: rem(SUMMARY_REM), minWidth: rem(SUMMARY_REM), maxWidth: rem(SUMMARY_REM) };
+  const ruleStyle = (i: number) =>
+    pinRules ? { right: rem((rules.length - 1 - i) * RULE_REM), width: rem(RULE_REM), minWidth: rem(RULE_REM), maxWidth: rem(RULE_REM) } : undefined;
+  const driveClass = pinRight ? `${stickyRight} ${stickyEdge}` : "";
+  const ruleClass = (i: number) => (pinRules ? `${stickyRight} z-20 ${i === 0 && !showDrive ? stickyEdge : ""}` : "");
   return (
     <table className={`border-separate border-spacing-0 font-mono tabular-nums ${dense ? "text-[9px] leading-tight" : "min-w-full text-xs"}`} data-testid="truth-table">
       {caption ? <caption className="sr-only">{caption}</caption> : null}
-      <thead>
-        <tr className={`${stickyHead} top-0`}>
+      <thead className={stickyHead}>
+        <tr>
           <th scope="col" rowSpan={2} className={`${groupClass} border-l-0 ${sticky ? "sticky left-0 z-20" : ""}`}>
             Row
           </th>
@@ -71,45 +110,74 @@ export function TruthTableGrid({
             </th>
           ) : null}
           {showDrive ? (
-            <th scope="col" rowSpan={2} className={groupClass}>
+            <th scope="col" rowSpan={2} className={`${groupClass} ${driveClass} ${pinRight ? "z-20" : ""}`} style={driveStyle} data-col="drive">
               Drive
             </th>
           ) : null}
+          {pinSummary && showDrive ? (
+            <th scope="col" rowSpan={2} className={`${groupClass} ${stickyRight} z-20 whitespace-normal`} style={summaryStyle} data-col="rules-summary">
+              Rules in this row
+            </th>
+          ) : null}
           {rules.length > 0 ? (
-            <th scope="colgroup" colSpan={rules.length} className={groupClass}>
-              Rules (unsafe / violating; must drive: demand / failing)
+            <th
+              scope="colgroup"
+              colSpan={rules.length}
+              className={`${groupClass} ${pinRules ? `${stickyRight} z-20` : ""}`}
+              style={pinRules ? { right: 0, whiteSpace: "normal" } : undefined}
+            >
+              {labelled ? "Rules" : "Rules (unsafe / violating; must drive: demand / failing)"}
             </th>
           ) : null}
         </tr>
-        <tr className={`${stickyHead} top-[25px]`}>
+        <tr>
           {conditions.map((c, i) => (
-            <th key={c.id} scope="col" className={`${th} ${i === 0 ? "border-l border-ink-200" : ""}`} title={c.label}>
-              {c.id}
+            <th key={c.id} scope="col" className={`${th} ${i === 0 ? "border-l border-ink-200" : ""}`} title={c.label} data-col={c.id}>
+              {labelled ? <Heading label={c.label} id={c.id} /> : c.id}
             </th>
           ))}
           {contacts.map((c, i) => (
-            <th key={c.id} scope="col" className={`${th} ${i === 0 ? "border-l border-ink-200" : ""}`} title={`${c.label} (on ${c.condition})`}>
-              {c.id}
+            <th key={c.id} scope="col" className={`${th} ${i === 0 ? "border-l border-ink-200" : ""}`} title={`${c.label} (on ${c.condition})`} data-col={c.id}>
+              {labelled ? <Heading label={c.label} id={c.id} /> : c.id}
             </th>
           ))}
           {inputs.map((x, i) => (
-            <th key={x.id} scope="col" className={`${th} ${i === 0 ? "border-l border-ink-200" : ""}`} title={`${x.label}: ${x.fn}`}>
-              {x.id} <span className="font-normal text-ink-400">{x.fn}</span>
+            <th key={x.id} scope="col" className={`${th} ${i === 0 ? "border-l border-ink-200" : ""}`} title={`${x.label}: ${x.fn}`} data-col={x.id}>
+              {labelled ? (
+                <Heading label={x.label} id={x.id} extra={x.fn} />
+              ) : (
+                <>
+                  {x.id} <span className="font-normal text-ink-400">{x.fn}</span>
+                </>
+              )}
             </th>
           ))}
           {showController ? (
             <>
-              <th scope="col" className={`${th} border-l border-ink-200`}>powered</th>
-              <th scope="col" className={th}>enabled</th>
-              <th scope="col" className={th}>direction</th>
-              <th scope="col" className={th}>braking</th>
-              <th scope="col" className={th}>throttle</th>
+              <th scope="col" className={`${th} border-l border-ink-200`} data-col="controller-powered">powered</th>
+              <th scope="col" className={th} data-col="controller-enabled">enabled</th>
+              <th scope="col" className={th} data-col="controller-direction">direction</th>
+              <th scope="col" className={th} data-col="controller-braking">braking</th>
+              <th scope="col" className={th} data-col="controller-throttle">throttle</th>
             </>
           ) : null}
           {rules.map((r, i) => (
-            <th key={r.id} scope="col" className={`${th} ${i === 0 ? "border-l border-ink-200" : ""}`} title={r.type === "require-drive" ? `Must drive: ${r.label}` : r.label}>
-              {r.id}
-              {r.type === "require-drive" ? <span className="font-normal text-ink-400"> must drive</span> : null}
+            <th
+              key={r.id}
+              scope="col"
+              className={`${th} ${i === 0 ? "border-l border-ink-200" : ""} ${ruleClass(i)}`}
+              style={ruleStyle(i)}
+              title={r.type === "require-drive" ? `Must drive: ${r.label}` : r.label}
+              data-col={r.id}
+            >
+              {labelled ? (
+                <Heading label={r.label} id={r.id} extra={r.type === "require-drive" ? "must drive" : undefined} />
+              ) : (
+                <>
+                  {r.id}
+                  {r.type === "require-drive" ? <span className="font-normal text-ink-400"> must drive</span> : null}
+                </>
+              )}
             </th>
           ))}
         </tr>
@@ -123,7 +191,8 @@ export function TruthTableGrid({
               key={r.index}
               data-row={r.index}
               aria-selected={onSelect ? isSelected : undefined}
-              className={`${isSelected ? "bg-copper-50" : bad ? "bg-brick-50/60" : "odd:bg-white even:bg-ink-50/50"} ${onSelect ? "cursor-pointer hover:bg-copper-50" : ""}`}
+                            // Opaque colours only: the sticky cells inherit them, and a see-through one shows the scrolled text.
+              className={`${isSelected ? "bg-copper-50" : bad ? "bg-brick-50" : "odd:bg-white even:bg-ink-50"} ${onSelect ? "cursor-pointer hover:bg-copper-100" : ""}`}
               onClick={onSelect ? () => onSelect(r.index) : undefined}
             >
               <th scope="row" className={`${td} border-r border-ink-100 text-right font-semibold text-ink-700 ${sticky ? "sticky left-0 bg-inherit" : ""}`}>
@@ -174,12 +243,17 @@ export function TruthTableGrid({
                 </>
               ) : null}
               {showDrive ? (
-                <td className={td}>
+                <td className={`${td} ${pinRight ? `${driveClass} bg-inherit` : ""}`} style={driveStyle}>
                   <DriveCell drive={r.drive} />
                 </td>
               ) : null}
+              {pinSummary && showDrive ? (
+                <td className={`${dense ? "px-1 py-0" : "px-2 py-1"} ${stickyRight} bg-inherit text-[11px] leading-tight`} style={summaryStyle} data-testid="rules-summary">
+                  <RulesInRow columns={rules} cells={r.rules} />
+                </td>
+              ) : null}
               {pick(r.rules, band?.rules).map((c, i) => (
-                <td key={`r${i}`} className={td}>
+                <td key={`r${i}`} className={`${td} ${pinRules ? `${ruleClass(i).replace("z-20", "")} bg-inherit` : ""}`} style={ruleStyle(i)}>
                   <RuleCellView cell={c} />
                 </td>
               ))}
@@ -189,4 +263,41 @@ export function TruthTableGrid({
       </tbody>
     </table>
   );
+}
+
+/**
+ * One row's rules in a few words: the ones it breaks (an inhibit rule violated, a must-drive rule
+ * failing), else the ones that apply to it (unsafe for an inhibit rule, demanding drive).
+ */
+function RulesInRow({ columns, cells }: { columns: Array<{ id: string; label: string }>; cells: RuleCell[] }) {
+  const named = (...kinds: RuleCell[]) => columns.filter((_, i) => kinds.includes(cells[i]!));
+  const broken = named("violating", "failing");
+  const unsafe = named("unsafe");
+  const demand = named("demand");
+  const list = (rs: Array<{ id: string; label: string }>) => rs.map((x) => x.id).join(", ");
+  const title = (rs: Array<{ id: string; label: string }>) => rs.map((x) => x.label || x.id).join("; ");
+  if (broken.length > 0) {
+    return (
+      <span className="font-semibold text-brick-700" title={title(broken)}>
+        <span aria-hidden="true">✕ </span>breaks {list(broken)}
+      </span>
+    );
+  }
+  if (unsafe.length + demand.length > 0) {
+    return (
+      <span className="text-copper-700" title={title([...unsafe, ...demand])}>
+        {unsafe.length > 0 ? (
+          <span className="block">
+            <span aria-hidden="true">▲ </span>unsafe for {list(unsafe)}
+          </span>
+        ) : null}
+        {demand.length > 0 ? (
+          <span className="block">
+            <span aria-hidden="true">▷ </span>must drive for {list(demand)}
+          </span>
+        ) : null}
+      </span>
+    );
+  }
+  return <span className="text-ink-500">none applies</span>;
 }
