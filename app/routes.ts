@@ -30,6 +30,7 @@ export default [
       route("reviews", "routes/reviews.tsx"),
       route("bench-tests", "routes/bench-tests.tsx"),
       route("bench-tests/:runId", "routes/bench-run.tsx"),
+      route("bench-tests/:runId/results.csv", "routes/bench-run-csv.ts"),
       route("settings", "routes/settings.tsx"),
     ]),
   ]),

@@ -303,6 +303,9 @@ export const runStepSchema = z
     note: z.string(),
     updatedAt: isoTime.nullable(),
     updatedBy: named.nullable(),
+    failureMailedAt: isoTime.nullable().meta({
+      description: "When this step's failure was mailed to the revision's author (once per step; sent when the next step is recorded, on request, or in the digest at completion).",
+    }),
     photos: z.array(z.object({ id: z.string(), filename: z.string(), contentType: z.string(), url: z.string() })),
   })
   .meta({ id: "BenchStep" });
@@ -330,7 +333,7 @@ export type RunJson = z.output<typeof runSchema>;
 
 export const runListAnswer = z.object({ runs: z.array(runSummarySchema), nextCursor: nextCursorSchema });
 export const runAnswer = z.object({ run: runSchema });
-export const stepSavedAnswer = z.object({ step: runStepSchema, mailed: z.boolean().meta({ description: "The author was mailed about a new failure." }) });
+export const stepSavedAnswer = z.object({ step: runStepSchema, mailed: z.boolean().meta({ description: "The author was mailed about failed steps recorded earlier in this run (a failed step is mailed once, when the technician moves on to another step)." }) });
 
 // ---------------------------------------------------------------- controller settings records
 

@@ -110,6 +110,7 @@ export function runJson(run: RunDetail, slug: string): z.input<typeof runSchema>
         note: r?.note ?? "",
         updatedAt: r?.updatedAt?.toISOString() ?? null,
         updatedBy: r?.updatedByName ? { name: r.updatedByName } : null,
+        failureMailedAt: r?.failureMailedAt?.toISOString() ?? null,
         photos: (r?.photos ?? []).map((p) => ({ id: p.id, filename: p.filename, contentType: p.contentType, url: `/w/${slug}/files/${p.id}` })),
       };
     }),

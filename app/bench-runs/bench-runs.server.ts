@@ -1,7 +1,7 @@
 // Bench-test runs: started from the revision released to a vehicle (the generated procedure is
 // frozen into the run), one saved result per step, a failed step flags the vehicle and tells the
 // revision's author, and a completed run becomes a signed, hashed record (decisions 071-072).
-import { and, asc, desc, eq, inArray, sql } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNull, ne, sql } from "drizzle-orm";
 import { db, schema } from "~/db/client.server";
 import { recordAudit } from "~/audit/audit.server";
 import { env } from "~/env.server";
@@ -9,6 +9,9 @@ import { composeMail, sendMail } from "~/mail/mailer.server";
 import { contentHash } from "~/designs/content-hash.server";
 import { generateBenchPlan, type BenchPlan } from "~/bench-tests/generate";
 import { saveUpload } from "~/uploads/uploads.server";
+import { STEP_PHOTOS } from "~/uploads/kinds";
+import { getObject } from "~/uploads/storage.server";
+import { ISOLATE_FIRST, SAFETY_TEXT } from "~/lib/safety";
 import { currentRelease, raiseAttention } from "~/vehicles/vehicles.server";
 import type { StepOutcome } from "./outcomes";
 
@@ -148,7 +151,15 @@ export async function getRun(workspaceId: string, runId: string) {
   const row = rows[0];
   if (!row) return null;
   const results = await db
-    .select({ id: benchStepResult.id, n: benchStepResult.n, outcome: benchStepResult.outcome, note: benchStepResult.note, updatedAt: benchStepResult.updatedAt, updatedByName: user.name })
+    .select({
+      id: benchStepResult.id,
+      n: benchStepResult.n,
+      outcome: benchStepResult.outcome,
+      note: benchStepResult.note,
+      updatedAt: benchStepResult.updatedAt,
+      updatedByName: user.name,
+      failureMailedAt: benchStepResult.failureMailedAt,
+    })
     .from(benchStepResult)
     .leftJoin(user, eq(user.id, benchStepResult.updatedBy))
     .where(and(eq(benchStepResult.runId, runId), eq(benchStepResult.workspaceId, workspaceId)))
@@ -206,8 +217,10 @@ function checkStep(run: LockedRun, n: number): void {
 }
 
 /**
- * Saves a step's outcome (null clears it). A step turning to "fail" flags the vehicle and mails the
- * revision's author after the transaction commits; the result is saved even if the mail cannot go.
+ * Saves a step's outcome (null clears it). A step turning to "fail" flags the vehicle. Its mail to the
+ * revision's author waits until the technician moves on (records another step), asks for it, or
+ * completes the run, so it carries the note and photos; each failed step is mailed once (decision 136).
+ * The result is saved even if a mail cannot go.
  */
 export async function setStepOutcome(
   workspaceId: string,
@@ -216,7 +229,7 @@ export async function setStepOutcome(
   outcome: StepOutcome | null,
   actorId: string,
 ): Promise<{ mailed: boolean }> {
-  const newlyFailed = await db.transaction(async (tx) => {
+  await db.transaction(async (tx) => {
     const run = await lockRun(tx, workspaceId, runId);
     checkStep(run, n);
     const before = await tx
@@ -228,7 +241,7 @@ export async function setStepOutcome(
       .set({ outcome, updatedBy: actorId, updatedAt: new Date() })
       .where(and(eq(benchStepResult.runId, runId), eq(benchStepResult.workspaceId, workspaceId), eq(benchStepResult.n, n)));
     await recordAudit({ workspaceId, actorId, action: "bench-run.step-recorded", detail: { runId, step: n, outcome } }, tx);
-    if (outcome !== "fail" || before[0]?.outcome === "fail") return false;
+    if (outcome !== "fail" || before[0]?.outcome === "fail") return;
     await raiseAttention(tx, {
       workspaceId,
       vehicleId: run.vehicleId,
@@ -237,13 +250,82 @@ export async function setStepOutcome(
       stepNumber: n,
       actorId,
     });
-    return true;
   });
-  if (!newlyFailed) return { mailed: false };
-  return { mailed: await mailFailure(workspaceId, runId, n, actorId) };
+  // Moving on: the other failed steps are finished with (their note and photos are in).
+  return { mailed: await mailFailedSteps(workspaceId, runId, actorId, { except: n }) };
 }
 
-async function mailFailure(workspaceId: string, runId: string, n: number, actorId: string): Promise<boolean> {
+/** Mails one failed step now, as it stands (the technician's "Send to the engineer now"). */
+export async function mailStepNow(workspaceId: string, runId: string, n: number, actorId: string): Promise<{ mailed: boolean }> {
+  await db.transaction(async (tx) => {
+    const run = await lockRun(tx, workspaceId, runId);
+    checkStep(run, n);
+  });
+  return { mailed: await mailFailedSteps(workspaceId, runId, actorId, { only: n }) };
+}
+
+type ClaimedStep = { id: string; n: number; note: string };
+
+/**
+ * Marks failed, not yet mailed steps as mailed and returns them; the mark is taken in one statement,
+ * so two requests at once never both mail a step.
+ */
+async function claimFailedSteps(tx: Pick<typeof db, "update">, workspaceId: string, runId: string, which: { except?: number; only?: number }): Promise<ClaimedStep[]> {
+  const rows = await tx
+    .update(benchStepResult)
+    .set({ failureMailedAt: new Date() })
+    .where(
+      and(
+        eq(benchStepResult.runId, runId),
+        eq(benchStepResult.workspaceId, workspaceId),
+        eq(benchStepResult.outcome, "fail"),
+        isNull(benchStepResult.failureMailedAt),
+        ...(which.except !== undefined ? [ne(benchStepResult.n, which.except)] : []),
+        ...(which.only !== undefined ? [eq(benchStepResult.n, which.only)] : []),
+      ),
+    )
+    .returning({ id: benchStepResult.id, n: benchStepResult.n, note: benchStepResult.note });
+  return rows.sort((a, b) => a.n - b.n);
+}
+
+async function mailFailedSteps(workspaceId: string, runId: string, actorId: string, which: { except?: number; only?: number }): Promise<boolean> {
+  const claimed = await claimFailedSteps(db, workspaceId, runId, which);
+  if (claimed.length === 0) return false;
+  const sent = await mailFailures(workspaceId, runId, claimed, actorId, "steps");
+  if (!sent) {
+    // Not sent: let the next occasion try again.
+    await db
+      .update(benchStepResult)
+      .set({ failureMailedAt: null })
+      .where(and(eq(benchStepResult.workspaceId, workspaceId), inArray(benchStepResult.id, claimed.map((c) => c.id))))
+      .catch(() => {});
+  }
+  return sent;
+}
+
+/** The most photo bytes one mail carries; past that the photos are named with a link to the run. */
+const MAIL_ATTACHMENT_BYTES = 15 * 1024 * 1024;
+
+async function photosOf(workspaceId: string, stepIds: string[]) {
+  if (stepIds.length === 0) return [];
+  return db
+    .select({ subjectId: upload.subjectId, storageKey: upload.storageKey, filename: upload.filename, contentType: upload.contentType, size: upload.size })
+    .from(upload)
+    .where(and(eq(upload.workspaceId, workspaceId), eq(upload.subjectKind, STEP_PHOTO_KIND), inArray(upload.subjectId, stepIds)))
+    .orderBy(asc(upload.createdAt), asc(upload.id));
+}
+
+async function readObject(key: string): Promise<Buffer> {
+  const obj = await getObject(key);
+  return Buffer.from(await new Response(obj.body).arrayBuffer());
+}
+
+/**
+ * One mail to the revision's author about failed steps: one step ("steps" with one) or several
+ * ("digest", when the run is completed), each with its instruction, what was expected, the note and
+ * the photos attached, and the isolation caution.
+ */
+async function mailFailures(workspaceId: string, runId: string, steps: ClaimedStep[], actorId: string, kind: "steps" | "digest"): Promise<boolean> {
   const rows = await db
     .select({
       authorEmail: user.email,
@@ -264,29 +346,65 @@ async function mailFailure(workspaceId: string, runId: string, n: number, actorI
     .limit(1);
   const r = rows[0];
   if (!r) return false;
-  const tech = (await db.select({ name: user.name }).from(user).where(eq(user.id, actorId)).limit(1))[0];
-  const step = r.plan.steps.find((s) => s.n === n);
-  const url = `${env.APP_URL}/w/${r.slug}/bench-tests/${runId}#step-${n}`;
   try {
-    await sendMail(
-      composeMail(
+    const tech = (await db.select({ name: user.name }).from(user).where(eq(user.id, actorId)).limit(1))[0];
+    const photos = await photosOf(workspaceId, steps.map((s) => s.id));
+    const attachments: Array<{ filename: string; content: Buffer; contentType: string }> = [];
+    const notAttached: string[] = [];
+    let bytes = 0;
+    for (const p of photos) {
+      if (bytes + p.size > MAIL_ATTACHMENT_BYTES) {
+        notAttached.push(p.filename);
+        continue;
+      }
+      attachments.push({ filename: p.filename, content: await readObject(p.storageKey), contentType: p.contentType });
+      bytes += p.size;
+    }
+    const base = `${env.APP_URL}/w/${r.slug}/bench-tests/${runId}`;
+    const blocks = steps.flatMap((st) => {
+      const step = r.plan.steps.find((x) => x.n === st.n);
+      const mine = photos.filter((p) => p.subjectId === st.id).map((p) => p.filename);
+      return [
+        `Step ${st.n}${step ? `: ${step.instruction}` : ""}`,
+        ...(step ? [`Expected: ${describeExpected(step.expect)}`] : []),
+        st.note.trim() ? `The technician's note: ${st.note.trim()}` : "The technician wrote no note.",
+        mine.length > 0 ? `Photos: ${mine.join(", ")}${mine.some((f) => notAttached.includes(f)) ? " (some too large to attach: open the run)" : " (attached)"}.` : "No photos were added.",
+        `This step in the run: ${base}#step-${st.n}`,
+      ];
+    });
+    const who = tech?.name ?? "A technician";
+    const against = `revision ${r.number} of "${r.designName}", which you saved`;
+    const subject =
+      kind === "digest"
+        ? `Bench test of ${r.vehicleName} completed: ${steps.length} failed step${steps.length > 1 ? "s" : ""} not yet reported`
+        : steps.length === 1
+          ? `Bench step ${steps[0].n} failed on ${r.vehicleName}`
+          : `Bench steps ${steps.map((s) => s.n).join(", ")} failed on ${r.vehicleName}`;
+    const intro =
+      kind === "digest"
+        ? `${who} completed the bench test of ${r.vehicleName} against ${against}. These failed steps had not been reported to you yet:`
+        : `${who} marked ${steps.length === 1 ? `step ${steps[0].n}` : `steps ${steps.map((s) => s.n).join(", ")}`} as failed while bench-testing ${r.vehicleName} against ${against}.`;
+    await sendMail({
+      ...composeMail(
         r.authorEmail,
-        `Bench step ${n} failed on ${r.vehicleName}`,
-        [
-          `Hello ${r.authorName},`,
-          `${tech?.name ?? "A technician"} marked step ${n} as failed while bench-testing ${r.vehicleName} against revision ${r.number} of "${r.designName}", which you saved.`,
-          ...(step ? [`The step: ${step.instruction}`] : []),
-          "The vehicle is flagged as needing attention until someone clears it.",
-        ],
-        { label: "Open the bench run", url },
+        subject,
+        [`Hello ${r.authorName},`, intro, ...blocks, "The vehicle is flagged as needing attention until someone clears it.", `Caution: ${ISOLATE_FIRST} ${SAFETY_TEXT}`],
+        { label: "Open the bench run", url: steps.length === 1 ? `${base}#step-${steps[0].n}` : base },
       ),
-    );
+      attachments,
+    });
     return true;
   } catch (err) {
     console.error("bench failure mail could not be sent", err);
-    await recordAudit({ workspaceId, actorId, action: "bench-run.mail-failed", detail: { runId, step: n, to: r.authorEmail } });
+    await recordAudit({ workspaceId, actorId, action: "bench-run.mail-failed", detail: { runId, steps: steps.map((s) => s.n), to: r.authorEmail } });
     return false;
   }
+}
+
+function describeExpected(e: BenchPlan["steps"][number]["expect"]): string {
+  const live = Object.entries(e.inputs).filter(([, on]) => on).map(([id]) => id);
+  const dead = Object.entries(e.inputs).filter(([, on]) => !on).map(([id]) => id);
+  return [e.drive ? "drive runs" : "drive stays off", live.length ? `live: ${live.join(", ")}` : "", dead.length ? `dead: ${dead.join(", ")}` : ""].filter(Boolean).join("; ") + ".";
 }
 
 export const NOTE_MAX = 2000;
@@ -314,7 +432,7 @@ export async function addStepPhoto(workspaceId: string, runId: string, n: number
       .where(and(eq(benchStepResult.runId, runId), eq(benchStepResult.workspaceId, workspaceId), eq(benchStepResult.n, n)));
     return rows[0]!;
   });
-  return saveUpload({ workspaceId, subjectKind: STEP_PHOTO_KIND, subjectId: step.id, file, userId: actorId });
+  return saveUpload({ workspaceId, subjectKind: STEP_PHOTO_KIND, subjectId: step.id, file, userId: actorId, accept: STEP_PHOTOS });
 }
 
 // ---------------------------------------------------------------- the signed record
@@ -356,7 +474,8 @@ export function recordHash(record: ReturnType<typeof recordOf>): string {
 
 /** Completes a run when every step has an outcome: fixes who and when and the hash of the record. */
 export async function completeRun(workspaceId: string, runId: string, actorId: string): Promise<string> {
-  return db.transaction(async (tx) => {
+  let unreported: ClaimedStep[] = [];
+  const hash = await db.transaction(async (tx) => {
     const run = await lockRun(tx, workspaceId, runId);
     const open = await tx
       .select({ n: benchStepResult.n })
@@ -374,10 +493,14 @@ export async function completeRun(workspaceId: string, runId: string, actorId: s
     const detail = await getRun(workspaceId, run.id);
     const at = new Date();
     const hash = recordHash(recordOf(detail!, { by: actorId, at }));
+    // Failed steps not yet mailed go in one digest; marked before the record is frozen.
+    unreported = await claimFailedSteps(tx, workspaceId, runId, {});
     await tx.update(benchRun).set({ status: "completed", completedBy: actorId, completedAt: at, resultsHash: hash }).where(and(eq(benchRun.id, runId), eq(benchRun.workspaceId, workspaceId)));
     await recordAudit({ workspaceId, actorId, action: "bench-run.completed", detail: { runId, resultsHash: hash } }, tx);
     return hash;
   });
+  if (unreported.length > 0) await mailFailures(workspaceId, runId, unreported, actorId, "digest");
+  return hash;
 }
 
 /** Recomputes the hash of a completed run from what is stored, to show that the record is intact. */
@@ -385,4 +508,44 @@ export function verifyRecord(run: RunDetail): boolean | null {
   if (run.run.status !== "completed" || !run.run.completedAt || !run.run.completedBy) return null;
   const hash = recordHash(recordOf(run, { by: run.run.completedBy, at: run.run.completedAt }));
   return hash === run.run.resultsHash;
+}
+
+// ---------------------------------------------------------------- the author's home page
+
+/**
+ * Failed steps of bench runs on revisions `authorId` saved, while the vehicle's flag for that step is
+ * still open (someone clears it with a note once it is dealt with); newest first.
+ */
+export async function failedStepsFor(workspaceId: string, authorId: string, limit = 50) {
+  const { vehicleAttention } = schema;
+  const rows = await db
+    .select({
+      runId: benchRun.id,
+      n: benchStepResult.n,
+      note: benchStepResult.note,
+      failedAt: benchStepResult.updatedAt,
+      vehicleId: vehicle.id,
+      vehicleName: vehicle.name,
+      designName: design.name,
+      number: designRevision.number,
+      plan: benchRun.plan,
+    })
+    .from(benchStepResult)
+    .innerJoin(benchRun, and(eq(benchRun.id, benchStepResult.runId), eq(benchRun.workspaceId, benchStepResult.workspaceId)))
+    .innerJoin(designRevision, runsRevision)
+    .innerJoin(design, revisionsDesign)
+    .innerJoin(vehicle, runsVehicle)
+    .innerJoin(
+      vehicleAttention,
+      and(
+        eq(vehicleAttention.workspaceId, benchRun.workspaceId),
+        eq(vehicleAttention.benchRunId, benchRun.id),
+        eq(vehicleAttention.stepNumber, benchStepResult.n),
+        isNull(vehicleAttention.clearedAt),
+      ),
+    )
+    .where(and(eq(benchStepResult.workspaceId, workspaceId), eq(benchStepResult.outcome, "fail"), eq(designRevision.authorId, authorId)))
+    .orderBy(desc(benchStepResult.updatedAt), asc(benchStepResult.n))
+    .limit(limit);
+  return rows.map(({ plan, ...r }) => ({ ...r, instruction: plan.steps.find((s) => s.n === r.n)?.instruction ?? "" }));
 }

@@ -16,6 +16,8 @@ export type LiveStep = {
   note: string;
   updatedAt: string | null;
   updatedByName: string | null;
+  /** When the failure was mailed to the revision's author (once per step). */
+  failureMailedAt: string | null;
   photos: Array<{ id: string; filename: string; contentType: string }>;
 };
 export type LiveRun = { status: ApiRun["status"]; steps: LiveStep[] };
@@ -29,6 +31,7 @@ export function liveStep(s: ApiStep): LiveStep {
     note: s.note,
     updatedAt: s.updatedAt,
     updatedByName: s.updatedBy?.name ?? null,
+    failureMailedAt: s.failureMailedAt,
     photos: s.photos.map((p) => ({ id: p.id, filename: p.filename, contentType: p.contentType })),
   };
 }

@@ -22,6 +22,8 @@ export const noteSchema = z.object({
   note: storable(z.string().max(2000, "Use at most 2000 characters.")),
 });
 
-export const runFormSchema = z.discriminatedUnion("intent", [outcomeSchema, noteSchema, z.object({ intent: z.literal("complete") })], {
+export const mailStepSchema = z.object({ intent: z.literal("mail-step"), step });
+
+export const runFormSchema = z.discriminatedUnion("intent", [outcomeSchema, noteSchema, mailStepSchema, z.object({ intent: z.literal("complete") })], {
   message: "Unknown action.",
 });

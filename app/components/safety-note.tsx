@@ -1,6 +1,7 @@
 // The caution shown wherever people act on what Chainproof computes.
-export const SAFETY_TEXT =
-  "Chainproof helps you reason about interlock logic; it does not certify a vehicle. Isolate the traction battery before working on the wiring, verify every result on the vehicle itself, and follow local codes, standards and licensed practice.";
+import { SAFETY_TEXT } from "~/lib/safety";
+
+export { SAFETY_TEXT };
 
 export function SafetyNote({ className = "" }: { className?: string }) {
   return (

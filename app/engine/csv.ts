@@ -18,6 +18,11 @@ function csvField(s: string): string {
   return formula || /[",\r\n]/.test(text) || text.trim() !== text ? `"${text.replace(/"/g, '""')}"` : text;
 }
 
+/** One CSV line (with its newline) of any table the product writes, through the same field writer. */
+export function csvLine(fields: readonly string[]): string {
+  return fields.map(csvField).join(",") + "\n";
+}
+
 /** The rules with a column, in design order: inhibit and require-drive rules (no-restart is about sequences). */
 function rowRules(c: CompiledDesign) {
   return c.rules.filter((r) => r.type !== "no-restart");

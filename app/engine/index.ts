@@ -50,7 +50,7 @@ export {
 export type { ContactFault } from "./table";
 export { replayTrace, type StepView } from "./sequence";
 export { evaluateRows, faultRows, glimpseRows, stepInto, type ControllerMemory, type RowGlimpse, type StepOutcome } from "./observe";
-export { csvChunks, csvHeader, textTableChunks } from "./csv";
+export { csvChunks, csvHeader, csvLine, textTableChunks } from "./csv";
 export {
   diagnose,
   explainReadings,

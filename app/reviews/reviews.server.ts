@@ -462,3 +462,30 @@ export async function reviewInbox(workspaceId: string, reviewerId?: string) {
     };
   });
 }
+
+// ---------------------------------------------------------------- the author's home page
+
+/**
+ * The latest revisions of designs whose review asks for changes, saved by `authorId`, with the
+ * reviewers' words: what the engineer's home page lists until a new revision is saved.
+ */
+export async function changeRequestsFor(workspaceId: string, authorId: string) {
+  const states = await reviewStatusOf(workspaceId);
+  const wanted = [...states.values()].flatMap((s) => (s.latest?.status === "changes-requested" ? [s.latest.revisionId] : []));
+  if (wanted.length === 0) return [];
+  const revisions = await db
+    .select({ revisionId: designRevision.id, designId: design.id, designName: design.name, number: designRevision.number, contentHash: designRevision.contentHash })
+    .from(designRevision)
+    .innerJoin(design, and(eq(design.id, designRevision.designId), eq(design.workspaceId, designRevision.workspaceId)))
+    .where(and(eq(designRevision.workspaceId, workspaceId), eq(designRevision.authorId, authorId), inArray(designRevision.id, wanted)))
+    .orderBy(asc(design.name));
+  const decisions = await decisionsOf(
+    workspaceId,
+    revisions.map((r) => r.revisionId),
+  );
+  return revisions.map((r) => {
+    const asks = decisions.filter((d) => d.revisionId === r.revisionId && d.verdict === "changes-requested" && d.contentHash === r.contentHash);
+    const last = asks.at(-1);
+    return { ...r, reviewerName: last?.reviewerName ?? "", comment: last?.comment ?? "", decidedAt: last?.decidedAt ?? null };
+  });
+}

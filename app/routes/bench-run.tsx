@@ -5,18 +5,19 @@
 // PUT /api/v1/bench-runs/:runId/steps/:n, rolled back with a message if it fails. Clearing a result,
 // notes and photos go through this route's action. A completed run is a signed, printable record.
 import "~/components/diagnosis/bench-print.css";
-import { useCallback, useEffect, useState } from "react";
+import { useCallback, useEffect, useRef, useState } from "react";
 import { data, Form, Link, useFetcher, useFetchers, useNavigation, useRevalidator } from "react-router";
 import useSWR from "swr";
 import type { Route } from "./+types/bench-run";
 import { requireMember } from "~/auth/guard.server";
 import { CAN } from "~/lib/roles";
 import { fieldErrors, type FieldErrors } from "~/lib/forms";
-import { addStepPhoto, BenchRunError, completeRun, getRun, setStepNote, setStepOutcome, verifyRecord } from "~/bench-runs/bench-runs.server";
+import { addStepPhoto, BenchRunError, completeRun, getRun, mailStepNow, setStepNote, setStepOutcome, verifyRecord } from "~/bench-runs/bench-runs.server";
 import { OUTCOME_LABELS, runFormSchema, STEP_OUTCOMES, type StepOutcome } from "~/bench-runs/outcomes";
 import { fetchLiveRun, liveFromApi, progressOf, putStepOutcome, runApiPath, withOutcome, withStep, type LiveRun, type LiveStep } from "~/bench-runs/live";
 import { runJson } from "~/api/views.server";
 import { readCappedFormData, UploadError } from "~/uploads/uploads.server";
+import { acceptedWords, acceptOf, STEP_PHOTOS } from "~/uploads/kinds";
 import { PageHeader } from "~/components/page-header";
 import { SafetyNote } from "~/components/safety-note";
 import { Button, Notice } from "~/components/ui/form";
@@ -82,6 +83,9 @@ export async function action({ request, params }: Route.ActionArgs) {
         return { ok: true, fields: {}, step: input.step } satisfies ActionResult;
       case "note":
         await setStepNote(m.workspace.id, params.runId, input.step, input.note, m.user.id);
+        return { ok: true, fields: {}, step: input.step } satisfies ActionResult;
+      case "mail-step":
+        await mailStepNow(m.workspace.id, params.runId, input.step, m.user.id);
         return { ok: true, fields: {}, step: input.step } satisfies ActionResult;
       case "complete":
         await completeRun(m.workspace.id, params.runId, m.user.id);
@@ -149,6 +153,7 @@ function StepCard({ step, result, slug, canRecord, putting, tapError, onOutcome 
   const outcomeFetcher = useFetcher<ActionResult>({ key: clearKey(step.n) });
   const noteFetcher = useFetcher<ActionResult>({ key: `note-${step.n}` });
   const photoFetcher = useFetcher<ActionResult>({ key: `photo-${step.n}` });
+  const mailFetcher = useFetcher<ActionResult>({ key: `mail-${step.n}` });
   // `result` already carries an optimistic tap and a pending clear.
   const outcome = result.outcome;
   const [note, setNote] = useState(result.note);
@@ -262,16 +267,36 @@ function StepCard({ step, result, slug, canRecord, putting, tapError, onOutcome 
           ))}
         </ul>
       ) : null}
+      {outcome === "fail" ? (
+        <div className="mt-3 rounded-md bg-brick-50 px-3 py-2 text-base text-brick-700" data-testid="failure-mail" data-mailed={result.failureMailedAt ? "yes" : "no"}>
+          {result.failureMailedAt ? (
+            <p>The design's engineer was mailed about this failure, with its note and photos.</p>
+          ) : (
+            <>
+              <p>The design's engineer is mailed once about this failure, with its note and photos, when you move on to another step or complete the run.</p>
+              {canRecord ? (
+                <mailFetcher.Form method="post" className="mt-2">
+                  <input type="hidden" name="intent" value="mail-step" />
+                  <input type="hidden" name="step" value={step.n} />
+                  <Button type="submit" tone="secondary" className="min-h-11 text-base" disabled={mailFetcher.state !== "idle"}>
+                    Send to the engineer now
+                  </Button>
+                </mailFetcher.Form>
+              ) : null}
+            </>
+          )}
+        </div>
+      ) : null}
       {canRecord ? (
         <photoFetcher.Form method="post" encType="multipart/form-data" className="mt-3 print:hidden">
           <input type="hidden" name="intent" value="photo" />
           <input type="hidden" name="step" value={step.n} />
           <label className="inline-flex min-h-11 cursor-pointer items-center rounded-md border border-ink-300 bg-white px-3 text-sm font-medium hover:bg-ink-100">
-            {photoFetcher.state !== "idle" ? "Uploading photo…" : "Add a photo"}
+            {photoFetcher.state !== "idle" ? "Uploading photo…" : `Add a photo (${acceptedWords(STEP_PHOTOS)})`}
             <input
               type="file"
               name="file"
-              accept="image/jpeg,image/png,image/webp"
+              accept={acceptOf(STEP_PHOTOS)}
               capture="environment"
               className="sr-only"
               aria-label={`Photo for step ${step.n}`}
@@ -298,7 +323,7 @@ export default function BenchRun({ loaderData, actionData }: Route.ComponentProp
   }, [live.run.status, run.status, revalidator]);
   const results = live.run.steps;
   const resultOf = (n: number): LiveStep =>
-    results.find((r) => r.n === n) ?? { n, outcome: null, note: "", updatedAt: null, updatedByName: null, photos: [] };
+    results.find((r) => r.n === n) ?? { n, outcome: null, note: "", updatedAt: null, updatedByName: null, failureMailedAt: null, photos: [] };
   const { done, failed } = progressOf(results);
   const busy = useNavigation().state === "submitting";
   const completeError = actionData && !actionData.ok && actionData.step === undefined ? Object.values(actionData.fields)[0] : null;
@@ -402,6 +427,12 @@ export default function BenchRun({ loaderData, actionData }: Route.ComponentProp
         </details>
       ) : null}
 
+      <p className="mt-6 print:hidden">
+        <a href={`/w/${slug}/bench-tests/${run.id}/results.csv`} className="inline-flex min-h-11 items-center text-base text-copper-700 underline" download>
+          Download the results (CSV)
+        </a>
+      </p>
+
       {canRecord ? (
         <Form method="post" className="mt-6 rounded-lg border border-ink-200 bg-white p-4 print:hidden">
           <input type="hidden" name="intent" value="complete" />
@@ -440,6 +471,8 @@ function useLiveRun(runId: string, fromLoader: LiveRun, status: LiveRun["status"
   useEffect(() => {
     void mutate(fromLoader, { revalidate: false });
   }, [fromLoader, mutate]);
+  const latest = useRef(data);
+  latest.current = data;
   const [putting, setPutting] = useState<Record<number, number>>({});
   const [errors, setErrors] = useState<Record<number, string>>({});
   const bump = (n: number, by: number) => setPutting((p) => ({ ...p, [n]: (p[n] ?? 0) + by }));
@@ -461,6 +494,10 @@ function useLiveRun(runId: string, fromLoader: LiveRun, status: LiveRun["status"
           setErrors((e) => ({ ...e, [n]: `Not saved: ${err instanceof Error ? err.message : "the server did not answer."}` }));
           // What the server holds now (the run may have been completed elsewhere).
           void mutate();
+        })
+        // Recording a step sends the mail of earlier failed steps: show it.
+        .then(() => {
+          if ((latest.current ?? fromLoader).steps.some((s) => s.n !== n && s.outcome === "fail" && !s.failureMailedAt)) void mutate();
         })
         .finally(() => bump(n, -1));
     },

@@ -19,6 +19,7 @@ import {
 } from "~/vehicles/vehicles.server";
 import { BenchRunError, listRuns, startRun } from "~/bench-runs/bench-runs.server";
 import { listUploads, readCappedFormData, saveUpload, UploadError } from "~/uploads/uploads.server";
+import { acceptedWords, acceptOf, VEHICLE_FILES } from "~/uploads/kinds";
 import { UploadForm } from "~/components/upload-form";
 import { PageHeader } from "~/components/page-header";
 import { SafetyNote } from "~/components/safety-note";
@@ -105,7 +106,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     try {
       const form = await readCappedFormData(request);
       if (form.get("intent") !== "upload-photo") return fail("upload-photo", { intent: "Unknown action." });
-      await saveUpload({ workspaceId: m.workspace.id, subjectKind: "vehicle", subjectId: v.id, file: form.get("file"), userId: m.user.id });
+      await saveUpload({ workspaceId: m.workspace.id, subjectKind: "vehicle", subjectId: v.id, file: form.get("file"), userId: m.user.id, accept: VEHICLE_FILES });
       return { intent: "upload-photo", fields: {}, done: "Photo added." } satisfies ActionResult;
     } catch (err) {
       if (err instanceof UploadError) return fail("upload-photo", { [err.field]: err.message }, err.status);
@@ -339,7 +340,7 @@ export default function Vehicle({ loaderData, actionData }: Route.ComponentProps
           )}
           {loaderData.canEdit ? (
             <div className="mt-4">
-              <UploadForm intent="upload-photo" label="Add a photo or PDF (up to 20 MB)" accept="image/jpeg,image/png,image/webp,application/pdf" error={errorsOf("upload-photo")?.file} />
+              <UploadForm intent="upload-photo" label={`Add a photo or document: ${acceptedWords(VEHICLE_FILES)}, up to 20 MB`} accept={acceptOf(VEHICLE_FILES)} error={errorsOf("upload-photo")?.file} />
             </div>
           ) : null}
         </section>

@@ -8,17 +8,32 @@ import { SafetyNote } from "~/components/safety-note";
 import { fleetControllerStatus } from "~/vehicles/controller-records.server";
 import { differenceInWords, proofDoesNotHold } from "~/vehicles/controller-status";
 import { ProofMark } from "~/components/controller-record/proof-mark";
+import { failedStepsFor } from "~/bench-runs/bench-runs.server";
+import { changeRequestsFor } from "~/reviews/reviews.server";
+import { When } from "~/designs/design-bits";
 
 export const meta: Route.MetaFunction = () => [{ title: "Overview · Chainproof" }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, params.ws, CAN.view);
-  const [vehicleCount, fleet] = await Promise.all([countVehicles(m.workspace.id), fleetControllerStatus(m.workspace.id)]);
+  const [vehicleCount, fleet, failedSteps, changeRequests] = await Promise.all([
+    countVehicles(m.workspace.id),
+    fleetControllerStatus(m.workspace.id),
+    failedStepsFor(m.workspace.id, m.user.id),
+    changeRequestsFor(m.workspace.id, m.user.id),
+  ]);
   const marked = [...fleet.values()]
     .filter((f) => proofDoesNotHold(f.status))
     .map((f) => ({ id: f.vehicleId, name: f.vehicleName, differences: differenceInWords(f.status) }))
     .sort((a, b) => (a.name < b.name ? -1 : a.name > b.name ? 1 : 0));
-  return { workspace: m.workspace, role: m.role, vehicleCount, marked };
+  return {
+    workspace: m.workspace,
+    role: m.role,
+    vehicleCount,
+    marked,
+    failedSteps: failedSteps.map((f) => ({ ...f, failedAt: f.failedAt?.toISOString() ?? null })),
+    changeRequests: changeRequests.map((c) => ({ ...c, decidedAt: c.decidedAt?.toISOString() ?? null })),
+  };
 }
 
 const NEXT_STEP: Record<string, { text: string; to: string; label: string }> = {
@@ -36,6 +51,62 @@ export default function WorkspaceHome({ loaderData }: Route.ComponentProps) {
         title={loaderData.workspace.name}
         description={`You are ${ROLE_LABELS[loaderData.role].toLowerCase()} here: you ${ROLE_DUTIES[loaderData.role]}.`}
       />
+      {loaderData.failedSteps.length > 0 || loaderData.changeRequests.length > 0 ? (
+        <section className="mb-6 rounded-lg border-2 border-brick-600/60 bg-white p-5" aria-labelledby="yours-h" data-testid="your-attention">
+          <h2 id="yours-h" className="font-semibold">
+            Waiting for you
+          </h2>
+          {loaderData.failedSteps.length > 0 ? (
+            <>
+              <h3 className="mt-3 text-sm font-semibold text-ink-700">Failed bench steps on revisions you saved</h3>
+              <ul className="mt-2 space-y-3" data-testid="failed-steps">
+                {loaderData.failedSteps.map((f) => (
+                  <li key={`${f.runId}-${f.n}`} data-run={f.runId} data-step={f.n}>
+                    <Link to={`bench-tests/${f.runId}#step-${f.n}`} className="inline-flex min-h-11 items-center font-semibold text-copper-700 underline">
+                      {f.vehicleName}: step {f.n} failed
+                    </Link>
+                    <p className="text-sm text-ink-700">
+                      Revision {f.number} of {f.designName}
+                      {f.failedAt ? (
+                        <>
+                          {" "}
+                          · <When iso={f.failedAt} />
+                        </>
+                      ) : null}
+                    </p>
+                    <p className="text-sm text-ink-600">{f.instruction}</p>
+                    {f.note ? <p className="text-sm italic text-ink-700">“{f.note}”</p> : null}
+                  </li>
+                ))}
+              </ul>
+            </>
+          ) : null}
+          {loaderData.changeRequests.length > 0 ? (
+            <>
+              <h3 className="mt-4 text-sm font-semibold text-ink-700">Changes requested on your revisions</h3>
+              <ul className="mt-2 space-y-3" data-testid="change-requests">
+                {loaderData.changeRequests.map((c) => (
+                  <li key={c.revisionId}>
+                    <Link to={`designs/${c.designId}/revisions/${c.number}/review`} className="inline-flex min-h-11 items-center font-semibold text-copper-700 underline">
+                      {c.designName}, revision {c.number}
+                    </Link>
+                    <p className="text-sm text-ink-700">
+                      {c.reviewerName ? `${c.reviewerName} asked for changes` : "Changes were asked for"}
+                      {c.decidedAt ? (
+                        <>
+                          {" "}
+                          · <When iso={c.decidedAt} />
+                        </>
+                      ) : null}
+                    </p>
+                    {c.comment ? <p className="text-sm italic text-ink-700">“{c.comment}”</p> : null}
+                  </li>
+                ))}
+              </ul>
+            </>
+          ) : null}
+        </section>
+      ) : null}
       {loaderData.marked.length > 0 ? (
         <section className="mb-6 rounded-lg border border-ink-200 bg-white p-5" aria-labelledby="marked-h">
           <h2 id="marked-h" className="font-semibold">

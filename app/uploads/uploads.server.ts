@@ -8,12 +8,7 @@ import { deleteObject, getObject, putObject } from "./storage.server";
 import { create as contentDisposition } from "content-disposition";
 
 export const MAX_UPLOAD_BYTES = 20 * 1024 * 1024;
-export const ACCEPTED_TYPES: Record<string, string> = {
-  "image/jpeg": "JPEG photo",
-  "image/png": "PNG image",
-  "image/webp": "WebP image",
-  "application/pdf": "PDF document",
-};
+import { EMPTY_FILE, refusalOf, type FileType } from "./kinds";
 
 export class UploadError extends Error {
   constructor(
@@ -96,15 +91,16 @@ export async function saveUpload(opts: {
   subjectId: string;
   file: FormDataEntryValue | null;
   userId: string;
+  /** What the picker that sent it accepts (app/uploads/kinds.ts). */
+  accept: readonly FileType[];
 }) {
   const file = opts.file;
-  if (!(file instanceof File) || file.size === 0) throw new UploadError("file", "Choose a file to upload.");
+  if (!(file instanceof File) || (file.size === 0 && file.name === "")) throw new UploadError("file", "Choose a file to upload.");
+  if (file.size === 0) throw new UploadError("file", EMPTY_FILE);
   if (file.size > MAX_UPLOAD_BYTES) throw tooLarge();
   const bytes = new Uint8Array(await file.arrayBuffer());
   const detected = await fileTypeFromBuffer(bytes);
-  if (!detected || !(detected.mime in ACCEPTED_TYPES)) {
-    throw new UploadError("file", "Only JPEG, PNG or WebP photos and PDF documents are accepted (checked by the file's content).", 415);
-  }
+  if (!detected || !(opts.accept as readonly string[]).includes(detected.mime)) throw new UploadError("file", refusalOf(opts.accept), 415);
   const sha256 = createHash("sha256").update(bytes).digest("hex");
   const id = crypto.randomUUID();
   const storageKey = `${opts.workspaceId}/${opts.subjectKind}/${id}`;

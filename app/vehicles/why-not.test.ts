@@ -63,6 +63,8 @@ describe("explainMeasured", () => {
     if (v.kind !== "faults") return;
     expect(v.mismatched).toEqual(["EN"]);
     expect(v.suspects[0]).toMatchObject({ contact: "SEAT", mode: "stuck-closed" });
+    // Measuring continuity is done on a dead circuit: the advice starts by isolating the traction pack.
+    for (const s of v.suspects) expect(s.check).toMatch(/^Isolate the traction pack first: .*Then, with .* measure across its terminals/);
   });
 
   it("says the readings match when they do, and nothing without readings", () => {

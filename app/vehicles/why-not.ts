@@ -20,6 +20,7 @@ import {
   type RowView,
 } from "../engine";
 import { lockoutName } from "../lib/lockouts";
+import { ISOLATE_FIRST } from "../lib/safety";
 
 export type WireEnd = { terminal: string; to: string[] };
 
@@ -367,8 +368,8 @@ export function explainMeasured(c: CompiledDesign, states: Record<string, string
     const state = states[cond.id];
     const check =
       e.mode === "stuck-closed"
-        ? `With ${cond.label} ${state} it should be open; measure across its terminals: continuity means it is stuck closed.`
-        : `With ${cond.label} ${state} it should be closed; measure across its terminals: no continuity means it is stuck open (or a wire to it is broken).`;
+        ? `${ISOLATE_FIRST} Then, with ${cond.label} ${state}, it should be open: measure across its terminals; continuity means it is stuck closed.`
+        : `${ISOLATE_FIRST} Then, with ${cond.label} ${state}, it should be closed: measure across its terminals; no continuity means it is stuck open (or a wire to it is broken).`;
     return { contact: k.id, label: k.label ?? k.id, mode: e.mode, check, terminals: wiresAt(c, k.id), otherInputsChanged: e.otherInputsChanged };
   });
   return { kind: "faults", suspects, mismatched };

@@ -95,6 +95,10 @@ test("a generated bench test with a failed step and a photo; progress survives a
   await expect(step(2).getByLabel("Note")).toHaveValue("Drive ran with the key off");
   await expect(step(2).getByRole("img", { name: "key-switch.png" })).toBeVisible();
   await expect(page.getByTestId("progress")).toContainText("1 failed");
+  // The mail waits for the note and photo: it goes when the technician moves on.
+  await expect(step(2).getByTestId("failure-mail")).toHaveAttribute("data-mailed", "no");
+  await step(3).getByRole("button", { name: "Pass" }).tap();
+  await expect(step(2).getByTestId("failure-mail")).toHaveAttribute("data-mailed", "yes");
 
   // The vehicle needs attention now.
   await page.goto("/w/larkspur/vehicles");
@@ -107,4 +111,7 @@ test("a generated bench test with a failed step and a photo; progress survives a
   await expect(mail).toHaveCount(1);
   await expect(mail).toContainText("engineer@example.com");
   await expect(mail).toContainText("Bench step 2 failed on Haybarn campus hauler #3");
+  await expect(mail).toContainText("Drive ran with the key off");
+  await expect(mail).toContainText("key-switch.png");
+  await expect(mail).toContainText("Isolate the traction pack first");
 });

@@ -269,9 +269,16 @@ describe("review and sign-off", () => {
   it("changes requested, then approval: the decision records reviewer, time and the content hash; the author is e-mailed", async () => {
     expect((await act(reviewer, id, 1, { intent: "decide", verdict: "changes-requested", comment: "Label the inlet switch." })).status).toBe(200);
     expect(await statusOnPage(engineer, id, 1)).toBe("changes-requested");
+    // The author's home page lists the request with the reviewer's words until it is settled.
+    const home = await pageText(engineer, "/w/larkspur");
+    expect(home).toContain('data-testid="change-requests"');
+    expect(home).toContain(`/w/larkspur/designs/${id}/revisions/1/review`);
+    expect(home).toContain("Label the inlet switch.");
+    expect(await pageText(reviewer, "/w/larkspur")).not.toContain(`/designs/${id}/revisions/1/review`);
     const before = new Date(Date.now() - 2000);
     expect((await act(reviewer, id, 1, { intent: "decide", verdict: "approved", comment: "Checked against the loom." })).status).toBe(200);
     expect(await statusOnPage(engineer, id, 1)).toBe("approved");
+    expect(await pageText(engineer, "/w/larkspur")).not.toContain(`/w/larkspur/designs/${id}/revisions/1/review`);
     const rev = await db.query<{ content_hash: string }>("SELECT content_hash FROM design_revision WHERE design_id = $1 AND number = 1", [id]);
     const dec = await db.query<{ reviewer_id: string; verdict: string; content_hash: string; decided_at: Date }>(
       "SELECT d.reviewer_id, d.verdict, d.content_hash, d.decided_at FROM review_decision d JOIN design_revision r ON r.id = d.revision_id WHERE r.design_id = $1 ORDER BY d.decided_at",

@@ -47,6 +47,7 @@ export const MATRIX: Row[] = [
   { name: "truth-table page of an unknown design", method: "GET", path: "/w/larkspur/designs/no-such-design/revisions/1/table", expect: all(404) },
   { name: "bench tests", method: "GET", path: "/w/larkspur/bench-tests", expect: all(200) },
   { name: "bench tests with failures", method: "GET", path: "/w/larkspur/bench-tests?status=failures", expect: all(200) },
+  { name: "bench results CSV of an unknown run", method: "GET", path: "/w/larkspur/bench-tests/no-such-run/results.csv", expect: all(404) },
   { name: "why won't it drive (no such vehicle)", method: "GET", path: "/w/larkspur/vehicles/no-such-vehicle/why", expect: all(404) },
   {
     name: "release to a vehicle (no such vehicle: engineers and admins get 404, others 403)",

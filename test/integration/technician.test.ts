@@ -39,10 +39,10 @@ async function stepsOf(runId: string) {
 }
 
 /** Waits for the SMTP sink to store a mail to `address` whose subject contains `subject`. */
-async function mailTo(address: string, subject: string, since: Date): Promise<{ subject: string; text_body: string }> {
+async function mailTo(address: string, subject: string, since: Date): Promise<{ subject: string; text_body: string; attachments: string }> {
   for (let i = 0; i < 50; i++) {
     const r = await db.query(
-      "SELECT subject, text_body FROM mail_message WHERE recipients LIKE $1 AND subject LIKE $2 AND received_at >= $3 ORDER BY received_at DESC LIMIT 1",
+      "SELECT subject, text_body, attachments FROM mail_message WHERE recipients LIKE $1 AND subject LIKE $2 AND received_at >= $3 ORDER BY received_at DESC LIMIT 1",
       [`%${address}%`, `%${subject}%`, since],
     );
     if (r.rows[0]) return r.rows[0];
@@ -173,9 +173,10 @@ describe("bench runs", () => {
     expect(await badOutcome.text()).toContain("Choose pass, fail or skip.");
   });
 
-  it("a failed step flags the vehicle and mails the revision's author a link to the run", async () => {
+  it("a failed step flags the vehicle and, once the technician moves on, mails the revision's author a link to the run", async () => {
     const since = new Date(Date.now() - 1000);
     expect((await record(technician, runId, { intent: "outcome", step: "2", outcome: "fail" })).status).toBe(200);
+    expect((await record(technician, runId, { intent: "outcome", step: "4", outcome: "pass" })).status).toBe(200);
     const flags = await db.query("SELECT reason, step_number FROM vehicle_attention WHERE bench_run_id = $1 AND cleared_at IS NULL", [runId]);
     expect(flags.rows).toEqual([{ reason: "Bench step 2 failed", step_number: 2 }]);
     const author = await db.query(
@@ -249,6 +250,85 @@ describe("bench runs", () => {
     expect((await technician.fetch(vehiclePath(hauler.id), formBody({ intent: "clear-attention", note: "Brake switch replaced" }))).status).toBe(200);
     const open = await db.query("SELECT count(*)::int AS n FROM vehicle_attention WHERE vehicle_id = $1 AND cleared_at IS NULL", [hauler.id]);
     expect(open.rows[0].n).toBe(0);
+  });
+});
+
+describe("the failure e-mail", () => {
+  // One mail per failed step, sent when the technician moves on (so it carries the note and photos),
+  // never twice for a step; what is still unreported at completion goes in one digest (decision 136).
+  it("five Fail/Pass toggles give one mail, with the note, the photo and the isolation caution; the rest come in the digest", async () => {
+    const runId = await startRun();
+    const since = new Date(Date.now() - 1000);
+    const author = (
+      await db.query(`SELECT u.email FROM bench_run b JOIN design_revision r ON r.id = b.revision_id JOIN "user" u ON u.id = r.author_id WHERE b.id = $1`, [runId])
+    ).rows[0].email as string;
+    const mailsOfRun = async () =>
+      (
+        await db.query("SELECT subject, text_body, attachments FROM mail_message WHERE recipients LIKE $1 AND received_at >= $2 AND text_body LIKE $3 ORDER BY received_at", [
+          `%${author}%`,
+          since,
+          `%${runId}%`,
+        ])
+      ).rows as Array<{ subject: string; text_body: string; attachments: string }>;
+    for (const outcome of ["fail", "pass", "fail", "pass", "fail"]) {
+      expect((await record(technician, runId, { intent: "outcome", step: "2", outcome })).status).toBe(200);
+    }
+    expect((await record(technician, runId, { intent: "note", step: "2", note: "Drive ran with the key off" })).status).toBe(200);
+    const form = new FormData();
+    form.set("intent", "photo");
+    form.set("step", "2");
+    form.set("file", new File([PNG as BlobPart], "key-switch.png", { type: "image/png" }));
+    expect((await technician.fetch(runPath(runId), { method: "POST", body: form })).status).toBe(200);
+    // Moving on sends it.
+    expect((await record(technician, runId, { intent: "outcome", step: "1", outcome: "pass" })).status).toBe(200);
+    const mail = await mailTo(author, `Bench step 2 failed on ${hauler.name}`, since);
+    // The author's home page lists the failed step, not the technician's.
+    const home = await (await engineer.fetch("/w/larkspur")).text();
+    expect(home).toContain('data-testid="failed-steps"');
+    expect(home).toContain(`/w/larkspur/bench-tests/${runId}#step-2`);
+    expect(await (await technician.fetch("/w/larkspur")).text()).not.toContain(`/bench-tests/${runId}#step-2`);
+    expect(mail.text_body).toContain("The technician's note: Drive ran with the key off");
+    expect(mail.text_body).toContain("Isolate the traction pack first");
+    expect(mail.attachments).toMatch(/^key-switch\.png \(image\/png, \d+ bytes\)$/);
+    // More toggles and more steps: the step is never mailed again.
+    await record(technician, runId, { intent: "outcome", step: "2", outcome: "pass" });
+    await record(technician, runId, { intent: "outcome", step: "2", outcome: "fail" });
+    await record(technician, runId, { intent: "outcome", step: "3", outcome: "pass" });
+    expect((await record(technician, runId, { intent: "mail-step", step: "2" })).status).toBe(200);
+    // A step failed last goes in the digest at completion.
+    const steps = await stepsOf(runId);
+    const last = steps[steps.length - 1].n;
+    for (const st of steps) if (!st.outcome) await record(technician, runId, { intent: "outcome", step: String(st.n), outcome: st.n === last ? "fail" : "pass" });
+    expect((await record(technician, runId, { intent: "complete" })).status).toBe(200);
+    const digest = await mailTo(author, `Bench test of ${hauler.name} completed: 1 failed step not yet reported`, since);
+    expect(digest.text_body).toContain(`Step ${last}`);
+    expect(digest.text_body).not.toContain("Step 2:");
+    expect(digest.text_body).toContain("Isolate the traction pack first");
+    // The digest went after the rest, so every mail of this run is in by now.
+    const all = await mailsOfRun();
+    expect(all.filter((m) => m.subject.startsWith("Bench step 2 failed"))).toHaveLength(1);
+    expect(all).toHaveLength(2);
+    const mailed = await db.query("SELECT n FROM bench_step_result WHERE run_id = $1 AND failure_mailed_at IS NOT NULL ORDER BY n", [runId]);
+    expect(mailed.rows.map((r) => r.n)).toEqual([2, last]);
+  });
+
+  it("the bench CSV starts with the isolation caution and lists every step with its result", async () => {
+    const runId = await startRun();
+    await record(technician, runId, { intent: "outcome", step: "1", outcome: "fail" });
+    await record(technician, runId, { intent: "note", step: "1", note: "=cmd|' /C calc'!A0" });
+    const res = await engineer.fetch(`${runPath(runId)}/results.csv`);
+    expect(res.status).toBe(200);
+    expect(res.headers.get("content-type")).toContain("text/csv");
+    const text = await res.text();
+    const lines = text.split("\n");
+    expect(lines[0]).toMatch(/^Caution,"?Isolate the traction pack first/);
+    expect(lines[2]).toBe("step,kind,instruction,conditions,expected drive,expected live,expected dead,result,note,photos,recorded by,recorded at");
+    expect(lines[3]).toMatch(/^1,/);
+    expect(lines[3]).toContain(",fail,");
+    // OWASP CSV Injection: a note that starts a formula is written as text.
+    expect(lines[3]).toContain(`"'=cmd|' /C calc'!A0"`);
+    const outsider = await createOutsider();
+    expect((await outsider.client.fetch(`${runPath(runId)}/results.csv`)).status).toBe(404);
   });
 });
 

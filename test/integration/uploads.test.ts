@@ -5,7 +5,7 @@ import http from "node:http";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import pg from "pg";
 import { ListObjectsV2Command, S3Client } from "@aws-sdk/client-s3";
-import { BASE_URL, DEMO, signIn, type Client } from "../support/http";
+import { BASE_URL, DEMO, formBody, signIn, type Client } from "../support/http";
 import { createOutsider } from "../support/outsider";
 
 // A 1×1 PNG (PNG signature per ISO/IEC 15948:2004, 5.2).
@@ -78,6 +78,46 @@ describe("uploads", () => {
     expect(res.status).toBe(415);
     expect(await res.text()).toContain("checked by the file");
     expect([await countUploads(), await countObjects()]).toEqual(before);
+  });
+
+  it("says an empty file is empty, and a refusal lists exactly what the picker accepts", async () => {
+    const before = [await countUploads(), await countObjects()];
+    const empty = await upload(technician, new Uint8Array(0), "blank.jpg", "image/jpeg");
+    expect(empty.status).toBe(400);
+    expect(await empty.text()).toContain("The file is empty (0 bytes).");
+    // The vehicle's picker offers photos and PDF documents: its accept attribute and its refusal agree.
+    const page = await (await technician.fetch(`/w/larkspur/vehicles/${vehicleId}`)).text();
+    expect(page).toContain('accept="image/jpeg,image/png,image/webp,application/pdf"');
+    const text = await (await upload(technician, Buffer.from("plain text"), "notes.txt", "text/plain")).text();
+    expect(text).toContain("Accepted: JPEG, PNG, WebP or PDF files");
+    expect([await countUploads(), await countObjects()]).toEqual(before);
+  });
+
+  it("a bench step's photo picker takes photos only, and its refusal says so exactly", async () => {
+    // The demo hauler has a released revision, so it has a bench procedure.
+    const hauler = (await db.query("SELECT id FROM vehicle WHERE workspace_id = $1 AND name = 'Haybarn campus hauler #3'", [workspaceId])).rows[0].id as string;
+    const started = await technician.fetch(`/w/larkspur/vehicles/${hauler}`, formBody({ intent: "start-bench-run" }));
+    const runPath = started.headers.get("location") ?? "";
+    expect(runPath).toMatch(/\/bench-tests\//);
+    const page = await (await technician.fetch(runPath)).text();
+    expect(page).toContain('accept="image/jpeg,image/png,image/webp"');
+    const form = new FormData();
+    form.set("intent", "photo");
+    form.set("step", "1");
+    // A real PDF header: accepted for a vehicle, not for a step.
+    form.set("file", new File([Buffer.from("%PDF-1.4\n%\xE2\xE3\xCF\xD3\n1 0 obj\n<<>>\nendobj\ntrailer\n<<>>\n%%EOF\n", "latin1")], "wiring.pdf", { type: "application/pdf" }));
+    const res = await technician.fetch(runPath, { method: "POST", body: form });
+    expect(res.status).toBe(415);
+    const text = await res.text();
+    expect(text).toContain("Accepted: JPEG, PNG or WebP files");
+    expect(text).not.toContain("PDF files");
+    const empty = new FormData();
+    empty.set("intent", "photo");
+    empty.set("step", "1");
+    empty.set("file", new File([], "photo.jpg", { type: "image/jpeg" }));
+    const res2 = await technician.fetch(runPath, { method: "POST", body: empty });
+    expect(res2.status).toBe(400);
+    expect(await res2.text()).toContain("The file is empty (0 bytes).");
   });
 
   it("refuses a file over 20 MB and keeps nothing", async () => {
