@@ -2,7 +2,6 @@
 // with rate-limiter-flexible, one count for every process and machine (docs/decisions/080, 104).
 // Checked before authentication, so a refused request costs one upsert and no session lookup.
 import { createHash } from "node:crypto";
-import { env } from "../env.server";
 import { RateLimiterRes, type RateLimiterAbstract } from "rate-limiter-flexible";
 import { sessionCookieOf } from "../auth/session-cache.server";
 

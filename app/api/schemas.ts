@@ -34,6 +34,7 @@ export const workspaceQuerySchema = z.object({
   workspace: z
     .string({ message: "Name the workspace: ?workspace=SLUG." })
     .min(1, "Name the workspace: ?workspace=SLUG.")
+    // eslint-disable-next-line no-control-regex -- finding control characters is what this pattern is for
     .regex(/^[^\u0000]*$/, "a workspace slug")
     .meta({
     description: "The workspace's slug, as in /w/SLUG.",
@@ -58,6 +59,7 @@ export const benchRunListQuerySchema = workspaceQuerySchema.extend({
     .string()
     .min(1)
     .max(100)
+    // eslint-disable-next-line no-control-regex -- finding control characters is what this pattern is for
     .regex(/^[^\u0000]*$/, "a vehicle id")
     .optional()
     .meta({ description: "Only the runs of this vehicle." }),

@@ -51,7 +51,12 @@ function sameNet(x: string, y: string, edges: readonly CanvasEdge[]): boolean {
   while (stack.length) {
     const t = stack.pop()!;
     if (t === y) return true;
-    for (const u of adj.get(t) ?? []) if (!seen.has(u)) (seen.add(u), stack.push(u));
+    for (const u of adj.get(t) ?? []) {
+      if (!seen.has(u)) {
+        seen.add(u);
+        stack.push(u);
+      }
+    }
   }
   return false;
 }

@@ -4,7 +4,7 @@
 import type { CompiledDesign } from "./compile";
 import { buildDiagram, diagramGroups, type MaskGroup } from "./diagram";
 import type { FaultMode } from "./schema";
-import { popcount, WORD, WordEvaluator } from "./table";
+import { popcount, WordEvaluator } from "./table";
 
 export const GROUPS_FORMAT = "chainproof/groups@1";
 export const WHY_FORMAT = "chainproof/why@1";

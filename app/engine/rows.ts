@@ -170,7 +170,7 @@ export function compileFilter(c: CompiledDesign, filter: RowFilter = {}): Compil
     throw new Error(`unknown row filter ${JSON.stringify(filter.only)} (use ${ROW_FILTERS.join(", ")})`);
   }
   const type = filterRuleType(filter.only);
-  let rules: number[] = [];
+  let rules: number[];
   if (filter.rule !== undefined) {
     const r = c.rules.find((x) => x.id === filter.rule);
     if (!r) throw new Error(`no rule with id ${JSON.stringify(filter.rule)}`);

@@ -4,6 +4,7 @@
 
 const BASE = "http://next.invalid";
 // Control characters (C0, DEL, C1), every kind of space and separator, and backslashes.
+// eslint-disable-next-line no-control-regex -- finding control characters is what this pattern is for
 const UNSAFE = /[\u0000-\u001f\u007f-\u009f\s\\]/u;
 
 /** A same-origin path to redirect to, written in printable ASCII (so it fits a Location header); else "/". */

@@ -4,6 +4,7 @@
 import type { FieldProblem } from "~/designs/types";
 
 const MAX_DEPTH = 64;
+// eslint-disable-next-line no-control-regex -- finding control characters is what this pattern is for
 const UNSTORABLE_TEXT = /\u0000|[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/;
 
 /** Text PostgreSQL stores as it is. */

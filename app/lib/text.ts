@@ -4,6 +4,7 @@
 // section 2) make a name or note display as something other than what it says.
 import type { z } from "zod";
 
+// eslint-disable-next-line no-control-regex -- finding control characters is what this pattern is for
 const NUL = /\u0000/;
 const LONE_SURROGATE = /[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/;
 // What a form body's decoder makes of a lone surrogate or other broken UTF-8: nobody types it on purpose.

@@ -38,8 +38,9 @@ export function reviewFormObject(form: FormData): Record<string, unknown> {
   const out: Record<string, unknown> = {};
   for (const [k, v] of form) {
     if (typeof v !== "string") continue;
-    if (k === "reviewers") (out.reviewers as string[] | undefined)?.push(v) ?? (out.reviewers = [v]);
-    else out[k] = v;
+    if (k !== "reviewers") out[k] = v;
+    else if (Array.isArray(out.reviewers)) out.reviewers.push(v);
+    else out.reviewers = [v];
   }
   return out;
 }

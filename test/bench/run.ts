@@ -130,6 +130,7 @@ const report = {
   naiveReference: {
     method: `row-at-a-time reference timed on ${SAMPLE} rows spread evenly over the table, extrapolated to all rows; full verdict = fault-free pass + one pass per single fault (${faultCount}), no-restart search not counted (so a lower bound)`,
     sampleMs: round(naiveSampleMs),
+    sampleDriveRows: driveInSample,
     perRowMicroseconds: round(naivePerRowMs * 1000, 3),
     faultFreePassEstimateMs: Math.round(naiveFaultFreeMs),
     fullVerdictEstimateMs: Math.round(naiveVerdictMs),

@@ -24,7 +24,7 @@ async function send(c: Client, method: string, path: string, body?: unknown): Pr
     ...(body === undefined ? {} : { body: JSON.stringify(body), headers: { "content-type": "application/json" } }),
   });
   const text = await res.text();
-  let parsed: Json = {};
+  let parsed: Json;
   try {
     parsed = JSON.parse(text) as Json;
   } catch {
