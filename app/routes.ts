@@ -63,6 +63,7 @@ export default [
     route("vehicles", "routes/api/v1/vehicles.ts"),
     route("vehicles/:vehicleId", "routes/api/v1/vehicle.ts"),
     route("vehicles/:vehicleId/bench-runs", "routes/api/v1/vehicle-bench-runs.ts"),
+    route("vehicles/:vehicleId/releases", "routes/api/v1/vehicle-releases.ts"),
     route("vehicles/:vehicleId/controller-record", "routes/api/v1/vehicle-controller-record.ts"),
     route("controller-checks", "routes/api/v1/controller-checks.ts"),
     route("bench-runs", "routes/api/v1/bench-runs.ts"),

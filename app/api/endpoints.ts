@@ -7,6 +7,7 @@ import { z } from "zod";
 import { createDesignBodySchema, designFilterSchema, proofBodySchema, saveDraftBodySchema, saveRevisionBodySchema } from "~/designs/forms";
 import { ONLY, PAGE_MAX } from "~/reviews/truth-table";
 import * as A from "./answers";
+import { releaseSchema as releaseBodySchema } from "~/vehicles/forms";
 import { groupsDocumentSchema, groupsQuerySchema, whyDocumentSchema, whyQuerySchema } from "./row-groups";
 import {
   benchRunListQuerySchema,
@@ -318,6 +319,21 @@ export const api = {
     params: vehicleId,
     body: vehiclePatchBodySchema,
     replies: { 200: ok("Saved.", A.vehicleAnswer), ...writing },
+  }),
+  releaseToVehicle: endpoint({
+    method: "post",
+    path: "/api/v1/vehicles/{vehicleId}/releases",
+    tag: "Vehicles",
+    summary: "Release a revision to a vehicle",
+    description:
+      "Admins and engineers. Only a revision of this workspace that a reviewer approved and that passes design format 1.1 (a revision saved before 1.1 with a rule matching no row, or one that never drives, is refused with the reasons). When the vehicle's controller settings record contradicts the revision, only with an override reason (kept in the audit log). The release history is append-only.",
+    params: vehicleId,
+    body: releaseBodySchema,
+    replies: {
+      201: ok("Released; the vehicle with its new current release.", A.vehicleAnswer),
+      409: fail("The revision cannot be released (release_refused): not approved, refused by format 1.1, or contradicted by the controller record without an override reason; fields name why."),
+      ...writing,
+    },
   }),
   listVehicleRuns: endpoint({
     method: "get",

@@ -102,6 +102,7 @@ export const MATRIX: Row[] = [
   },
   { name: "API: bench runs list", method: "GET", path: "/api/v1/bench-runs?workspace=larkspur", expect: api(200) },
   { name: "API: start a bench run on an unknown vehicle", method: "POST", path: "/api/v1/vehicles/no-such-vehicle/bench-runs", json: {}, expect: api(404) },
+  { name: "API: release to an unknown vehicle", method: "POST", path: "/api/v1/vehicles/no-such-vehicle/releases", json: { revisionId: "x" }, expect: api(404) },
   { name: "API: unknown bench run", method: "GET", path: "/api/v1/bench-runs/no-such-run", expect: api(404) },
   { name: "API: record a step of an unknown run", method: "PUT", path: "/api/v1/bench-runs/no-such-run/steps/1", json: { status: "pass" }, expect: api(404) },
   { name: "API: review inbox", method: "GET", path: "/api/v1/reviews?workspace=larkspur", expect: api(200) },

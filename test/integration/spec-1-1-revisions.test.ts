@@ -173,14 +173,36 @@ describe("revisions stored before format 1.1 that 1.1 would refuse", () => {
       expect(body).toContain("cannot be released");
       expect(body).toContain("Refused by format 1.1");
       expect(body).toMatch(c.why);
+      // The API refuses it the same way: 409 release_refused, the reason in the message and at revisionId.
+      const viaApi = await send(engineer, "POST", `/api/v1/vehicles/${vehicleId}/releases`, { revisionId: c.revision, note: "via the API" });
+      expect(viaApi.status).toBe(409);
+      expect(viaApi.body.error.code).toBe("release_refused");
+      expect(viaApi.body.error.message).toMatch(c.why);
+      expect(viaApi.body.error.fields).toEqual([{ path: "revisionId", message: expect.stringContaining("Refused by format 1.1") }]);
       const after = await db.query("SELECT count(*)::int AS n FROM vehicle_release WHERE vehicle_id = $1", [vehicleId]);
       expect(after.rows[0].n).toBe(before.rows[0].n);
     }
+    // Technicians may not release at all (403), whatever the revision.
+    const technician = await signIn(DEMO.technician);
+    expect((await send(technician, "POST", `/api/v1/vehicles/${vehicleId}/releases`, { revisionId: emptyRev })).status).toBe(403);
 
     // A revision that passes 1.1 replaces it: saved through the gate, unmarked, and its release is held up
     // only by the missing approval, not by format 1.1.
-    const fixed = hauler();
-    const saved = await send(engineer, "POST", `/api/v1/designs/${emptyRuleDesign}/revisions`, { document: fixed, baseRevision: 1, message: "rule R3 says something again" });
+    // The smallest design that passes: the enable input fed from the supply, must drive with the throttle applied.
+    const fixed = {
+      format: "chainproof/design@1",
+      name: "Replacement",
+      conditions: [{ id: "throttle", label: "Throttle", states: ["released", "applied"] }],
+      components: [
+        { id: "PACK", type: "supply", label: "Battery +" },
+        { id: "EN", type: "input", label: "Controller enable", function: "enable" },
+      ],
+      wires: [{ from: "PACK.+", to: "EN.in" }],
+      controller: { throttle: { condition: "throttle", released: ["released"], applied: ["applied"], fault: [] }, lockouts: [] },
+      rules: [{ id: "D1", label: "Drives with the throttle applied", type: "require-drive", when: { cond: "throttle", in: ["applied"] } }],
+      layout: {},
+    };
+    const saved = await send(engineer, "POST", `/api/v1/designs/${emptyRuleDesign}/revisions`, { document: fixed, baseRevision: 1, message: "a design that passes format 1.1" });
     expect(saved.status).toBe(201);
     expect(saved.body.revision.number).toBe(2);
     const review2 = await text(reviewer, `/w/${WS}/designs/${emptyRuleDesign}/revisions/2/review`);
@@ -190,6 +212,17 @@ describe("revisions stored before format 1.1 that 1.1 would refuse", () => {
     const body = await res.text();
     expect(body).toMatch(/Revision 2 of .{0,120}has not been approved/);
     expect(body).not.toMatch(/Revision 2 of .{0,120}cannot be released/);
+
+    // Approved by a reviewer, the replacement is released through the API, and the vehicle carries it unmarked.
+    const approve = await reviewer.fetch(`/w/${WS}/designs/${emptyRuleDesign}/revisions/2/review`, formBody({ intent: "decide", verdict: "approved", comment: "passes 1.1" }));
+    expect(approve.status).toBeLessThan(400);
+    const released = await send(engineer, "POST", `/api/v1/vehicles/${vehicleId}/releases`, { revisionId: fixedId, note: "replaces the pre-1.1 revision" });
+    expect(released.status).toBe(201);
+    expect(released.body.vehicle.release).toMatchObject({ revisionId: fixedId, number: 2 });
+    const after = await text(engineer, `/w/${WS}/vehicles/${vehicleId}`);
+    // The current release is unmarked; the earlier pre-1.1 release keeps its mark in the history.
+    expect(after.body).not.toContain('data-testid="refused-notice"');
+    expect(after.body).toContain('data-testid="refused-mark"');
   });
 });
 
