@@ -37,7 +37,7 @@ function cart(closedIn: string[], wired = true): Design {
   };
 }
 
-function Editor({ store }: { store: EditorStore }) {
+function Editor() {
   useLiveProof();
   return (
     <>
@@ -52,7 +52,7 @@ function open(design: Design): EditorStore {
   const store = createEditorStore({ initial: design, readOnly: false, designName: design.name, baseRevision: 0 });
   render(
     <EditorContext.Provider value={store}>
-      <Editor store={store} />
+      <Editor />
     </EditorContext.Provider>,
   );
   return store;
