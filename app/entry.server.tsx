@@ -2,10 +2,11 @@
 // but the framework's own.
 import { Transform, type TransformCallback } from "node:stream";
 import { createReadableStreamFromReadable } from "@react-router/node";
-import { isRouteErrorResponse, ServerRouter, type ActionFunctionArgs, type AppLoadContext, type EntryContext, type LoaderFunctionArgs } from "react-router";
+import { isRouteErrorResponse, ServerRouter, type ActionFunctionArgs, type EntryContext, type RouterContextProvider, type LoaderFunctionArgs } from "react-router";
 import { isbot } from "isbot";
 import { renderToPipeableStream } from "react-dom/server";
 import { contentSecurityPolicy } from "./lib/csp";
+import { cspNonceContext } from "./load-context";
 import { isDatabaseDown } from "./db/unavailable.server";
 
 export const streamTimeout = 5_000;
@@ -28,14 +29,14 @@ export default function handleRequest(
   responseStatusCode: number,
   responseHeaders: Headers,
   routerContext: EntryContext,
-  loadContext: AppLoadContext,
+  loadContext: RouterContextProvider,
 ) {
   // A loader that lost the database half-way (after its role check) is an outage, not a bug: 503.
   if (responseStatusCode === 500 && lostDatabase.has(request)) {
     responseStatusCode = 503;
     responseHeaders.set("Retry-After", "30");
   }
-  const nonce = loadContext?.cspNonce;
+  const nonce = loadContext.get(cspNonceContext);
   if (nonce) responseHeaders.set("Content-Security-Policy", contentSecurityPolicy(nonce));
   if (request.method.toUpperCase() === "HEAD") {
     return new Response(null, { status: responseStatusCode, headers: responseHeaders });

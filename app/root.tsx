@@ -2,6 +2,7 @@ import { Links, Meta, Outlet, Scripts, ScrollRestoration, useRouteLoaderData } f
 import type { Route } from "./+types/root";
 import "./app.css";
 import { PageError } from "./components/error-boundary";
+import { cspNonceContext } from "./load-context";
 
 export const meta: Route.MetaFunction = () => [
   { title: "Chainproof" },
@@ -12,7 +13,7 @@ export const links: Route.LinksFunction = () => [{ rel: "icon", href: "/favicon.
 
 export async function loader({ context }: Route.LoaderArgs) {
   // Public: only the nonce the server entry already put in this response's policy.
-  return { cspNonce: context?.cspNonce };
+  return { cspNonce: context.get(cspNonceContext) };
 }
 
 export function Layout({ children }: { children: React.ReactNode }) {

@@ -13,34 +13,35 @@ export default [
   route("welcome", "routes/welcome.tsx"),
   route("outbox", "routes/outbox.tsx"),
 
-  // Everything inside a workspace: the shell and its sections.
+  // Everything inside a workspace: its middleware finds the member once (docs/decisions/151).
   ...prefix("w/:ws", [
-    layout("routes/workspace-shell.tsx", [
-      index("routes/workspace-home.tsx"),
-      route("vehicles", "routes/vehicles.tsx"),
-      route("vehicles/:vehicleId", "routes/vehicle.tsx"),
-      route("vehicles/:vehicleId/why", "routes/vehicle-diagnose.tsx"),
-      route("vehicles/:vehicleId/controller", "routes/vehicle-controller.tsx"),
-      route("designs", "routes/designs.tsx"),
-      route("designs/new", "routes/design-new.tsx"),
-      route("designs/:designId", "routes/design.tsx"),
-      route("designs/:designId/edit", "routes/design-editor.tsx"),
-      route("designs/:designId/revisions/:number/table", "routes/revision-table.tsx"),
-      route("designs/:designId/revisions/:number/review", "routes/review.tsx"),
-      route("reviews", "routes/reviews.tsx"),
-      route("bench-tests", "routes/bench-tests.tsx"),
-      route("bench-tests/:runId", "routes/bench-run.tsx"),
-      route("bench-tests/:runId/results.csv", "routes/bench-run-csv.ts"),
-      route("settings", "routes/settings.tsx"),
+    layout("routes/workspace.ts", [
+      // The shell and its sections.
+      layout("routes/workspace-shell.tsx", [
+        index("routes/workspace-home.tsx"),
+        route("vehicles", "routes/vehicles.tsx"),
+        route("vehicles/:vehicleId", "routes/vehicle.tsx"),
+        route("vehicles/:vehicleId/why", "routes/vehicle-diagnose.tsx"),
+        route("vehicles/:vehicleId/controller", "routes/vehicle-controller.tsx"),
+        route("designs", "routes/designs.tsx"),
+        route("designs/new", "routes/design-new.tsx"),
+        route("designs/:designId", "routes/design.tsx"),
+        route("designs/:designId/edit", "routes/design-editor.tsx"),
+        route("designs/:designId/revisions/:number/table", "routes/revision-table.tsx"),
+        route("designs/:designId/revisions/:number/review", "routes/review.tsx"),
+        route("reviews", "routes/reviews.tsx"),
+        route("bench-tests", "routes/bench-tests.tsx"),
+        route("bench-tests/:runId", "routes/bench-run.tsx"),
+        route("bench-tests/:runId/results.csv", "routes/bench-run-csv.ts"),
+        route("settings", "routes/settings.tsx"),
+      ]),
+      // The printable report of a revision and its PDF (outside the shell: paper, not screen).
+      route("designs/:designId/revisions/:number/report", "routes/report.tsx"),
+      route("designs/:designId/revisions/:number/report.pdf", "routes/report-pdf.ts"),
+      // Uploaded files, for members of the workspace (outside the shell: a resource route).
+      route("files/:uploadId", "routes/file.ts"),
     ]),
   ]),
-
-  // The printable report of a revision and its PDF (outside the shell: paper, not screen).
-  route("w/:ws/designs/:designId/revisions/:number/report", "routes/report.tsx"),
-  route("w/:ws/designs/:designId/revisions/:number/report.pdf", "routes/report-pdf.ts"),
-
-  // Uploaded files, for members of the workspace (outside the shell: a resource route).
-  route("w/:ws/files/:uploadId", "routes/file.ts"),
 
   // Resource routes.
   route("api/auth/*", "routes/api/auth.ts"),

@@ -10,6 +10,8 @@ import { pathToFileURL } from "node:url";
 import express from "express";
 import compression from "compression";
 import { createRequestHandler } from "@react-router/express";
+import { RouterContextProvider } from "react-router";
+import { cspNonceContext } from "../app/load-context";
 import { authSecretProblem } from "../app/lib/auth-secret";
 
 // This is the production server: without NODE_ENV it serves as production, and then never on a
@@ -140,7 +142,7 @@ async function runServer() {
     createRequestHandler({
       build,
       mode: process.env.NODE_ENV ?? "production",
-      getLoadContext: () => ({ cspNonce: randomBytes(16).toString("base64") }),
+      getLoadContext: () => new RouterContextProvider(new Map([[cspNonceContext, randomBytes(16).toString("base64")]])),
     }),
   );
 

@@ -116,7 +116,7 @@ export async function requireMember(
   return { ...signedIn, workspace: { id: row.id, slug: row.slug, name: row.name }, role: row.role };
 }
 
-type WorkspaceOfUser = { id: string; slug: string; name: string; role: Role };
+export type WorkspaceOfUser = { id: string; slug: string; name: string; role: Role };
 const workspacesOfRequest = new WeakMap<Request, { userId: string; rows: Promise<WorkspaceOfUser[]> }>();
 
 /** The signed-in user's workspaces and roles, fetched once per request (the guard and the shell both need them). */

@@ -16,18 +16,47 @@ export const ROLE_DUTIES: Record<Role, string> = {
   reviewer: "review revisions and sign them off",
 };
 
-/** Who may do what; every loader and action asks through requireMember with one of these. */
-export const CAN = {
-  view: ROLES,
-  manageMembers: ["admin"],
-  editDesigns: ["engineer"],
-  manageVehicles: ["admin", "engineer", "technician"],
-  runBenchTests: ["technician"],
+/**
+ * Who may do what: one table, read through can(). Every loader and action states the action it
+ * needs (requireCan in app/auth/context.server.ts); pages ask can() what to show.
+ */
+export const PERMISSIONS = {
+  "workspace.view": ROLES,
+  "members.manage": ["admin"],
+  // Create designs, save drafts, save revisions.
+  "design.edit": ["engineer"],
+  "vehicle.manage": ["admin", "engineer", "technician"],
+  "bench.run": ["technician"],
   // Putting an approved revision on a vehicle is an engineering decision (docs/decisions/070).
-  releaseRevisions: ["admin", "engineer"],
-  review: ["reviewer"],
+  "revision.release": ["admin", "engineer"],
+  "review.decide": ["reviewer"],
   // Engineers explain how a defeating fault is dealt with; reviewers may record what they accept (decision 161).
-  disposeFaults: ["engineer", "reviewer"],
+  "fault.dispose": ["engineer", "reviewer"],
   // The controller settings record: typed in at the vehicle by the people who set the controller up.
-  recordControllerSettings: ["engineer", "technician"],
+  "controller.record": ["engineer", "technician"],
 } as const satisfies Record<string, readonly Role[]>;
+
+export type Action = keyof typeof PERMISSIONS;
+
+/** Whether a member with this role may do this. */
+export function can(role: Role, action: Action): boolean {
+  return (PERMISSIONS[action] as readonly Role[]).includes(role);
+}
+
+/** The roles that may do this, for messages ("This needs the role engineer"). */
+export function rolesThatCan(action: Action): readonly Role[] {
+  return PERMISSIONS[action];
+}
+
+/** The older names of the same lists, while routes move to can() and requireCan (decision 151). */
+export const CAN = {
+  view: PERMISSIONS["workspace.view"],
+  manageMembers: PERMISSIONS["members.manage"],
+  editDesigns: PERMISSIONS["design.edit"],
+  manageVehicles: PERMISSIONS["vehicle.manage"],
+  runBenchTests: PERMISSIONS["bench.run"],
+  releaseRevisions: PERMISSIONS["revision.release"],
+  review: PERMISSIONS["review.decide"],
+  disposeFaults: PERMISSIONS["fault.dispose"],
+  recordControllerSettings: PERMISSIONS["controller.record"],
+} as const;

@@ -1,8 +1,9 @@
 // Finding a revision named in a URL, for a member of its workspace with the needed role.
-import { requireMember, type Membership } from "~/auth/guard.server";
+import type { Membership } from "~/auth/guard.server";
+import { requireCan, type RequestContext } from "~/auth/context.server";
 import { apiError } from "~/api/http.server";
 import { getDesign, requireDesign } from "~/designs/designs.server";
-import type { Role } from "~/lib/roles";
+import type { Action, Role } from "~/lib/roles";
 import { compiledRevision, revisionNumber, revisionRef, type RevisionRef } from "./compiled.server";
 
 /** API routes (/api/v1/designs/:designId/revisions/:number/...): 401 / 404 / 403 as JSON. */
@@ -15,13 +16,13 @@ export async function requireRevisionApi(request: Request, designId: string, num
   return { member, design, ref, compiled };
 }
 
-/** Pages (/w/:ws/designs/:designId/revisions/:number/...): redirect to sign-in, 404, 403. */
+/** Pages (/w/:ws/designs/:designId/revisions/:number/...): 403 for the role (first), then 404. */
 export async function requireRevisionPage(
-  request: Request,
-  params: { ws?: string; designId?: string; number?: string },
-  allowed: readonly Role[],
+  context: RequestContext,
+  params: { designId?: string; number?: string },
+  action: Action,
 ): Promise<{ member: Membership; design: NonNullable<Awaited<ReturnType<typeof getDesign>>>; ref: RevisionRef }> {
-  const member = await requireMember(request, params.ws, allowed);
+  const member = requireCan(context, action);
   const design = await getDesign(member.workspace.id, params.designId ?? "");
   const n = revisionNumber(params.number);
   const ref = design && n !== null ? await revisionRef(member.workspace.id, design.id, n) : null;

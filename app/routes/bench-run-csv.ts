@@ -2,14 +2,13 @@
 // The caution comes first: people act on this sheet at the vehicle.
 import type { Route } from "./+types/bench-run-csv";
 import { create as contentDisposition } from "content-disposition";
-import { requireMember } from "~/auth/guard.server";
-import { CAN } from "~/lib/roles";
+import { requireCan } from "~/auth/context.server";
 import { getRun } from "~/bench-runs/bench-runs.server";
 import { benchRunCsv } from "~/bench-runs/csv";
 import { runJson } from "~/api/views.server";
 
-export async function loader({ request, params }: Route.LoaderArgs) {
-  const m = await requireMember(request, params.ws, CAN.view);
+export async function loader({ request, params, context }: Route.LoaderArgs) {
+  const m = requireCan(context, "workspace.view");
   const run = await getRun(m.workspace.id, params.runId);
   if (!run) throw new Response("Not found", { status: 404 });
   const json = runJson(run, m.workspace.slug);

@@ -9,8 +9,8 @@ import { useCallback, useEffect, useRef, useState } from "react";
 import { data, Form, Link, useFetcher, useFetchers, useNavigation, useRevalidator } from "react-router";
 import useSWR from "swr";
 import type { Route } from "./+types/bench-run";
-import { requireMember } from "~/auth/guard.server";
-import { CAN } from "~/lib/roles";
+import { requireCan } from "~/auth/context.server";
+import { can } from "~/lib/roles";
 import { fieldErrors, type FieldErrors } from "~/lib/forms";
 import { addStepPhoto, BenchRunError, completeRun, getRun, mailStepNow, setStepNote, setStepOutcome, verifyRecord } from "~/bench-runs/bench-runs.server";
 import { OUTCOME_LABELS, runFormSchema, STEP_OUTCOMES, type StepOutcome } from "~/bench-runs/outcomes";
@@ -24,14 +24,14 @@ import { Button, Notice } from "~/components/ui/form";
 import { HashPrefix, When } from "~/designs/design-bits";
 import { RunBadge } from "~/components/diagnosis/run-list";
 
-export async function loader({ request, params }: Route.LoaderArgs) {
-  const m = await requireMember(request, params.ws, CAN.view);
+export async function loader({ request, params, context }: Route.LoaderArgs) {
+  const m = requireCan(context, "workspace.view");
   const run = await getRun(m.workspace.id, params.runId);
   if (!run) throw new Response("Not found", { status: 404 });
   const plan = run.run.plan;
   return {
     slug: m.workspace.slug,
-    canRecord: (CAN.runBenchTests as readonly string[]).includes(m.role) && run.run.status === "in-progress",
+    canRecord: can(m.role, "bench.run") && run.run.status === "in-progress",
     run: {
       id: run.run.id,
       status: run.run.status,
@@ -63,8 +63,8 @@ function failure(fields: FieldErrors, status: number, step?: number) {
   return data<ActionResult>({ ok: false, fields, step }, { status });
 }
 
-export async function action({ request, params }: Route.ActionArgs) {
-  const m = await requireMember(request, params.ws, CAN.runBenchTests);
+export async function action({ request, params, context }: Route.ActionArgs) {
+  const m = requireCan(context, "bench.run");
   try {
     if ((request.headers.get("content-type") ?? "").startsWith("multipart/form-data")) {
       const form = await readCappedFormData(request);

@@ -1,8 +1,8 @@
 // Every bench-test run of the workspace: in progress, completed, with failures.
 import { Link } from "react-router";
 import type { Route } from "./+types/bench-tests";
-import { requireMember } from "~/auth/guard.server";
-import { CAN } from "~/lib/roles";
+import { requireCan } from "~/auth/context.server";
+import { can } from "~/lib/roles";
 import { listRuns, type RunFilter } from "~/bench-runs/bench-runs.server";
 import { PageHeader } from "~/components/page-header";
 import { EmptyState } from "~/components/empty-state";
@@ -18,15 +18,15 @@ const FILTERS = [
   { value: "failures", label: "With failures" },
 ] as const;
 
-export async function loader({ request, params }: Route.LoaderArgs) {
-  const m = await requireMember(request, params.ws, CAN.view);
+export async function loader({ request, params, context }: Route.LoaderArgs) {
+  const m = requireCan(context, "workspace.view");
   const asked = new URL(request.url).searchParams.get("status") ?? "";
   const status = FILTERS.some((f) => f.value === asked) && asked ? (asked as RunFilter["status"]) : undefined;
   const runs = await listRuns(m.workspace.id, { status });
   return {
     slug: m.workspace.slug,
     status: status ?? "",
-    isTechnician: (CAN.runBenchTests as readonly string[]).includes(m.role),
+    isTechnician: can(m.role, "bench.run"),
     runs: runs.map((r) => ({ ...r, startedAt: r.startedAt.toISOString(), completedAt: r.completedAt?.toISOString() ?? null })),
   };
 }

@@ -1,8 +1,8 @@
 import { useCallback, useEffect, useRef } from "react";
 import { Link, useParams } from "react-router";
 import type { Route } from "./+types/design-editor";
-import { requireMember } from "~/auth/guard.server";
-import { CAN } from "~/lib/roles";
+import { requireCan } from "~/auth/context.server";
+import { can } from "~/lib/roles";
 import { editorStart, getDesign, getDraft, getRevision } from "~/designs/designs.server";
 import { blankDocument } from "~/designs/templates.server";
 import { designPath } from "~/designs/paths";
@@ -12,11 +12,11 @@ import { DesignEditor } from "~/canvas/design-editor";
 import { SafetyNote } from "~/components/safety-note";
 import { SectionError } from "~/components/error-boundary";
 
-export async function loader({ request, params }: Route.LoaderArgs) {
-  const m = await requireMember(request, params.ws, CAN.view);
+export async function loader({ request, params, context }: Route.LoaderArgs) {
+  const m = requireCan(context, "workspace.view");
   const d = await getDesign(m.workspace.id, params.designId);
   if (!d) throw new Response("Not found", { status: 404 });
-  const canEdit = (CAN.editDesigns as readonly string[]).includes(m.role);
+  const canEdit = can(m.role, "design.edit");
   const draft = await getDraft(m.workspace.id, d.id);
   const search = new URL(request.url).searchParams;
   // ?row=I opens simulating row I of what is shown; the editor checks it against the design.

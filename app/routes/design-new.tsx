@@ -1,7 +1,6 @@
 import { data, Form, Link, redirect, useNavigation } from "react-router";
 import type { Route } from "./+types/design-new";
-import { requireMember } from "~/auth/guard.server";
-import { CAN } from "~/lib/roles";
+import { requireCan } from "~/auth/context.server";
 import { fieldErrors, formObject } from "~/lib/forms";
 import { useFormCheck } from "~/lib/use-form-check";
 import { createDesign } from "~/designs/designs.server";
@@ -13,8 +12,8 @@ import { Button, SelectField, TextField } from "~/components/ui/form";
 
 export const meta: Route.MetaFunction = () => [{ title: "New design · Chainproof" }];
 
-export async function loader({ request, params }: Route.LoaderArgs) {
-  const m = await requireMember(request, params.ws, CAN.editDesigns);
+export async function loader({ request, params, context }: Route.LoaderArgs) {
+  const m = requireCan(context, "design.edit");
   const vehicles = await vehicleNames(m.workspace.id);
   const wanted = new URL(request.url).searchParams.get("vehicle");
   return {
@@ -23,8 +22,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   };
 }
 
-export async function action({ request, params }: Route.ActionArgs) {
-  const m = await requireMember(request, params.ws, CAN.editDesigns);
+export async function action({ request, params, context }: Route.ActionArgs) {
+  const m = requireCan(context, "design.edit");
   const parsed = createDesignSchema.safeParse(formObject(await request.formData()));
   if (!parsed.success) return data({ fields: fieldErrors(parsed.error) }, { status: 400 });
   const created = await createDesign(m.workspace.id, m.user.id, parsed.data);

@@ -1,7 +1,7 @@
 import { Link } from "react-router";
 import type { Route } from "./+types/design";
-import { requireMember } from "~/auth/guard.server";
-import { CAN } from "~/lib/roles";
+import { requireCan } from "~/auth/context.server";
+import { can } from "~/lib/roles";
 import { getDesign, getDraft, getRevision, listRevisions, statusOf } from "~/designs/designs.server";
 import { standingsFor } from "~/designs/standing.server";
 import { RefusedBadge, RefusedNotice } from "~/components/refused-mark";
@@ -18,8 +18,8 @@ import { reviewPath, truthTablePath } from "~/reviews/paths";
 import { labelsOf } from "~/reviews/revision-view.server";
 import { ReviewStatusBadge } from "~/components/truth-table/review-status";
 
-export async function loader({ request, params }: Route.LoaderArgs) {
-  const m = await requireMember(request, params.ws, CAN.view);
+export async function loader({ request, params, context }: Route.LoaderArgs) {
+  const m = requireCan(context, "workspace.view");
   const d = await getDesign(m.workspace.id, params.designId);
   if (!d) throw new Response("Not found", { status: 404 });
   const [latest, draft, history, reviews] = await Promise.all([
@@ -45,7 +45,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     }
   }
   return {
-    canEdit: (CAN.editDesigns as readonly string[]).includes(m.role),
+    canEdit: can(m.role, "design.edit"),
     slug: m.workspace.slug,
     design: { id: d.id, name: d.name, vehicleId: d.vehicleId, vehicleName: d.vehicleName, status: statusOf(latest?.number) },
     latest: latest

@@ -1,7 +1,7 @@
 import { Form, Link, useSubmit } from "react-router";
 import type { Route } from "./+types/designs";
-import { requireMember } from "~/auth/guard.server";
-import { CAN } from "~/lib/roles";
+import { requireCan } from "~/auth/context.server";
+import { can } from "~/lib/roles";
 import { listDesigns } from "~/designs/designs.server";
 import { vehicleNames } from "~/vehicles/vehicles.server";
 import { designFilterSchema, NO_VEHICLE } from "~/designs/forms";
@@ -18,8 +18,8 @@ import type { ReviewStatus } from "~/reviews/status";
 
 export const meta: Route.MetaFunction = () => [{ title: "Designs · Chainproof" }];
 
-export async function loader({ request, params }: Route.LoaderArgs) {
-  const m = await requireMember(request, params.ws, CAN.view);
+export async function loader({ request, params, context }: Route.LoaderArgs) {
+  const m = requireCan(context, "workspace.view");
   const filter = designFilterSchema.parse(Object.fromEntries(new URL(request.url).searchParams));
   const [designs, vehicles, reviews] = await Promise.all([listDesigns(m.workspace.id, filter), vehicleNames(m.workspace.id), reviewStatusOf(m.workspace.id)]);
   // Review status of the latest revision, and the newest approved one when that is older.
@@ -27,7 +27,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   for (const [id, r] of reviews) review[id] = { latest: r.latest?.status ?? null, approved: r.lastApproved?.number ?? null };
   return {
     review,
-    canEdit: (CAN.editDesigns as readonly string[]).includes(m.role),
+    canEdit: can(m.role, "design.edit"),
     slug: m.workspace.slug,
     filter,
     designs,

@@ -1,10 +1,9 @@
 // Downloads an uploaded file: members of its workspace only; anyone else gets 404.
 import type { Route } from "./+types/file";
-import { requireMember } from "~/auth/guard.server";
-import { CAN } from "~/lib/roles";
+import { requireCan } from "~/auth/context.server";
 import { uploadResponse } from "~/uploads/uploads.server";
 
-export async function loader({ request, params }: Route.LoaderArgs) {
-  const m = await requireMember(request, params.ws, CAN.view);
+export async function loader({ request, params, context }: Route.LoaderArgs) {
+  const m = requireCan(context, "workspace.view");
   return uploadResponse(m.workspace.id, params.uploadId);
 }

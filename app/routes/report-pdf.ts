@@ -1,13 +1,12 @@
 // GET /w/:ws/designs/:designId/revisions/:number/report.pdf?size=a4|letter -> the printed report (members only).
 import type { Route } from "./+types/report-pdf";
-import { CAN } from "~/lib/roles";
 import { requireRevisionPage } from "~/reviews/access.server";
 import { printPdf, PrintBusyError } from "~/reviews/pdf.server";
 import { reportPath } from "~/reviews/paths";
 import { create as contentDisposition } from "content-disposition";
 
-export async function loader({ request, params }: Route.LoaderArgs) {
-  const { member, design, ref } = await requireRevisionPage(request, params, CAN.view);
+export async function loader({ request, params, context }: Route.LoaderArgs) {
+  const { member, design, ref } = await requireRevisionPage(context, params, "workspace.view");
   const size = new URL(request.url).searchParams.get("size") === "letter" ? "letter" : "a4";
   let pdf: Buffer;
   try {

@@ -5,7 +5,6 @@ import { Link, useParams } from "react-router";
 import type { Route } from "./+types/report";
 import { RefusedNotice } from "~/components/refused-mark";
 import { REFUSED_MARK } from "~/designs/standing-words";
-import { CAN } from "~/lib/roles";
 import { requireRevisionPage } from "~/reviews/access.server";
 import { getReview } from "~/reviews/reviews.server";
 import { compareWithLastApproved, labelsOf, loadRevision, tracesOf } from "~/reviews/revision-view.server";
@@ -33,8 +32,8 @@ const ROWS_PER_PAGE = 80;
 const SIZES = { a4: "A4", letter: "Letter" } as const;
 type Size = keyof typeof SIZES;
 
-export async function loader({ request, params }: Route.LoaderArgs) {
-  const { member, design, ref } = await requireRevisionPage(request, params, CAN.view);
+export async function loader({ request, params, context }: Route.LoaderArgs) {
+  const { member, design, ref } = await requireRevisionPage(context, params, "workspace.view");
   const loaded = await loadRevision(member.workspace.id, design.id, ref.number);
   const review = await getReview(member.workspace.id, ref.id);
   if (!loaded || !review) throw new Response("Not found", { status: 404 });

@@ -2,7 +2,7 @@
 // revision, a truth-table row or a component), the request for review and the decision.
 import { Link, data, useActionData } from "react-router";
 import type { Route } from "./+types/review";
-import { CAN, type Role } from "~/lib/roles";
+import { can, type Action } from "~/lib/roles";
 import { fieldErrors, type FieldErrors } from "~/lib/forms";
 import { requireRevisionPage } from "~/reviews/access.server";
 import { compiledRevision } from "~/reviews/compiled.server";
@@ -27,14 +27,13 @@ import { ChangesView } from "~/components/review/changes-view";
 import { CommentForm, CommentsView, type ActionResult } from "~/components/review/comments";
 import { DecisionForm, DecisionsView, RequestForm } from "~/components/review/decisions";
 
-const has = (roles: readonly Role[], role: Role) => roles.includes(role);
 const compareParam = (request: Request) => {
   const raw = new URL(request.url).searchParams.get("compare");
   return raw && /^[1-9][0-9]{0,8}$/.test(raw) ? Number(raw) : null;
 };
 
-export async function loader({ request, params }: Route.LoaderArgs) {
-  const { member, design, ref } = await requireRevisionPage(request, params, CAN.view);
+export async function loader({ request, params, context }: Route.LoaderArgs) {
+  const { member, design, ref } = await requireRevisionPage(context, params, "workspace.view");
   const loaded = await loadRevision(member.workspace.id, design.id, ref.number);
   const review = await getReview(member.workspace.id, ref.id);
   if (!loaded || !review) throw new Response("Not found", { status: 404 });
@@ -80,9 +79,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     comments: review.comments.map((c) => ({ ...c, createdAt: iso(c.createdAt) })),
     reviewers: reviewers.filter((r) => r.id !== loaded.rev.authorId),
     can: {
-      request: has(CAN.editDesigns, member.role),
-      decide: has(CAN.review, member.role) && member.user.id !== loaded.rev.authorId,
-      dispose: has(CAN.disposeFaults, member.role),
+      request: can(member.role, "design.edit"),
+      decide: can(member.role, "review.decide") && member.user.id !== loaded.rev.authorId,
+      dispose: can(member.role, "fault.dispose"),
       comment: true,
     },
     authored: member.user.id === loaded.rev.authorId,
@@ -90,12 +89,12 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 }
 
 
-export async function action({ request, params }: Route.ActionArgs) {
+export async function action({ request, params, context }: Route.ActionArgs) {
   const form = reviewFormObject(await request.formData());
   const intent = String(form.intent ?? "");
-  const allowed = intent === "request" ? CAN.editDesigns : intent === "decide" ? CAN.review : intent === "dispose" ? CAN.disposeFaults : CAN.view;
-  // The role is checked first (requireMember inside), so a technician's forged decision is 403 whatever the body says.
-  const { member, ref } = await requireRevisionPage(request, params, allowed);
+  const needs: Action = intent === "request" ? "design.edit" : intent === "decide" ? "review.decide" : intent === "dispose" ? "fault.dispose" : "workspace.view";
+  // The role is checked first (requireCan inside), so a technician's forged decision is 403 whatever the body says.
+  const { member, ref } = await requireRevisionPage(context, params, needs);
   const fault = intent === "dispose" ? `${String(form.component ?? "")}/${String(form.mode ?? "")}` : undefined;
   const fail = (status: number, errors: FieldErrors) => data<ActionResult>({ intent, ok: false, errors, fault }, { status });
   if (intent === "request") {

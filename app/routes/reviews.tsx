@@ -5,8 +5,7 @@ import { useEffect } from "react";
 import { Link } from "react-router";
 import useSWR from "swr";
 import type { Route } from "./+types/reviews";
-import { requireMember } from "~/auth/guard.server";
-import { CAN } from "~/lib/roles";
+import { requireCan } from "~/auth/context.server";
 import { inboxFor } from "~/reviews/inbox.server";
 import { reviewPath } from "~/reviews/paths";
 import { VERDICT_LABELS } from "~/reviews/status";
@@ -20,8 +19,8 @@ import { Notice } from "~/components/ui/form";
 
 export const meta: Route.MetaFunction = () => [{ title: "Reviews · Chainproof" }];
 
-export async function loader({ request, params }: Route.LoaderArgs) {
-  const m = await requireMember(request, params.ws, CAN.view);
+export async function loader({ request, params, context }: Route.LoaderArgs) {
+  const m = requireCan(context, "workspace.view");
   return inboxFor(m);
 }
 

@@ -4,7 +4,6 @@ import { useEffect, useRef, useState, type FormEvent } from "react";
 import { Link, useSearchParams, type ShouldRevalidateFunctionArgs } from "react-router";
 import useSWR from "swr";
 import type { Route } from "./+types/revision-table";
-import { CAN } from "~/lib/roles";
 import { requireRevisionPage } from "~/reviews/access.server";
 import { compiledRevision } from "~/reviews/compiled.server";
 import { reviewStatusOf } from "~/reviews/reviews.server";
@@ -44,8 +43,8 @@ function pageKey(api: string, q: FilterQuery, from: number): string {
   return `${api}?${p}`;
 }
 
-export async function loader({ request, params }: Route.LoaderArgs) {
-  const { member, design, ref } = await requireRevisionPage(request, params, CAN.view);
+export async function loader({ request, params, context }: Route.LoaderArgs) {
+  const { member, design, ref } = await requireRevisionPage(context, params, "workspace.view");
   const compiled = await compiledRevision(member.workspace.id, ref);
   const columns = tableColumns(compiled);
   const search = new URL(request.url).searchParams;

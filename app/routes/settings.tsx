@@ -1,8 +1,8 @@
 import { data, Form, useNavigation } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/settings";
-import { requireMember } from "~/auth/guard.server";
-import { CAN, ROLES, ROLE_DUTIES, ROLE_LABELS } from "~/lib/roles";
+import { requireCan } from "~/auth/context.server";
+import { can, ROLES, ROLE_DUTIES, ROLE_LABELS } from "~/lib/roles";
 import { fieldErrors, formObject, inviteSchema, roleChangeSchema } from "~/lib/forms";
 import { useFormCheck } from "~/lib/use-form-check";
 import { ID_MAX, storable } from "~/lib/text";
@@ -14,9 +14,9 @@ import { Button, Notice, SelectField, TextField } from "~/components/ui/form";
 
 export const meta: Route.MetaFunction = () => [{ title: "Settings · Chainproof" }];
 
-export async function loader({ request, params }: Route.LoaderArgs) {
-  const m = await requireMember(request, params.ws, CAN.view);
-  const isAdmin = m.role === "admin";
+export async function loader({ request, params, context }: Route.LoaderArgs) {
+  const m = requireCan(context, "workspace.view");
+  const isAdmin = can(m.role, "members.manage");
   const [members, invitations, audit, keys] = await Promise.all([
     listMembers(m.workspace.id),
     isAdmin ? listOpenInvitations(m.workspace.id) : Promise.resolve([]),
@@ -44,12 +44,12 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 const idSchema = z.object({ id: storable(z.string().min(1, "Missing id.").max(ID_MAX, "No such id.")) });
 const keyNameSchema = z.object({ name: storable(z.string().trim().min(1, "Name the key, e.g. after the script that uses it.").max(80, "Use at most 80 characters.")) });
 
-export async function action({ request, params }: Route.ActionArgs) {
+export async function action({ request, params, context }: Route.ActionArgs) {
   const form = await request.formData();
   const values = formObject(form);
   // Personal API keys: every member manages their own.
   if (values.intent === "create-key" || values.intent === "revoke-key") {
-    const me = await requireMember(request, params.ws, CAN.view);
+    const me = requireCan(context, "workspace.view");
     if (values.intent === "create-key") {
       const parsed = keyNameSchema.safeParse(values);
       if (!parsed.success) return data({ intent: "create-key", ok: false, fields: fieldErrors(parsed.error), message: null, newKey: null }, { status: 400 });
@@ -61,7 +61,7 @@ export async function action({ request, params }: Route.ActionArgs) {
       return data({ intent: "revoke-key", ok: false, fields: {}, message: "No such key.", newKey: null }, { status: 400 });
     return { intent: "revoke-key", ok: true, fields: {}, message: "Key revoked.", newKey: null };
   }
-  const m = await requireMember(request, params.ws, CAN.manageMembers);
+  const m = requireCan(context, "members.manage");
   switch (values.intent) {
     case "invite": {
       const parsed = inviteSchema.safeParse(values);

@@ -4,8 +4,8 @@
 import { data, Form, Link, redirect, useNavigation } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/vehicle-controller";
-import { requireMember } from "~/auth/guard.server";
-import { CAN, type Role } from "~/lib/roles";
+import { requireCan } from "~/auth/context.server";
+import { can } from "~/lib/roles";
 import { formObject, type FieldErrors } from "~/lib/forms";
 import { compareRecords, formToRecord, parseRecord, recordToForm } from "~/controller-record";
 import { getVehicle } from "~/vehicles/vehicles.server";
@@ -26,8 +26,8 @@ const compareQuery = z.object({
   saved: z.coerce.number().int().min(1).optional(),
 });
 
-export async function loader({ request, params }: Route.LoaderArgs) {
-  const m = await requireMember(request, params.ws, CAN.view);
+export async function loader({ request, params, context }: Route.LoaderArgs) {
+  const m = requireCan(context, "workspace.view");
   const v = await getVehicle(m.workspace.id, params.vehicleId);
   if (!v) throw new Response("Not found", { status: 404 });
   const [history, { status, latest }] = await Promise.all([recordHistory(m.workspace.id, v.id), vehicleControllerStatus(m.workspace.id, v.id)]);
@@ -44,7 +44,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   return {
     slug: m.workspace.slug,
     vehicle: { id: v.id, name: v.name },
-    canRecord: (CAN.recordControllerSettings as readonly Role[]).includes(m.role),
+    canRecord: can(m.role, "controller.record"),
     latest: latest ? { version: latest.version, recordedAt: latest.recordedAt.toISOString(), recordedBy: latest.recordedBy.name } : null,
     values: parsed?.ok ? recordToForm(parsed.record) : {},
     status: { state: status.state, errors: status.errors, warnings: status.warnings, derived: status.derived, mark: proofDoesNotHold(status), differences: differenceInWords(status) },
@@ -61,8 +61,8 @@ const baseVersionSchema = z.coerce.number({ message: "The form lost its version;
 /** A problem's path as the form names its field ("settings.lockouts[1]" -> "settings.lockouts"). */
 const fieldOf = (path: string) => path.replace(/\[\d+\]$/, "") || "form";
 
-export async function action({ request, params }: Route.ActionArgs) {
-  const m = await requireMember(request, params.ws, CAN.recordControllerSettings);
+export async function action({ request, params, context }: Route.ActionArgs) {
+  const m = requireCan(context, "controller.record");
   const v = await getVehicle(m.workspace.id, params.vehicleId);
   if (!v) throw new Response("Not found", { status: 404 });
   const form = formObject(await request.formData());

@@ -2,8 +2,7 @@
 // browser, so every tap answers at once; the server only hands over the released document.
 import { Link } from "react-router";
 import type { Route } from "./+types/vehicle-diagnose";
-import { requireMember } from "~/auth/guard.server";
-import { CAN } from "~/lib/roles";
+import { requireCan } from "~/auth/context.server";
 import { currentRelease, getVehicle } from "~/vehicles/vehicles.server";
 import { WhyNotPanel } from "~/components/diagnosis/why-not-panel";
 import { EmptyState } from "~/components/empty-state";
@@ -12,8 +11,8 @@ import { vehicleControllerStatus } from "~/vehicles/controller-records.server";
 import { differenceInWords, proofDoesNotHold } from "~/vehicles/controller-status";
 import { ProofMark } from "~/components/controller-record/proof-mark";
 
-export async function loader({ request, params }: Route.LoaderArgs) {
-  const m = await requireMember(request, params.ws, CAN.view);
+export async function loader({ request, params, context }: Route.LoaderArgs) {
+  const m = requireCan(context, "workspace.view");
   const v = await getVehicle(m.workspace.id, params.vehicleId);
   if (!v) throw new Response("Not found", { status: 404 });
   const [release, controller] = await Promise.all([currentRelease(m.workspace.id, v.id), vehicleControllerStatus(m.workspace.id, v.id)]);

@@ -3,8 +3,8 @@
 import { useState } from "react";
 import { data, Form, Link, redirect, useNavigation } from "react-router";
 import type { Route } from "./+types/vehicle";
-import { requireMember } from "~/auth/guard.server";
-import { CAN, type Role } from "~/lib/roles";
+import { requireCan } from "~/auth/context.server";
+import { can, type Action } from "~/lib/roles";
 import { fieldErrors, formObject, vehicleSchema, type FieldErrors } from "~/lib/forms";
 import { useFormCheck } from "~/lib/use-form-check";
 import { clearAttentionSchema, releaseSchema } from "~/vehicles/forms";
@@ -33,14 +33,13 @@ import { standingsFor } from "~/designs/standing.server";
 import { REFUSED_MARK } from "~/designs/standing-words";
 import { RefusedBadge, RefusedNotice } from "~/components/refused-mark";
 
-const may = (roles: readonly Role[], role: Role) => roles.includes(role);
 
 
-export async function loader({ request, params }: Route.LoaderArgs) {
-  const m = await requireMember(request, params.ws, CAN.view);
+export async function loader({ request, params, context }: Route.LoaderArgs) {
+  const m = requireCan(context, "workspace.view");
   const v = await getVehicle(m.workspace.id, params.vehicleId);
   if (!v) throw new Response("Not found", { status: 404 });
-  const canRelease = may(CAN.releaseRevisions, m.role);
+  const canRelease = can(m.role, "revision.release");
   const [photos, history, attention, runs, releasable, controller] = await Promise.all([
     listUploads(m.workspace.id, "vehicle", v.id),
     releaseHistory(m.workspace.id, v.id),
@@ -64,9 +63,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   };
   return {
     slug: m.workspace.slug,
-    canEdit: may(CAN.manageVehicles, m.role),
+    canEdit: can(m.role, "vehicle.manage"),
     canRelease,
-    canRunBench: may(CAN.runBenchTests, m.role),
+    canRunBench: can(m.role, "bench.run"),
     vehicle: { id: v.id, name: v.name, serial: v.serial, model: v.model, controllerDescription: v.controllerDescription, notes: v.notes },
     photos: photos.map((p) => ({ id: p.id, filename: p.filename, contentType: p.contentType, size: p.size })),
     releases: history.map((r) => ({ ...r, at: r.at.toISOString(), refused: refusedOf(r.revisionId) })),
@@ -97,10 +96,10 @@ function fail(intent: string, fields: FieldErrors, status = 400, more: Partial<A
   return data<ActionResult>({ intent, fields, ...more }, { status });
 }
 
-export async function action({ request, params }: Route.ActionArgs) {
+export async function action({ request, params, context }: Route.ActionArgs) {
   // Photos: the only multipart form; the role is checked before the body is read.
   if ((request.headers.get("content-type") ?? "").startsWith("multipart/form-data")) {
-    const m = await requireMember(request, params.ws, CAN.manageVehicles);
+    const m = requireCan(context, "vehicle.manage");
     const v = await getVehicle(m.workspace.id, params.vehicleId);
     if (!v) throw new Response("Not found", { status: 404 });
     try {
@@ -113,17 +112,18 @@ export async function action({ request, params }: Route.ActionArgs) {
       throw err;
     }
   }
-  await requireMember(request, params.ws, CAN.view);
+  requireCan(context, "workspace.view");
   const form = formObject(await request.formData());
   const intent = form.intent ?? "";
-  const roles: Record<string, readonly Role[]> = {
-    edit: CAN.manageVehicles,
-    release: CAN.releaseRevisions,
-    "start-bench-run": CAN.runBenchTests,
-    "clear-attention": CAN.manageVehicles,
+  const needs: Record<string, Action> = {
+    edit: "vehicle.manage",
+    release: "revision.release",
+    "start-bench-run": "bench.run",
+    "clear-attention": "vehicle.manage",
   };
-  if (!roles[intent]) return fail(intent, { intent: "Unknown action." });
-  const m = await requireMember(request, params.ws, roles[intent]);
+  const action = needs[intent];
+  if (!action) return fail(intent, { intent: "Unknown action." });
+  const m = requireCan(context, action);
   const v = await getVehicle(m.workspace.id, params.vehicleId);
   if (!v) throw new Response("Not found", { status: 404 });
   switch (intent) {

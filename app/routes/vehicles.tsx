@@ -1,7 +1,7 @@
 import { data, Form, Link, useNavigation } from "react-router";
 import type { Route } from "./+types/vehicles";
-import { requireMember } from "~/auth/guard.server";
-import { CAN } from "~/lib/roles";
+import { requireCan } from "~/auth/context.server";
+import { can } from "~/lib/roles";
 import { fieldErrors, formObject, vehicleSchema } from "~/lib/forms";
 import { useFormCheck } from "~/lib/use-form-check";
 import { createVehicle, listVehicles } from "~/vehicles/vehicles.server";
@@ -13,11 +13,11 @@ import { Button, TextArea, TextField } from "~/components/ui/form";
 
 export const meta: Route.MetaFunction = () => [{ title: "Vehicles · Chainproof" }];
 
-export async function loader({ request, params }: Route.LoaderArgs) {
-  const m = await requireMember(request, params.ws, CAN.view);
+export async function loader({ request, params, context }: Route.LoaderArgs) {
+  const m = requireCan(context, "workspace.view");
   const [vehicles, controller] = await Promise.all([listVehicles(m.workspace.id), fleetControllerStatus(m.workspace.id)]);
   return {
-    canAdd: (CAN.manageVehicles as readonly string[]).includes(m.role),
+    canAdd: can(m.role, "vehicle.manage"),
     vehicles: vehicles.map((v) => ({
       id: v.id,
       name: v.name,
@@ -33,8 +33,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   };
 }
 
-export async function action({ request, params }: Route.ActionArgs) {
-  const m = await requireMember(request, params.ws, CAN.manageVehicles);
+export async function action({ request, params, context }: Route.ActionArgs) {
+  const m = requireCan(context, "vehicle.manage");
   const parsed = vehicleSchema.safeParse(formObject(await request.formData()));
   if (!parsed.success) return data({ fields: fieldErrors(parsed.error), created: null }, { status: 400 });
   const id = await createVehicle(m.workspace.id, m.user.id, parsed.data);

@@ -1,7 +1,7 @@
 import { Link } from "react-router";
 import type { Route } from "./+types/workspace-home";
-import { requireMember } from "~/auth/guard.server";
-import { CAN, ROLE_DUTIES, ROLE_LABELS } from "~/lib/roles";
+import { requireCan } from "~/auth/context.server";
+import { ROLE_DUTIES, ROLE_LABELS } from "~/lib/roles";
 import { countVehicles } from "~/vehicles/vehicles.server";
 import { PageHeader } from "~/components/page-header";
 import { SafetyNote } from "~/components/safety-note";
@@ -14,8 +14,8 @@ import { When } from "~/designs/design-bits";
 
 export const meta: Route.MetaFunction = () => [{ title: "Overview · Chainproof" }];
 
-export async function loader({ request, params }: Route.LoaderArgs) {
-  const m = await requireMember(request, params.ws, CAN.view);
+export async function loader({ context }: Route.LoaderArgs) {
+  const m = requireCan(context, "workspace.view");
   const [vehicleCount, fleet, failedSteps, changeRequests] = await Promise.all([
     countVehicles(m.workspace.id),
     fleetControllerStatus(m.workspace.id),

@@ -2,15 +2,13 @@ import { Outlet } from "react-router";
 import type { Route } from "./+types/workspace-shell";
 import { Shell } from "~/components/shell";
 import { WorkspaceErrorBoundary } from "~/components/workspace-error";
-import { requireMember, workspacesFor } from "~/auth/guard.server";
-import { CAN } from "~/lib/roles";
+import { requireCan, workspacesIn } from "~/auth/context.server";
 import { demoAccountsExist } from "~/workspace/workspace.server";
 import { env } from "~/env.server";
 
-export async function loader({ request, params }: Route.LoaderArgs) {
-  const m = await requireMember(request, params.ws, CAN.view);
-  const [workspaces, demo] = await Promise.all([workspacesFor(request, m.user.id), demoAccountsExist()]);
-  return { workspace: m.workspace, workspaces, user: m.user, role: m.role, demo, localMail: env.CHAINPROOF_LOCAL === "1" };
+export async function loader({ context }: Route.LoaderArgs) {
+  const m = requireCan(context, "workspace.view");
+  return { workspace: m.workspace, workspaces: workspacesIn(context), user: m.user, role: m.role, demo: await demoAccountsExist(), localMail: env.CHAINPROOF_LOCAL === "1" };
 }
 
 export default function WorkspaceShell({ loaderData }: Route.ComponentProps) {
