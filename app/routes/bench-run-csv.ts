@@ -7,7 +7,7 @@ import { getRun } from "~/bench-runs/bench-runs.server";
 import { benchRunCsv } from "~/bench-runs/csv";
 import { runJson } from "~/api/views.server";
 
-export async function loader({ request, params, context }: Route.LoaderArgs) {
+export async function loader({ params, context }: Route.LoaderArgs) {
   const m = requireCan(context, "workspace.view");
   const run = await getRun(m.workspace.id, params.runId);
   if (!run) throw new Response("Not found", { status: 404 });

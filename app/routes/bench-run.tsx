@@ -24,7 +24,7 @@ import { Button, Notice } from "~/components/ui/form";
 import { HashPrefix, When } from "~/designs/design-bits";
 import { RunBadge } from "~/components/diagnosis/run-list";
 
-export async function loader({ request, params, context }: Route.LoaderArgs) {
+export async function loader({ params, context }: Route.LoaderArgs) {
   const m = requireCan(context, "workspace.view");
   const run = await getRun(m.workspace.id, params.runId);
   if (!run) throw new Response("Not found", { status: 404 });

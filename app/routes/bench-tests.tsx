@@ -18,7 +18,7 @@ const FILTERS = [
   { value: "failures", label: "With failures" },
 ] as const;
 
-export async function loader({ request, params, context }: Route.LoaderArgs) {
+export async function loader({ request, context }: Route.LoaderArgs) {
   const m = requireCan(context, "workspace.view");
   const asked = new URL(request.url).searchParams.get("status") ?? "";
   const status = FILTERS.some((f) => f.value === asked) && asked ? (asked as RunFilter["status"]) : undefined;

@@ -12,7 +12,7 @@ import { Button, SelectField, TextField } from "~/components/ui/form";
 
 export const meta: Route.MetaFunction = () => [{ title: "New design · Chainproof" }];
 
-export async function loader({ request, params, context }: Route.LoaderArgs) {
+export async function loader({ request, context }: Route.LoaderArgs) {
   const m = requireCan(context, "design.edit");
   const vehicles = await vehicleNames(m.workspace.id);
   const wanted = new URL(request.url).searchParams.get("vehicle");
@@ -22,7 +22,7 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
   };
 }
 
-export async function action({ request, params, context }: Route.ActionArgs) {
+export async function action({ request, context }: Route.ActionArgs) {
   const m = requireCan(context, "design.edit");
   const parsed = createDesignSchema.safeParse(formObject(await request.formData()));
   if (!parsed.success) return data({ fields: fieldErrors(parsed.error) }, { status: 400 });

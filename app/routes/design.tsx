@@ -18,7 +18,7 @@ import { reviewPath, truthTablePath } from "~/reviews/paths";
 import { labelsOf } from "~/reviews/revision-view.server";
 import { ReviewStatusBadge } from "~/components/truth-table/review-status";
 
-export async function loader({ request, params, context }: Route.LoaderArgs) {
+export async function loader({ params, context }: Route.LoaderArgs) {
   const m = requireCan(context, "workspace.view");
   const d = await getDesign(m.workspace.id, params.designId);
   if (!d) throw new Response("Not found", { status: 404 });

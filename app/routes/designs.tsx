@@ -18,7 +18,7 @@ import type { ReviewStatus } from "~/reviews/status";
 
 export const meta: Route.MetaFunction = () => [{ title: "Designs · Chainproof" }];
 
-export async function loader({ request, params, context }: Route.LoaderArgs) {
+export async function loader({ request, context }: Route.LoaderArgs) {
   const m = requireCan(context, "workspace.view");
   const filter = designFilterSchema.parse(Object.fromEntries(new URL(request.url).searchParams));
   const [designs, vehicles, reviews] = await Promise.all([listDesigns(m.workspace.id, filter), vehicleNames(m.workspace.id), reviewStatusOf(m.workspace.id)]);

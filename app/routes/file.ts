@@ -3,7 +3,7 @@ import type { Route } from "./+types/file";
 import { requireCan } from "~/auth/context.server";
 import { uploadResponse } from "~/uploads/uploads.server";
 
-export async function loader({ request, params, context }: Route.LoaderArgs) {
+export async function loader({ params, context }: Route.LoaderArgs) {
   const m = requireCan(context, "workspace.view");
   return uploadResponse(m.workspace.id, params.uploadId);
 }

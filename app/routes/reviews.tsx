@@ -19,7 +19,7 @@ import { Notice } from "~/components/ui/form";
 
 export const meta: Route.MetaFunction = () => [{ title: "Reviews · Chainproof" }];
 
-export async function loader({ request, params, context }: Route.LoaderArgs) {
+export async function loader({ context }: Route.LoaderArgs) {
   const m = requireCan(context, "workspace.view");
   return inboxFor(m);
 }

@@ -14,7 +14,7 @@ import { Button, Notice, SelectField, TextField } from "~/components/ui/form";
 
 export const meta: Route.MetaFunction = () => [{ title: "Settings · Chainproof" }];
 
-export async function loader({ request, params, context }: Route.LoaderArgs) {
+export async function loader({ context }: Route.LoaderArgs) {
   const m = requireCan(context, "workspace.view");
   const isAdmin = can(m.role, "members.manage");
   const [members, invitations, audit, keys] = await Promise.all([
@@ -44,7 +44,7 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
 const idSchema = z.object({ id: storable(z.string().min(1, "Missing id.").max(ID_MAX, "No such id.")) });
 const keyNameSchema = z.object({ name: storable(z.string().trim().min(1, "Name the key, e.g. after the script that uses it.").max(80, "Use at most 80 characters.")) });
 
-export async function action({ request, params, context }: Route.ActionArgs) {
+export async function action({ request, context }: Route.ActionArgs) {
   const form = await request.formData();
   const values = formObject(form);
   // Personal API keys: every member manages their own.

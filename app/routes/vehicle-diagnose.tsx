@@ -11,7 +11,7 @@ import { vehicleControllerStatus } from "~/vehicles/controller-records.server";
 import { differenceInWords, proofDoesNotHold } from "~/vehicles/controller-status";
 import { ProofMark } from "~/components/controller-record/proof-mark";
 
-export async function loader({ request, params, context }: Route.LoaderArgs) {
+export async function loader({ params, context }: Route.LoaderArgs) {
   const m = requireCan(context, "workspace.view");
   const v = await getVehicle(m.workspace.id, params.vehicleId);
   if (!v) throw new Response("Not found", { status: 404 });

@@ -13,7 +13,7 @@ import { Button, TextArea, TextField } from "~/components/ui/form";
 
 export const meta: Route.MetaFunction = () => [{ title: "Vehicles · Chainproof" }];
 
-export async function loader({ request, params, context }: Route.LoaderArgs) {
+export async function loader({ context }: Route.LoaderArgs) {
   const m = requireCan(context, "workspace.view");
   const [vehicles, controller] = await Promise.all([listVehicles(m.workspace.id), fleetControllerStatus(m.workspace.id)]);
   return {
@@ -33,7 +33,7 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
   };
 }
 
-export async function action({ request, params, context }: Route.ActionArgs) {
+export async function action({ request, context }: Route.ActionArgs) {
   const m = requireCan(context, "vehicle.manage");
   const parsed = vehicleSchema.safeParse(formObject(await request.formData()));
   if (!parsed.success) return data({ fields: fieldErrors(parsed.error), created: null }, { status: 400 });
