@@ -132,7 +132,8 @@ export function Shell({ workspace, workspaces, user, role, demo, localMail, chil
           ) : null}
         </div>
       ) : null}
-      <header className="sticky top-0 z-20 flex items-center justify-between border-b border-ink-200 bg-white/95 px-4 py-2 backdrop-blur md:hidden">
+      {/* On a phone the header scrolls away: only the page's own status bar stays on screen (decision 138). */}
+      <header className="relative z-20 flex items-center justify-between border-b border-ink-200 bg-white/95 px-4 py-2 backdrop-blur md:hidden">
         <button
           type="button"
           className="flex min-h-11 min-w-11 items-center justify-center rounded-md hover:bg-ink-100"

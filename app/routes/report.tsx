@@ -21,7 +21,7 @@ import { pageRows, type Design, type Predicate } from "~/engine";
 import { SAFETY_TEXT } from "~/components/safety-note";
 import { VerdictSummary } from "~/components/truth-table/verdict-summary";
 import { TruthTableGrid } from "~/components/truth-table/grid";
-import { WiringDiagram } from "~/components/truth-table/wiring-diagram";
+import { WiringDiagram } from "~/components/wiring-diagram";
 import { Logo } from "~/components/logo";
 import { SectionError } from "~/components/error-boundary";
 

@@ -32,8 +32,8 @@ export default function VehicleDiagnose({ loaderData }: Route.ComponentProps) {
   const { slug, vehicle, release } = loaderData;
   return (
     <div className="mx-auto max-w-3xl">
-      <p className="text-sm">
-        <Link to={`/w/${slug}/vehicles/${vehicle.id}`} className="text-copper-700 underline">
+      <p className="text-base">
+        <Link to={`/w/${slug}/vehicles/${vehicle.id}`} className="inline-flex min-h-11 items-center text-copper-700 underline">
           ← {vehicle.name}
         </Link>
       </p>

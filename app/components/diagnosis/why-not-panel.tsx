@@ -4,7 +4,7 @@
 import { useMemo, useState } from "react";
 import { compileDesign, type CompiledDesign, type Design } from "~/engine";
 import { explainMeasured, restingStates, whyNot, type Blocker, type ChangeAdvice, type ContactCheck, type WireEnd } from "~/vehicles/why-not";
-import { WiringDiagram } from "./wiring-diagram";
+import { WiringDiagram } from "~/components/wiring-diagram";
 
 const MAX_HISTORY = 1000;
 
@@ -14,7 +14,7 @@ const FUNCTION_WORDS: Record<string, string> = { power: "power", enable: "enable
 
 function Terminals({ ends }: { ends: WireEnd[] }) {
   return (
-    <ul className="mt-1 space-y-0.5 text-xs text-ink-600">
+    <ul className="mt-1 space-y-0.5 text-base text-ink-600">
       {ends.map((e) => (
         <li key={e.terminal}>
           <span className="font-mono font-semibold text-ink-800">{e.terminal}</span>
@@ -102,29 +102,29 @@ function BlockerCard({ b, n, throttleLabel, onApply }: { b: Blocker; n: number; 
   return (
     <li className="rounded-lg border border-ink-200 bg-white p-4" data-testid="blocker" data-code={b.code}>
       <h3 className="font-semibold">
-        <span className="mr-2 inline-flex h-7 w-7 items-center justify-center rounded-full bg-brick-600 text-sm text-white">{n}</span>
+        <span className="mr-2 inline-flex h-7 w-7 items-center justify-center rounded-full bg-brick-600 text-base text-white">{n}</span>
         {b.title}
       </h3>
       <p className="mt-1 text-base text-ink-700">{b.advice}</p>
       {b.change ? <ChangeAdviceView advice={b.change} what={GOAL_WORDS[b.code] ?? "clears this"} throttleLabel={throttleLabel} onApply={onApply} /> : null}
       {b.contactSets.length > 0 ? <p className="mt-3 text-base font-medium text-ink-800">Where to measure:</p> : null}
-      {b.unreachable ? <p className="mt-2 text-sm text-brick-700">No contact change can bring this input live: it is not wired towards a supply. Check the drawing against the vehicle.</p> : null}
+      {b.unreachable ? <p className="mt-2 text-base text-brick-700">No contact change can bring this input live: it is not wired towards a supply. Check the drawing against the vehicle.</p> : null}
       {b.contactSets.length > 0 ? (
         <ul className="mt-3 space-y-3">
           {b.contactSets.map((set, i) => (
             <li key={i} className="rounded-md border border-ink-200 bg-ink-50 p-3">
-              {set.length > 1 ? <p className="mb-2 text-sm font-semibold text-brick-700">These {set.length} contacts must all change together:</p> : null}
+              {set.length > 1 ? <p className="mb-2 text-base font-semibold text-brick-700">These {set.length} contacts must all change together:</p> : null}
               <div className="space-y-3">
                 {set.map((k) => (
                   <ContactLine key={k.contact} k={k} />
                 ))}
               </div>
-              {i < b.contactSets.length - 1 ? <p className="mt-2 text-xs font-semibold uppercase text-ink-500">or</p> : null}
+              {i < b.contactSets.length - 1 ? <p className="mt-2 text-base font-semibold uppercase text-ink-500">or</p> : null}
             </li>
           ))}
         </ul>
       ) : null}
-      {b.truncated ? <p className="mt-2 text-xs text-ink-500">Only the first of many ways are listed.</p> : null}
+      {b.truncated ? <p className="mt-2 text-base text-ink-500">Only the first of many ways are listed.</p> : null}
     </li>
   );
 }
@@ -172,6 +172,7 @@ function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
     return m;
   }, [readings]);
   const readingsVerdict = useMemo(() => explainMeasured(c, states, measured), [c, states, measured]);
+  const faulty = readingsVerdict.kind === "faults" || readingsVerdict.kind === "unexplained";
 
   const highlight = result.blockers.flatMap((b) => b.contactSets.flat().map((k) => k.contact));
   const suspects = readingsVerdict.kind === "faults" ? readingsVerdict.suspects.map((s) => s.contact) : [];
@@ -182,21 +183,29 @@ function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
 
   return (
     <div className="space-y-6">
+      {/* The verdict follows the readings: a reading the fault-free design cannot give is a fault, whatever the design says. */}
       <div
         role="status"
         aria-live="polite"
         data-testid="verdict"
-        data-drive={result.drive ? "yes" : "no"}
-        className={`sticky top-16 z-10 rounded-lg px-4 py-3 md:top-2 text-lg font-semibold shadow-sm ${result.drive ? "bg-moss-600 text-white" : "bg-brick-600 text-white"}`}
+        data-drive={faulty ? "fault" : result.drive ? "yes" : "no"}
+        className={`sticky top-0 z-10 rounded-lg px-4 py-2 text-base font-semibold shadow-sm md:top-2 ${faulty ? "bg-brick-700 text-white" : result.drive ? "bg-moss-600 text-white" : "bg-brick-600 text-white"}`}
       >
-        {result.drive ? "Drive should run" : "Drive should not run"}
-        {!result.drive && result.blockers.length > 0 ? (
-          <span className="block text-sm font-normal">
-            {result.blockers.length === 1 ? "One thing blocks it" : `${result.blockers.length} things block it`}; check them in the order below.
-          </span>
-        ) : null}
-        {result.drive ? <span className="block text-sm font-normal">With these conditions the design lets {vehicleName} drive.</span> : null}
+        {faulty
+          ? `Readings show a fault: ${readingsVerdict.mismatched.map((id) => id).join(", ")} ${readingsVerdict.mismatched.length > 1 ? "read" : "reads"} wrong`
+          : result.drive
+            ? "Drive should run"
+            : `Drive should not run${result.blockers.length > 0 ? ` · ${result.blockers.length === 1 ? "1 thing blocks it" : `${result.blockers.length} things block it`}` : ""}`}
       </div>
+      {faulty ? (
+        <p className="text-base text-ink-700">
+          The design says drive {result.drive ? "should run" : "should not run"} in these conditions, but the meter readings below cannot happen in the design as drawn: see what explains them.
+        </p>
+      ) : result.drive ? (
+        <p className="text-base text-ink-700">With these conditions the design lets {vehicleName} drive.</p>
+      ) : result.blockers.length > 0 ? (
+        <p className="text-base text-ink-700">Check what blocks it in the order below.</p>
+      ) : null}
 
       <section aria-labelledby="conditions-h">
         <h2 id="conditions-h" className="text-lg font-semibold">
@@ -205,7 +214,7 @@ function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
         <div className="mt-3 space-y-4">
           {c.conditions.map((k) => (
             <fieldset key={k.id} data-condition={k.id}>
-              <legend className="text-sm font-medium text-ink-700">{k.label}</legend>
+              <legend className="text-base font-medium text-ink-700">{k.label}</legend>
               <div className="mt-1 flex flex-wrap gap-2">
                 {k.states.map((s) => {
                   const on = states[k.id] === s;
@@ -228,18 +237,18 @@ function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
           ))}
         </div>
         <div className="mt-4 flex flex-wrap items-center gap-3">
-          <label className="flex min-h-11 items-center gap-2 text-sm">
+          <label className="flex min-h-11 items-center gap-2 text-base">
             <input type="checkbox" className="h-5 w-5" checked={inOrder} onChange={(e) => setInOrder(e.target.checked)} />
             Follow my taps in order, so lockouts latch as on the vehicle
           </label>
-          <button type="button" onClick={restart} className="min-h-11 rounded-md border border-ink-300 bg-white px-3 text-sm font-medium hover:bg-ink-100">
+          <button type="button" onClick={restart} className="min-h-11 rounded-md border border-ink-300 bg-white px-3 text-base font-medium hover:bg-ink-100">
             Start over from switched off
           </button>
         </div>
       </section>
 
       {result.blockers.length > 0 ? (
-        <section aria-labelledby="blockers-h">
+        <section aria-labelledby="blockers-h" className="scroll-mt-16">
           <h2 id="blockers-h" className="text-lg font-semibold">
             What blocks the drive, in the order to check
           </h2>
@@ -255,13 +264,13 @@ function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
         </section>
       ) : null}
 
-      <WiringDiagram c={c} row={result.row} highlight={highlight} suspects={suspects} title={`Wiring of ${vehicleName} in the present conditions`} />
+      <WiringDiagram design={c.design} row={result.row} highlight={highlight} suspects={suspects} title={`Wiring of ${vehicleName} in the present conditions`} phone />
 
-      <section aria-labelledby="measured-h" className="rounded-lg border border-ink-200 bg-white p-4">
+      <section aria-labelledby="measured-h" className="scroll-mt-16 rounded-lg border border-ink-200 bg-white p-4">
         <h2 id="measured-h" className="text-lg font-semibold">
           Measured mode
         </h2>
-        <p className="mt-1 text-sm text-ink-600">
+        <p className="mt-1 text-base text-ink-600">
           With the conditions above set on the vehicle, enter what the meter reads at each controller input. Leave an input unmeasured if you have not checked it.
         </p>
         <div className="mt-3 space-y-3">
@@ -269,7 +278,7 @@ function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
             const r = readings[x.id] ?? "unmeasured";
             return (
               <fieldset key={x.id} data-input={x.id}>
-                <legend className="text-sm font-medium text-ink-700">
+                <legend className="text-base font-medium text-ink-700">
                   {inputLabel(x.id)} · {FUNCTION_WORDS[x.fn]} input · design says {result.row.inputs[x.id] ? "live" : "dead"}
                 </legend>
                 <div className="mt-1 grid grid-cols-3 gap-2">
@@ -280,7 +289,7 @@ function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
                       aria-pressed={r === v}
                       aria-label={`${x.id} ${v === "unmeasured" ? "not measured" : `reads ${v}`}`}
                       onClick={() => setReadings({ ...readings, [x.id]: v })}
-                      className={`min-h-11 rounded-md border px-2 text-sm font-medium ${
+                      className={`min-h-11 rounded-md border px-2 text-base font-medium ${
                         r === v ? "border-ink-800 bg-ink-800 text-white" : "border-ink-300 bg-white text-ink-800 hover:bg-ink-100"
                       }`}
                     >
@@ -292,19 +301,19 @@ function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
             );
           })}
         </div>
-        <div className="mt-4" data-testid="readings-verdict" data-kind={readingsVerdict.kind}>
+        <div className="mt-4 scroll-mt-16" data-testid="readings-verdict" data-kind={readingsVerdict.kind}>
           {readingsVerdict.kind === "consistent" ? (
-            <p className="rounded-md bg-moss-50 px-3 py-2 text-sm text-moss-700">The readings match the design in these conditions: the wiring behaves as drawn.</p>
+            <p className="rounded-md bg-moss-50 px-3 py-2 text-base text-moss-700">The readings match the design in these conditions: the wiring behaves as drawn.</p>
           ) : null}
           {readingsVerdict.kind === "unexplained" ? (
-            <p className="rounded-md bg-brick-50 px-3 py-2 text-sm text-brick-700">
+            <p className="rounded-md bg-brick-50 px-3 py-2 text-base text-brick-700">
               {readingsVerdict.mismatched.map(inputLabel).join(", ")} {readingsVerdict.mismatched.length > 1 ? "do" : "does"} not read as the design says, and no single stuck contact explains it. Look for a
               broken or misrouted wire, a short between lines, or more than one fault.
             </p>
           ) : null}
           {readingsVerdict.kind === "faults" ? (
             <div>
-              <p className="rounded-md bg-brick-50 px-3 py-2 text-sm text-brick-700">
+              <p className="rounded-md bg-brick-50 px-3 py-2 text-base text-brick-700">
                 {readingsVerdict.mismatched.map(inputLabel).join(", ")} cannot read like this in the fault-free design. Contacts that would explain it, most likely first:
               </p>
               <ol className="mt-3 space-y-3">
@@ -314,9 +323,9 @@ function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
                       <span className="font-mono">{s.contact}</span> {s.label !== s.contact ? <>· {s.label}</> : null} may be{" "}
                       <strong>{s.mode === "stuck-closed" ? "stuck closed" : "stuck open"}</strong>
                     </p>
-                    <p className="text-sm text-ink-700">{s.check}</p>
+                    <p className="text-base text-ink-700">{s.check}</p>
                     {s.otherInputsChanged.length > 0 ? (
-                      <p className="mt-1 text-sm text-ink-600">It would also change {s.otherInputsChanged.map(inputLabel).join(", ")}: measure {s.otherInputsChanged.length > 1 ? "them" : "it"} to tell.</p>
+                      <p className="mt-1 text-base text-ink-600">It would also change {s.otherInputsChanged.map(inputLabel).join(", ")}: measure {s.otherInputsChanged.length > 1 ? "them" : "it"} to tell.</p>
                     ) : null}
                     <Terminals ends={s.terminals} />
                   </li>

@@ -28,6 +28,8 @@ export const buttonVariants = cva(
         xs: "rounded px-2 py-0.5 text-xs font-semibold",
         compact: "gap-1 rounded px-2 py-1 text-xs font-semibold",
         touch: "min-h-11 rounded-md px-3 text-sm font-medium",
+        // For a phone at the bench: 44 px high, 16 px text.
+        bench: "min-h-11 rounded-md px-4 text-base font-semibold",
         icon: "min-h-11 min-w-11 rounded-md",
         // For the link variant inside running text.
         inline: "p-0 text-sm",

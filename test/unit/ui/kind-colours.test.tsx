@@ -7,7 +7,7 @@ import { afterEach, describe, expect, it } from "vitest";
 import { cleanup, render } from "@testing-library/react";
 import { KIND_COLOURS, kindColours } from "../../../app/lib/kind-colours";
 import { minimapNodeColor } from "../../../app/canvas/canvas-view";
-import { WiringDiagram } from "../../../app/components/truth-table/wiring-diagram";
+import { WiringDiagram } from "../../../app/components/wiring-diagram";
 import type { Design } from "../../../app/engine";
 
 afterEach(cleanup);
