@@ -16,6 +16,7 @@ import { StatusBar } from "./status-bar";
 import { createEditorStore, EditorContext, useEditor, useEditorStore } from "./store";
 import { Toolbar } from "./toolbar/toolbar";
 import { useEditorKeys } from "./keys";
+import { Button } from "../components/ui/button";
 
 export default function Editor(props: DesignEditorProps) {
   const [store] = useState(() =>
@@ -91,13 +92,13 @@ function BannerView() {
         {banner.detail ? <p className="mt-1 text-xs">{banner.detail}</p> : null}
       </div>
       {banner.actions?.map((a) => (
-        <button key={a.label} type="button" className="rounded border border-current px-2 py-0.5 text-xs font-semibold" onClick={a.run}>
+        <Button key={a.label} type="button" variant="outline" size="xs" onClick={a.run}>
           {a.label}
-        </button>
+        </Button>
       ))}
-      <button type="button" aria-label="Dismiss" className="px-1 text-xs" onClick={() => setBanner(null)}>
+      <Button type="button" variant="bare" size="xs" aria-label="Dismiss" onClick={() => setBanner(null)}>
         ✕
-      </button>
+      </Button>
     </div>
   );
 }

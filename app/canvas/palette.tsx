@@ -5,6 +5,7 @@ import { INPUT_FUNCTIONS, type InputFunction } from "../engine/vocabulary";
 import { FUNCTION_LABEL, KIND_INFO } from "./node-kinds";
 import { useEditor, useEditorStore } from "./store";
 import type { ComponentKind } from "./types";
+import { Button } from "../components/ui/button";
 
 export const DRAG_TYPE = "application/x-chainproof-component";
 
@@ -35,8 +36,10 @@ export function Palette() {
           const taken = item.kind === "input" && usedFunctions.split(",").includes(item.fn!);
           return (
             <li key={`${item.kind}:${item.fn ?? ""}`}>
-              <button
+              <Button
                 type="button"
+                variant="secondary"
+                size="sm"
                 draggable={editable && !taken}
                 disabled={!editable || taken}
                 data-testid={`palette-${item.kind}${item.fn ? `-${item.fn}` : ""}`}
@@ -46,10 +49,10 @@ export function Palette() {
                   e.dataTransfer.effectAllowed = "copy";
                 }}
                 onClick={() => addAtCentre(item.kind, item.fn)}
-                className="cursor-grab rounded border border-ink-300 bg-white px-2 py-1.5 text-left text-sm font-medium text-ink-800 hover:border-copper-500 disabled:cursor-not-allowed disabled:opacity-50 md:w-full"
+                className="cursor-grab justify-start text-left disabled:opacity-50 md:w-full"
               >
                 {item.title}
-              </button>
+              </Button>
             </li>
           );
         })}

@@ -6,6 +6,7 @@ import { contentKey } from "./convert";
 import type { DraftState } from "./hooks";
 import { useDocument } from "./panels/common";
 import { useEditor } from "./store";
+import { Button } from "../components/ui/button";
 
 export function StatusBar({ draft, readOnly }: { draft: DraftState; readOnly: boolean }) {
   const proof = useEditor((s) => s.proof);
@@ -51,9 +52,9 @@ export function StatusBar({ draft, readOnly }: { draft: DraftState; readOnly: bo
       </span>
       {faults > 0 ? (
         // A single-fault count, with the way to what it does and does not cover (the Problems panel).
-        <button type="button" className="text-copper-700 underline" title={COMMON_CAUSE_TEXT} onClick={() => setPanel("problems")}>
+        <Button type="button" variant="link" className="underline-offset-auto" title={COMMON_CAUSE_TEXT} onClick={() => setPanel("problems")}>
           {faults} single {faults === 1 ? "fault defeats" : "faults defeat"} a rule
-        </button>
+        </Button>
       ) : null}
       <span className={`font-semibold ${isRevision ? "text-moss-700" : "text-ink-600"}`} data-testid="revision-status">
         {isRevision ? `Revision ${revision.number}, proven` : `Draft, not proven${revision.number > 0 ? ` (based on revision ${revision.number})` : ""}`}

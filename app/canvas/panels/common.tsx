@@ -4,6 +4,7 @@ import { useEffect, useId, useMemo, useRef, useState, type ButtonHTMLAttributes,
 import type { Problem } from "../../engine";
 import { flowToDocument } from "../convert";
 import { useEditor } from "../store";
+import { Button, Chip } from "../../components/ui/button";
 
 export function useDocument() {
   const rest = useEditor((s) => s.rest);
@@ -157,19 +158,8 @@ export function Select({ label, children, invalid, ...rest }: { label: string; i
 }
 
 export function Small({ tone = "secondary", className = "", ...rest }: ButtonHTMLAttributes<HTMLButtonElement> & { tone?: "primary" | "secondary" | "danger" | "ghost" }) {
-  const tones = {
-    primary: "bg-copper-600 text-white hover:bg-copper-700 disabled:bg-ink-300",
-    secondary: "border border-ink-300 bg-white text-ink-800 hover:bg-ink-100 disabled:text-ink-400",
-    danger: "border border-brick-600 bg-white text-brick-700 hover:bg-brick-50 disabled:text-ink-400",
-    ghost: "text-ink-700 hover:bg-ink-100 disabled:text-ink-400",
-  };
-  return (
-    <button
-      type="button"
-      className={`inline-flex items-center gap-1 rounded px-2 py-1 text-xs font-semibold disabled:cursor-not-allowed ${tones[tone]} ${className}`}
-      {...rest}
-    />
-  );
+  const variant = ({ primary: "action", secondary: "secondary", danger: "danger-quiet", ghost: "ghost" } as const)[tone];
+  return <Button type="button" variant={variant} size="compact" className={className} {...rest} />;
 }
 
 export function Section({ title, children, actions }: { title: string; children: ReactNode; actions?: ReactNode }) {
@@ -203,16 +193,9 @@ export function StateChips({
       {states.map((st) => {
         const on = picked.includes(st);
         return (
-          <button
-            key={st}
-            type="button"
-            aria-pressed={on}
-            disabled={disabled}
-            onClick={() => onToggle(st)}
-            className={`rounded-full border px-2 py-0.5 text-xs font-medium ${on ? "border-copper-600 bg-copper-600 text-white" : "border-ink-300 bg-white text-ink-700 hover:bg-ink-100"} disabled:cursor-not-allowed`}
-          >
+          <Chip key={st} pressed={on} disabled={disabled} onClick={() => onToggle(st)}>
             {st}
-          </button>
+          </Chip>
         );
       })}
       {states.length === 0 ? <span className="text-xs text-ink-500">(no states)</span> : null}

@@ -5,6 +5,7 @@ import { useState } from "react";
 import { STATES_MAX } from "../edits";
 import { useEditor, useEditorStore } from "../store";
 import { CommitText, FieldProblems, Section, Small, problemsUnder, useValidation } from "./common";
+import { cardVariants } from "../../components/ui/card";
 
 export function ConditionsPanel() {
   const conditions = useEditor((s) => s.rest.conditions);
@@ -35,7 +36,7 @@ function ConditionCard({ index: i, editable, problems: here }: { index: number; 
   const [error, setError] = useState<string | null>(null);
   if (!c) return null;
   return (
-    <fieldset className="space-y-2 rounded border border-ink-200 bg-white p-2" aria-label={`Condition ${c.id}`} data-testid={`condition-${c.id}`}>
+    <fieldset className={cardVariants({ padding: "xs", className: "space-y-2" })} aria-label={`Condition ${c.id}`} data-testid={`condition-${c.id}`}>
       <div className="grid grid-cols-[7rem_1fr] gap-2">
         <CommitText
           label="Id"

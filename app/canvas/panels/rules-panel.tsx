@@ -5,6 +5,7 @@ import type { InhibitRule, RequireDriveRule, Rule } from "../../engine";
 import { useEditor, useEditorStore } from "../store";
 import { CommitText, FieldProblems, Section, Select, Small, problemsUnder, useValidation } from "./common";
 import { PredicateEditor } from "./predicate-editor";
+import { cardVariants } from "../../components/ui/card";
 
 function freshRuleId(rules: readonly Rule[], base: string) {
   for (let n = 1; ; n++) if (!rules.some((r) => r.id === `${base}${n}`)) return `${base}${n}`;
@@ -194,7 +195,7 @@ function InhibitRuleForm({
 }) {
   const forbid = rule.forbid === "drive" ? "drive" : typeof rule.forbid === "object" && rule.forbid ? `energized:${rule.forbid.energized}` : "drive";
   return (
-    <fieldset className="space-y-2 rounded border border-ink-200 bg-white p-2" aria-label={`Rule ${rule.id}`} data-testid={`rule-${rule.id}`}>
+    <fieldset className={cardVariants({ padding: "xs", className: "space-y-2" })} aria-label={`Rule ${rule.id}`} data-testid={`rule-${rule.id}`}>
       <div className="grid grid-cols-[6rem_1fr] gap-2">
         <CommitText label="Id" value={rule.id} disabled={!editable} onCommit={onRename} invalid={problems.some((p) => p.path === `rules[${index}].id`)} />
         <CommitText label="Label" value={rule.label ?? ""} disabled={!editable} onCommit={(label) => (onChange({ ...rule, label }), null)} />

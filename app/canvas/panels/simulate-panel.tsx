@@ -8,6 +8,7 @@ import { compiledOf, restRow } from "../simulation";
 import { useEditor } from "../store";
 import { explainTrace, LOCKOUT_NAME, type TraceExplanation } from "../trace-explain";
 import { Section, Small, useDocument } from "./common";
+import { Chip } from "../../components/ui/button";
 
 export function SimulatePanel() {
   const simulation = useEditor((s) => s.simulation);
@@ -115,15 +116,9 @@ export function SimulatePanel() {
             <div className="text-xs font-medium text-ink-600">{c.label || c.id}</div>
             <div role="group" aria-label={`State of ${c.label || c.id}`} className="mt-0.5 flex flex-wrap gap-1">
               {c.states.map((st) => (
-                <button
-                  key={st}
-                  type="button"
-                  aria-pressed={states[c.id] === st}
-                  onClick={() => simulate({ states: { ...states, [c.id]: st }, source: { kind: "hand" } })}
-                  className={`rounded-full border px-2 py-0.5 text-xs font-medium ${states[c.id] === st ? "border-copper-600 bg-copper-600 text-white" : "border-ink-300 bg-white text-ink-700 hover:bg-ink-100"}`}
-                >
+                <Chip key={st} pressed={states[c.id] === st} onClick={() => simulate({ states: { ...states, [c.id]: st }, source: { kind: "hand" } })}>
                   {st}
-                </button>
+                </Chip>
               ))}
             </div>
           </div>

@@ -2,7 +2,7 @@
 import { useState } from "react";
 import { autoLayout } from "../layout";
 import { useEditor, useEditorStore } from "../store";
-import { toolButton as btn } from "./tool-button";
+import { Button } from "../../components/ui/button";
 
 export function EditTools({ readOnly }: { readOnly: boolean }) {
   const store = useEditorStore();
@@ -29,35 +29,35 @@ export function EditTools({ readOnly }: { readOnly: boolean }) {
     }
   };
   const fit = (
-    <button type="button" className={btn} onClick={() => store.getState().requestFit()}>
+    <Button type="button" variant="ghost" size="sm" onClick={() => store.getState().requestFit()}>
       Fit view
-    </button>
+    </Button>
   );
   if (readOnly) return fit;
   return (
     <>
-      <button type="button" className={btn} disabled={!canUndo} onClick={() => store.getState().undo()} title="Ctrl+Z">
+      <Button type="button" variant="ghost" size="sm" disabled={!canUndo} onClick={() => store.getState().undo()} title="Ctrl+Z">
         Undo
-      </button>
-      <button type="button" className={btn} disabled={!canRedo} onClick={() => store.getState().redo()} title="Ctrl+Shift+Z / Ctrl+Y">
+      </Button>
+      <Button type="button" variant="ghost" size="sm" disabled={!canRedo} onClick={() => store.getState().redo()} title="Ctrl+Shift+Z / Ctrl+Y">
         Redo
-      </button>
+      </Button>
       <span className="mx-1 h-5 w-px bg-ink-200" aria-hidden="true" />
-      <button type="button" className={btn} disabled={!editing || selectedCount === 0} onClick={() => store.getState().deleteSelected()} title="Delete">
+      <Button type="button" variant="ghost" size="sm" disabled={!editing || selectedCount === 0} onClick={() => store.getState().deleteSelected()} title="Delete">
         Delete
-      </button>
-      <button type="button" className={btn} disabled={!editing || selectedCount === 0} onClick={() => store.getState().duplicateSelected()} title="Ctrl+D">
+      </Button>
+      <Button type="button" variant="ghost" size="sm" disabled={!editing || selectedCount === 0} onClick={() => store.getState().duplicateSelected()} title="Ctrl+D">
         Duplicate
-      </button>
-      <button type="button" className={btn} disabled={!editing || !oneContact} onClick={() => store.getState().addBeside("series")}>
+      </Button>
+      <Button type="button" variant="ghost" size="sm" disabled={!editing || !oneContact} onClick={() => store.getState().addBeside("series")}>
         Add in series
-      </button>
-      <button type="button" className={btn} disabled={!editing || !oneContact} onClick={() => store.getState().addBeside("parallel")}>
+      </Button>
+      <Button type="button" variant="ghost" size="sm" disabled={!editing || !oneContact} onClick={() => store.getState().addBeside("parallel")}>
         Add in parallel
-      </button>
-      <button type="button" className={btn} disabled={!editing || laying} aria-busy={laying} onClick={layout}>
+      </Button>
+      <Button type="button" variant="ghost" size="sm" disabled={!editing || laying} aria-busy={laying} onClick={layout}>
         {laying ? "Laying out…" : "Auto-layout"}
-      </button>
+      </Button>
       {fit}
     </>
   );

@@ -3,7 +3,7 @@ import { useRef, useState } from "react";
 import { useDocument } from "../panels/common";
 import { useEditor, useEditorStore } from "../store";
 import { ImportProblemsDialog, type ImportTrouble } from "./import-problems-dialog";
-import { toolButton as btn } from "./tool-button";
+import { Button } from "../../components/ui/button";
 
 export function FileTools({ readOnly }: { readOnly: boolean }) {
   const store = useEditorStore();
@@ -39,9 +39,9 @@ export function FileTools({ readOnly }: { readOnly: boolean }) {
     <>
       {readOnly ? null : (
         <>
-          <button type="button" className={btn} disabled={!editing} onClick={() => fileRef.current?.click()}>
+          <Button type="button" variant="ghost" size="sm" disabled={!editing} onClick={() => fileRef.current?.click()}>
             Import…
-          </button>
+          </Button>
           <input
             ref={fileRef}
             type="file"
@@ -58,9 +58,9 @@ export function FileTools({ readOnly }: { readOnly: boolean }) {
           />
         </>
       )}
-      <button type="button" className={btn} onClick={exportJson}>
+      <Button type="button" variant="ghost" size="sm" onClick={exportJson}>
         Export JSON
-      </button>
+      </Button>
       <ImportProblemsDialog
         trouble={trouble}
         onClose={() => setTrouble(null)}

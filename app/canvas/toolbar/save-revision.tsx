@@ -6,6 +6,7 @@ import { COMMON_CAUSE_TEXT } from "../../components/common-cause-note";
 import type { DesignEditorProps } from "../contract";
 import { contentKey } from "../convert";
 import { useEditor, useEditorStore } from "../store";
+import { Button } from "../../components/ui/button";
 
 export function SaveRevision({
   baseRevision: initialBase,
@@ -85,9 +86,9 @@ export function SaveRevision({
         placeholder="What changed?"
         className="w-48 rounded border border-ink-300 px-2 py-1 text-sm focus:border-copper-500 focus:outline-none"
       />
-      <button type="submit" disabled={saving || simulating} className="rounded bg-copper-600 px-3 py-1 text-sm font-semibold text-white hover:bg-copper-700 disabled:bg-ink-300">
+      <Button type="submit" variant="action" size="sm" disabled={saving || simulating}>
         {saving ? "Saving…" : "Save revision"}
-      </button>
+      </Button>
     </form>
   );
 }

@@ -24,6 +24,8 @@ export const buttonVariants = cva(
       },
       size: {
         md: "min-h-10 rounded-md px-4 py-2 text-sm font-semibold",
+        lg: "min-h-12 rounded-md px-4 py-2 text-base font-semibold",
+        dense: "min-h-9 rounded-md px-3 py-1.5 text-sm font-semibold",
         sm: "rounded px-2 py-1 text-sm font-medium",
         xs: "rounded px-2 py-0.5 text-xs font-semibold",
         compact: "gap-1 rounded px-2 py-1 text-xs font-semibold",
@@ -48,15 +50,23 @@ export function Button({ variant, size, className, ...rest }: ButtonProps) {
   return <button className={buttonVariants({ variant, size, className })} {...rest} />;
 }
 
-export const chipVariants = cva(
-  "inline-flex items-center rounded-full border px-2 py-0.5 text-xs font-medium disabled:cursor-not-allowed aria-pressed:border-action aria-pressed:bg-action aria-pressed:text-white",
-  {
-    variants: { pressed: { true: "", false: "border-line-strong bg-surface text-ink-700 hover:bg-subtle" } },
-    defaultVariants: { pressed: false },
+export const chipVariants = cva("inline-flex items-center justify-center border font-medium disabled:cursor-not-allowed aria-pressed:text-white", {
+  variants: {
+    pressed: { true: "", false: "border-line-strong bg-surface text-ink-700 hover:bg-subtle" },
+    // action: a choice that changes what is shown; ink: a reading the user records.
+    tone: { action: "aria-pressed:border-action aria-pressed:bg-action", ink: "aria-pressed:border-ink-800 aria-pressed:bg-ink-800" },
+    size: { sm: "rounded-full px-2 py-0.5 text-xs", touch: "min-h-12 min-w-20 rounded-md px-4 text-base", "touch-sm": "min-h-11 rounded-md px-2 text-sm" },
   },
-);
+  defaultVariants: { pressed: false, tone: "action", size: "sm" },
+});
 
 /** A toggle in a row of choices (aria-pressed): a state picked, a filter on. */
-export function Chip({ pressed, className, ...rest }: Omit<ButtonHTMLAttributes<HTMLButtonElement>, "aria-pressed"> & { pressed: boolean; ref?: Ref<HTMLButtonElement> }) {
-  return <button type="button" aria-pressed={pressed} className={chipVariants({ pressed, className })} {...rest} />;
+export function Chip({
+  pressed,
+  tone,
+  size,
+  className,
+  ...rest
+}: Omit<ButtonHTMLAttributes<HTMLButtonElement>, "aria-pressed"> & VariantProps<typeof chipVariants> & { pressed: boolean; ref?: Ref<HTMLButtonElement> }) {
+  return <button type="button" aria-pressed={pressed} className={chipVariants({ pressed, tone, size, className })} {...rest} />;
 }

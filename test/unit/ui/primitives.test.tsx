@@ -5,7 +5,7 @@ import { useState } from "react";
 import { afterEach, describe, expect, it, vi } from "vitest";
 import { cleanup, fireEvent, render, screen, within } from "@testing-library/react";
 import { createMemoryRouter, RouterProvider } from "react-router";
-import { Button, buttonVariants } from "../../../app/components/ui/button";
+import { Button, buttonVariants, Chip } from "../../../app/components/ui/button";
 import { ButtonLink } from "../../../app/components/ui/link";
 import { Card, CardSection } from "../../../app/components/ui/card";
 import { Badge } from "../../../app/components/ui/badge";
@@ -55,6 +55,28 @@ describe("Button", () => {
   it("keeps the older buttonClass tones on the same looks", () => {
     expect(buttonClass()).toBe(buttonVariants({ variant: "action", className: "" }));
     expect(buttonClass("secondary", "px-3")).toBe(buttonVariants({ variant: "secondary", className: "px-3" }));
+  });
+});
+
+describe("Chip", () => {
+  it("is a toggle button whose pressed state is announced and drawn in the action colour", () => {
+    const onClick = vi.fn();
+    render(
+      <div>
+        <Chip pressed onClick={onClick}>
+          occupied
+        </Chip>
+        <Chip pressed={false}>empty</Chip>
+      </div>,
+    );
+    const on = screen.getByRole("button", { name: "occupied", pressed: true });
+    const off = screen.getByRole("button", { name: "empty", pressed: false });
+    expect(on.getAttribute("type")).toBe("button");
+    expect(classes(on)).toContain("aria-pressed:bg-action");
+    expect(classes(on)).not.toContain("bg-surface");
+    expect(classes(off)).toContain("bg-surface");
+    fireEvent.click(on);
+    expect(onClick).toHaveBeenCalledTimes(1);
   });
 });
 
