@@ -5,6 +5,7 @@ import { useState, type ReactNode } from "react";
 import { Form, Link, NavLink, useMatches, useNavigate } from "react-router";
 import { Logo, LogoMark } from "./logo";
 import { ROLE_LABELS, type Role } from "~/lib/roles";
+import { Button } from "./ui/button";
 
 export type ShellProps = {
   workspace: { slug: string; name: string };
@@ -98,9 +99,9 @@ function UserMenu({ user, role, side = "below" }: { user: ShellProps["user"]; ro
         <p className="text-xs text-ink-600">{user.email}</p>
         <p className="mt-1 text-xs text-ink-600">Role here: {ROLE_LABELS[role]}</p>
         <Form method="post" action="/sign-out" className="mt-3">
-          <button type="submit" className="w-full rounded-md border border-ink-300 px-3 py-2 text-sm font-medium hover:bg-ink-100">
+          <Button type="submit" variant="secondary" className="w-full">
             Sign out
-          </button>
+          </Button>
         </Form>
       </div>
     </details>
@@ -134,16 +135,17 @@ export function Shell({ workspace, workspaces, user, role, demo, localMail, chil
       ) : null}
       {/* On a phone the header scrolls away: only the page's own status bar stays on screen (decision 138). */}
       <header className="relative z-20 flex items-center justify-between border-b border-ink-200 bg-white/95 px-4 py-2 backdrop-blur md:hidden">
-        <button
+        <Button
           type="button"
-          className="flex min-h-11 min-w-11 items-center justify-center rounded-md hover:bg-ink-100"
+          variant="ghost"
+          size="icon"
           aria-expanded={open}
           aria-controls="mobile-nav"
           onClick={() => setOpen((o) => !o)}
         >
           <span className="sr-only">{open ? "Close menu" : "Open menu"}</span>
           <Icon d={open ? "M5 5l10 10M15 5L5 15" : "M3 6h14M3 10h14M3 14h14"} />
-        </button>
+        </Button>
         <Link to={`/w/${workspace.slug}`} className="text-ink-800">
           <Logo />
         </Link>
@@ -162,16 +164,17 @@ export function Shell({ workspace, workspaces, user, role, demo, localMail, chil
               <LogoMark />
               <span className="sr-only">Chainproof: {workspace.name}</span>
             </Link>
-            <button
+            <Button
               type="button"
-              className="flex min-h-11 min-w-11 items-center justify-center rounded-md text-ink-700 hover:bg-ink-100"
+              variant="ghost"
+              size="icon"
               aria-expanded={false}
               onClick={() => setNavOpen(true)}
               title="Show the navigation"
             >
               <span className="sr-only">Show the navigation</span>
               <Icon d="M3 6h14M3 10h14M3 14h14" />
-            </button>
+            </Button>
             <Nav slug={workspace.slug} compact />
             <div className="mt-auto">
               <UserMenu user={user} role={role} side="right" />
@@ -184,9 +187,9 @@ export function Shell({ workspace, workspaces, user, role, demo, localMail, chil
                 <Logo />
               </Link>
               {canvas ? (
-                <button type="button" className="rounded-md px-2 py-1 text-xs font-medium text-ink-600 hover:bg-ink-100" aria-expanded={true} onClick={() => setNavOpen(false)}>
+                <Button type="button" variant="ghost" size="compact" aria-expanded={true} onClick={() => setNavOpen(false)}>
                   Hide
-                </button>
+                </Button>
               ) : null}
             </div>
             <WorkspaceSwitcher current={workspace.slug} workspaces={workspaces} />

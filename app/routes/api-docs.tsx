@@ -5,6 +5,7 @@ import { Link } from "react-router";
 import type { Route } from "./+types/api-docs";
 import { openApiDocument } from "~/api/openapi.server";
 import { Logo } from "~/components/logo";
+import { cardVariants } from "~/components/ui/card";
 
 export const meta: Route.MetaFunction = () => [{ title: "API · Chainproof" }];
 
@@ -188,7 +189,7 @@ function Bodies({ doc, content }: { doc: ApiDoc; content?: Content }) {
 function OperationCard({ doc, method, path, op }: { doc: ApiDoc; method: string; path: string; op: Operation }) {
   const id = `${method}-${slugOf(path)}`;
   return (
-    <article id={id} className="rounded-lg border border-ink-200 bg-white p-4" data-testid="operation">
+    <article id={id} className={cardVariants({ padding: "md" })} data-testid="operation">
       <h3 className="flex flex-wrap items-baseline gap-2">
         <span className={`rounded px-2 py-0.5 font-mono text-xs font-bold uppercase ${METHOD_STYLE[method] ?? ""}`}>{method}</span>
         <code className="break-all font-mono text-sm font-semibold">{path}</code>
@@ -300,7 +301,7 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
             <h2 className="text-lg font-semibold">Authentication</h2>
             <ul className="mt-2 space-y-2 text-sm">
               {Object.entries(doc.components?.securitySchemes ?? {}).map(([name, s]) => (
-                <li key={name} className="rounded-lg border border-ink-200 bg-white p-3">
+                <li key={name} className={cardVariants({ padding: "sm" })}>
                   <span className="font-mono font-semibold">{name}</span>{" "}
                   <span className="text-xs text-ink-500">
                     {s.type === "http" ? `HTTP ${s.scheme}: Authorization: Bearer <key>` : `${s.in} ${s.name}`}
@@ -324,7 +325,7 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
           {errorSchema ? (
             <section id="schema-Error">
               <h2 className="text-lg font-semibold">Errors</h2>
-              <div className="mt-2 rounded-lg border border-ink-200 bg-white p-4">
+              <div className={cardVariants({ padding: "md", className: "mt-2" })}>
                 <Outline doc={doc} schema={{ $ref: "#/components/schemas/Error" }} defs={{}} seen={[]} depth={0} />
               </div>
             </section>

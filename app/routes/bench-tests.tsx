@@ -8,6 +8,7 @@ import { PageHeader } from "~/components/page-header";
 import { EmptyState } from "~/components/empty-state";
 import { SafetyNote } from "~/components/safety-note";
 import { RunList } from "~/components/diagnosis/run-list";
+import { cardVariants } from "~/components/ui/card";
 
 export const meta: Route.MetaFunction = () => [{ title: "Bench tests · Chainproof" }];
 
@@ -57,7 +58,7 @@ export default function BenchTests({ loaderData }: Route.ComponentProps) {
             : "Technicians run bench tests on vehicles with a released revision; their records appear here."}
         </EmptyState>
       ) : (
-        <div className="rounded-lg border border-ink-200 bg-white px-4">
+        <div className={cardVariants({ padding: "none", className: "px-4" })}>
           <RunList slug={slug} runs={runs} empty="No runs match this filter." />
         </div>
       )}

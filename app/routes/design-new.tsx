@@ -9,6 +9,7 @@ import { editorPath } from "~/designs/paths";
 import { vehicleNames } from "~/vehicles/vehicles.server";
 import { PageHeader } from "~/components/page-header";
 import { Button, SelectField, TextField } from "~/components/ui/form";
+import { cardVariants } from "~/components/ui/card";
 
 export const meta: Route.MetaFunction = () => [{ title: "New design · Chainproof" }];
 
@@ -42,7 +43,7 @@ export default function NewDesign({ loaderData, actionData }: Route.ComponentPro
         </Link>
       </p>
       <PageHeader title="New design" description="The design starts as a draft. It becomes revision 1 when you save it and every rule holds." />
-      <section className="max-w-xl rounded-lg border border-ink-200 bg-white p-5">
+      <section className={cardVariants({ padding: "lg", className: "max-w-xl" })}>
         <Form method="post" className="space-y-5" onSubmit={onSubmit} noValidate>
           <TextField label="Name" name="name" required maxLength={120} error={errors.name} placeholder="e.g. Hauler #3 rear deck, inhibit wiring" />
           <SelectField label="Vehicle" name="vehicleId" defaultValue={loaderData.vehicleId ?? ""} error={errors.vehicleId}>

@@ -12,11 +12,11 @@ import type { Verdict } from "~/designs/types";
 import { PageHeader } from "~/components/page-header";
 import { CommonCauseNote } from "~/components/common-cause-note";
 import { SafetyNote } from "~/components/safety-note";
-import { buttonClass } from "~/components/ui/form";
 import { reviewStatusOf } from "~/reviews/reviews.server";
 import { reviewPath, truthTablePath } from "~/reviews/paths";
 import { labelsOf } from "~/reviews/revision-view.server";
 import { ReviewStatusBadge } from "~/components/truth-table/review-status";
+import { ButtonLink } from "~/components/ui/link";
 
 export async function loader({ params, context }: Route.LoaderArgs) {
   const m = requireCan(context, "workspace.view");
@@ -109,9 +109,9 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
           </span>
         }
         actions={
-          <Link to={editorPath(slug, design.id)} className={buttonClass(canEdit ? "primary" : "secondary")}>
+          <ButtonLink to={editorPath(slug, design.id)} variant={canEdit ? "action" : "secondary"}>
             {canEdit ? "Open the editor" : "View on the canvas"}
-          </Link>
+          </ButtonLink>
         }
       />
 
@@ -175,9 +175,9 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
                   The draft is the working copy. It is not proven until it is saved as a revision, which happens only when every rule holds.
                 </p>
                 {canEdit ? (
-                  <Link to={editorPath(slug, design.id)} className={buttonClass("secondary")}>
+                  <ButtonLink to={editorPath(slug, design.id)} variant="secondary">
                     Continue the draft
-                  </Link>
+                  </ButtonLink>
                 ) : null}
               </div>
             ) : (

@@ -11,10 +11,12 @@ import { designPath, editorPath } from "~/designs/paths";
 import { PageHeader } from "~/components/page-header";
 import { CommonCauseNote } from "~/components/common-cause-note";
 import { EmptyState } from "~/components/empty-state";
-import { buttonClass } from "~/components/ui/form";
 import { reviewStatusOf } from "~/reviews/reviews.server";
 import { ReviewStatusBadge } from "~/components/truth-table/review-status";
 import type { ReviewStatus } from "~/reviews/status";
+import { cardVariants } from "~/components/ui/card";
+import { Button } from "~/components/ui/button";
+import { ButtonLink } from "~/components/ui/link";
 
 export const meta: Route.MetaFunction = () => [{ title: "Designs · Chainproof" }];
 
@@ -49,9 +51,9 @@ export default function Designs({ loaderData }: Route.ComponentProps) {
         description="A design is one vehicle's drive-inhibit wiring with the safety rules it must keep. Only proven designs are saved as revisions."
         actions={
           canEdit ? (
-            <Link to="new" className={buttonClass("primary")}>
+            <ButtonLink to="new" variant="action">
               New design
-            </Link>
+            </ButtonLink>
           ) : null
         }
       />
@@ -85,9 +87,9 @@ export default function Designs({ loaderData }: Route.ComponentProps) {
           </select>
         </div>
         <noscript>
-          <button type="submit" className={buttonClass("secondary")}>
+          <Button type="submit" variant="secondary">
             Apply
-          </button>
+          </Button>
         </noscript>
         {filtered ? (
           <Link to="." className="min-h-10 py-2 text-sm font-semibold text-copper-700 underline">
@@ -104,9 +106,9 @@ export default function Designs({ loaderData }: Route.ComponentProps) {
             title="No designs yet"
             action={
               canEdit ? (
-                <Link to="new" className={buttonClass("primary")}>
+                <ButtonLink to="new" variant="action">
                   Start a design
-                </Link>
+                </ButtonLink>
               ) : null
             }
           >
@@ -143,7 +145,7 @@ function DesignRow({
 }) {
   const rev = d.latestRevision;
   return (
-    <li className="rounded-lg border border-ink-200 bg-white p-4">
+    <li className={cardVariants({ padding: "md" })}>
       <div className="flex flex-wrap items-start justify-between gap-3">
         <div className="min-w-0">
           <Link to={designPath(slug, d.id)} className="text-base font-semibold text-ink-900 hover:text-copper-700 hover:underline">
@@ -154,9 +156,9 @@ function DesignRow({
         <div className="flex items-center gap-2">
           <StatusBadge status={d.status} />
           {review?.latest ? <ReviewStatusBadge status={review.latest} /> : null}
-          <Link to={editorPath(slug, d.id)} className={buttonClass("secondary", "min-h-9 px-3 py-1.5")}>
+          <ButtonLink to={editorPath(slug, d.id)} variant="secondary" size="dense">
             {canEdit ? "Edit" : "View canvas"}
-          </Link>
+          </ButtonLink>
         </div>
       </div>
       <div className="mt-3 flex flex-wrap items-center gap-x-5 gap-y-2 text-sm">

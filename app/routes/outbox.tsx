@@ -7,6 +7,7 @@ import { Logo } from "~/components/logo";
 import { Button } from "~/components/ui/form";
 import { api } from "~/api/endpoints";
 import { apiFetcher, apiUrl } from "~/api/client";
+import { cardVariants } from "~/components/ui/card";
 
 export const meta: Route.MetaFunction = () => [{ title: "Outbox · Chainproof" }];
 
@@ -61,7 +62,7 @@ export default function Outbox({ loaderData }: Route.ComponentProps) {
       ) : (
         <ul className="mt-6 space-y-4">
           {mail.map((m) => (
-            <li key={m.id} className="rounded-lg border border-ink-200 bg-white p-4" data-testid="mail">
+            <li key={m.id} className={cardVariants({ padding: "md" })} data-testid="mail">
               <div className="flex flex-wrap items-baseline justify-between gap-2">
                 <h2 className="font-semibold">{m.subject}</h2>
                 <time className="text-xs text-ink-500" dateTime={m.receivedAt}>

@@ -16,6 +16,7 @@ import { ReviewStatusBadge } from "~/components/truth-table/review-status";
 import { api } from "~/api/endpoints";
 import { apiFetcher, apiUrl } from "~/api/client";
 import { Notice } from "~/components/ui/form";
+import { cardVariants } from "~/components/ui/card";
 
 export const meta: Route.MetaFunction = () => [{ title: "Reviews · Chainproof" }];
 
@@ -90,7 +91,7 @@ function Items({ slug, items, showReviewer }: { slug: string; items: Route.Compo
   return (
     <ul className="space-y-2" aria-label="Review requests">
       {items.map((i) => (
-        <li key={i.requestId} className="rounded-lg border border-ink-200 bg-white p-4" data-testid="review-item">
+        <li key={i.requestId} className={cardVariants({ padding: "md" })} data-testid="review-item">
           <div className="flex flex-wrap items-start justify-between gap-2">
             <div className="min-w-0">
               <Link to={reviewPath(slug, i.designId, i.number)} className="font-semibold text-ink-900 hover:text-copper-700 hover:underline">

@@ -11,6 +11,8 @@ import { recentAudit } from "~/audit/audit.server";
 import { createApiKey, listApiKeys, revokeApiKey } from "~/auth/api-keys.server";
 import { PageHeader } from "~/components/page-header";
 import { Button, Notice, SelectField, TextField } from "~/components/ui/form";
+import { cardVariants } from "~/components/ui/card";
+import { Badge } from "~/components/ui/badge";
 
 export const meta: Route.MetaFunction = () => [{ title: "Settings · Chainproof" }];
 
@@ -102,7 +104,7 @@ export default function Settings({ loaderData, actionData }: Route.ComponentProp
     <>
       <PageHeader title="Settings" description="Members of this workspace and their roles." />
       {actionData?.message ? <div className="mb-4"><Notice tone={actionData.ok ? "success" : "error"}>{actionData.message}</Notice></div> : null}
-      <section className="rounded-lg border border-ink-200 bg-white">
+      <section className={cardVariants({ padding: "none" })}>
         <h2 className="border-b border-ink-200 px-5 py-3 font-semibold">Members</h2>
         <ul className="divide-y divide-ink-100">
           {loaderData.members.map((member) => (
@@ -131,13 +133,13 @@ export default function Settings({ loaderData, actionData }: Route.ComponentProp
                   ) : null}
                 </div>
               ) : (
-                <span className="rounded-full bg-ink-100 px-3 py-1 text-xs font-medium">{ROLE_LABELS[member.role]}</span>
+                <Badge tone="quiet">{ROLE_LABELS[member.role]}</Badge>
               )}
             </li>
           ))}
         </ul>
       </section>
-      <section className="mt-6 max-w-xl rounded-lg border border-ink-200 bg-white p-5">
+      <section className={cardVariants({ padding: "lg", className: "mt-6 max-w-xl" })}>
         <h2 className="font-semibold">Your API keys</h2>
         <p className="mt-1 text-sm text-ink-600">
           A key acts for you, with your role, in this workspace only. Send it as <code>Authorization: Bearer …</code>; the API is described at{" "}
@@ -178,7 +180,7 @@ export default function Settings({ loaderData, actionData }: Route.ComponentProp
       </section>
       {loaderData.isAdmin ? (
         <>
-          <section className="mt-6 max-w-xl rounded-lg border border-ink-200 bg-white p-5">
+          <section className={cardVariants({ padding: "lg", className: "mt-6 max-w-xl" })}>
             <h2 className="font-semibold">Invite someone</h2>
             <Form method="post" className="mt-4 space-y-4" onSubmit={invite.onSubmit} noValidate>
               <input type="hidden" name="intent" value="invite" />
@@ -206,7 +208,7 @@ export default function Settings({ loaderData, actionData }: Route.ComponentProp
               </>
             ) : null}
           </section>
-          <section className="mt-6 rounded-lg border border-ink-200 bg-white p-5">
+          <section className={cardVariants({ padding: "lg", className: "mt-6" })}>
             <h2 className="font-semibold">Recent activity</h2>
             {loaderData.audit.length === 0 ? <p className="mt-2 text-sm text-ink-600">Nothing yet.</p> : (
               <ul className="mt-3 space-y-1 text-sm">

@@ -19,6 +19,8 @@ import { ProofMark } from "~/components/controller-record/proof-mark";
 import { RecordCaution } from "~/components/controller-record/record-caution";
 import { RecordFormFields } from "~/components/controller-record/record-form";
 import { DerivedValuesTable, FindingList } from "~/components/controller-record/record-status";
+import { cardVariants } from "~/components/ui/card";
+import { Button } from "~/components/ui/button";
 
 const compareQuery = z.object({
   from: z.coerce.number().int().min(1).optional(),
@@ -112,7 +114,7 @@ export default function VehicleController({ loaderData, actionData }: Route.Comp
         {loaderData.saved ? <Notice tone="success">Saved as version {loaderData.saved}.</Notice> : null}
         {result?.fields.form ? <Notice tone="error">{result.fields.form}</Notice> : null}
 
-        <section aria-labelledby="proof-h" className="rounded-lg border border-ink-200 bg-white p-5">
+        <section aria-labelledby="proof-h" className={cardVariants({ padding: "lg" })}>
           <h2 id="proof-h" className="font-semibold">
             The released proof and this record
           </h2>
@@ -163,7 +165,7 @@ export default function VehicleController({ loaderData, actionData }: Route.Comp
           </section>
         ) : null}
 
-        <section aria-labelledby="history-h" className="rounded-lg border border-ink-200 bg-white p-5">
+        <section aria-labelledby="history-h" className={cardVariants({ padding: "lg" })}>
           <h2 id="history-h" className="font-semibold">
             Versions
           </h2>
@@ -196,9 +198,9 @@ export default function VehicleController({ loaderData, actionData }: Route.Comp
                   </select>
                 </label>
               ))}
-              <button type="submit" className={buttonClass("secondary")}>
+              <Button type="submit" variant="secondary">
                 Compare
-              </button>
+              </Button>
             </Form>
           ) : null}
           {comparison && "error" in comparison ? <p className="mt-3 text-sm text-brick-700">{comparison.error}</p> : null}

@@ -23,7 +23,7 @@ import { acceptedWords, acceptOf, VEHICLE_FILES } from "~/uploads/kinds";
 import { UploadForm } from "~/components/upload-form";
 import { PageHeader } from "~/components/page-header";
 import { SafetyNote } from "~/components/safety-note";
-import { Button, buttonClass, Notice, SelectField, TextArea, TextField } from "~/components/ui/form";
+import { Button, Notice, SelectField, TextArea, TextField } from "~/components/ui/form";
 import { HashPrefix, When } from "~/designs/design-bits";
 import { RunList } from "~/components/diagnosis/run-list";
 import { statusAgainstRevisions, vehicleControllerStatus } from "~/vehicles/controller-records.server";
@@ -32,6 +32,9 @@ import { ProofMark } from "~/components/controller-record/proof-mark";
 import { standingsFor } from "~/designs/standing.server";
 import { REFUSED_MARK } from "~/designs/standing-words";
 import { RefusedBadge, RefusedNotice } from "~/components/refused-mark";
+import { cardVariants } from "~/components/ui/card";
+import { Badge } from "~/components/ui/badge";
+import { ButtonLink } from "~/components/ui/link";
 
 
 
@@ -181,18 +184,18 @@ export default function Vehicle({ loaderData, actionData }: Route.ComponentProps
         description={[v.model, v.serial].filter(Boolean).join(" · ")}
         actions={
           attention.length > 0 ? (
-            <span className="rounded-full bg-brick-600 px-3 py-1 text-sm font-semibold text-white" data-testid="needs-attention">
+            <Badge tone="failing-solid" size="md" data-testid="needs-attention">
               Needs attention
-            </span>
+            </Badge>
           ) : null
         }
       />
 
       <div className="grid max-w-3xl gap-6">
         <div className="flex flex-wrap gap-3">
-          <Link to="why" className={buttonClass("primary", "min-h-12 text-base")}>
+          <ButtonLink to="why" variant="action" size="lg">
             Why won't it drive?
-          </Link>
+          </ButtonLink>
           {loaderData.canRunBench && current ? (
             <Form method="post">
               <input type="hidden" name="intent" value="start-bench-run" />
@@ -240,7 +243,7 @@ export default function Vehicle({ loaderData, actionData }: Route.ComponentProps
           </section>
         ) : null}
 
-        <section className="rounded-lg border border-ink-200 bg-white p-5" aria-labelledby="release-h">
+        <section className={cardVariants({ padding: "lg" })} aria-labelledby="release-h">
           <h2 id="release-h" className="font-semibold">
             Released design
           </h2>
@@ -288,14 +291,14 @@ export default function Vehicle({ loaderData, actionData }: Route.ComponentProps
 
         <ControllerSection controller={loaderData.controller} />
 
-        <section className="rounded-lg border border-ink-200 bg-white p-5" aria-labelledby="runs-h">
+        <section className={cardVariants({ padding: "lg" })} aria-labelledby="runs-h">
           <h2 id="runs-h" className="font-semibold">
             Bench tests
           </h2>
           <RunList slug={slug} runs={runs} showVehicle={false} empty="No bench test has been run on this vehicle." />
         </section>
 
-        <section className="rounded-lg border border-ink-200 bg-white p-5">
+        <section className={cardVariants({ padding: "lg" })}>
           <h2 className="font-semibold">Details</h2>
           <dl className="mt-3 grid gap-4 sm:grid-cols-2">
             <div>
@@ -318,7 +321,7 @@ export default function Vehicle({ loaderData, actionData }: Route.ComponentProps
           {loaderData.canEdit ? <EditForm vehicle={v} errors={errorsOf("edit")} busy={busy} saved={result?.intent === "edit" && !!result.done} /> : null}
         </section>
 
-        <section className="rounded-lg border border-ink-200 bg-white p-5">
+        <section className={cardVariants({ padding: "lg" })}>
           <h2 className="font-semibold">Photos and documents</h2>
           {loaderData.photos.length === 0 ? (
             <p className="mt-2 text-sm text-ink-600">None yet.</p>
@@ -416,7 +419,7 @@ function ReleaseForm({
 function ControllerSection({ controller }: { controller: Route.ComponentProps["loaderData"]["controller"] }) {
   const { latest, state } = controller;
   return (
-    <section className="rounded-lg border border-ink-200 bg-white p-5" aria-labelledby="controller-h">
+    <section className={cardVariants({ padding: "lg" })} aria-labelledby="controller-h">
       <h2 id="controller-h" className="font-semibold">
         Controller settings
       </h2>
@@ -438,9 +441,9 @@ function ControllerSection({ controller }: { controller: Route.ComponentProps["l
         )}
       </p>
       <p className="mt-1 text-xs text-ink-600">What a technician entered, not what the controller holds: verify on the vehicle.</p>
-      <Link to="controller" className={buttonClass("secondary", "mt-3 min-h-12")}>
+      <ButtonLink to="controller" variant="secondary" size="lg" className="mt-3">
         {latest ? "Controller settings and versions" : "Record the controller settings"}
-      </Link>
+      </ButtonLink>
     </section>
   );
 }

@@ -10,6 +10,8 @@ import { differenceInWords, proofDoesNotHold, PROOF_DOES_NOT_HOLD } from "~/vehi
 import { PageHeader } from "~/components/page-header";
 import { EmptyState } from "~/components/empty-state";
 import { Button, TextArea, TextField } from "~/components/ui/form";
+import { cardVariants } from "~/components/ui/card";
+import { Badge } from "~/components/ui/badge";
 
 export const meta: Route.MetaFunction = () => [{ title: "Vehicles · Chainproof" }];
 
@@ -55,14 +57,14 @@ export default function Vehicles({ loaderData, actionData }: Route.ComponentProp
         <ul className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
           {loaderData.vehicles.map((v) => (
             <li key={v.id}>
-              <Link to={v.id} className="block min-h-20 rounded-lg border border-ink-200 bg-white p-4 hover:border-copper-500">
+              <Link to={v.id} className={cardVariants({ padding: "md", interactive: true, className: "block min-h-20" })}>
                 <span className="block font-semibold">{v.name}</span>
                 <span className="block text-sm text-ink-600">{[v.model, v.serial].filter(Boolean).join(" · ") || "No model or serial yet"}</span>
                 <span className="mt-2 block text-xs text-ink-600">
                   {v.release ? `Released: ${v.release.designName}, revision ${v.release.number}` : "No revision released"}
                 </span>
                 {v.needsAttention ? (
-                  <span className="mt-2 inline-block rounded-full bg-brick-600 px-2 py-0.5 text-xs font-semibold text-white">Needs attention</span>
+                  <Badge tone="failing-solid" className="mt-2">Needs attention</Badge>
                 ) : null}
                 {v.controllerDifferences.length > 0 ? (
                   <span className="mt-2 block rounded-md border-2 border-brick-600 bg-brick-50 p-2 text-xs text-brick-700" data-testid="proof-mark">
@@ -80,7 +82,7 @@ export default function Vehicles({ loaderData, actionData }: Route.ComponentProp
         </ul>
       )}
       {loaderData.canAdd ? (
-        <section className="mt-8 max-w-xl rounded-lg border border-ink-200 bg-white p-5">
+        <section className={cardVariants({ padding: "lg", className: "mt-8 max-w-xl" })}>
           <h2 className="font-semibold">Add a vehicle</h2>
           <Form method="post" className="mt-4 space-y-4" onSubmit={onSubmit} noValidate key={actionData?.created ?? "new"}>
             <TextField label="Name" name="name" required error={errors.name} />

@@ -6,6 +6,7 @@ import { fieldErrors, formObject, workspaceSchema } from "~/lib/forms";
 import { useFormCheck } from "~/lib/use-form-check";
 import { requireUser, workspacesOf } from "~/auth/guard.server";
 import { createWorkspace } from "~/workspace/workspace.server";
+import { Button as KitButton } from "~/components/ui/button";
 
 export const meta: Route.MetaFunction = () => [{ title: "Welcome · Chainproof" }];
 
@@ -35,7 +36,9 @@ export default function Welcome({ loaderData, actionData }: Route.ComponentProps
         <Button type="submit" className="w-full">Create workspace</Button>
       </Form>
       <Form method="post" action="/sign-out" className="mt-4">
-        <button className="text-sm text-ink-600 underline">Sign out</button>
+        <KitButton type="submit" variant="link" size="inline">
+          Sign out
+        </KitButton>
       </Form>
     </AuthFrame>
   );

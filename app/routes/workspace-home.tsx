@@ -11,6 +11,7 @@ import { ProofMark } from "~/components/controller-record/proof-mark";
 import { failedStepsFor } from "~/bench-runs/bench-runs.server";
 import { changeRequestsFor } from "~/reviews/reviews.server";
 import { When } from "~/designs/design-bits";
+import { cardVariants } from "~/components/ui/card";
 
 export const meta: Route.MetaFunction = () => [{ title: "Overview · Chainproof" }];
 
@@ -108,7 +109,7 @@ export default function WorkspaceHome({ loaderData }: Route.ComponentProps) {
         </section>
       ) : null}
       {loaderData.marked.length > 0 ? (
-        <section className="mb-6 rounded-lg border border-ink-200 bg-white p-5" aria-labelledby="marked-h">
+        <section className={cardVariants({ padding: "lg", className: "mb-6" })} aria-labelledby="marked-h">
           <h2 id="marked-h" className="font-semibold">
             Controller settings that break a released proof
           </h2>
@@ -125,14 +126,14 @@ export default function WorkspaceHome({ loaderData }: Route.ComponentProps) {
         </section>
       ) : null}
       <div className="grid gap-4 sm:grid-cols-2">
-        <section className="rounded-lg border border-ink-200 bg-white p-5">
+        <section className={cardVariants({ padding: "lg" })}>
           <h2 className="font-semibold">Your next step</h2>
           <p className="mt-2 text-sm text-ink-700">{next.text}</p>
           <Link to={next.to} className="mt-4 inline-block font-semibold text-copper-700 underline">
             {next.label}
           </Link>
         </section>
-        <section className="rounded-lg border border-ink-200 bg-white p-5">
+        <section className={cardVariants({ padding: "lg" })}>
           <h2 className="font-semibold">Fleet</h2>
           <p className="mt-2 text-sm text-ink-700">
             {loaderData.vehicleCount === 0 ? "No vehicles yet." : `${loaderData.vehicleCount} vehicle${loaderData.vehicleCount === 1 ? "" : "s"} in this workspace.`}

@@ -20,6 +20,7 @@ import { lockoutTitle } from "~/lib/lockouts";
 import type { FieldErrors } from "~/lib/forms";
 import { useFormCheck } from "~/lib/use-form-check";
 import { Button } from "~/components/ui/form";
+import { cardVariants } from "~/components/ui/card";
 
 const inputBase =
   "block w-full min-w-0 rounded-l-md border bg-white px-3 py-2 text-base text-ink-900 shadow-sm focus:border-copper-500 focus:outline-none focus:ring-2 focus:ring-copper-500/40";
@@ -113,7 +114,7 @@ function Choice({ name, values, errors, options }: { name: RecordField; values: 
 
 function Group({ title, children, note }: { title: string; children: ReactNode; note?: string }) {
   return (
-    <fieldset className="space-y-4 rounded-lg border border-ink-200 bg-white p-4">
+    <fieldset className={cardVariants({ padding: "md", className: "space-y-4" })}>
       <legend className="px-1 text-base font-semibold">{title}</legend>
       {note ? <p className="text-xs text-ink-600">{note}</p> : null}
       {children}

@@ -1,6 +1,7 @@
 // A list of bench-test runs with their state: in progress, completed, with failures.
 import { Link } from "react-router";
 import { When } from "~/designs/design-bits";
+import { Badge } from "~/components/ui/badge";
 
 export type RunRow = {
   id: string;
@@ -21,14 +22,14 @@ export type RunRow = {
 export function RunBadge({ run }: { run: Pick<RunRow, "status" | "failed"> }) {
   if (run.failed > 0) {
     return (
-      <span className="rounded-full bg-brick-600 px-2 py-0.5 text-xs font-semibold text-white">
+      <Badge tone="failing-solid">
         {run.status === "completed" ? "Completed, " : ""}
         {run.failed} failed
-      </span>
+      </Badge>
     );
   }
-  if (run.status === "completed") return <span className="rounded-full bg-moss-600 px-2 py-0.5 text-xs font-semibold text-white">Completed</span>;
-  return <span className="rounded-full bg-copper-100 px-2 py-0.5 text-xs font-semibold text-copper-700">In progress</span>;
+  if (run.status === "completed") return <Badge tone="proven-solid">Completed</Badge>;
+  return <Badge tone="caution-quiet">In progress</Badge>;
 }
 
 export function RunList({ slug, runs, showVehicle = true, empty }: { slug: string; runs: RunRow[]; showVehicle?: boolean; empty: string }) {

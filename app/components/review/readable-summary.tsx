@@ -9,6 +9,7 @@ import { groupSearch, groupWords, REASON_WORDS, type ConditionWords } from "~/re
 import { DISPOSITION_HINTS, DISPOSITION_LABELS, DISPOSITIONS, faultKey, type Disposition } from "~/reviews/dispositions";
 import { Button, SelectField, TextArea } from "~/components/ui/form";
 import { When } from "~/designs/design-bits";
+import { cardVariants } from "~/components/ui/card";
 
 const n = (x: number) => x.toLocaleString("en-US");
 const plural = (x: number, one: string, many = `${one}s`) => `${n(x)} ${x === 1 ? one : many}`;
@@ -282,7 +283,7 @@ function FaultBlock({
 
 function Block({ title, aside, testId, children }: { title: string; aside?: ReactNode; testId: string; children: ReactNode }) {
   return (
-    <section className="rounded-lg border border-ink-200 bg-white p-4" aria-label={title} data-testid={testId}>
+    <section className={cardVariants({ padding: "md" })} aria-label={title} data-testid={testId}>
       <div className="mb-2 flex flex-wrap items-baseline justify-between gap-2">
         <h2 className="text-base font-semibold">{title}</h2>
         {aside ? <span className="text-sm">{aside}</span> : null}

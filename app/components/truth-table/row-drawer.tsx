@@ -7,6 +7,7 @@ import { api } from "~/api/endpoints";
 import { ApiError, apiFetcher } from "~/api/client";
 import type { RowDetail } from "~/api/answers";
 import { DriveCell, RuleCellView } from "./cells";
+import { Button } from "~/components/ui/button";
 
 const fetchRow = apiFetcher(api.revisionRow);
 
@@ -34,9 +35,9 @@ export function RowDrawer({
     >
       <div className="flex items-start justify-between gap-3">
         <h2 className="text-lg font-semibold">Row {index}</h2>
-        <button type="button" onClick={onClose} className="min-h-10 rounded-md px-3 text-sm font-semibold text-ink-700 hover:bg-ink-100">
+        <Button type="button" variant="ghost" onClick={onClose}>
           Close
-        </button>
+        </Button>
       </div>
       <div className="mt-2 flex flex-wrap gap-2">
         <Link to={simulateHref} className="inline-flex min-h-10 items-center rounded-md bg-copper-600 px-3 text-sm font-semibold text-white hover:bg-copper-700">
