@@ -13,7 +13,7 @@ import { recordHistory, recordVersion, saveRecord, vehicleControllerStatus } fro
 import { differenceInWords, proofDoesNotHold } from "~/vehicles/controller-status";
 import { PageHeader } from "~/components/page-header";
 import { SafetyNote } from "~/components/safety-note";
-import { Notice, buttonClass } from "~/components/ui/form";
+import { Notice } from "~/components/ui/form";
 import { When } from "~/designs/design-bits";
 import { ProofMark } from "~/components/controller-record/proof-mark";
 import { RecordCaution } from "~/components/controller-record/record-caution";
