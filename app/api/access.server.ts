@@ -3,10 +3,11 @@
 import { eq } from "drizzle-orm";
 import type { z } from "zod";
 import { db, schema } from "~/db/client.server";
-import { requireMember, requireUser, type Membership } from "~/auth/guard.server";
+import type { Membership } from "~/auth/guard.server";
+import { requireApiCaller, requireApiCan, type RequestContext } from "~/auth/context.server";
 import { apiError, readJsonBody, zodFields } from "~/api/http.server";
 import { jsonObjectSchema } from "~/designs/forms";
-import type { Role } from "~/lib/roles";
+import type { Action } from "~/lib/roles";
 
 /** Largest JSON body of the vehicle, bench-run and diagnosis endpoints. */
 export const SMALL_BODY_MAX_BYTES = 64_000;
@@ -29,9 +30,9 @@ export async function parseBody<S extends z.ZodType>(request: Request, schema: S
 }
 
 /** Membership of the workspace a looked-up thing belongs to; not a member reads as "no such thing". */
-async function memberOf(request: Request, slug: string, allowed: readonly Role[], notFound: Response): Promise<Membership> {
+async function memberOf(context: RequestContext, request: Request, slug: string, action: Action, notFound: Response): Promise<Membership> {
   try {
-    return await requireMember(request, slug, allowed, "api");
+    return await requireApiCan(context, request, slug, action);
   } catch (e) {
     if (e instanceof Response && e.status === 404) throw notFound;
     throw e;
@@ -42,8 +43,8 @@ async function memberOf(request: Request, slug: string, allowed: readonly Role[]
  * The vehicle named in an API URL, for a member of its workspace with one of the allowed roles.
  * Signed out: 401. No such vehicle, or not a member of its workspace: 404. Wrong role: 403.
  */
-export async function requireVehicleApi(request: Request, vehicleId: string, allowed: readonly Role[]) {
-  await requireUser(request, "api");
+export async function requireVehicleApi(context: RequestContext, request: Request, vehicleId: string, action: Action) {
+  await requireApiCaller(context, request);
   const notFound = apiError(404, "not_found", "No such vehicle.");
   // No id holds a NUL character, and PostgreSQL would refuse the query text.
   if (vehicleId.includes("\u0000")) throw notFound;
@@ -56,13 +57,13 @@ export async function requireVehicleApi(request: Request, vehicleId: string, all
     .limit(1);
   const row = rows[0];
   if (!row) throw notFound;
-  const member = await memberOf(request, row.slug, allowed, notFound);
+  const member = await memberOf(context, request, row.slug, action, notFound);
   return { member, vehicle: row.vehicle };
 }
 
 /** The bench run named in an API URL; the same answers as requireVehicleApi. */
-export async function requireRunApi(request: Request, runId: string, allowed: readonly Role[]) {
-  await requireUser(request, "api");
+export async function requireRunApi(context: RequestContext, request: Request, runId: string, action: Action) {
+  await requireApiCaller(context, request);
   const notFound = apiError(404, "not_found", "No such bench run.");
   if (runId.includes("\u0000")) throw notFound;
   const rows = await db
@@ -73,5 +74,5 @@ export async function requireRunApi(request: Request, runId: string, allowed: re
     .limit(1);
   const row = rows[0];
   if (!row) throw notFound;
-  return { member: await memberOf(request, row.slug, allowed, notFound) };
+  return { member: await memberOf(context, request, row.slug, action, notFound) };
 }

@@ -5,7 +5,7 @@
 // out of its layout, or a layout that stops checking, fails closed instead of open.
 import { createContext, type MiddlewareFunction, type RouterContextProvider } from "react-router";
 import { can, rolesThatCan, type Action } from "~/lib/roles";
-import { requireMember, workspacesFor, type Membership, type WorkspaceOfUser } from "./guard.server";
+import { getSignedIn, requireMember, requireUser, workspacesFor, type Membership, type SignedIn, type WorkspaceOfUser } from "./guard.server";
 
 /** The context a loader, action or middleware receives. */
 export type RequestContext = Pick<RouterContextProvider, "get">;
@@ -47,4 +47,39 @@ export function requireCan(context: RequestContext, action: Action): Membership 
 export function workspacesIn(context: RequestContext): WorkspaceOfUser[] {
   memberIn(context);
   return context.get(workspacesContext);
+}
+
+// ---------------------------------------------------------------- the JSON API
+
+type ApiCaller = { signedIn: Promise<SignedIn | null> };
+const apiCallerContext = createContext<ApiCaller | null>(null);
+
+/**
+ * Middleware of every /api/v1 route: who is calling (a session or a personal API key), looked up
+ * once. Nothing is refused here: the OpenAPI document is public, and the routes that need a caller
+ * answer 401, 403 or an outage's 503 in the API's JSON shape when they ask.
+ */
+export const apiCaller: MiddlewareFunction<Response> = async ({ request, context }) => {
+  const signedIn = getSignedIn(request);
+  await signedIn.catch(() => null);
+  context.set(apiCallerContext, { signedIn });
+};
+
+function callerIn(context: RequestContext): ApiCaller {
+  const caller = context.get(apiCallerContext);
+  if (!caller) throw new Error("requireApiCan: no API caller in this request's context (is the route inside the api/v1 layout?)");
+  return caller;
+}
+
+/** The API caller: 401 when signed out or the key is not valid; 403 for a cookie mutation from another origin. */
+export function requireApiCaller(context: RequestContext, request: Request): Promise<SignedIn> {
+  return requireUser(request, "api", callerIn(context).signedIn);
+}
+
+/**
+ * The caller's membership of the workspace named by slug, when their role may do `action`.
+ * Signed out: 401. Not a member (or a key of another workspace): 404. Role: 403. All in JSON.
+ */
+export function requireApiCan(context: RequestContext, request: Request, slug: string | undefined, action: Action): Promise<Membership> {
+  return requireMember(request, slug, rolesThatCan(action), "api", callerIn(context).signedIn);
 }

@@ -69,8 +69,9 @@ async function lookUpSignedIn(request: Request): Promise<SignedIn | null> {
   return signedIn;
 }
 
-export async function requireUser(request: Request, kind: Kind = "page"): Promise<SignedIn> {
-  const signedIn = await orUnavailable(kind, () => getSignedIn(request));
+/** Who is asking, or the answer for someone signed out; `found` is the caller the API layout already looked up. */
+export async function requireUser(request: Request, kind: Kind = "page", found: Promise<SignedIn | null> = getSignedIn(request)): Promise<SignedIn> {
+  const signedIn = await orUnavailable(kind, () => found);
   if (signedIn) {
     // A cookie-authenticated API mutation must come from our own pages (keys are not sent by browsers on their own).
     if (kind === "api" && !signedIn.apiKeyWorkspaceId && !SAFE_METHODS.has(request.method.toUpperCase())) {
@@ -96,8 +97,9 @@ export async function requireMember(
   slug: string | undefined,
   allowed: readonly Role[],
   kind: Kind = "page",
+  found?: Promise<SignedIn | null>,
 ): Promise<Membership> {
-  const signedIn = await requireUser(request, kind);
+  const signedIn = await requireUser(request, kind, found);
   // A slug the database cannot hold (NUL) names no workspace.
   if (!slug || slug.includes("\u0000")) {
     if (kind === "api") throw apiError(404, "not_found", "No such workspace.");

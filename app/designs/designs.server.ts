@@ -3,13 +3,14 @@
 import { and, asc, desc, eq, isNull, sql } from "drizzle-orm";
 import { db, schema } from "~/db/client.server";
 import type { DesignRecord } from "~/db/schema.server";
-import { requireMember, requireUser, type Membership } from "~/auth/guard.server";
+import type { Membership } from "~/auth/guard.server";
+import { requireApiCaller, requireApiCan, type RequestContext } from "~/auth/context.server";
 import { recordAudit } from "~/audit/audit.server";
 import { getVehicle } from "~/vehicles/vehicles.server";
 import type { Design, Problem, Verdict } from "~/engine";
 import { storableJsonProblem } from "~/lib/storable-json";
 import { proveOffThread } from "~/proofs/pool.server";
-import type { Role } from "~/lib/roles";
+import type { Action } from "~/lib/roles";
 import { apiError } from "~/api/http.server";
 import { contentHash } from "./content-hash.server";
 import { startingDocument } from "./templates.server";
@@ -31,11 +32,12 @@ export function statusOf(latestRevision: number | null | undefined): DesignStatu
  * Signed out: 401. No such design, or not a member of its workspace: 404. Wrong role: 403.
  */
 export async function requireDesign(
+  context: RequestContext,
   request: Request,
   designId: string,
-  allowed: readonly Role[],
+  action: Action,
 ): Promise<{ member: Membership; design: DesignRecord }> {
-  await requireUser(request, "api");
+  await requireApiCaller(context, request);
   const notFound = apiError(404, "not_found", "No such design.");
   // No id holds a NUL character, and PostgreSQL would refuse the query text.
   if (designId.includes("\u0000")) throw notFound;
@@ -49,7 +51,7 @@ export async function requireDesign(
   const row = rows[0];
   if (!row) throw notFound;
   try {
-    const member = await requireMember(request, row.slug, allowed, "api");
+    const member = await requireApiCan(context, request, row.slug, action);
     return { member, design: row.design };
   } catch (e) {
     if (e instanceof Response && e.status === 404) throw notFound;

@@ -3,12 +3,12 @@ import type { Membership } from "~/auth/guard.server";
 import { requireCan, type RequestContext } from "~/auth/context.server";
 import { apiError } from "~/api/http.server";
 import { getDesign, requireDesign } from "~/designs/designs.server";
-import type { Action, Role } from "~/lib/roles";
+import type { Action } from "~/lib/roles";
 import { compiledRevision, revisionNumber, revisionRef, type RevisionRef } from "./compiled.server";
 
 /** API routes (/api/v1/designs/:designId/revisions/:number/...): 401 / 404 / 403 as JSON. */
-export async function requireRevisionApi(request: Request, designId: string, number: string, allowed: readonly Role[]) {
-  const { member, design } = await requireDesign(request, designId, allowed);
+export async function requireRevisionApi(context: RequestContext, request: Request, designId: string, number: string, action: Action) {
+  const { member, design } = await requireDesign(context, request, designId, action);
   const n = revisionNumber(number);
   const ref = n === null ? null : await revisionRef(member.workspace.id, design.id, n);
   if (!ref) throw apiError(404, "not_found", `This design has no revision ${number}.`);

@@ -2,7 +2,6 @@
 //   (technicians; a step turning to "fail" flags the vehicle and mails the revision's author, as on
 //    the run page; a completed run answers 409)
 import type { Route } from "./+types/bench-run-step";
-import { CAN } from "~/lib/roles";
 import { apiError, handleApi, methodNotAllowed, reply, requireMethod } from "~/api/http.server";
 import { api } from "~/api/endpoints";
 import { BenchRunError, getRun, setStepNote, setStepOutcome } from "~/bench-runs/bench-runs.server";
@@ -14,10 +13,10 @@ export async function loader({ request }: Route.LoaderArgs) {
   return handleApi(request, async () => methodNotAllowed("PUT"));
 }
 
-export async function action({ request, params }: Route.ActionArgs) {
+export async function action({ request, params, context }: Route.ActionArgs) {
   return handleApi(request, async () => {
     requireMethod(request, "PUT");
-    const { member } = await requireRunApi(request, params.runId, CAN.runBenchTests);
+    const { member } = await requireRunApi(context, request, params.runId, "bench.run");
     const n = /^[1-9][0-9]{0,5}$/.test(params.n) ? Number(params.n) : -1;
     const body = await parseBody(request, stepResultBodySchema, "step result");
     const ws = member.workspace.id;

@@ -1,8 +1,7 @@
 // POST /api/v1/controller-checks?workspace=SLUG { record, design? } -> 200 { check } (chainproof/controller-check@1)
 // Stateless: checks a controller settings record, against a design when one is sent; any member may ask.
 import type { Route } from "./+types/controller-checks";
-import { requireMember } from "~/auth/guard.server";
-import { CAN } from "~/lib/roles";
+import { requireApiCan } from "~/auth/context.server";
 import { apiError, handleApi, methodNotAllowed, readJsonBody, reply, requireMethod, zodFields } from "~/api/http.server";
 import { api } from "~/api/endpoints";
 import { parseQuery } from "~/api/access.server";
@@ -17,11 +16,11 @@ export async function loader() {
   return methodNotAllowed("POST");
 }
 
-export async function action({ request }: Route.ActionArgs) {
+export async function action({ request, context }: Route.ActionArgs) {
   return handleApi(request, async () => {
     requireMethod(request, "POST");
     const { workspace } = parseQuery(request, workspaceQuerySchema);
-    await requireMember(request, workspace, CAN.view, "api");
+    await requireApiCan(context, request, workspace, "workspace.view");
     const raw = jsonObjectSchema.safeParse(await readJsonBody(request, DESIGN_BODY_MAX_BYTES));
     if (!raw.success) return apiError(400, "invalid_body", "The request body is a JSON object.", zodFields(raw.error));
     for (const key of ["record", "design"] as const) {

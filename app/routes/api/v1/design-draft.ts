@@ -3,7 +3,6 @@
 //   200 { version }   409 { error: { code: "stale_draft", ... }, currentVersion }
 // The draft is the working copy: any JSON object (at most DESIGN_BODY_MAX_BYTES), not proven.
 import type { Route } from "./+types/design-draft";
-import { CAN } from "~/lib/roles";
 import { apiError, handleApi, readJsonBody, reply, requireMethod, zodFields } from "~/api/http.server";
 import { api } from "~/api/endpoints";
 import { storableJsonProblem } from "~/lib/storable-json";
@@ -11,9 +10,9 @@ import { getDraft, requireDesign, saveDraft } from "~/designs/designs.server";
 import { jsonObjectSchema, saveDraftBodySchema } from "~/designs/forms";
 import { DESIGN_BODY_MAX_BYTES } from "~/designs/types";
 
-export async function loader({ request, params }: Route.LoaderArgs) {
+export async function loader({ request, params, context }: Route.LoaderArgs) {
   return handleApi(request, async () => {
-    const { member, design } = await requireDesign(request, params.designId, CAN.view);
+    const { member, design } = await requireDesign(context, request, params.designId, "workspace.view");
     const d = await getDraft(member.workspace.id, design.id);
     return reply(api.getDraft, 200, {
       draft: d
@@ -31,10 +30,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   });
 }
 
-export async function action({ request, params }: Route.ActionArgs) {
+export async function action({ request, params, context }: Route.ActionArgs) {
   return handleApi(request, async () => {
     requireMethod(request, "PUT");
-    const { member, design } = await requireDesign(request, params.designId, CAN.editDesigns);
+    const { member, design } = await requireDesign(context, request, params.designId, "design.edit");
     const raw = jsonObjectSchema.safeParse(await readJsonBody(request, DESIGN_BODY_MAX_BYTES));
     if (!raw.success) return apiError(400, "invalid_body", "The request body is a JSON object.", zodFields(raw.error));
     const body = saveDraftBodySchema.safeParse(raw.data);

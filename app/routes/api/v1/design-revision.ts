@@ -1,13 +1,12 @@
 // GET /api/v1/designs/:designId/revisions/:number -> { revision: { number, contentHash, message, author, createdAt, document, verdict } }
 import type { Route } from "./+types/design-revision";
-import { CAN } from "~/lib/roles";
 import { apiError, handleApi, methodNotAllowed, reply } from "~/api/http.server";
 import { api } from "~/api/endpoints";
 import { getRevision, requireDesign } from "~/designs/designs.server";
 
-export async function loader({ request, params }: Route.LoaderArgs) {
+export async function loader({ request, params, context }: Route.LoaderArgs) {
   return handleApi(request, async () => {
-    const { member, design } = await requireDesign(request, params.designId, CAN.view);
+    const { member, design } = await requireDesign(context, request, params.designId, "workspace.view");
     const number = /^[1-9][0-9]{0,8}$/.test(params.number) ? Number(params.number) : null;
     const r = number === null ? null : await getRevision(member.workspace.id, design.id, number);
     if (!r) return apiError(404, "not_found", `This design has no revision ${params.number}.`);

@@ -6,7 +6,6 @@
 //   409 { error: { code: "stale_revision", ... }, latestRevision }
 //   422 { error: { code: "never_drives" | "rules_fail", ... }, verdict }  (spec 1.1: ok needs a drive row)
 import type { Route } from "./+types/design-revisions";
-import { CAN } from "~/lib/roles";
 import { apiError, handleApi, readJsonBody, reply, requireMethod, zodFields } from "~/api/http.server";
 import { api } from "~/api/endpoints";
 import { listRevisions, requireDesign, saveProvenRevision } from "~/designs/designs.server";
@@ -17,9 +16,9 @@ import { parseQuery } from "~/api/access.server";
 import { descending, pageOfList } from "~/api/pagination.server";
 import { pageQuerySchema } from "~/api/schemas";
 
-export async function loader({ request, params }: Route.LoaderArgs) {
+export async function loader({ request, params, context }: Route.LoaderArgs) {
   return handleApi(request, async () => {
-    const { member, design } = await requireDesign(request, params.designId, CAN.view);
+    const { member, design } = await requireDesign(context, request, params.designId, "workspace.view");
     const page = parseQuery(request, pageQuerySchema);
     const all = await listRevisions(member.workspace.id, design.id);
     // Newest first; without ?limit or ?cursor every revision, as before paging existed.
@@ -39,10 +38,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   });
 }
 
-export async function action({ request, params }: Route.ActionArgs) {
+export async function action({ request, params, context }: Route.ActionArgs) {
   return handleApi(request, async () => {
     requireMethod(request, "POST");
-    const { member, design } = await requireDesign(request, params.designId, CAN.editDesigns);
+    const { member, design } = await requireDesign(context, request, params.designId, "design.edit");
     const raw = jsonObjectSchema.safeParse(await readJsonBody(request, DESIGN_BODY_MAX_BYTES));
     if (!raw.success) return apiError(400, "invalid_body", "The request body is a JSON object.", zodFields(raw.error));
     const body = saveRevisionBodySchema.safeParse(raw.data);

@@ -1,14 +1,13 @@
 // GET /api/v1/designs/:designId -> { design: { id, name, vehicleId, status }, latestRevision, contentHash, document, verdict, draft }
 // document, verdict and contentHash are the latest revision's (null when there is none yet).
 import type { Route } from "./+types/design";
-import { CAN } from "~/lib/roles";
 import { handleApi, methodNotAllowed, reply } from "~/api/http.server";
 import { api } from "~/api/endpoints";
 import { getDraft, getRevision, requireDesign, statusOf } from "~/designs/designs.server";
 
-export async function loader({ request, params }: Route.LoaderArgs) {
+export async function loader({ request, params, context }: Route.LoaderArgs) {
   return handleApi(request, async () => {
-    const { member, design } = await requireDesign(request, params.designId, CAN.view);
+    const { member, design } = await requireDesign(context, request, params.designId, "workspace.view");
     const ws = member.workspace.id;
     const [latest, draft] = await Promise.all([getRevision(ws, design.id), getDraft(ws, design.id)]);
     return reply(api.getDesign, 200, {

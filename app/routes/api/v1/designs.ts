@@ -2,8 +2,7 @@
 //        -> { designs: DesignSummary[], nextCursor }   (all of them when neither limit nor cursor is given)
 // POST /api/v1/designs?workspace=SLUG  { name, vehicleId?, start? }           -> 201 { design, draft: { version } }
 import type { Route } from "./+types/designs";
-import { requireMember } from "~/auth/guard.server";
-import { CAN } from "~/lib/roles";
+import { requireApiCan } from "~/auth/context.server";
 import { apiError, handleApi, readJsonBody, reply, requireMethod, zodFields } from "~/api/http.server";
 import { api } from "~/api/endpoints";
 import { createDesign, listDesigns } from "~/designs/designs.server";
@@ -19,9 +18,9 @@ function workspaceOf(request: Request): string {
   return slug;
 }
 
-export async function loader({ request }: Route.LoaderArgs) {
+export async function loader({ request, context }: Route.LoaderArgs) {
   return handleApi(request, async () => {
-    const m = await requireMember(request, workspaceOf(request), CAN.view, "api");
+    const m = await requireApiCan(context, request, workspaceOf(request), "workspace.view");
     const params = Object.fromEntries(new URL(request.url).searchParams);
     const filter = designFilterSchema.parse(params);
     const page = parseQuery(request, pageQuerySchema);
@@ -33,10 +32,10 @@ export async function loader({ request }: Route.LoaderArgs) {
   });
 }
 
-export async function action({ request }: Route.ActionArgs) {
+export async function action({ request, context }: Route.ActionArgs) {
   return handleApi(request, async () => {
     requireMethod(request, "POST");
-    const m = await requireMember(request, workspaceOf(request), CAN.editDesigns, "api");
+    const m = await requireApiCan(context, request, workspaceOf(request), "design.edit");
     const body = createDesignBodySchema.safeParse(await readJsonBody(request, DESIGN_BODY_MAX_BYTES));
     if (!body.success) return apiError(400, "invalid_body", "The new design is incomplete.", zodFields(body.error));
     const created = await createDesign(m.workspace.id, m.user.id, body.data);

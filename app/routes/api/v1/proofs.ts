@@ -1,8 +1,7 @@
 // POST /api/v1/proofs?workspace=SLUG { document } -> 200 { verdict } | 400 { error: { code: "invalid_design", fields } }
 // Proves without saving anything; any member of the workspace may ask.
 import type { Route } from "./+types/proofs";
-import { requireMember } from "~/auth/guard.server";
-import { CAN } from "~/lib/roles";
+import { requireApiCan } from "~/auth/context.server";
 import { apiError, handleApi, methodNotAllowed, readJsonBody, reply, requireMethod, zodFields } from "~/api/http.server";
 import { api } from "~/api/endpoints";
 import { storableJsonProblem } from "~/lib/storable-json";
@@ -14,12 +13,12 @@ export async function loader() {
   return methodNotAllowed("POST");
 }
 
-export async function action({ request }: Route.ActionArgs) {
+export async function action({ request, context }: Route.ActionArgs) {
   return handleApi(request, async () => {
     requireMethod(request, "POST");
     const slug = new URL(request.url).searchParams.get("workspace");
     if (!slug) return apiError(400, "invalid_query", "Name the workspace: ?workspace=SLUG.", [{ path: "workspace", message: "required" }]);
-    const member = await requireMember(request, slug, CAN.view, "api");
+    const member = await requireApiCan(context, request, slug, "workspace.view");
     const raw = jsonObjectSchema.safeParse(await readJsonBody(request, DESIGN_BODY_MAX_BYTES));
     if (!raw.success) return apiError(400, "invalid_body", "The request body is a JSON object.", zodFields(raw.error));
     const body = proofBodySchema.safeParse(raw.data);

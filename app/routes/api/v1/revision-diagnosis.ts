@@ -2,7 +2,6 @@
 //   -> { diagnosis, readings }   (the engine's diagnose of that row, and with measured input
 //   readings its explainReadings: which single contact fault would explain them; any member)
 import type { Route } from "./+types/revision-diagnosis";
-import { CAN } from "~/lib/roles";
 import { apiError, handleApi, methodNotAllowed, reply, requireMethod } from "~/api/http.server";
 import { api } from "~/api/endpoints";
 import { diagnose, explainReadings, rowProblems } from "~/engine";
@@ -15,10 +14,10 @@ export async function loader({ request }: Route.LoaderArgs) {
   return handleApi(request, async () => methodNotAllowed("POST"));
 }
 
-export async function action({ request, params }: Route.ActionArgs) {
+export async function action({ request, params, context }: Route.ActionArgs) {
   return handleApi(request, async () => {
     requireMethod(request, "POST");
-    const { compiled } = await requireRevisionApi(request, params.designId, params.number, CAN.view);
+    const { compiled } = await requireRevisionApi(context, request, params.designId, params.number, "workspace.view");
     const body = await parseBody(request, diagnosisBodySchema, "diagnosis request");
     // The engine says whether a row is complete and every state exists; we only attach the path.
     const problems: FieldProblem[] = rowProblems(compiled, body.states).map((message) => ({ path: "states", message }));

@@ -1,16 +1,15 @@
 // GET /api/v1/designs/:designId/revisions/:number/rows/:index
 //   -> { row: TableRow, energizedTerminals, diagnosis }   (the engine's diagnosis of that row; any member)
 import type { Route } from "./+types/revision-row";
-import { CAN } from "~/lib/roles";
 import { apiError, handleApi, reply, requireMethod } from "~/api/http.server";
 import { api } from "~/api/endpoints";
 import { requireRevisionApi } from "~/reviews/access.server";
 import { rowDetail } from "~/reviews/truth-table.server";
 
-export async function loader({ request, params }: Route.LoaderArgs) {
+export async function loader({ request, params, context }: Route.LoaderArgs) {
   return handleApi(request, async () => {
     requireMethod(request, "GET");
-    const { compiled } = await requireRevisionApi(request, params.designId, params.number, CAN.view);
+    const { compiled } = await requireRevisionApi(context, request, params.designId, params.number, "workspace.view");
     const index = /^[0-9]{1,10}$/.test(params.index) ? Number(params.index) : -1;
     if (index < 0 || index >= compiled.rows) {
       return apiError(404, "not_found", `This truth table has rows 0 to ${compiled.rows - 1}.`, [

@@ -1,7 +1,6 @@
 // GET /api/v1/designs/:designId/revisions/:number/table.csv?only=&rule=&where=COND:STATE
 //   -> text/csv, streamed (the engine's csvChunks: header line, then the matching rows; any member)
 import type { Route } from "./+types/revision-table-csv";
-import { CAN } from "~/lib/roles";
 import { handleApi, requireMethod } from "~/api/http.server";
 import { requireRevisionApi } from "~/reviews/access.server";
 import { csvStream, requestFilter } from "~/reviews/truth-table.server";
@@ -14,10 +13,10 @@ function fileName(designName: string, number: number, params: URLSearchParams): 
   return `${base}-r${number}${only ? `-${only}` : ""}${params.getAll("where").length > 0 ? "-filtered" : ""}.csv`;
 }
 
-export async function loader({ request, params }: Route.LoaderArgs) {
+export async function loader({ request, params, context }: Route.LoaderArgs) {
   return handleApi(request, async () => {
     requireMethod(request, "GET");
-    const { compiled, design, ref } = await requireRevisionApi(request, params.designId, params.number, CAN.view);
+    const { compiled, design, ref } = await requireRevisionApi(context, request, params.designId, params.number, "workspace.view");
     const search = new URL(request.url).searchParams;
     const filter = requestFilter(compiled, search);
     return new Response(csvStream(compiled, filter), {

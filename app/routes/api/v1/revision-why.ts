@@ -2,17 +2,16 @@
 //   -> chainproof/why@1 (spec section 4) plus groupCount per reason; 400 for a rule that is not an
 //      inhibit rule forbidding drive (any member)
 import type { Route } from "./+types/revision-why";
-import { CAN } from "~/lib/roles";
 import { apiError, handleApi, reply, requireMethod, zodFields } from "~/api/http.server";
 import { api } from "~/api/endpoints";
 import { whyQuerySchema } from "~/api/row-groups";
 import { RowSetError, whyRuleHolds } from "~/engine";
 import { requireRevisionApi } from "~/reviews/access.server";
 
-export async function loader({ request, params }: Route.LoaderArgs) {
+export async function loader({ request, params, context }: Route.LoaderArgs) {
   return handleApi(request, async () => {
     requireMethod(request, "GET");
-    const { compiled } = await requireRevisionApi(request, params.designId, params.number, CAN.view);
+    const { compiled } = await requireRevisionApi(context, request, params.designId, params.number, "workspace.view");
     const query = whyQuerySchema.safeParse(Object.fromEntries(new URL(request.url).searchParams));
     if (!query.success) return apiError(400, "invalid_query", "The query is not valid.", zodFields(query.error));
     try {

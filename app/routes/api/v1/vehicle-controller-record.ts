@@ -2,7 +2,6 @@
 // PUT /api/v1/vehicles/:vehicleId/controller-record { version, record } -> the same answer
 //   (technicians and engineers; a new version; 409 stale_record with currentVersion; 400 invalid_record by field)
 import type { Route } from "./+types/vehicle-controller-record";
-import { CAN } from "~/lib/roles";
 import { apiError, handleApi, readJsonBody, reply, requireMethod, zodFields } from "~/api/http.server";
 import { api } from "~/api/endpoints";
 import { parseQuery, requireVehicleApi, SMALL_BODY_MAX_BYTES } from "~/api/access.server";
@@ -12,9 +11,9 @@ import { jsonObjectSchema } from "~/designs/forms";
 import { storableJsonProblem } from "~/lib/storable-json";
 import { recordWithStatus, saveRecord } from "~/vehicles/controller-records.server";
 
-export async function loader({ request, params }: Route.LoaderArgs) {
+export async function loader({ request, params, context }: Route.LoaderArgs) {
   return handleApi(request, async () => {
-    const { member, vehicle } = await requireVehicleApi(request, params.vehicleId, CAN.view);
+    const { member, vehicle } = await requireVehicleApi(context, request, params.vehicleId, "workspace.view");
     const query = parseQuery(request, controllerRecordQuerySchema);
     const found = await recordWithStatus(member.workspace.id, vehicle.id, query.version);
     if (query.version !== undefined && !found.chosen) throw apiError(404, "not_found", `This vehicle's record has no version ${query.version}.`);
@@ -22,10 +21,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   });
 }
 
-export async function action({ request, params }: Route.ActionArgs) {
+export async function action({ request, params, context }: Route.ActionArgs) {
   return handleApi(request, async () => {
     requireMethod(request, "PUT");
-    const { member, vehicle } = await requireVehicleApi(request, params.vehicleId, CAN.recordControllerSettings);
+    const { member, vehicle } = await requireVehicleApi(context, request, params.vehicleId, "controller.record");
     const raw = jsonObjectSchema.safeParse(await readJsonBody(request, SMALL_BODY_MAX_BYTES));
     if (!raw.success) return apiError(400, "invalid_body", "The request body is a JSON object.", zodFields(raw.error));
     const unstorable = storableJsonProblem(raw.data.record, "record");

@@ -1,8 +1,7 @@
 // POST /api/v1/vehicles/:vehicleId/releases { revisionId, note?, override? } -> 201 { vehicle }
-//      (CAN.releaseRevisions; 409 release_refused naming why: not approved, refused by format 1.1
+//      ("revision.release"; 409 release_refused naming why: not approved, refused by format 1.1
 //      (decision 111), or contradicted by the controller record without an override reason)
 import type { Route } from "./+types/vehicle-releases";
-import { CAN } from "~/lib/roles";
 import { apiError, handleApi, reply, requireMethod } from "~/api/http.server";
 import { api } from "~/api/endpoints";
 import { parseBody, requireVehicleApi } from "~/api/access.server";
@@ -10,10 +9,10 @@ import { vehicleJson } from "~/api/views.server";
 import { releaseSchema } from "~/vehicles/forms";
 import { getVehicle, openAttention, releaseHistory, releaseRevision } from "~/vehicles/vehicles.server";
 
-export async function action({ request, params }: Route.ActionArgs) {
+export async function action({ request, params, context }: Route.ActionArgs) {
   return handleApi(request, async () => {
     requireMethod(request, "POST");
-    const { member, vehicle } = await requireVehicleApi(request, params.vehicleId, CAN.releaseRevisions);
+    const { member, vehicle } = await requireVehicleApi(context, request, params.vehicleId, "revision.release");
     const body = await parseBody(request, releaseSchema, "release");
     const out = await releaseRevision(member.workspace.id, vehicle.id, member.user.id, body);
     if (!out.ok) {

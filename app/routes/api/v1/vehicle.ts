@@ -1,9 +1,8 @@
 // GET   /api/v1/vehicles/:vehicleId -> { vehicle }   (details, released revision, release history,
 //       open needs-attention flags; any member)
 // PATCH /api/v1/vehicles/:vehicleId { name?, serial?, model?, controllerDescription?, notes? } -> { vehicle }
-//       (CAN.manageVehicles; fields not sent keep their values)
+//       ("vehicle.manage"; fields not sent keep their values)
 import type { Route } from "./+types/vehicle";
-import { CAN } from "~/lib/roles";
 import { handleApi, reply, requireMethod } from "~/api/http.server";
 import { api } from "~/api/endpoints";
 import { vehicleSchema } from "~/lib/forms";
@@ -21,17 +20,17 @@ async function answer(workspaceId: string, vehicleId: string): Promise<Response>
   return reply(api.getVehicle, 200, { vehicle: vehicleJson(v!, history, attention) });
 }
 
-export async function loader({ request, params }: Route.LoaderArgs) {
+export async function loader({ request, params, context }: Route.LoaderArgs) {
   return handleApi(request, async () => {
-    const { member, vehicle } = await requireVehicleApi(request, params.vehicleId, CAN.view);
+    const { member, vehicle } = await requireVehicleApi(context, request, params.vehicleId, "workspace.view");
     return answer(member.workspace.id, vehicle.id);
   });
 }
 
-export async function action({ request, params }: Route.ActionArgs) {
+export async function action({ request, params, context }: Route.ActionArgs) {
   return handleApi(request, async () => {
     requireMethod(request, "PATCH");
-    const { member, vehicle } = await requireVehicleApi(request, params.vehicleId, CAN.manageVehicles);
+    const { member, vehicle } = await requireVehicleApi(context, request, params.vehicleId, "vehicle.manage");
     const patch = await parseBody(request, vehiclePatchBodySchema, "vehicle change");
     const current = {
       name: vehicle.name,
