@@ -76,7 +76,8 @@ function wideBoxes(d: Design): Box[] {
   });
 }
 
-const COLUMN_W = 250;
+const COLUMN_W = 230;
+const LANE = 9;
 
 /** One column, in order of wire hops from the supplies: for a phone's width. */
 function stackedBoxes(d: Design): Box[] {
@@ -163,10 +164,12 @@ function Drawing({ design, row, highlight, suspects, title, stacked }: Required<
       d = `M${p.x} ${p.y} H${mid} V${q.y} H${q.x}`;
     } else {
       if (p.y > q.y) [p, q] = [q, p];
-      const straight = p.x === q.x && p.side !== "top" && q.side !== "bottom";
+      // Straight down only to the next part in the column: a line through another part would read as a series chain.
+      const between = list.some((o) => o !== a && o !== b && o.y + o.h > p.y + 1 && o.y < q.y - 1);
+      const straight = p.x === q.x && p.side !== "top" && q.side !== "bottom" && !between;
       if (straight) d = `M${p.x} ${p.y} V${q.y}`;
       else {
-        const lane = COLUMN_W + 18 + 12 * lanes++;
+        const lane = COLUMN_W + 18 + LANE * lanes++;
         const out = (t: Point) => (t.side === "top" ? t.y - 10 : t.side === "bottom" ? t.y + 10 : t.y);
         d = `M${p.x} ${p.y} V${out(p)} H${lane} V${out(q)} H${q.x} V${q.y}`;
       }
@@ -176,7 +179,7 @@ function Drawing({ design, row, highlight, suspects, title, stacked }: Required<
   const pad = 34;
   const minX = Math.min(...list.map((b) => b.x)) - pad;
   const minY = Math.min(...list.map((b) => b.y)) - pad - 10;
-  const maxX = Math.max(...list.map((b) => b.x + b.w), stacked ? COLUMN_W + 18 + 12 * lanes : -Infinity) + pad;
+  const maxX = Math.max(...list.map((b) => b.x + b.w), stacked ? COLUMN_W + 18 + LANE * lanes : -Infinity) + pad;
   const maxY = Math.max(...list.map((b) => b.y + b.h)) + pad;
   const plain = !row;
   return (
@@ -274,13 +277,13 @@ function Drawing({ design, row, highlight, suspects, title, stacked }: Required<
               <line x1={s1.x} y1={s1.y} x2={blade.x} y2={blade.y} stroke={closed ? "var(--color-moss-600)" : "var(--color-ink-700)"} strokeWidth={5} strokeLinecap="round" />
               {stacked ? (
                 <>
-                  <text x={cx + 46} y={cy - 6} fontSize={20} fontWeight={600} fill="var(--color-ink-900)">
+                  <text x={cx + 40} y={cy - 6} fontSize={20} fontWeight={600} fill="var(--color-ink-900)">
                     {b.id}
                   </text>
-                  <text x={cx + 46} y={cy + 16} fontSize={16} fill="var(--color-ink-600)">
-                    {short.length > 12 ? `${short.slice(0, 11)}…` : short}
+                  <text x={cx + 40} y={cy + 16} fontSize={18} fill="var(--color-ink-600)">
+                    {short.length > 10 ? `${short.slice(0, 9)}…` : short}
                   </text>
-                  <text x={b.x + 4} y={cy - 6} fontSize={16} fill="var(--color-ink-700)">
+                  <text x={b.x + 4} y={cy - 6} fontSize={18} fill="var(--color-ink-700)">
                     {closed ? "closed" : "open"}
                   </text>
                 </>
@@ -314,7 +317,7 @@ function Drawing({ design, row, highlight, suspects, title, stacked }: Required<
               {b.id}
               {b.type === "input" ? (on ? " · live" : " · dead") : ""}
             </text>
-            <text x={b.x + b.w / 2} y={b.y + 48} textAnchor="middle" fontSize={16} fill="var(--color-ink-600)">
+            <text x={b.x + b.w / 2} y={b.y + 48} textAnchor="middle" fontSize={stacked ? 18 : 16} fill="var(--color-ink-600)">
               {short}
             </text>
           </g>

@@ -252,7 +252,7 @@ function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
           <h2 id="blockers-h" className="text-lg font-semibold">
             What blocks the drive, in the order to check
           </h2>
-          <div className="mt-3 rounded-lg border-2 border-copper-600 bg-white p-4" data-testid="restore">
+          <div className="mt-3 scroll-mt-16 rounded-lg border-2 border-copper-600 bg-white p-4" data-testid="restore">
             <h3 className="font-semibold">To bring the drive back</h3>
             <ChangeAdviceView advice={result.restore} what="lets this design drive" throttleLabel={throttleLabel} onApply={apply} />
           </div>
