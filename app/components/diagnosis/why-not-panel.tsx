@@ -5,6 +5,7 @@ import { useMemo, useState } from "react";
 import { compileDesign, type CompiledDesign, type Design } from "~/engine";
 import { explainMeasured, restingStates, whyNot, type Blocker, type ChangeAdvice, type ContactCheck, type WireEnd } from "~/vehicles/why-not";
 import { WiringDiagram } from "~/components/wiring-diagram";
+import { Button, Chip } from "~/components/ui/button";
 
 const MAX_HISTORY = 1000;
 
@@ -73,13 +74,9 @@ export function ChangeAdviceView({ advice, what, throttleLabel, onApply }: { adv
                 {o.cycleThrottle ? ` ${sentence ? "Then a" : "A"} lockout holds the drive off: return ${throttleLabel} to rest and apply it again.` : ""}
                 {o.heldOff ? " Even so a lockout latches again each time the throttle is applied here: the design's lockouts hold the drive off in these conditions." : ""}
               </span>
-              <button
-                type="button"
-                onClick={() => onApply(o.steps)}
-                className="min-h-11 rounded-md border border-copper-600 bg-white px-3 text-base font-medium text-copper-700 hover:bg-copper-50"
-              >
+              <Button type="button" variant="secondary" size="touch-base" onClick={() => onApply(o.steps)}>
                 Make this change
-              </button>
+              </Button>
             </li>
           );
         })}
@@ -219,17 +216,9 @@ function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
                 {k.states.map((s) => {
                   const on = states[k.id] === s;
                   return (
-                    <button
-                      key={s}
-                      type="button"
-                      aria-pressed={on}
-                      onClick={() => set(k.id, s)}
-                      className={`min-h-12 min-w-20 rounded-md border px-4 text-base font-medium ${
-                        on ? "border-copper-600 bg-copper-600 text-white" : "border-ink-300 bg-white text-ink-800 hover:bg-ink-100"
-                      }`}
-                    >
+                    <Chip key={s} pressed={on} size="touch" onClick={() => set(k.id, s)}>
                       {s}
-                    </button>
+                    </Chip>
                   );
                 })}
               </div>
@@ -241,9 +230,9 @@ function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
             <input type="checkbox" className="h-5 w-5" checked={inOrder} onChange={(e) => setInOrder(e.target.checked)} />
             Follow my taps in order, so lockouts latch as on the vehicle
           </label>
-          <button type="button" onClick={restart} className="min-h-11 rounded-md border border-ink-300 bg-white px-3 text-base font-medium hover:bg-ink-100">
+          <Button type="button" variant="secondary" size="touch-base" onClick={restart}>
             Start over from switched off
-          </button>
+          </Button>
         </div>
       </section>
 
@@ -283,18 +272,16 @@ function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
                 </legend>
                 <div className="mt-1 grid grid-cols-3 gap-2">
                   {(["unmeasured", "live", "dead"] as const).map((v) => (
-                    <button
+                    <Chip
                       key={v}
-                      type="button"
-                      aria-pressed={r === v}
+                      pressed={r === v}
+                      tone="ink"
+                      size="touch-sm"
                       aria-label={`${x.id} ${v === "unmeasured" ? "not measured" : `reads ${v}`}`}
                       onClick={() => setReadings({ ...readings, [x.id]: v })}
-                      className={`min-h-11 rounded-md border px-2 text-base font-medium ${
-                        r === v ? "border-ink-800 bg-ink-800 text-white" : "border-ink-300 bg-white text-ink-800 hover:bg-ink-100"
-                      }`}
                     >
                       {v === "unmeasured" ? "Not measured" : v === "live" ? "Reads live" : "Reads dead"}
-                    </button>
+                    </Chip>
                   ))}
                 </div>
               </fieldset>

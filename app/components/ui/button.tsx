@@ -30,6 +30,8 @@ export const buttonVariants = cva(
         xs: "rounded px-2 py-0.5 text-xs font-semibold",
         compact: "gap-1 rounded px-2 py-1 text-xs font-semibold",
         touch: "min-h-11 rounded-md px-3 text-sm font-medium",
+        // Phone screens where people act on results (the why page, the bench): 16 px text.
+        "touch-base": "min-h-11 rounded-md px-3 text-base font-medium",
         // For a phone at the bench: 44 px high, 16 px text.
         bench: "min-h-11 rounded-md px-4 text-base font-semibold",
         icon: "min-h-11 min-w-11 rounded-md",
@@ -55,7 +57,7 @@ export const chipVariants = cva("inline-flex items-center justify-center border 
     pressed: { true: "", false: "border-line-strong bg-surface text-ink-700 hover:bg-subtle" },
     // action: a choice that changes what is shown; ink: a reading the user records.
     tone: { action: "aria-pressed:border-action aria-pressed:bg-action", ink: "aria-pressed:border-ink-800 aria-pressed:bg-ink-800" },
-    size: { sm: "rounded-full px-2 py-0.5 text-xs", touch: "min-h-12 min-w-20 rounded-md px-4 text-base", "touch-sm": "min-h-11 rounded-md px-2 text-sm" },
+    size: { sm: "rounded-full px-2 py-0.5 text-xs", touch: "min-h-12 min-w-20 rounded-md px-4 text-base", "touch-sm": "min-h-11 rounded-md px-2 text-base" },
   },
   defaultVariants: { pressed: false, tone: "action", size: "sm" },
 });
