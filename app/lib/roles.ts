@@ -47,16 +47,3 @@ export function can(role: Role, action: Action): boolean {
 export function rolesThatCan(action: Action): readonly Role[] {
   return PERMISSIONS[action];
 }
-
-/** The older names of the same lists, while routes move to can() and requireCan (decision 151). */
-export const CAN = {
-  view: PERMISSIONS["workspace.view"],
-  manageMembers: PERMISSIONS["members.manage"],
-  editDesigns: PERMISSIONS["design.edit"],
-  manageVehicles: PERMISSIONS["vehicle.manage"],
-  runBenchTests: PERMISSIONS["bench.run"],
-  releaseRevisions: PERMISSIONS["revision.release"],
-  review: PERMISSIONS["review.decide"],
-  disposeFaults: PERMISSIONS["fault.dispose"],
-  recordControllerSettings: PERMISSIONS["controller.record"],
-} as const;

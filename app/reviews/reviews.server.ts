@@ -1,9 +1,10 @@
 // Reviews of saved revisions: requests, comments, decisions, and the review status everyone shows.
-// Every query is scoped by workspace id. Rules: only reviewers decide (the routes ask requireMember
-// with CAN.review), nobody decides on a revision they authored, a decision signs the revision's
+// Every query is scoped by workspace id. Rules: only reviewers decide (the routes ask requireCan
+// for "review.decide", and decide() asks can() again), nobody decides on a revision they authored, a decision signs the revision's
 // content hash, and a new revision starts without any approval (decisions belong to one revision).
 import { and, asc, desc, eq, inArray, lt } from "drizzle-orm";
 import { db, schema } from "~/db/client.server";
+import { can, rolesThatCan } from "~/lib/roles";
 import { recordAudit } from "~/audit/audit.server";
 import { composeMail, sendMail } from "~/mail/mailer.server";
 import { env } from "~/env.server";
@@ -181,7 +182,7 @@ export async function listReviewers(workspaceId: string) {
     .select({ id: user.id, name: user.name, email: user.email })
     .from(member)
     .innerJoin(user, eq(user.id, member.userId))
-    .where(and(eq(member.workspaceId, workspaceId), eq(member.role, "reviewer")))
+    .where(and(eq(member.workspaceId, workspaceId), inArray(member.role, [...rolesThatCan("review.decide")])))
     .orderBy(asc(user.name));
 }
 
@@ -367,7 +368,7 @@ export async function addComment(m: Membership, revisionId: string, compiled: Co
 export async function decide(m: Membership, revisionId: string, input: { verdict: ReviewVerdict; comment: string }): Promise<ActOutcome> {
   const rev = await revisionById(m.workspace.id, revisionId);
   if (!rev) return { ok: false, status: 404, fields: { form: "No such revision." } };
-  if (m.role !== "reviewer") return { ok: false, status: 403, fields: { form: "Only reviewers decide on a revision." } };
+  if (!can(m.role, "review.decide")) return { ok: false, status: 403, fields: { form: "Only reviewers decide on a revision." } };
   if (rev.authorId === m.user.id) {
     return { ok: false, status: 403, fields: { form: "You authored this revision; another reviewer must decide on it." } };
   }
