@@ -208,7 +208,21 @@ export const revisionSavedAnswer = z.object({ revision: z.object({ number: int, 
 export const staleRevisionError = errorSchema.extend({ latestRevision: int.meta({ description: "The latest revision's number." }) });
 export const rulesFailError = errorSchema.extend({ verdict: verdictSchema });
 export const revisionAnswer = z.object({
-  revision: z.object({ number: int, contentHash: z.string(), message: z.string(), author: person, createdAt: isoTime, document: designDocumentSchema, verdict: verdictSchema }),
+  revision: z.object({
+    number: int,
+    contentHash: z.string(),
+    message: z.string(),
+    author: person,
+    createdAt: isoTime,
+    document: designDocumentSchema,
+    verdict: verdictSchema,
+    refusedByFormat11: z
+      .array(z.string())
+      .meta({
+        description:
+          "Why design format 1.1 would refuse this revision, saved before 1.1 (a rule matching no row, a design that never drives); empty when it passes. Such a revision stays readable and cannot be released.",
+      }),
+  }),
 });
 export const proofAnswer = z.object({ verdict: verdictSchema });
 

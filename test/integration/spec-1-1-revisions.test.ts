@@ -126,7 +126,10 @@ describe("revisions stored before format 1.1 that 1.1 would refuse", () => {
     for (const c of cases) {
       const base = `/w/${WS}/designs/${c.design}`;
       // Readable: the API answers the revision, its rows and its CSV.
-      expect((await send(engineer, "GET", `/api/v1/designs/${c.design}/revisions/1`)).status).toBe(200);
+      const one = await send(engineer, "GET", `/api/v1/designs/${c.design}/revisions/1`);
+      expect(one.status).toBe(200);
+      // Marked in the API as well.
+      expect(one.body.revision.refusedByFormat11.some((r: string) => c.why.test(r))).toBe(true);
       const rows = await send(engineer, "GET", `/api/v1/designs/${c.design}/revisions/1/rows?from=0&count=5`);
       expect(rows.status).toBe(200);
       expect(rows.body.rows).toHaveLength(5);
@@ -205,6 +208,7 @@ describe("revisions stored before format 1.1 that 1.1 would refuse", () => {
     const saved = await send(engineer, "POST", `/api/v1/designs/${emptyRuleDesign}/revisions`, { document: fixed, baseRevision: 1, message: "a design that passes format 1.1" });
     expect(saved.status).toBe(201);
     expect(saved.body.revision.number).toBe(2);
+    expect((await send(engineer, "GET", `/api/v1/designs/${emptyRuleDesign}/revisions/2`)).body.revision.refusedByFormat11).toEqual([]);
     const review2 = await text(reviewer, `/w/${WS}/designs/${emptyRuleDesign}/revisions/2/review`);
     expect(review2.body).not.toContain("Refused by format 1.1");
     const fixedId = (await db.query<{ id: string }>("SELECT id FROM design_revision WHERE design_id = $1 AND number = 2", [emptyRuleDesign])).rows[0]!.id;

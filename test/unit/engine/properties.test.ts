@@ -22,6 +22,7 @@ import {
   prove,
   replayTrace,
   validateDesign,
+  validateStoredDesign,
   type Design,
   type InhibitVerdict,
   type NoRestartVerdict,
@@ -195,7 +196,7 @@ describe("random designs", () => {
   }, SLOW);
 
   // Spec 1.6 (version 1.1): a rule whose `when` holds in no row makes the design invalid at rules[i].when.
-  it("with rules that match no row are invalid exactly at those rules (brute force and SAT agree)", () => {
+  it("with rules that match no row are invalid exactly at those rules (brute force and SAT agree); stored, they compile and hold vacuously", () => {
     fc.assert(
       fc.property(designsWithEmptyRules, (d) => {
         const want = refEmptyRulePaths(d);
@@ -211,6 +212,18 @@ describe("random designs", () => {
         // Without those rules the same design is valid.
         const kept = { ...d, rules: d.rules.filter((_, i) => !want.includes(`rules[${i}].when`)) };
         expect(validateDesign(kept).ok).toBe(true);
+        // Stored before 1.1 it stays readable: the same rules come back apart, and each holds vacuously.
+        const stored = validateStoredDesign(d);
+        expect(stored.ok).toBe(true);
+        if (!stored.ok) return;
+        expect(stored.rulesMatchingNoRow.map((p) => p.path).sort()).toEqual([...want].sort());
+        const verdict = prove(d);
+        for (const path of want) {
+          const rule = d.rules[Number(/\[(\d+)\]/.exec(path)![1])]!;
+          const v = verdict.rules.find((r) => r.id === rule.id)!;
+          expect(v.holds).toBe(true);
+          expect("unsafeRows" in v ? v.unsafeRows : "demandRows" in v ? v.demandRows : -1).toBe(0);
+        }
       }),
       { numRuns: 100 },
     );
