@@ -2,12 +2,13 @@
 // browser, so the editor module is loaded after mount; the server renders a placeholder.
 import { lazy, Suspense, useEffect, useState } from "react";
 import type { DesignEditorProps } from "./contract";
+import { cardVariants } from "../components/ui/card";
 
 const Editor = lazy(() => import("./editor"));
 
 function Placeholder() {
   return (
-    <div role="status" className="flex h-[60vh] min-h-[320px] items-center justify-center rounded-lg border border-ink-200 bg-white text-sm text-ink-500 md:h-auto md:min-h-[480px] md:flex-1">
+    <div role="status" className={cardVariants({ padding: "none", className: "flex h-[60vh] min-h-[320px] items-center justify-center text-sm text-ink-500 md:h-auto md:min-h-[480px] md:flex-1" })}>
       Opening the canvas…
     </div>
   );

@@ -17,6 +17,7 @@ import { createEditorStore, EditorContext, useEditor, useEditorStore } from "./s
 import { Toolbar } from "./toolbar/toolbar";
 import { useEditorKeys } from "./keys";
 import { Button } from "../components/ui/button";
+import { cardVariants } from "../components/ui/card";
 
 export default function Editor(props: DesignEditorProps) {
   const [store] = useState(() =>
@@ -58,7 +59,7 @@ function EditorShell(props: DesignEditorProps) {
   return (
     <div
       ref={root}
-      className="cp-editor flex min-w-0 flex-col overflow-hidden rounded-lg border border-ink-200 bg-white md:min-h-[480px] md:flex-1"
+      className={cardVariants({ padding: "none", className: "cp-editor flex min-w-0 flex-col overflow-hidden md:min-h-[480px] md:flex-1" })}
     >
       <Toolbar readOnly={readOnly} baseRevision={props.baseRevision} onSaveRevision={props.onSaveRevision} onRevisionSaved={autosave.saveAgain} />
       <BannerView />
