@@ -30,6 +30,7 @@ export default [
         route("designs/:designId/revisions/:number/table", "routes/revision-table.tsx"),
         route("designs/:designId/revisions/:number/review", "routes/review.tsx"),
         route("reviews", "routes/reviews.tsx"),
+        route("activity", "routes/activity.tsx"),
         route("bench-tests", "routes/bench-tests.tsx"),
         route("bench-tests/:runId", "routes/bench-run.tsx"),
         route("bench-tests/:runId/results.csv", "routes/bench-run-csv.ts"),

@@ -4,7 +4,7 @@
 import { useState, type ReactNode } from "react";
 import { Form, Link, NavLink, useMatches, useNavigate } from "react-router";
 import { Logo, LogoMark } from "./logo";
-import { ROLE_LABELS, type Role } from "~/lib/roles";
+import { can, ROLE_LABELS, type Action, type Role } from "~/lib/roles";
 import { Button } from "./ui/button";
 
 export type ShellProps = {
@@ -14,6 +14,8 @@ export type ShellProps = {
   role: Role;
   demo: boolean;
   localMail: boolean;
+  /** Review requests waiting for this reviewer's decision (reviewers only; null for other roles). */
+  reviewsWaiting?: number | null;
   children: ReactNode;
 };
 
@@ -21,6 +23,7 @@ const SECTIONS = [
   { to: "vehicles", label: "Vehicles", icon: "M3 13l2-5h10l2 5v3H3zM6 16v1.5M14 16v1.5M5.5 13h9" },
   { to: "designs", label: "Designs", icon: "M4 5h4v4H4zM12 11h4v4h-4zM8 7h3v6h1" },
   { to: "reviews", label: "Reviews", icon: "M4 4h12v9H9l-3 3v-3H4z" },
+  { to: "activity", label: "Design activity", icon: "M3 10h3l2-5 4 10 2-5h3", needs: "design-events.read" as Action },
   { to: "bench-tests", label: "Bench tests", icon: "M5 4h10M7 4v5l-3 6a1 1 0 001 1.5h10a1 1 0 001-1.5l-3-6V4" },
   { to: "settings", label: "Settings", icon: "M10 7a3 3 0 100 6 3 3 0 000-6zM10 2v2M10 16v2M2 10h2M16 10h2M4.3 4.3l1.4 1.4M14.3 14.3l1.4 1.4M4.3 15.7l1.4-1.4M14.3 5.7l1.4-1.4" },
 ] as const;
@@ -33,24 +36,47 @@ function Icon({ d }: { d: string }) {
   );
 }
 
-function Nav({ slug, onNavigate, compact = false }: { slug: string; onNavigate?: () => void; compact?: boolean }) {
+type NavProps = { slug: string; role: Role; reviewsWaiting?: number | null; onNavigate?: () => void; compact?: boolean };
+
+/** The count of reviews waiting, on the Reviews link: a number beside it, a dot on the collapsed rail. */
+function WaitingBadge({ n, compact }: { n: number; compact: boolean }) {
+  const words = `${n} review${n === 1 ? "" : "s"} waiting for you`;
+  return (
+    <span
+      data-testid="reviews-waiting-badge"
+      title={words}
+      className={
+        compact
+          ? "absolute right-1 top-1 min-w-4 rounded-full bg-copper-600 px-1 text-center text-[10px] font-semibold leading-4 text-white"
+          : "ml-auto min-w-6 rounded-full bg-copper-600 px-2 text-center text-xs font-semibold leading-5 text-white"
+      }
+    >
+      <span aria-hidden="true">{n > 99 ? "99+" : n}</span>
+      <span className="sr-only">{words}</span>
+    </span>
+  );
+}
+
+function Nav({ slug, role, reviewsWaiting, onNavigate, compact = false }: NavProps) {
+  const sections = SECTIONS.filter((s) => !("needs" in s) || can(role, s.needs));
   return (
     <nav aria-label="Sections">
       <ul className="space-y-1">
-        {SECTIONS.map((s) => (
+        {sections.map((s) => (
           <li key={s.to}>
             <NavLink
               to={`/w/${slug}/${s.to}`}
               onClick={onNavigate}
               title={compact ? s.label : undefined}
               className={({ isActive }) =>
-                `flex min-h-11 items-center gap-3 rounded-md py-2 text-sm font-medium ${compact ? "justify-center px-2" : "px-3"} ${
+                `relative flex min-h-11 items-center gap-3 rounded-md py-2 text-sm font-medium ${compact ? "justify-center px-2" : "px-3"} ${
                   isActive ? "bg-ink-800 text-white" : "text-ink-700 hover:bg-ink-100"
                 }`
               }
             >
               <Icon d={s.icon} />
               <span className={compact ? "sr-only" : undefined}>{s.label}</span>
+              {s.to === "reviews" && reviewsWaiting ? <WaitingBadge n={reviewsWaiting} compact={compact} /> : null}
             </NavLink>
           </li>
         ))}
@@ -113,7 +139,7 @@ function useCanvasLayout(): boolean {
   return useMatches().some((m) => (m.handle as { layout?: string } | undefined)?.layout === "canvas");
 }
 
-export function Shell({ workspace, workspaces, user, role, demo, localMail, children }: ShellProps) {
+export function Shell({ workspace, workspaces, user, role, demo, localMail, reviewsWaiting, children }: ShellProps) {
   const [open, setOpen] = useState(false);
   const canvas = useCanvasLayout();
   const [navOpen, setNavOpen] = useState(false);
@@ -154,7 +180,7 @@ export function Shell({ workspace, workspaces, user, role, demo, localMail, chil
       {open ? (
         <div id="mobile-nav" className="space-y-4 border-b border-ink-200 bg-white px-4 py-4 md:hidden">
           <WorkspaceSwitcher current={workspace.slug} workspaces={workspaces} />
-          <Nav slug={workspace.slug} onNavigate={() => setOpen(false)} />
+          <Nav slug={workspace.slug} role={role} reviewsWaiting={reviewsWaiting} onNavigate={() => setOpen(false)} />
         </div>
       ) : null}
       <div className={canvas ? "md:flex md:min-h-0 md:flex-1" : "md:flex"}>
@@ -175,7 +201,7 @@ export function Shell({ workspace, workspaces, user, role, demo, localMail, chil
               <span className="sr-only">Show the navigation</span>
               <Icon d="M3 6h14M3 10h14M3 14h14" />
             </Button>
-            <Nav slug={workspace.slug} compact />
+            <Nav slug={workspace.slug} role={role} reviewsWaiting={reviewsWaiting} compact />
             <div className="mt-auto">
               <UserMenu user={user} role={role} side="right" />
             </div>
@@ -193,7 +219,7 @@ export function Shell({ workspace, workspaces, user, role, demo, localMail, chil
               ) : null}
             </div>
             <WorkspaceSwitcher current={workspace.slug} workspaces={workspaces} />
-            <Nav slug={workspace.slug} />
+            <Nav slug={workspace.slug} role={role} reviewsWaiting={reviewsWaiting} />
             {canvas ? (
               <div className="mt-auto">
                 <UserMenu user={user} role={role} side="right" />

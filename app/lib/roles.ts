@@ -30,6 +30,8 @@ export const PERMISSIONS = {
   // Putting an approved revision on a vehicle is an engineering decision (docs/decisions/070).
   "revision.release": ["admin", "engineer"],
   "review.decide": ["reviewer"],
+  // The workspace's design events in words: those who draw, sign off or run the workspace (decision 164).
+  "design-events.read": ["admin", "engineer", "reviewer"],
   // Engineers explain how a defeating fault is dealt with; reviewers may record what they accept (decision 161).
   "fault.dispose": ["engineer", "reviewer"],
   // The controller settings record: typed in at the vehicle by the people who set the controller up.

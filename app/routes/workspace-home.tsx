@@ -1,7 +1,7 @@
 import { Link } from "react-router";
 import type { Route } from "./+types/workspace-home";
 import { requireCan } from "~/auth/context.server";
-import { ROLE_DUTIES, ROLE_LABELS } from "~/lib/roles";
+import { can, ROLE_DUTIES, ROLE_LABELS } from "~/lib/roles";
 import { countVehicles } from "~/vehicles/vehicles.server";
 import { PageHeader } from "~/components/page-header";
 import { SafetyNote } from "~/components/safety-note";
@@ -12,16 +12,18 @@ import { failedStepsFor } from "~/bench-runs/bench-runs.server";
 import { changeRequestsFor } from "~/reviews/reviews.server";
 import { When } from "~/designs/design-bits";
 import { cardVariants } from "~/components/ui/card";
+import { reviewsWaitingFor } from "~/reviews/waiting.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Overview · Chainproof" }];
 
 export async function loader({ context }: Route.LoaderArgs) {
   const m = requireCan(context, "workspace.view");
-  const [vehicleCount, fleet, failedSteps, changeRequests] = await Promise.all([
+  const [vehicleCount, fleet, failedSteps, changeRequests, reviewsWaiting] = await Promise.all([
     countVehicles(m.workspace.id),
     fleetControllerStatus(m.workspace.id),
     failedStepsFor(m.workspace.id, m.user.id),
     changeRequestsFor(m.workspace.id, m.user.id),
+    m.role === "reviewer" ? reviewsWaitingFor(m.workspace.id, m.user.id) : Promise.resolve(null),
   ]);
   const marked = [...fleet.values()]
     .filter((f) => proofDoesNotHold(f.status))
@@ -34,6 +36,8 @@ export async function loader({ context }: Route.LoaderArgs) {
     marked,
     failedSteps: failedSteps.map((f) => ({ ...f, failedAt: f.failedAt?.toISOString() ?? null })),
     changeRequests: changeRequests.map((c) => ({ ...c, decidedAt: c.decidedAt?.toISOString() ?? null })),
+    reviewsWaiting,
+    readsActivity: can(m.role, "design-events.read"),
   };
 }
 
@@ -126,6 +130,22 @@ export default function WorkspaceHome({ loaderData }: Route.ComponentProps) {
         </section>
       ) : null}
       <div className="grid gap-4 sm:grid-cols-2">
+        {loaderData.reviewsWaiting !== null ? (
+          <section className={cardVariants({ padding: "lg" })} aria-labelledby="waiting-h" data-testid="reviews-waiting">
+            <h2 id="waiting-h" className="font-semibold">
+              Reviews waiting for you
+            </h2>
+            <p className="mt-2 text-3xl font-semibold tabular-nums">{loaderData.reviewsWaiting}</p>
+            <p className="text-sm text-ink-700">
+              {loaderData.reviewsWaiting === 0
+                ? "Nothing waits for your decision."
+                : `revision${loaderData.reviewsWaiting === 1 ? "" : "s"} you were asked to review and have not decided on yet.`}
+            </p>
+            <Link to="reviews" className="mt-4 inline-block font-semibold text-copper-700 underline">
+              Open reviews
+            </Link>
+          </section>
+        ) : null}
         <section className={cardVariants({ padding: "lg" })}>
           <h2 className="font-semibold">Your next step</h2>
           <p className="mt-2 text-sm text-ink-700">{next.text}</p>
@@ -142,6 +162,15 @@ export default function WorkspaceHome({ loaderData }: Route.ComponentProps) {
             See vehicles
           </Link>
         </section>
+        {loaderData.readsActivity ? (
+          <section className={cardVariants({ padding: "lg" })}>
+            <h2 className="font-semibold">Design activity</h2>
+            <p className="mt-2 text-sm text-ink-700">Revisions saved, reviews asked for, comments, decisions and releases, in words.</p>
+            <Link to="activity" className="mt-4 inline-block font-semibold text-copper-700 underline">
+              Read design activity
+            </Link>
+          </section>
+        ) : null}
       </div>
       <SafetyNote className="mt-6" />
     </>

@@ -5,10 +5,15 @@ import { WorkspaceErrorBoundary } from "~/components/workspace-error";
 import { requireCan, workspacesIn } from "~/auth/context.server";
 import { demoAccountsExist } from "~/workspace/workspace.server";
 import { env } from "~/env.server";
+import { reviewsWaitingFor } from "~/reviews/waiting.server";
 
 export async function loader({ context }: Route.LoaderArgs) {
   const m = requireCan(context, "workspace.view");
-  return { workspace: m.workspace, workspaces: workspacesIn(context), user: m.user, role: m.role, demo: await demoAccountsExist(), localMail: env.CHAINPROOF_LOCAL === "1" };
+  const [demo, reviewsWaiting] = await Promise.all([
+    demoAccountsExist(),
+    m.role === "reviewer" ? reviewsWaitingFor(m.workspace.id, m.user.id) : Promise.resolve(null),
+  ]);
+  return { workspace: m.workspace, workspaces: workspacesIn(context), user: m.user, role: m.role, demo, localMail: env.CHAINPROOF_LOCAL === "1", reviewsWaiting };
 }
 
 export default function WorkspaceShell({ loaderData }: Route.ComponentProps) {

@@ -32,6 +32,7 @@ export const MATRIX: Row[] = [
   },
   { name: "designs list", method: "GET", path: "/w/larkspur/designs", expect: all(200) },
   { name: "reviews", method: "GET", path: "/w/larkspur/reviews", expect: all(200) },
+  { name: "design activity (admins, engineers, reviewers)", method: "GET", path: "/w/larkspur/activity", expect: all(200, { technician: 403 }) },
   // Review actions on a revision that does not exist: the role is checked first (403), then the revision (404).
   {
     name: "decide on a review (unknown design: reviewers get 404, others 403)",
