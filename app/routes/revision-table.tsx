@@ -121,13 +121,16 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
   const [cond, setCond] = useState(columns.conditions[0]?.id ?? "");
   const [jump, setJump] = useState("");
   // The row a jump asked for: scrolled into view once its page is on screen.
-  const [scrollTarget, setScrollTarget] = useState<number | null>(null);
+  // (a counter, so a second jump to a row already on the page scrolls again)
+  const scrollTarget = useRef<number | null>(null);
+  const [jumps, setJumps] = useState(0);
   const tableBox = useRef<HTMLDivElement>(null);
   useEffect(() => {
-    if (scrollTarget === null || !page.rows.some((r) => r.index === scrollTarget)) return;
-    tableBox.current?.querySelector(`tr[data-row="${scrollTarget}"]`)?.scrollIntoView({ block: "center", inline: "nearest" });
-    setScrollTarget(null);
-  }, [scrollTarget, page]);
+    const want = scrollTarget.current;
+    if (want === null || !page.rows.some((r) => r.index === want)) return;
+    tableBox.current?.querySelector(`tr[data-row="${want}"]`)?.scrollIntoView({ block: "center", inline: "nearest" });
+    scrollTarget.current = null;
+  }, [jumps, page]);
 
   const update = (change: (p: URLSearchParams) => void) => {
     const next = new URLSearchParams(params);
@@ -157,7 +160,8 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
     const n = Number(jump);
     if (!/^[0-9]{1,10}$/.test(jump) || n >= totalRows) return;
     // Row N of the whole table: clear the filters, page to it, open it and scroll it into view.
-    setScrollTarget(n);
+    scrollTarget.current = n;
+    setJumps((j) => j + 1);
     update((p) => {
       for (const k of ["only", "rule", "where"]) p.delete(k);
       p.set("from", String(Math.floor(n / PAGE) * PAGE));
