@@ -40,6 +40,8 @@ const MAY: Record<Action, Role[]> = {
   "bench.run": ["technician"],
   "revision.release": ["admin", "engineer"],
   "review.decide": ["reviewer"],
+  // Decision 164: those who draw, sign off or run the workspace read its design events.
+  "design-events.read": ["admin", "engineer", "reviewer"],
   "fault.dispose": ["engineer", "reviewer"],
   "controller.record": ["engineer", "technician"],
 };
