@@ -1,6 +1,6 @@
 // The design editor as the route mounts it. xyflow, elkjs and the proof worker only run in the
 // browser, so the editor module is loaded after mount; the server renders a placeholder.
-import { lazy, Suspense, useEffect, useState } from "react";
+import { lazy, Suspense, useSyncExternalStore } from "react";
 import type { DesignEditorProps } from "./contract";
 import { cardVariants } from "../components/ui/card";
 
@@ -14,9 +14,11 @@ function Placeholder() {
   );
 }
 
+const noSubscription = () => () => {};
+
 export function DesignEditor(props: DesignEditorProps) {
-  const [mounted, setMounted] = useState(false);
-  useEffect(() => setMounted(true), []);
+  // false while rendering on the server and hydrating, true in the browser afterwards
+  const mounted = useSyncExternalStore(noSubscription, () => true, () => false);
   if (!mounted) return <Placeholder />;
   return (
     <Suspense fallback={<Placeholder />}>

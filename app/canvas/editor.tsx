@@ -41,20 +41,27 @@ function EditorShell(props: DesignEditorProps) {
   useLayoutRequests();
   useEditorKeys(root);
   const autosave = useAutosave({ enabled: !readOnly, draftVersion: props.draftVersion, onSaveDraft: props.onSaveDraft });
+  const { state: autosaveState, keepMine } = autosave;
 
   useEffect(() => {
-    if (autosave.state.kind !== "conflict") return;
-    const v = autosave.state.currentVersion;
+    if (autosaveState.kind !== "conflict") return;
+    const v = autosaveState.currentVersion;
     store.getState().setBanner({
       tone: "warning",
       sticky: true,
       text: "Another tab or person saved this design's working copy since you opened it. Autosave is paused.",
       actions: [
         { label: "Reload their version", run: () => window.location.reload() },
-        { label: "Keep mine (save over it)", run: () => (autosave.keepMine(v), store.getState().setBanner(null)) },
+        {
+          label: "Keep mine (save over it)",
+          run: () => {
+            keepMine(v);
+            store.getState().setBanner(null);
+          },
+        },
       ],
     });
-  }, [autosave.state, store]);
+  }, [autosaveState, keepMine, store]);
 
   return (
     <div

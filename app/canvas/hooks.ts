@@ -1,7 +1,7 @@
 // Editor effects: live proof in a worker, the simulation driver, the row the editor opened with,
 // layout requests and fitting the view, autosave. What the first paint does not need (the engine
 // on this thread for simulation, elkjs) is imported when it is first used.
-import { useEffect, useRef, useState } from "react";
+import { useCallback, useEffect, useRef, useState } from "react";
 import { useReactFlow, useStoreApi } from "@xyflow/react";
 import { contentKey, flowToDocument } from "./convert";
 import { fitPadding, fitViewport, type Size } from "./fit";
@@ -114,21 +114,6 @@ export function useLayoutRequests() {
   const fitRequest = useEditor((s) => s.fitRequest);
   const flow = useReactFlow();
   const flowStore = useStoreApi();
-  const fit = useRef(() => {});
-  fit.current = () => {
-    const pane = flowStore.getState().domNode?.getBoundingClientRect();
-    const nodes = flow.getNodes();
-    if (!pane || nodes.length === 0) return void flow.fitView({ padding: 0.2, minZoom: FIT_MIN_ZOOM, maxZoom: FIT_MAX_ZOOM, duration: 0 });
-    const bounds = flow.getNodesBounds(nodes);
-    const box = (selector: string) => flowStore.getState().domNode?.querySelector(selector)?.getBoundingClientRect() ?? null;
-    const mm = box(".react-flow__minimap");
-    const ctl = box(".react-flow__controls");
-    // Footprints from the pane's corners: the minimap sits bottom right, the controls bottom left.
-    const minimap: Size | null = mm && mm.width > 0 ? { width: pane.right - mm.left, height: pane.bottom - mm.top } : null;
-    const controls: Size | null = ctl && ctl.width > 0 ? { width: ctl.right - pane.left, height: pane.bottom - ctl.top } : null;
-    const padding = fitPadding(pane, bounds, { minimap, controls }, FIT_MAX_ZOOM);
-    void flow.setViewport(fitViewport(pane, bounds, padding, FIT_MIN_ZOOM, FIT_MAX_ZOOM), { duration: 0 });
-  };
   useEffect(() => {
     if (layoutRequest === 0) return;
     let cancelled = false;
@@ -147,8 +132,24 @@ export function useLayoutRequests() {
   useEffect(() => {
     // xyflow queues a fit requested on an empty canvas until the first node appears; don't ask then.
     if (store.getState().nodes.length === 0) return;
-    const id = requestAnimationFrame(() => fit.current());
+    const fit = () => {
+      const pane = flowStore.getState().domNode?.getBoundingClientRect();
+      const nodes = flow.getNodes();
+      if (!pane || nodes.length === 0) return void flow.fitView({ padding: 0.2, minZoom: FIT_MIN_ZOOM, maxZoom: FIT_MAX_ZOOM, duration: 0 });
+      const bounds = flow.getNodesBounds(nodes);
+      const box = (selector: string) => flowStore.getState().domNode?.querySelector(selector)?.getBoundingClientRect() ?? null;
+      const mm = box(".react-flow__minimap");
+      const ctl = box(".react-flow__controls");
+      // Footprints from the pane's corners: the minimap sits bottom right, the controls bottom left.
+      const minimap: Size | null = mm && mm.width > 0 ? { width: pane.right - mm.left, height: pane.bottom - mm.top } : null;
+      const controls: Size | null = ctl && ctl.width > 0 ? { width: ctl.right - pane.left, height: pane.bottom - ctl.top } : null;
+      const padding = fitPadding(pane, bounds, { minimap, controls }, FIT_MAX_ZOOM);
+      void flow.setViewport(fitViewport(pane, bounds, padding, FIT_MIN_ZOOM, FIT_MAX_ZOOM), { duration: 0 });
+    };
+    const id = requestAnimationFrame(fit);
     return () => cancelAnimationFrame(id);
+    // Only a new request fits: xyflow's helpers settle once the pane is ready, which must not refit by itself.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [store, fitRequest]);
 }
 
@@ -165,7 +166,9 @@ export function useAutosave(opts: { enabled: boolean; draftVersion: number; onSa
   const [state, setState] = useState<DraftState>({ kind: "saved" });
   const ref = useRef({ version: opts.draftVersion, saved: JSON.stringify(docOf(store.getState())), busy: false, stopped: false, force: false });
   const onSave = useRef(opts.onSaveDraft);
-  onSave.current = opts.onSaveDraft;
+  useEffect(() => {
+    onSave.current = opts.onSaveDraft;
+  });
   const [kick, setKick] = useState(0);
 
   useEffect(() => {
@@ -216,6 +219,16 @@ export function useAutosave(opts: { enabled: boolean; draftVersion: number; onSa
     };
   }, [store, opts.enabled, kick]);
 
+  const saveAgain = useCallback(() => {
+    ref.current.force = true;
+    setKick((k) => k + 1);
+  }, []);
+  const keepMine = useCallback((currentVersion: number) => {
+    ref.current.version = currentVersion;
+    ref.current.stopped = false;
+    setState({ kind: "pending" });
+    setKick((k) => k + 1);
+  }, []);
   return {
     state,
     dirty: state.kind !== "saved",
@@ -223,16 +236,8 @@ export function useAutosave(opts: { enabled: boolean; draftVersion: number; onSa
      * Saves the draft again even when its content is unchanged: after a revision is saved, so the
      * draft records its new base (a draft save that raced the revision recorded the old one).
      */
-    saveAgain() {
-      ref.current.force = true;
-      setKick((k) => k + 1);
-    },
+    saveAgain,
     /** After a conflict: take the other tab's version as the base and save this copy over it. */
-    keepMine(currentVersion: number) {
-      ref.current.version = currentVersion;
-      ref.current.stopped = false;
-      setState({ kind: "pending" });
-      setKick((k) => k + 1);
-    },
+    keepMine,
   };
 }

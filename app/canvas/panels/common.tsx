@@ -1,6 +1,6 @@
 // Small pieces shared by the side panels: compact labelled fields (text fields that commit on
 // Enter or when left), field problems, the document.
-import { useEffect, useId, useMemo, useRef, useState, type ButtonHTMLAttributes, type InputHTMLAttributes, type KeyboardEvent, type ReactNode } from "react";
+import { useEffect, useId, useLayoutEffect, useMemo, useRef, useState, type ButtonHTMLAttributes, type InputHTMLAttributes, type KeyboardEvent, type ReactNode } from "react";
 import type { Problem } from "../../engine";
 import { flowToDocument } from "../convert";
 import { useEditor } from "../store";
@@ -89,7 +89,9 @@ export function CommitText({
     }
   }, [value]);
   const latest = useRef({ draft, value, onCommit, disabled });
-  latest.current = { draft, value, onCommit, disabled };
+  useLayoutEffect(() => {
+    latest.current = { draft, value, onCommit, disabled };
+  });
   // Leaving by unmounting (the selection moved on) still commits what was typed.
   useEffect(
     () => () => {

@@ -1,6 +1,6 @@
 // The motor controller: the throttle's condition and the class of each of its states, whether
 // braking cuts drive, and the lockouts (each explained in one line).
-import type { Lockout, ThrottleMapping } from "../../engine";
+import type { ThrottleMapping } from "../../engine";
 import { LOCKOUTS } from "../../engine/vocabulary";
 import { LOCKOUT_TEXT, lockoutTitle } from "../../lib/lockouts";
 import { useEditor } from "../store";
