@@ -13,14 +13,14 @@ import { currentDispositions, dispositionHistory } from "~/reviews/dispositions.
 import { ReportChanges, ReportReading, type ReportDisposition } from "~/components/review/report-sections";
 import { env } from "~/env.server";
 import { tableColumns } from "~/reviews/truth-table.server";
-import { tableRow, type TableColumns, type TableRow } from "~/reviews/truth-table";
-import { describeBand, printBands } from "~/reviews/print-bands";
+import { tableRow } from "~/reviews/truth-table";
+import { printBands } from "~/reviews/print-bands";
 import { REVIEW_STATUS_LABELS, VERDICT_LABELS } from "~/reviews/status";
 import { csvApiPath, reportPath, reportPdfPath, reviewPath } from "~/reviews/paths";
 import { pageRows, type Design, type Predicate } from "~/engine";
 import { SAFETY_TEXT } from "~/components/safety-note";
 import { VerdictSummary } from "~/components/truth-table/verdict-summary";
-import { TruthTableGrid } from "~/components/truth-table/grid";
+import { TruthTableBands } from "~/components/truth-table/print-bands";
 import { WiringDiagram } from "~/components/wiring-diagram";
 import { Logo } from "~/components/logo";
 import { SectionError } from "~/components/error-boundary";
@@ -351,38 +351,6 @@ export default function Report({ loaderData }: Route.ComponentProps) {
         </aside>
       </main>
     </div>
-  );
-}
-
-/**
- * The whole table in bands as wide as the paper: each repeats the row number and the conditions
- * (app/reviews/print-bands.ts), so no column is cut off at the page's edge.
- */
-function TruthTableBands({ columns, rows }: { columns: TableColumns; rows: TableRow[] }) {
-  const bands = printBands(columns, rows.length);
-  return (
-    <>
-      {bands.length > 1 ? (
-        <p className="mt-2 text-ink-600">
-          The table is printed in {bands.length} parts; each repeats the row number and the conditions.
-        </p>
-      ) : null}
-      {bands.map((band, i) => {
-        const what = describeBand(band, columns);
-        return (
-          <div key={i} className={`mt-3 ${i > 0 ? "break-before-page" : ""}`}>
-            {bands.length > 1 ? (
-              <h3 className="font-semibold">
-                Part {i + 1} of {bands.length}: conditions with {what}
-              </h3>
-            ) : null}
-            <div className="mt-1">
-              <TruthTableGrid columns={columns} rows={rows} band={band} dense sticky={false} caption={bands.length > 1 ? `Truth table, part ${i + 1}: ${what}` : "Full truth table"} />
-            </div>
-          </div>
-        );
-      })}
-    </>
   );
 }
 
