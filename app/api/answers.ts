@@ -4,7 +4,7 @@
 // (app/api/client.ts) and the integration tests check every answer against them. No server imports.
 import { z } from "zod";
 import { designSchema, INPUT_FUNCTIONS, LOCKOUTS, VERDICT_FORMAT } from "~/engine";
-import { DESIGN_STATUSES } from "~/designs/types";
+import { DESIGN_STATUSES } from "~/designs/statuses";
 import { STEP_OUTCOMES } from "~/bench-runs/outcomes";
 import { REVIEW_STATUSES } from "~/reviews/status";
 import { CONTROLLER_CHECK_FORMAT, FINDING_CODES, controllerRecordShape } from "~/controller-record";

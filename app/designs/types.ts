@@ -5,12 +5,9 @@ import type { DraftCheck } from "~/api/answers";
 
 export type { Problem, Verdict };
 
-/**
- * Where a design stands. "draft": no revision saved yet; "proven": the latest revision is saved
- * (only proven designs save, so every revision is proven). Review states come with reviews.
- */
-export const DESIGN_STATUSES = ["draft", "proven"] as const;
-export type DesignStatus = (typeof DESIGN_STATUSES)[number];
+import { DESIGN_STATUSES, type DesignStatus } from "./statuses";
+
+export { DESIGN_STATUSES, type DesignStatus };
 
 export const STATUS_LABELS: Record<DesignStatus, string> = {
   draft: "Draft",

@@ -16,7 +16,6 @@ import {
   type Diagnosis,
   type FaultMode,
   type InputFunction,
-  type Lockout,
   type RowView,
 } from "../engine";
 import { lockoutName } from "../lib/lockouts";

@@ -1,6 +1,6 @@
 // One step of a bench run on the technician's phone: what to set, what must happen, the result
 // buttons, the note, photos and whether the engineer has been mailed about a failure.
-import { useEffect, useState } from "react";
+import { useState } from "react";
 import { useFetcher } from "react-router";
 import type { BenchPlan } from "~/bench-tests/generate";
 import { OUTCOME_LABELS, STEP_OUTCOMES, type StepOutcome } from "~/bench-runs/outcomes";
@@ -68,8 +68,7 @@ export function StepCard({ step, result, slug, canRecord, putting, tapError, onO
   const [note, setNote] = useState(result.note);
   // What the server holds; a pending save counts as saved so the button does not invite a second one.
   const pendingNote = noteFetcher.formData?.get("note");
-  const [savedNote, setSavedNote] = useState(result.note);
-  useEffect(() => setSavedNote(result.note), [result.note]);
+  const savedNote = result.note;
   const noteSaved = note === (typeof pendingNote === "string" ? pendingNote : savedNote);
   const saveNote = () => {
     if (noteSaved) return;

@@ -23,7 +23,9 @@ export function useLiveRun(runId: string, fromLoader: LiveRun, status: LiveRun["
     void mutate(fromLoader, { revalidate: false });
   }, [fromLoader, mutate]);
   const latest = useRef(data);
-  latest.current = data;
+  useEffect(() => {
+    latest.current = data;
+  });
   const [putting, setPutting] = useState<Record<number, number>>({});
   const [errors, setErrors] = useState<Record<number, string>>({});
   const bump = (n: number, by: number) => setPutting((p) => ({ ...p, [n]: (p[n] ?? 0) + by }));

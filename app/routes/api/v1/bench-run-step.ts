@@ -20,7 +20,7 @@ export async function action({ request, params, context }: Route.ActionArgs) {
     const n = /^[1-9][0-9]{0,5}$/.test(params.n) ? Number(params.n) : -1;
     const body = await parseBody(request, stepResultBodySchema, "step result");
     const ws = member.workspace.id;
-    let mailed = false;
+    let mailed: boolean;
     try {
       // The note first: it has no side effects, so a refused step leaves nothing saved.
       if (body.note !== undefined) await setStepNote(ws, params.runId, n, body.note, member.user.id);
