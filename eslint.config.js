@@ -23,7 +23,10 @@ export default tseslint.config(
       // A cycle between modules makes load order matter and hides layering mistakes.
       "import-x/no-cycle": ["error", { ignoreExternal: true }],
       // Names that start with an underscore are deliberately unused (a tuple's skipped place, a rest sibling).
-      "@typescript-eslint/no-unused-vars": ["error", { argsIgnorePattern: "^_", varsIgnorePattern: "^_", caughtErrors: "none", ignoreRestSiblings: true }],
+      "@typescript-eslint/no-unused-vars": [
+        "error",
+        { argsIgnorePattern: "^_", varsIgnorePattern: "^_", caughtErrors: "none", ignoreRestSiblings: true },
+      ],
     },
   },
   {

@@ -15,7 +15,16 @@ export default defineConfig({
     screenshot: "only-on-failure",
     launchOptions: {
       executablePath: "/usr/bin/chromium",
-      args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-quic", "--no-first-run", "--disable-component-update", "--disable-sync"],
+      args: [
+        "--headless",
+        "--no-sandbox",
+        "--disable-gpu",
+        "--disable-background-networking",
+        "--disable-quic",
+        "--no-first-run",
+        "--disable-component-update",
+        "--disable-sync",
+      ],
     },
   },
   outputDir: ".data/test-results/e2e-artifacts",

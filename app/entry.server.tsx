@@ -2,7 +2,14 @@
 // but the framework's own.
 import { Transform, type TransformCallback } from "node:stream";
 import { createReadableStreamFromReadable } from "@react-router/node";
-import { isRouteErrorResponse, ServerRouter, type ActionFunctionArgs, type EntryContext, type RouterContextProvider, type LoaderFunctionArgs } from "react-router";
+import {
+  isRouteErrorResponse,
+  ServerRouter,
+  type ActionFunctionArgs,
+  type EntryContext,
+  type RouterContextProvider,
+  type LoaderFunctionArgs,
+} from "react-router";
 import { isbot } from "isbot";
 import { renderToPipeableStream } from "react-dom/server";
 import { contentSecurityPolicy } from "./lib/csp";

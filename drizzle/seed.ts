@@ -66,7 +66,9 @@ export async function seed(databaseUrl: string, log: (s: string) => void = conso
       for (const u of DEMO_USERS) {
         const userId = crypto.randomUUID();
         await tx.insert(schema.user).values({ id: userId, email: u.email, name: u.name, emailVerified: true });
-        await tx.insert(schema.account).values({ id: crypto.randomUUID(), accountId: userId, providerId: "credential", userId, password: hash });
+        await tx
+          .insert(schema.account)
+          .values({ id: crypto.randomUUID(), accountId: userId, providerId: "credential", userId, password: hash });
         await tx.insert(schema.member).values({ id: crypto.randomUUID(), workspaceId, userId, role: u.role });
       }
       for (const v of VEHICLES) await tx.insert(schema.vehicle).values({ id: crypto.randomUUID(), workspaceId, ...v });
@@ -87,7 +89,12 @@ const DEMO_DESIGNS = [
   {
     name: "Haybarn hauler #3, drive inhibit",
     vehicle: "Haybarn campus hauler #3",
-    revisions: [{ file: "haybarn-campus-hauler.json", message: "Key, seat, charge inlet and park brake; lockouts on power, enable, direction and brake" }],
+    revisions: [
+      {
+        file: "haybarn-campus-hauler.json",
+        message: "Key, seat, charge inlet and park brake; lockouts on power, enable, direction and brake",
+      },
+    ],
     draft: "haybarn-campus-hauler.json",
   },
   {
@@ -114,7 +121,10 @@ function demoDocument(file: string): Record<string, unknown> {
 
 /** Adds the demo designs to the workspace when it has none; returns how many it added. */
 export async function seedDemoDesigns(db: Seeder, workspaceId: string): Promise<number> {
-  const existing = await db.select({ n: sql<number>`count(*)::int` }).from(schema.design).where(eq(schema.design.workspaceId, workspaceId));
+  const existing = await db
+    .select({ n: sql<number>`count(*)::int` })
+    .from(schema.design)
+    .where(eq(schema.design.workspaceId, workspaceId));
   if ((existing[0]?.n ?? 0) > 0) return 0;
   const author = await db
     .select({ id: schema.user.id })
@@ -124,13 +134,18 @@ export async function seedDemoDesigns(db: Seeder, workspaceId: string): Promise<
     .limit(1);
   if (!author[0]) throw new Error(`the demo engineer ${DEMO_USERS[1].email} is not a member of the workspace`);
   const authorId = author[0].id;
-  const vehicles = await db.select({ id: schema.vehicle.id, name: schema.vehicle.name }).from(schema.vehicle).where(eq(schema.vehicle.workspaceId, workspaceId));
+  const vehicles = await db
+    .select({ id: schema.vehicle.id, name: schema.vehicle.name })
+    .from(schema.vehicle)
+    .where(eq(schema.vehicle.workspaceId, workspaceId));
   const day = 24 * 3600 * 1000;
   const now = Date.now();
   for (const d of DEMO_DESIGNS) {
     const designId = crypto.randomUUID();
     const vehicleId = vehicles.find((v) => v.name === d.vehicle)?.id ?? null;
-    await db.insert(schema.design).values({ id: designId, workspaceId, vehicleId, name: d.name, createdBy: authorId, createdAt: new Date(now - 3 * day) });
+    await db
+      .insert(schema.design)
+      .values({ id: designId, workspaceId, vehicleId, name: d.name, createdBy: authorId, createdAt: new Date(now - 3 * day) });
     let number = 0;
     for (const r of d.revisions) {
       const proof = proveDocument(demoDocument(r.file));
@@ -184,26 +199,64 @@ export async function seedDesignsOnly(databaseUrl: string, log: (s: string) => v
 const DEMO_RELEASE = { design: "Haybarn hauler #3, drive inhibit", vehicle: "Haybarn campus hauler #3", number: 1 };
 
 /** How the demo hauler's defeating faults are dealt with (invented for the demo). */
-const DEMO_DISPOSITIONS: Record<string, { disposition: "accepted" | "fix-next-revision" | "ruled-out"; justification: string; by: "engineer" | "reviewer" }> = {
-  BRK: { disposition: "accepted", by: "reviewer", justification: "Two-channel pedal switch; the controller compares both channels and stops on a mismatch." },
-  INLET: { disposition: "accepted", by: "engineer", justification: "The charger opens the pack contactor while its plug is in, independently of this switch." },
-  KEY: { disposition: "accepted", by: "engineer", justification: "The pack disconnect is within reach of the seat; the daily check turns the key off and confirms no drive." },
-  SEAT: { disposition: "fix-next-revision", by: "engineer", justification: "Revision 2 adds a second seat contact in series; until then the seat switch is checked at every service." },
-  "*": { disposition: "fix-next-revision", by: "engineer", justification: "A second contact in series follows in the next revision; checked at the daily pre-use check until then." },
+const DEMO_DISPOSITIONS: Record<
+  string,
+  { disposition: "accepted" | "fix-next-revision" | "ruled-out"; justification: string; by: "engineer" | "reviewer" }
+> = {
+  BRK: {
+    disposition: "accepted",
+    by: "reviewer",
+    justification: "Two-channel pedal switch; the controller compares both channels and stops on a mismatch.",
+  },
+  INLET: {
+    disposition: "accepted",
+    by: "engineer",
+    justification: "The charger opens the pack contactor while its plug is in, independently of this switch.",
+  },
+  KEY: {
+    disposition: "accepted",
+    by: "engineer",
+    justification: "The pack disconnect is within reach of the seat; the daily check turns the key off and confirms no drive.",
+  },
+  SEAT: {
+    disposition: "fix-next-revision",
+    by: "engineer",
+    justification: "Revision 2 adds a second seat contact in series; until then the seat switch is checked at every service.",
+  },
+  "*": {
+    disposition: "fix-next-revision",
+    by: "engineer",
+    justification: "A second contact in series follows in the next revision; checked at the daily pre-use check until then.",
+  },
 };
 
 /** Approves and releases the demo revision when the vehicle has no release yet; returns whether it did. */
 export async function seedDemoRelease(db: Seeder, workspaceId: string): Promise<boolean> {
   const rows = await db
-    .select({ revisionId: schema.designRevision.id, designId: schema.design.id, contentHash: schema.designRevision.contentHash, vehicleId: schema.vehicle.id })
+    .select({
+      revisionId: schema.designRevision.id,
+      designId: schema.design.id,
+      contentHash: schema.designRevision.contentHash,
+      vehicleId: schema.vehicle.id,
+    })
     .from(schema.designRevision)
     .innerJoin(schema.design, eq(schema.design.id, schema.designRevision.designId))
     .innerJoin(schema.vehicle, and(eq(schema.vehicle.workspaceId, workspaceId), eq(schema.vehicle.name, DEMO_RELEASE.vehicle)))
-    .where(and(eq(schema.design.workspaceId, workspaceId), eq(schema.design.name, DEMO_RELEASE.design), eq(schema.designRevision.number, DEMO_RELEASE.number)))
+    .where(
+      and(
+        eq(schema.design.workspaceId, workspaceId),
+        eq(schema.design.name, DEMO_RELEASE.design),
+        eq(schema.designRevision.number, DEMO_RELEASE.number),
+      ),
+    )
     .limit(1);
   const r = rows[0];
   if (!r) return false;
-  const released = await db.select({ id: schema.vehicleRelease.id }).from(schema.vehicleRelease).where(eq(schema.vehicleRelease.vehicleId, r.vehicleId)).limit(1);
+  const released = await db
+    .select({ id: schema.vehicleRelease.id })
+    .from(schema.vehicleRelease)
+    .where(eq(schema.vehicleRelease.vehicleId, r.vehicleId))
+    .limit(1);
   if (released[0]) return false;
   const people = await db
     .select({ id: schema.user.id, email: schema.user.email })
@@ -225,7 +278,10 @@ export async function seedDemoRelease(db: Seeder, workspaceId: string): Promise<
     requestedAt: new Date(now - 30 * hour),
   });
   // Every single fault that defeats a rule is dealt with before approval (docs/decisions/161).
-  const verdict = await db.select({ verdict: schema.designRevision.verdict }).from(schema.designRevision).where(eq(schema.designRevision.id, r.revisionId));
+  const verdict = await db
+    .select({ verdict: schema.designRevision.verdict })
+    .from(schema.designRevision)
+    .where(eq(schema.designRevision.id, r.revisionId));
   for (const [k, f] of (verdict[0]?.verdict.singleFaults ?? []).entries()) {
     const how = DEMO_DISPOSITIONS[f.component] ?? DEMO_DISPOSITIONS["*"]!;
     await db.insert(schema.faultDisposition).values({
@@ -318,9 +374,16 @@ const DEMO_RECORDS: { vehicle: string; hoursAgo: number; by: string; document: R
  * the workspace has a record yet; returns whether it did.
  */
 export async function seedDemoControllerRecords(db: Seeder, workspaceId: string): Promise<boolean> {
-  const any = await db.select({ id: schema.controllerRecord.id }).from(schema.controllerRecord).where(eq(schema.controllerRecord.workspaceId, workspaceId)).limit(1);
+  const any = await db
+    .select({ id: schema.controllerRecord.id })
+    .from(schema.controllerRecord)
+    .where(eq(schema.controllerRecord.workspaceId, workspaceId))
+    .limit(1);
   if (any[0]) return false;
-  const vehicles = await db.select({ id: schema.vehicle.id, name: schema.vehicle.name }).from(schema.vehicle).where(eq(schema.vehicle.workspaceId, workspaceId));
+  const vehicles = await db
+    .select({ id: schema.vehicle.id, name: schema.vehicle.name })
+    .from(schema.vehicle)
+    .where(eq(schema.vehicle.workspaceId, workspaceId));
   const people = await db
     .select({ id: schema.user.id, email: schema.user.email })
     .from(schema.member)
@@ -380,7 +443,10 @@ export async function seedControllerRecordsOnly(databaseUrl: string, log: (s: st
         .select({ id: schema.vehicle.id })
         .from(schema.vehicle)
         .where(and(eq(schema.vehicle.workspaceId, workspaceId), eq(schema.vehicle.name, "Haybarn campus hauler #5")));
-      if (!has5[0]) await tx.insert(schema.vehicle).values({ id: crypto.randomUUID(), workspaceId, ...VEHICLES.find((v) => v.name === "Haybarn campus hauler #5")! });
+      if (!has5[0])
+        await tx
+          .insert(schema.vehicle)
+          .values({ id: crypto.randomUUID(), workspaceId, ...VEHICLES.find((v) => v.name === "Haybarn campus hauler #5")! });
       return seedDemoControllerRecords(tx, workspaceId);
     });
     log(done ? "added the demo controller records" : "the demo workspace already has controller records (or no release); nothing done");

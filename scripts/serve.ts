@@ -30,7 +30,9 @@ const host = process.env.HOST ?? "127.0.0.1";
 // Their X-Forwarded-For entries and X-Forwarded-Proto/Host are used; anything a client wrote before them is not.
 const proxyHops = Number(process.env.TRUST_PROXY ?? 0);
 if (!Number.isInteger(proxyHops) || proxyHops < 0 || proxyHops > 10) {
-  console.error(`chainproof: not starting: TRUST_PROXY is the number of proxies in front of this server (0 to 10), not "${process.env.TRUST_PROXY}".`);
+  console.error(
+    `chainproof: not starting: TRUST_PROXY is the number of proxies in front of this server (0 to 10), not "${process.env.TRUST_PROXY}".`,
+  );
   process.exit(1);
 }
 const buildDir = path.resolve(process.argv[2] ?? "build");
@@ -80,7 +82,9 @@ async function runPrimary() {
     }
     quickEnds = lived < 10_000 ? quickEnds + 1 : 0;
     const wait = quickEnds === 0 ? 0 : Math.min(30_000, 1000 * 2 ** (quickEnds - 1));
-    console.error(`chainproof: server process ${worker.process.pid} ended (${signal ?? code}); starting another${wait ? ` in ${wait / 1000} s` : ""}`);
+    console.error(
+      `chainproof: server process ${worker.process.pid} ended (${signal ?? code}); starting another${wait ? ` in ${wait / 1000} s` : ""}`,
+    );
     setTimeout(() => {
       if (!stopping) fork();
     }, wait);
@@ -132,7 +136,8 @@ async function runServer() {
   // No id, slug or token holds a NUL character (PostgreSQL text cannot): a path with %00 names nothing.
   app.use((req, res, next) => {
     if (!/%00/i.test(req.originalUrl.split("?")[0] ?? "")) return next();
-    if (req.path.startsWith("/api/")) res.status(404).json({ error: { code: "not_found", message: "Nothing is at this address.", fields: [] } });
+    if (req.path.startsWith("/api/"))
+      res.status(404).json({ error: { code: "not_found", message: "Nothing is at this address.", fields: [] } });
     else res.status(404).type("text/plain").send("Not found");
   });
   app.use("/assets", express.static(path.join(buildDir, "client/assets"), { immutable: true, maxAge: "1y" }));

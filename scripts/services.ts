@@ -61,7 +61,19 @@ export function startPostgres(opts: { dir: string; port: number; password?: stri
     const ids = postgresIds();
     if (ids) chownSync(dir, ids.uid, ids.gid);
     chmodSync(dir, 0o700);
-    const r = runPg("initdb", ["-D", dir, "-U", user, "--pwfile", pwfile, "--auth-host=scram-sha-256", "--auth-local=scram-sha-256", "-E", "UTF8", "--locale=C.UTF-8"]);
+    const r = runPg("initdb", [
+      "-D",
+      dir,
+      "-U",
+      user,
+      "--pwfile",
+      pwfile,
+      "--auth-host=scram-sha-256",
+      "--auth-local=scram-sha-256",
+      "-E",
+      "UTF8",
+      "--locale=C.UTF-8",
+    ]);
     if (r.status !== 0) throw new Error(`initdb failed: ${r.stderr || r.stdout}`);
   }
   const status = runPg("pg_ctl", ["status", "-D", dir]);
@@ -70,8 +82,16 @@ export function startPostgres(opts: { dir: string; port: number; password?: stri
   } else {
     const logFile = path.join(dir, "server.log");
     const r = runPg("pg_ctl", [
-      "start", "-D", dir, "-w", "-t", "60", "-l", logFile,
-      "-o", `-c listen_addresses=127.0.0.1 -p ${opts.port} -c unix_socket_directories='' -c max_connections=200 -c fsync=off -c synchronous_commit=off`,
+      "start",
+      "-D",
+      dir,
+      "-w",
+      "-t",
+      "60",
+      "-l",
+      logFile,
+      "-o",
+      `-c listen_addresses=127.0.0.1 -p ${opts.port} -c unix_socket_directories='' -c max_connections=200 -c fsync=off -c synchronous_commit=off`,
     ]);
     if (r.status !== 0) throw new Error(`PostgreSQL did not start: ${r.stderr || r.stdout} (see ${logFile})`);
     log(`PostgreSQL started on 127.0.0.1:${opts.port}`);

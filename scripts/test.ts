@@ -1,4 +1,4 @@
-// `npm test`: typecheck, unit tests, integration tests against real PostgreSQL and the running app,
+// `npm test`: typecheck, lint, unit tests, integration tests against real PostgreSQL and the running app,
 // and end-to-end tests in Debian's Chromium. Prints one closing line "N passed, N failed".
 import { randomBytes } from "node:crypto";
 import { existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";
@@ -18,7 +18,13 @@ function addVitest(file: string, label: string, exit: number) {
     failures.push(`${label}: no report (exit ${exit})`);
     return;
   }
-  const r = JSON.parse(readFileSync(file, "utf8")) as { numPassedTests: number; numFailedTests: number; numPendingTests: number; numTodoTests: number; numFailedTestSuites: number };
+  const r = JSON.parse(readFileSync(file, "utf8")) as {
+    numPassedTests: number;
+    numFailedTests: number;
+    numPendingTests: number;
+    numTodoTests: number;
+    numFailedTestSuites: number;
+  };
   tally.passed += r.numPassedTests;
   tally.failed += r.numFailedTests + (r.numFailedTests === 0 && exit !== 0 ? 1 : 0);
   tally.skipped += r.numPendingTests + r.numTodoTests;
@@ -57,11 +63,30 @@ if (only.length === 0) {
     tally.failed += 1;
     failures.push("typecheck");
   }
+  say("test", "lint (ESLint, Prettier)");
+  if ((await run("npm", ["run", "--silent", "lint"])) === 0) tally.passed += 1;
+  else {
+    tally.failed += 1;
+    failures.push("lint");
+  }
 }
 
 if (wants(["test/unit/", "app/"])) {
   say("test", "unit tests");
-  addVitest(`${results}/unit.json`, "unit", await run("npx", ["vitest", "run", "--project", "unit", ...unitFiles, "--reporter=default", "--reporter=json", `--outputFile.json=${results}/unit.json`]));
+  addVitest(
+    `${results}/unit.json`,
+    "unit",
+    await run("npx", [
+      "vitest",
+      "run",
+      "--project",
+      "unit",
+      ...unitFiles,
+      "--reporter=default",
+      "--reporter=json",
+      `--outputFile.json=${results}/unit.json`,
+    ]),
+  );
 }
 
 if (wants(["test/integration/", "test/fault/", "load", "test/e2e/"])) await withStack();
@@ -96,13 +121,27 @@ async function withStack() {
     if (wants(["test/integration/"])) {
       say("test", "integration tests");
       const out = `--outputFile.json=${results}/integration.json`;
-      addVitest(`${results}/integration.json`, "integration", await run("npx", ["vitest", "run", "--project", "integration", ...integrationFiles, "--reporter=default", "--reporter=json", out], testEnv));
+      addVitest(
+        `${results}/integration.json`,
+        "integration",
+        await run(
+          "npx",
+          ["vitest", "run", "--project", "integration", ...integrationFiles, "--reporter=default", "--reporter=json", out],
+          testEnv,
+        ),
+      );
     }
 
     if (wants(["test/fault/"])) {
       say("test", "fault tests (the database stopped and started under traffic)");
       const out = `--outputFile.json=${results}/fault.json`;
-      addVitest(`${results}/fault.json`, "fault", await run("npx", ["vitest", "run", "--project", "fault", ...faultFiles, "--reporter=default", "--reporter=json", out], pgEnv, { ownGroup: true }));
+      addVitest(
+        `${results}/fault.json`,
+        "fault",
+        await run("npx", ["vitest", "run", "--project", "fault", ...faultFiles, "--reporter=default", "--reporter=json", out], pgEnv, {
+          ownGroup: true,
+        }),
+      );
     }
 
     if (wants(["load"])) {
@@ -117,7 +156,10 @@ async function withStack() {
 
     if (wants(["test/e2e/"])) {
       say("test", "end-to-end tests (Chromium)");
-      addPlaywright(`${results}/e2e.json`, await run("npx", ["playwright", "test", ...e2eFiles], { ...testEnv, PLAYWRIGHT_JSON_OUTPUT_NAME: `${results}/e2e.json` }));
+      addPlaywright(
+        `${results}/e2e.json`,
+        await run("npx", ["playwright", "test", ...e2eFiles], { ...testEnv, PLAYWRIGHT_JSON_OUTPUT_NAME: `${results}/e2e.json` }),
+      );
     }
   } catch (err) {
     tally.failed += 1;

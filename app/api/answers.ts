@@ -32,7 +32,8 @@ const errorShape = {
 /** Every answer that is not a success. */
 export const errorSchema = z.object(errorShape).meta({
   id: "Error",
-  description: "Every answer that is not a success. A few add a field beside error: currentVersion (409 stale_draft, 409 stale_record), latestRevision (409 stale_revision), verdict (422 rules_fail and never_drives).",
+  description:
+    "Every answer that is not a success. A few add a field beside error: currentVersion (409 stale_draft, 409 stale_record), latestRevision (409 stale_revision), verdict (422 rules_fail and never_drives).",
 });
 export type ErrorAnswer = z.output<typeof errorSchema>;
 
@@ -62,17 +63,21 @@ export const verdictSchema = z
   })
   .meta({
     id: "Verdict",
-    description: "The engine's proof of a design (chainproof/verdict@1): per rule whether it holds, and the single contact faults that defeat a rule.",
+    description:
+      "The engine's proof of a design (chainproof/verdict@1): per rule whether it holds, and the single contact faults that defeat a rule.",
   });
 
 /** A saved design document: the engine's own schema (cross-references are the engine's validation). */
 export const designDocumentSchema = designSchema.meta({
   id: "DesignDocument",
-  description: "A design (chainproof/design@1): conditions, contacts and wires, the controller's inputs, and the rules. Cross-references are checked by the engine.",
+  description:
+    "A design (chainproof/design@1): conditions, contacts and wires, the controller's inputs, and the rules. Cross-references are checked by the engine.",
 });
 
 /** A draft's document: any JSON object (a draft may be unfinished). */
-export const draftDocumentSchema = z.record(z.string(), z.unknown()).meta({ description: "The working copy as saved; it may break the design format." });
+export const draftDocumentSchema = z
+  .record(z.string(), z.unknown())
+  .meta({ description: "The working copy as saved; it may break the design format." });
 
 const direction = z.enum(["forward", "neutral", "reverse", "conflict"]);
 const throttle = z.enum(["released", "applied", "fault"]);
@@ -114,14 +119,25 @@ export const diagnosisSchema = z
         label: z.string(),
         function: z.enum(INPUT_FUNCTIONS),
         energized: z.boolean(),
-        fixes: z.array(z.array(contactToClose)).meta({ description: "For a dead input: each smallest set of open contacts whose closing would energize it." }),
+        fixes: z
+          .array(z.array(contactToClose))
+          .meta({ description: "For a dead input: each smallest set of open contacts whose closing would energize it." }),
         unreachable: z.boolean(),
         truncated: z.boolean(),
       }),
     ),
     reasons: z.array(
       z.object({
-        code: z.enum(["unpowered", "not-enabled", "neutral", "direction-conflict", "braking", "throttle-released", "throttle-fault", "lockout-latched"]),
+        code: z.enum([
+          "unpowered",
+          "not-enabled",
+          "neutral",
+          "direction-conflict",
+          "braking",
+          "throttle-released",
+          "throttle-fault",
+          "lockout-latched",
+        ]),
         message: z.string(),
         input: z.string().optional(),
         lockouts: z.array(z.enum(LOCKOUTS)).optional(),
@@ -133,9 +149,14 @@ export const diagnosisSchema = z
 export const readingsSchema = z
   .object({
     consistent: z.boolean().meta({ description: "The fault-free design gives these readings in this row." }),
-    explanations: z.array(z.object({ component: z.string(), mode: z.enum(["stuck-open", "stuck-closed"]), otherInputsChanged: z.array(z.string()) })),
+    explanations: z.array(
+      z.object({ component: z.string(), mode: z.enum(["stuck-open", "stuck-closed"]), otherInputsChanged: z.array(z.string()) }),
+    ),
   })
-  .meta({ id: "ReadingsExplanation", description: "The engine's explainReadings: single contact faults that reproduce every reading, most likely first." });
+  .meta({
+    id: "ReadingsExplanation",
+    description: "The engine's explainReadings: single contact faults that reproduce every reading, most likely first.",
+  });
 
 // ---------------------------------------------------------------- designs, drafts, revisions
 
@@ -183,7 +204,10 @@ export type DesignSummary = z.output<typeof designSummarySchema>;
 const designHead = z.object({ id: z.string(), name: z.string(), vehicleId: z.string().nullable(), status: z.enum(DESIGN_STATUSES) });
 
 export const designListAnswer = z.object({ designs: z.array(designSummarySchema), nextCursor: nextCursorSchema });
-export const designCreatedAnswer = z.object({ design: designHead.extend({ status: z.literal("draft") }), draft: z.object({ version: int }) });
+export const designCreatedAnswer = z.object({
+  design: designHead.extend({ status: z.literal("draft") }),
+  draft: z.object({ version: int }),
+});
 export const designAnswer = z.object({
   design: designHead,
   latestRevision: int.nullable(),
@@ -194,14 +218,24 @@ export const designAnswer = z.object({
 });
 export const draftAnswer = z.object({
   draft: z
-    .object({ version: int, baseRevision: int, updatedAt: isoTime, updatedBy: person, contentHash: z.string(), check: draftCheckSchema, document: draftDocumentSchema })
+    .object({
+      version: int,
+      baseRevision: int,
+      updatedAt: isoTime,
+      updatedBy: person,
+      contentHash: z.string(),
+      check: draftCheckSchema,
+      document: draftDocumentSchema,
+    })
     .nullable(),
 });
 export const draftSavedAnswer = z.object({ version: int });
 export const staleDraftError = errorSchema.extend({ currentVersion: int.meta({ description: "The draft's version now." }) });
 
 export const revisionListAnswer = z.object({
-  revisions: z.array(z.object({ number: int, contentHash: z.string(), message: z.string(), author: person, createdAt: isoTime, singleFaults: int })),
+  revisions: z.array(
+    z.object({ number: int, contentHash: z.string(), message: z.string(), author: person, createdAt: isoTime, singleFaults: int }),
+  ),
   nextCursor: nextCursorSchema,
 });
 export const revisionSavedAnswer = z.object({ revision: z.object({ number: int, contentHash: z.string(), verdict: verdictSchema }) });
@@ -216,12 +250,10 @@ export const revisionAnswer = z.object({
     createdAt: isoTime,
     document: designDocumentSchema,
     verdict: verdictSchema,
-    refusedByFormat11: z
-      .array(z.string())
-      .meta({
-        description:
-          "Why design format 1.1 would refuse this revision, saved before 1.1 (a rule matching no row, a design that never drives); empty when it passes. Such a revision stays readable and cannot be released.",
-      }),
+    refusedByFormat11: z.array(z.string()).meta({
+      description:
+        "Why design format 1.1 would refuse this revision, saved before 1.1 (a rule matching no row, a design that never drives); empty when it passes. Such a revision stays readable and cannot be released.",
+    }),
   }),
 });
 export const proofAnswer = z.object({ verdict: verdictSchema });
@@ -277,7 +309,16 @@ export const vehicleSchema = z
     release: releaseSchema.nullable(),
     releases: z.array(releaseSchema).meta({ description: "Every release, newest first." }),
     attention: z
-      .array(z.object({ id: z.string(), reason: z.string(), benchRunId: z.string().nullable(), step: int.nullable(), raisedAt: isoTime, raisedBy: named.nullable() }))
+      .array(
+        z.object({
+          id: z.string(),
+          reason: z.string(),
+          benchRunId: z.string().nullable(),
+          step: int.nullable(),
+          raisedAt: isoTime,
+          raisedBy: named.nullable(),
+        }),
+      )
       .meta({ description: "Open needs-attention flags." }),
   })
   .meta({ id: "Vehicle" });
@@ -318,7 +359,8 @@ export const runStepSchema = z
     updatedAt: isoTime.nullable(),
     updatedBy: named.nullable(),
     failureMailedAt: isoTime.nullable().meta({
-      description: "When this step's failure was mailed to the revision's author (once per step; sent when the next step is recorded, on request, or in the digest at completion).",
+      description:
+        "When this step's failure was mailed to the revision's author (once per step; sent when the next step is recorded, on request, or in the digest at completion).",
     }),
     photos: z.array(z.object({ id: z.string(), filename: z.string(), contentType: z.string(), url: z.string() })),
   })
@@ -347,7 +389,13 @@ export type RunJson = z.output<typeof runSchema>;
 
 export const runListAnswer = z.object({ runs: z.array(runSummarySchema), nextCursor: nextCursorSchema });
 export const runAnswer = z.object({ run: runSchema });
-export const stepSavedAnswer = z.object({ step: runStepSchema, mailed: z.boolean().meta({ description: "The author was mailed about failed steps recorded earlier in this run (a failed step is mailed once, when the technician moves on to another step)." }) });
+export const stepSavedAnswer = z.object({
+  step: runStepSchema,
+  mailed: z.boolean().meta({
+    description:
+      "The author was mailed about failed steps recorded earlier in this run (a failed step is mailed once, when the technician moves on to another step).",
+  }),
+});
 
 // ---------------------------------------------------------------- controller settings records
 
@@ -386,7 +434,10 @@ export const controllerCheckSchema = z
     }),
     findings: z.array(findingSchema).meta({ description: "Errors first, then by code, then by path." }),
   })
-  .meta({ id: "ControllerCheck", description: "The derived values and findings of a record (chainproof/controller-check@1), against a design when one is given." });
+  .meta({
+    id: "ControllerCheck",
+    description: "The derived values and findings of a record (chainproof/controller-check@1), against a design when one is given.",
+  });
 
 export const PROOF_STATES = ["no-record", "no-release", "holds", "does-not-hold", "record-invalid"] as const;
 
@@ -421,7 +472,9 @@ export const controllerRecordAnswer = z.object({
 });
 export type ControllerRecordAnswer = z.output<typeof controllerRecordAnswer>;
 
-export const staleRecordError = errorSchema.extend({ currentVersion: int.meta({ description: "The record's newest version now (0: none)." }) });
+export const staleRecordError = errorSchema.extend({
+  currentVersion: int.meta({ description: "The record's newest version now (0: none)." }),
+});
 export const controllerCheckAnswer = z.object({ check: controllerCheckSchema });
 
 // ---------------------------------------------------------------- reviews, mail, the description
@@ -469,4 +522,8 @@ export const outboxAnswer = z.object({
 });
 export type OutboxAnswer = z.output<typeof outboxAnswer>;
 
-export const openApiAnswer = z.object({ openapi: z.string(), info: z.object({ title: z.string() }), paths: z.record(z.string(), z.unknown()) });
+export const openApiAnswer = z.object({
+  openapi: z.string(),
+  info: z.object({ title: z.string() }),
+  paths: z.record(z.string(), z.unknown()),
+});

@@ -74,7 +74,12 @@ export async function readAnswer<E extends Endpoint>(endpoint: E, res: Response)
   if (!reply) throw unexpected(res.status, raw);
   const parsed = reply.schema.safeParse(raw);
   if (!parsed.success) {
-    if (res.ok) throw new ApiError(`The server's answer (${res.status}) did not have the expected shape; reload the page.`, res.status, "unexpected_answer");
+    if (res.ok)
+      throw new ApiError(
+        `The server's answer (${res.status}) did not have the expected shape; reload the page.`,
+        res.status,
+        "unexpected_answer",
+      );
     throw unexpected(res.status, raw);
   }
   return { status: res.status, body: parsed.data } as Answer<E>;
@@ -119,7 +124,12 @@ export async function fetchApi<E extends Endpoint>(endpoint: E, options: CallOpt
   const answer = await callApi(endpoint, options);
   if (isSuccess(answer.status)) return answer.body as Success<E>;
   const error = answer.body as Partial<ErrorAnswer>;
-  throw new ApiError(error.error?.message ?? `The server answered ${answer.status}.`, answer.status, error.error?.code ?? "error", error.error?.fields ?? []);
+  throw new ApiError(
+    error.error?.message ?? `The server answered ${answer.status}.`,
+    answer.status,
+    error.error?.code ?? "error",
+    error.error?.fields ?? [],
+  );
 }
 
 /** An swr fetcher of an endpoint's GET answers, keyed by the URL apiUrl made. */
@@ -134,6 +144,11 @@ export function apiFetcher<E extends Endpoint>(endpoint: E): (url: string) => Pr
     const answer = await readAnswer(endpoint, res);
     if (isSuccess(answer.status)) return answer.body as Success<E>;
     const error = answer.body as Partial<ErrorAnswer>;
-    throw new ApiError(error.error?.message ?? `The server answered ${answer.status}.`, answer.status, error.error?.code ?? "error", error.error?.fields ?? []);
+    throw new ApiError(
+      error.error?.message ?? `The server answered ${answer.status}.`,
+      answer.status,
+      error.error?.code ?? "error",
+      error.error?.fields ?? [],
+    );
   };
 }

@@ -74,11 +74,16 @@ function endpoint<const E extends Endpoint>(e: E): E {
 }
 
 const ok = <S extends z.ZodType>(description: string, schema: S) => ({ description, schema });
-const fail = <S extends z.ZodType = typeof A.errorSchema>(description: string, schema?: S) => ({ description, schema: (schema ?? A.errorSchema) as S });
+const fail = <S extends z.ZodType = typeof A.errorSchema>(description: string, schema?: S) => ({
+  description,
+  schema: (schema ?? A.errorSchema) as S,
+});
 
 /** Answers any endpoint can give. */
 const always = {
-  429: fail("Too many requests from this key, session or address (rate_limited), or two proofs of yours still running (too_many_proofs); wait and retry (Retry-After)."),
+  429: fail(
+    "Too many requests from this key, session or address (rate_limited), or two proofs of yours still running (too_many_proofs); wait and retry (Retry-After).",
+  ),
   500: fail("Something unexpected; nothing was saved."),
   503: fail("The database cannot be reached; nothing was changed. Retry after Retry-After seconds."),
 };
@@ -101,14 +106,25 @@ const MEMBER = "Any member of the workspace.";
 
 // Path parameters.
 const designId = z.object({ designId: z.string().meta({ description: "The design's id." }) });
-const revisionParams = designId.extend({ number: z.string().regex(/^[1-9][0-9]*$/).meta({ description: "The revision number, from 1." }) });
+const revisionParams = designId.extend({
+  number: z
+    .string()
+    .regex(/^[1-9][0-9]*$/)
+    .meta({ description: "The revision number, from 1." }),
+});
 const vehicleId = z.object({ vehicleId: z.string().meta({ description: "The vehicle's id." }) });
 const runId = z.object({ runId: z.string().meta({ description: "The bench run's id." }) });
 
 // The truth-table filter (parsed by app/reviews/truth-table.ts, which names the parameter in its errors).
 const rowFilterQuery = z.object({
-  only: z.enum(ONLY).optional().meta({ description: "unsafe, violating, drive, demand or failing rows only (demand and failing: of require-drive rules)." }),
-  rule: z.string().optional().meta({ description: "With only=unsafe|violating: that inhibit rule's rows; with only=demand|failing: that require-drive rule's." }),
+  only: z
+    .enum(ONLY)
+    .optional()
+    .meta({ description: "unsafe, violating, drive, demand or failing rows only (demand and failing: of require-drive rules)." }),
+  rule: z
+    .string()
+    .optional()
+    .meta({ description: "With only=unsafe|violating: that inhibit rule's rows; with only=demand|failing: that require-drive rule's." }),
   where: z.string().optional().meta({ description: "COND:STATE; repeat it; states of one condition are alternatives." }),
 });
 
@@ -155,7 +171,8 @@ export const api = {
     path: "/api/v1/designs/{designId}/draft",
     tag: "Drafts",
     summary: "Save the draft",
-    description: "Engineers. Optimistic concurrency: send the version you loaded; a newer draft answers 409 stale_draft with currentVersion.",
+    description:
+      "Engineers. Optimistic concurrency: send the version you loaded; a newer draft answers 409 stale_draft with currentVersion.",
     params: designId,
     body: saveDraftBodySchema,
     replies: {
@@ -185,7 +202,10 @@ export const api = {
     replies: {
       201: ok("Saved.", A.revisionSavedAnswer),
       409: fail("The change starts from an older revision (stale_revision; latestRevision beside error).", A.staleRevisionError),
-      422: fail("The design never drives (never_drives) or some rule fails (rules_fail); the verdict is beside error. Nothing was saved.", A.rulesFailError),
+      422: fail(
+        "The design never drives (never_drives) or some rule fails (rules_fail); the verdict is beside error. Nothing was saved.",
+        A.rulesFailError,
+      ),
       ...writing,
     },
   }),
@@ -206,8 +226,16 @@ export const api = {
     description: `${MEMBER} Rows are computed by the engine, never stored.`,
     params: revisionParams,
     query: rowFilterQuery.extend({
-      from: z.string().regex(/^[0-9]+$/).optional().meta({ description: "Position in the filtered rows, from 0." }),
-      count: z.string().regex(/^[0-9]+$/).optional().meta({ description: `Rows in the page, at most ${PAGE_MAX} (100 by default).` }),
+      from: z
+        .string()
+        .regex(/^[0-9]+$/)
+        .optional()
+        .meta({ description: "Position in the filtered rows, from 0." }),
+      count: z
+        .string()
+        .regex(/^[0-9]+$/)
+        .optional()
+        .meta({ description: `Rows in the page, at most ${PAGE_MAX} (100 by default).` }),
     }),
     replies: { 200: ok("The page.", A.rowsPageAnswer), 400: fail("A bad filter, from or count."), ...reading },
   }),
@@ -217,7 +245,12 @@ export const api = {
     tag: "Truth table",
     summary: "One row with its diagnosis",
     description: MEMBER,
-    params: revisionParams.extend({ index: z.string().regex(/^[0-9]+$/).meta({ description: "The row's index, from 0." }) }),
+    params: revisionParams.extend({
+      index: z
+        .string()
+        .regex(/^[0-9]+$/)
+        .meta({ description: "The row's index, from 0." }),
+    }),
     replies: { 200: ok("The row.", A.rowAnswer), ...reading },
   }),
   revisionTableCsv: endpoint({
@@ -240,7 +273,9 @@ export const api = {
     query: groupsQuerySchema,
     replies: {
       200: ok("The groups.", groupsDocumentSchema),
-      400: fail("A set that names an unknown rule, a rule of the other type, an unknown component, a component that is not a contact or an unknown mode; or a bad limit."),
+      400: fail(
+        "A set that names an unknown rule, a rule of the other type, an unknown component, a component that is not a contact or an unknown mode; or a bad limit.",
+      ),
       ...reading,
     },
   }),
@@ -331,7 +366,9 @@ export const api = {
     body: releaseBodySchema,
     replies: {
       201: ok("Released; the vehicle with its new current release.", A.vehicleAnswer),
-      409: fail("The revision cannot be released (release_refused): not approved, refused by format 1.1, or contradicted by the controller record without an override reason; fields name why."),
+      409: fail(
+        "The revision cannot be released (release_refused): not approved, refused by format 1.1, or contradicted by the controller record without an override reason; fields name why.",
+      ),
       ...writing,
     },
   }),
@@ -382,7 +419,12 @@ export const api = {
     tag: "Bench runs",
     summary: "Record a step's result",
     description: "Technicians. A step turning to fail flags the vehicle and mails the revision's author.",
-    params: runId.extend({ n: z.string().regex(/^[1-9][0-9]*$/).meta({ description: "The step number, from 1." }) }),
+    params: runId.extend({
+      n: z
+        .string()
+        .regex(/^[1-9][0-9]*$/)
+        .meta({ description: "The step number, from 1." }),
+    }),
     body: stepResultBodySchema,
     replies: { 200: ok("Saved.", A.stepSavedAnswer), 409: fail("The run is completed and signed (run_completed)."), ...writing },
   }),
@@ -468,7 +510,10 @@ const patterns = new Map<string, RegExp>();
 function pathPattern(path: string): RegExp {
   let re = patterns.get(path);
   if (!re) {
-    const source = path.split(/\{[A-Za-z]+\}/).map((part) => part.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")).join("[^/]+");
+    const source = path
+      .split(/\{[A-Za-z]+\}/)
+      .map((part) => part.replace(/[.*+?^${}()|[\]\\]/g, "\\$&"))
+      .join("[^/]+");
     re = new RegExp(`^${source}$`);
     patterns.set(path, re);
   }

@@ -16,7 +16,12 @@ export type BodyOf<E extends Endpoint, S extends StatusOf<E>> = z.input<ReplyAt<
  * The answer of an endpoint: the status must be one it declares and the body must have that
  * status's shape (the compiler checks it; the integration tests check every answer at run time).
  */
-export function reply<E extends Endpoint, S extends StatusOf<E>>(_endpoint: E, status: S, body: BodyOf<E, S>, init: Omit<ResponseInit, "status"> = {}): Response {
+export function reply<E extends Endpoint, S extends StatusOf<E>>(
+  _endpoint: E,
+  status: S,
+  body: BodyOf<E, S>,
+  init: Omit<ResponseInit, "status"> = {},
+): Response {
   return Response.json(body, { ...init, status });
 }
 
@@ -50,7 +55,8 @@ export async function handleApi(request: Request, run: () => Promise<Response>):
       return await run();
     } catch (e) {
       // The pool reports an unreachable database as a 503 page response; the API answers it in JSON.
-      if (e instanceof Response) return e.status === 503 && !e.headers.get("content-type")?.includes("json") ? databaseDownResponse("api") : e;
+      if (e instanceof Response)
+        return e.status === 503 && !e.headers.get("content-type")?.includes("json") ? databaseDownResponse("api") : e;
       if (isDatabaseDown(e)) return databaseDownResponse("api");
       console.error("design API:", e);
       return apiError(500, "internal", "The server could not complete this request. Nothing was saved; try again.");

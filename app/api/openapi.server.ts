@@ -8,7 +8,10 @@ import { ENDPOINTS, TAGS, type Endpoint } from "./endpoints";
 function operation(e: Endpoint): ZodOpenApiOperationObject {
   const responses: ZodOpenApiOperationObject["responses"] = {};
   for (const [status, r] of Object.entries(e.replies)) {
-    responses[status as `${1 | 2 | 3 | 4 | 5}${string}`] = { description: r.description, content: { [r.media ?? "application/json"]: { schema: r.schema } } };
+    responses[status as `${1 | 2 | 3 | 4 | 5}${string}`] = {
+      description: r.description,
+      content: { [r.media ?? "application/json"]: { schema: r.schema } },
+    };
   }
   return {
     tags: [e.tag],
@@ -41,7 +44,11 @@ export function openApiDocument() {
     tags: Object.entries(TAGS).map(([name, description]) => ({ name, description })),
     components: {
       securitySchemes: {
-        apiKey: { type: "http", scheme: "bearer", description: "A personal API key, made in Settings; it works in the workspace it was made for." },
+        apiKey: {
+          type: "http",
+          scheme: "bearer",
+          description: "A personal API key, made in Settings; it works in the workspace it was made for.",
+        },
         session: {
           type: "apiKey",
           in: "cookie",

@@ -8,7 +8,8 @@ import { sessionCookieOf } from "../auth/session-cache.server";
 /** Set by our HTTP server from the socket, or the address the last trusted proxy added (TRUST_PROXY hops); decisions 003, 103. */
 const CLIENT_IP_HEADER = "x-chainproof-client-ip";
 
-export type Hit = { ok: true; limit: number; remaining: number; resetSeconds: number } | { ok: false; limit: number; retryAfterSeconds: number };
+export type Hit =
+  { ok: true; limit: number; remaining: number; resetSeconds: number } | { ok: false; limit: number; retryAfterSeconds: number };
 type Refused = Extract<Hit, { ok: false }>;
 
 /** Counts hits per key in fixed windows of `windowMs`; expired windows are swept as time moves on. */
@@ -92,7 +93,10 @@ function limitedResponse(hit: Refused): Response {
         fields: [],
       },
     },
-    { status: 429, headers: { "retry-after": String(hit.retryAfterSeconds), "ratelimit-limit": String(hit.limit), "ratelimit-remaining": "0" } },
+    {
+      status: 429,
+      headers: { "retry-after": String(hit.retryAfterSeconds), "ratelimit-limit": String(hit.limit), "ratelimit-remaining": "0" },
+    },
   );
 }
 
@@ -123,7 +127,11 @@ export const countsHere = (counter: FixedWindowCounter): Counts => ({
  * limit once, not once per machine (issue 11; decision 104).
  */
 export function countsInStore(limiter: RateLimiterAbstract): Counts {
-  const refused = (msBeforeNext: number): Hit => ({ ok: false, limit: limiter.points, retryAfterSeconds: Math.max(1, Math.ceil(msBeforeNext / 1000)) });
+  const refused = (msBeforeNext: number): Hit => ({
+    ok: false,
+    limit: limiter.points,
+    retryAfterSeconds: Math.max(1, Math.ceil(msBeforeNext / 1000)),
+  });
   return {
     async admit(who) {
       if (!who.anonymous) {
@@ -132,7 +140,12 @@ export function countsInStore(limiter: RateLimiterAbstract): Counts {
       }
       try {
         const r = await limiter.consume(who.key);
-        return { ok: true, limit: limiter.points, remaining: r.remainingPoints, resetSeconds: Math.max(1, Math.ceil(r.msBeforeNext / 1000)) };
+        return {
+          ok: true,
+          limit: limiter.points,
+          remaining: r.remainingPoints,
+          resetSeconds: Math.max(1, Math.ceil(r.msBeforeNext / 1000)),
+        };
       } catch (err) {
         if (err instanceof RateLimiterRes) return refused(err.msBeforeNext);
         throw err;

@@ -13,7 +13,9 @@ const limit = z.coerce
   .min(1, `limit is a whole number from 1 to ${GROUP_LIMIT_MAX}.`)
   .max(GROUP_LIMIT_MAX, `limit is at most ${GROUP_LIMIT_MAX}.`)
   .default(GROUP_LIMIT_DEFAULT)
-  .meta({ description: `Groups to return (per reason for why), 1 to ${GROUP_LIMIT_MAX}; ${GROUP_LIMIT_DEFAULT} by default. groupCount says how many there are.` });
+  .meta({
+    description: `Groups to return (per reason for why), 1 to ${GROUP_LIMIT_MAX}; ${GROUP_LIMIT_DEFAULT} by default. groupCount says how many there are.`,
+  });
 
 export const groupsQuerySchema = z.object({
   set: z
@@ -36,7 +38,9 @@ export const whyQuerySchema = z.object({
 export const rowGroupSchema = z
   .object({
     rows: z.number().int().meta({ description: "Rows in the group: the product of its subsets' sizes." }),
-    states: z.record(z.string(), z.array(z.string())).meta({ description: "Condition id -> its allowed states; a condition left out may be in any state." }),
+    states: z
+      .record(z.string(), z.array(z.string()))
+      .meta({ description: "Condition id -> its allowed states; a condition left out may be in any state." }),
   })
   .meta({ id: "RowGroup" });
 
@@ -45,7 +49,9 @@ export const groupsDocumentSchema = z
     format: z.literal("chainproof/groups@1"),
     set: z.string(),
     rows: z.number().int().meta({ description: "Rows in the set." }),
-    groups: z.array(rowGroupSchema).meta({ description: "Pairwise disjoint; together exactly the set (the first `limit` when groupCount is larger)." }),
+    groups: z
+      .array(rowGroupSchema)
+      .meta({ description: "Pairwise disjoint; together exactly the set (the first `limit` when groupCount is larger)." }),
     groupCount: z.number().int().meta({ description: "All groups of the set." }),
   })
   .meta({ id: "RowGroups" });

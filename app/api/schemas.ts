@@ -37,8 +37,8 @@ export const workspaceQuerySchema = z.object({
     // eslint-disable-next-line no-control-regex -- finding control characters is what this pattern is for
     .regex(/^[^\u0000]*$/, "a workspace slug")
     .meta({
-    description: "The workspace's slug, as in /w/SLUG.",
-  }),
+      description: "The workspace's slug, as in /w/SLUG.",
+    }),
 });
 
 export const vehicleListQuerySchema = workspaceQuerySchema.extend(pageQuerySchema.shape);
@@ -115,7 +115,8 @@ export const diagnosisBodySchema = z.object({
 /** The record as a request body: every rule of the record (the orders, the limits) is checked. */
 const recordBody = controllerRecordSchema.meta({
   id: "ControllerRecordInput",
-  description: "A controller settings record (chainproof/controller-record@1). Every impossible value is refused with its path; unknown keys are kept.",
+  description:
+    "A controller settings record (chainproof/controller-record@1). Every impossible value is refused with its path; unknown keys are kept.",
 });
 
 /** GET /api/v1/vehicles/:vehicleId/controller-record[?version=N] */
@@ -134,14 +135,17 @@ export const controllerRecordPutBodySchema = z.object({
     .number({ message: "version is the record's newest version as you read it (0 when it has none)." })
     .int("version is a whole number.")
     .min(0, "version is 0 or more.")
-    .meta({ description: "The version this change was made on: the newest as you read it, 0 when the vehicle has none. Another version saved since answers 409." }),
+    .meta({
+      description:
+        "The version this change was made on: the newest as you read it, 0 when the vehicle has none. Another version saved since answers 409.",
+    }),
   record: recordBody,
 });
 
 /** POST /api/v1/controller-checks?workspace=SLUG */
 export const controllerCheckBodySchema = z.object({
   record: recordBody,
-  design: designSchema
-    .optional()
-    .meta({ description: "A design (chainproof/design@1) whose proof's assumptions the record is checked against (section 4 of the record's spec)." }),
+  design: designSchema.optional().meta({
+    description: "A design (chainproof/design@1) whose proof's assumptions the record is checked against (section 4 of the record's spec).",
+  }),
 });

@@ -4,7 +4,15 @@ import type { z } from "zod";
 import type { listVehicles, openAttention, ReleaseSummary } from "~/vehicles/vehicles.server";
 import { verifyRecord, type RunDetail, type RunSummary } from "~/bench-runs/bench-runs.server";
 import type { Vehicle } from "~/db/schema.server";
-import type { controllerRecordAnswer, controllerRecordDocumentSchema, releaseSchema, runSchema, runSummarySchema, vehicleSchema, vehicleSummarySchema } from "./answers";
+import type {
+  controllerRecordAnswer,
+  controllerRecordDocumentSchema,
+  releaseSchema,
+  runSchema,
+  runSummarySchema,
+  vehicleSchema,
+  vehicleSummarySchema,
+} from "./answers";
 import { CONTROLLER_CHECK_FORMAT } from "~/controller-record";
 import type { recordWithStatus } from "~/vehicles/controller-records.server";
 import { differenceInWords } from "~/vehicles/controller-status";
@@ -111,7 +119,12 @@ export function runJson(run: RunDetail, slug: string): z.input<typeof runSchema>
         updatedAt: r?.updatedAt?.toISOString() ?? null,
         updatedBy: r?.updatedByName ? { name: r.updatedByName } : null,
         failureMailedAt: r?.failureMailedAt?.toISOString() ?? null,
-        photos: (r?.photos ?? []).map((p) => ({ id: p.id, filename: p.filename, contentType: p.contentType, url: `/w/${slug}/files/${p.id}` })),
+        photos: (r?.photos ?? []).map((p) => ({
+          id: p.id,
+          filename: p.filename,
+          contentType: p.contentType,
+          url: `/w/${slug}/files/${p.id}`,
+        })),
       };
     }),
   };
@@ -131,7 +144,11 @@ export function controllerRecordJson(r: Awaited<ReturnType<typeof recordWithStat
       ? {
           ...version(chosen.chosen),
           document: chosen.chosen.document as z.input<typeof controllerRecordDocumentSchema>,
-          check: { format: CONTROLLER_CHECK_FORMAT, derived: chosen.derived, findings: [...chosen.status.errors, ...chosen.status.warnings] },
+          check: {
+            format: CONTROLLER_CHECK_FORMAT,
+            derived: chosen.derived,
+            findings: [...chosen.status.errors, ...chosen.status.warnings],
+          },
         }
       : null,
     versions: r.history.map(version),

@@ -6,7 +6,13 @@ import { DESIGN_EVENT_ACTIONS } from "./design-events";
 type Executor = Pick<typeof db, "insert">;
 
 export async function recordAudit(
-  event: { workspaceId?: string | null; actorId?: string | null; action: string; subject?: string | null; detail?: Record<string, unknown> },
+  event: {
+    workspaceId?: string | null;
+    actorId?: string | null;
+    action: string;
+    subject?: string | null;
+    detail?: Record<string, unknown>;
+  },
   tx: Executor = db,
 ) {
   await tx.insert(schema.auditEvent).values({

@@ -43,9 +43,15 @@ export function describeDesignEvent(e: DesignEvent, slug: string): EventWords | 
   const revision = quoted(e.subject, "a revision");
   switch (e.action) {
     case "design.created":
-      return { text: `${who} created the design ${quoted(e.subject, "")}`.trimEnd() + ".", href: designId ? designPath(slug, designId) : null };
+      return {
+        text: `${who} created the design ${quoted(e.subject, "")}`.trimEnd() + ".",
+        href: designId ? designPath(slug, designId) : null,
+      };
     case "design.revision-saved":
-      return { text: `${who} saved ${number !== null ? `revision ${number}` : "a revision"} of ${quoted(e.subject, "a design")}.`, href: review };
+      return {
+        text: `${who} saved ${number !== null ? `revision ${number}` : "a revision"} of ${quoted(e.subject, "a design")}.`,
+        href: review,
+      };
     case "review.requested": {
       const n = Array.isArray(d.reviewers) ? d.reviewers.length : 0;
       const whom = n === 1 ? "a reviewer" : n > 1 ? `${n} reviewers` : "reviewers";
@@ -54,7 +60,12 @@ export function describeDesignEvent(e: DesignEvent, slug: string): EventWords | 
     case "review.commented": {
       const row = num(d.row);
       const component = str(d.component);
-      const on = d.anchor === "row" && row !== null ? ` (on truth-table row ${row})` : d.anchor === "component" && component ? ` (on part ${component})` : "";
+      const on =
+        d.anchor === "row" && row !== null
+          ? ` (on truth-table row ${row})`
+          : d.anchor === "component" && component
+            ? ` (on part ${component})`
+            : "";
       // Comments name their revision only through the subject; link the review when the number is known.
       const commented = designId ? reviewFromSubject(slug, designId, e.subject) : null;
       return { text: `${who} commented on ${revision}${on}.`, href: commented };

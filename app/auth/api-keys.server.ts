@@ -20,7 +20,13 @@ export async function createApiKey(workspaceId: string, userId: string, name: st
 
 export async function listApiKeys(workspaceId: string, userId: string) {
   return db
-    .select({ id: schema.apiKey.id, name: schema.apiKey.name, prefix: schema.apiKey.prefix, createdAt: schema.apiKey.createdAt, lastUsedAt: schema.apiKey.lastUsedAt })
+    .select({
+      id: schema.apiKey.id,
+      name: schema.apiKey.name,
+      prefix: schema.apiKey.prefix,
+      createdAt: schema.apiKey.createdAt,
+      lastUsedAt: schema.apiKey.lastUsedAt,
+    })
     .from(schema.apiKey)
     .where(and(eq(schema.apiKey.workspaceId, workspaceId), eq(schema.apiKey.userId, userId), isNull(schema.apiKey.revokedAt)))
     .orderBy(desc(schema.apiKey.createdAt));
@@ -31,7 +37,14 @@ export async function revokeApiKey(workspaceId: string, userId: string, id: stri
     const r = await tx
       .update(schema.apiKey)
       .set({ revokedAt: new Date() })
-      .where(and(eq(schema.apiKey.id, id), eq(schema.apiKey.workspaceId, workspaceId), eq(schema.apiKey.userId, userId), isNull(schema.apiKey.revokedAt)))
+      .where(
+        and(
+          eq(schema.apiKey.id, id),
+          eq(schema.apiKey.workspaceId, workspaceId),
+          eq(schema.apiKey.userId, userId),
+          isNull(schema.apiKey.revokedAt),
+        ),
+      )
       .returning({ name: schema.apiKey.name });
     if (r[0]) await recordAudit({ workspaceId, actorId: userId, action: "api-key.revoked", subject: r[0].name }, tx);
     return r.length > 0;
@@ -42,7 +55,13 @@ export async function revokeApiKey(workspaceId: string, userId: string, id: stri
 export async function resolveApiKey(key: string) {
   if (!key.startsWith("cpk_") || key.length > 100) return null;
   const rows = await db
-    .select({ id: schema.apiKey.id, workspaceId: schema.apiKey.workspaceId, userId: schema.user.id, email: schema.user.email, name: schema.user.name })
+    .select({
+      id: schema.apiKey.id,
+      workspaceId: schema.apiKey.workspaceId,
+      userId: schema.user.id,
+      email: schema.user.email,
+      name: schema.user.name,
+    })
     .from(schema.apiKey)
     .innerJoin(schema.user, eq(schema.apiKey.userId, schema.user.id))
     .where(and(eq(schema.apiKey.keyHash, hash(key)), isNull(schema.apiKey.revokedAt)))
@@ -50,6 +69,9 @@ export async function resolveApiKey(key: string) {
   const row = rows[0];
   if (!row) return null;
   // Best effort: a failed timestamp update must not fail the request.
-  db.update(schema.apiKey).set({ lastUsedAt: new Date() }).where(eq(schema.apiKey.id, row.id)).catch(() => {});
+  db.update(schema.apiKey)
+    .set({ lastUsedAt: new Date() })
+    .where(eq(schema.apiKey.id, row.id))
+    .catch(() => {});
   return row;
 }

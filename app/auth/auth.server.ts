@@ -50,11 +50,16 @@ export const auth = betterAuth({
     revokeSessionsOnPasswordReset: true,
     sendResetPassword: async ({ user, url }) => {
       await sendMail(
-        composeMail(user.email, "Reset your Chainproof password", [
-          `Hello ${user.name},`,
-          "Someone asked to reset the password of this Chainproof account. If it was you, choose a new password with the link below. It works once and expires in one hour.",
-          "If it was not you, ignore this message: your password stays as it is.",
-        ], { label: "Choose a new password", url }),
+        composeMail(
+          user.email,
+          "Reset your Chainproof password",
+          [
+            `Hello ${user.name},`,
+            "Someone asked to reset the password of this Chainproof account. If it was you, choose a new password with the link below. It works once and expires in one hour.",
+            "If it was not you, ignore this message: your password stays as it is.",
+          ],
+          { label: "Choose a new password", url },
+        ),
       );
     },
   },
@@ -62,10 +67,12 @@ export const auth = betterAuth({
     sendOnSignUp: true,
     sendVerificationEmail: async ({ user, url }) => {
       await sendMail(
-        composeMail(user.email, "Confirm your e-mail address for Chainproof", [
-          `Hello ${user.name},`,
-          "Confirm that this address is yours to finish creating your Chainproof account.",
-        ], { label: "Confirm my address", url }),
+        composeMail(
+          user.email,
+          "Confirm your e-mail address for Chainproof",
+          [`Hello ${user.name},`, "Confirm that this address is yours to finish creating your Chainproof account."],
+          { label: "Confirm my address", url },
+        ),
       );
     },
   },

@@ -5,7 +5,15 @@
 // out of its layout, or a layout that stops checking, fails closed instead of open.
 import { createContext, type MiddlewareFunction, type RouterContextProvider } from "react-router";
 import { can, rolesThatCan, type Action } from "~/lib/roles";
-import { getSignedIn, requireMember, requireUser, workspacesFor, type Membership, type SignedIn, type WorkspaceOfUser } from "./guard.server";
+import {
+  getSignedIn,
+  requireMember,
+  requireUser,
+  workspacesFor,
+  type Membership,
+  type SignedIn,
+  type WorkspaceOfUser,
+} from "./guard.server";
 
 /** The context a loader, action or middleware receives. */
 export type RequestContext = Pick<RouterContextProvider, "get">;

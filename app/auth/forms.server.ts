@@ -9,9 +9,7 @@ export async function callAuth(request: Request, path: string, body: unknown): P
     const value = request.headers.get(name);
     if (value) headers.set(name, value);
   }
-  return auth.handler(
-    new Request(new URL(`/api/auth${path}`, env.APP_URL), { method: "POST", headers, body: JSON.stringify(body) }),
-  );
+  return auth.handler(new Request(new URL(`/api/auth${path}`, env.APP_URL), { method: "POST", headers, body: JSON.stringify(body) }));
 }
 
 /** The Set-Cookie headers of a better-auth response, to pass on with a redirect. */

@@ -70,19 +70,28 @@ async function lookUpSignedIn(request: Request): Promise<SignedIn | null> {
 }
 
 /** Who is asking, or the answer for someone signed out; `found` is the caller the API layout already looked up. */
-export async function requireUser(request: Request, kind: Kind = "page", found: Promise<SignedIn | null> = getSignedIn(request)): Promise<SignedIn> {
+export async function requireUser(
+  request: Request,
+  kind: Kind = "page",
+  found: Promise<SignedIn | null> = getSignedIn(request),
+): Promise<SignedIn> {
   const signedIn = await orUnavailable(kind, () => found);
   if (signedIn) {
     // A cookie-authenticated API mutation must come from our own pages (keys are not sent by browsers on their own).
     if (kind === "api" && !signedIn.apiKeyWorkspaceId && !SAFE_METHODS.has(request.method.toUpperCase())) {
       const origin = request.headers.get("origin");
-      if (origin !== new URL(env.APP_URL).origin) throw apiError(403, "bad_origin", "This request must come from Chainproof's own pages, or carry an API key.");
+      if (origin !== new URL(env.APP_URL).origin)
+        throw apiError(403, "bad_origin", "This request must come from Chainproof's own pages, or carry an API key.");
     }
     return signedIn;
   }
   if (kind === "api") {
     const withKey = request.headers.get("authorization")?.toLowerCase().startsWith("bearer ");
-    throw apiError(401, "unauthenticated", withKey ? "This API key is not valid or was revoked." : "Sign in, or send a personal API key as Authorization: Bearer <key>.");
+    throw apiError(
+      401,
+      "unauthenticated",
+      withKey ? "This API key is not valid or was revoked." : "Sign in, or send a personal API key as Authorization: Bearer <key>.",
+    );
   }
   const url = new URL(request.url);
   throw redirect(`/sign-in?next=${encodeURIComponent(url.pathname + url.search)}`);

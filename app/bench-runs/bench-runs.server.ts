@@ -36,7 +36,12 @@ export async function startRun(workspaceId: string, vehicleId: string, actorId: 
   const release = await currentRelease(workspaceId, vehicleId);
   if (!release) throw new BenchRunError("vehicle", "No revision is released to this vehicle, so there is no procedure to run.", 409);
   const plan = generateBenchPlan(release.document);
-  if (plan.steps.length === 0) throw new BenchRunError("revision", "The released revision gives no bench steps (nothing in it can be checked from the controller inputs).", 409);
+  if (plan.steps.length === 0)
+    throw new BenchRunError(
+      "revision",
+      "The released revision gives no bench steps (nothing in it can be checked from the controller inputs).",
+      409,
+    );
   const id = crypto.randomUUID();
   await db.transaction(async (tx) => {
     await tx.insert(benchRun).values({
@@ -50,7 +55,13 @@ export async function startRun(workspaceId: string, vehicleId: string, actorId: 
     });
     await tx.insert(benchStepResult).values(plan.steps.map((s) => ({ id: crypto.randomUUID(), workspaceId, runId: id, n: s.n })));
     await recordAudit(
-      { workspaceId, actorId, action: "bench-run.started", subject: release.designName, detail: { runId: id, vehicleId, revisionId: release.revisionId, steps: plan.steps.length } },
+      {
+        workspaceId,
+        actorId,
+        action: "bench-run.started",
+        subject: release.designName,
+        detail: { runId: id, vehicleId, revisionId: release.revisionId, steps: plan.steps.length },
+      },
       tx,
     );
   });
@@ -166,7 +177,14 @@ export async function getRun(workspaceId: string, runId: string) {
     .orderBy(asc(benchStepResult.n));
   const photos = results.length
     ? await db
-        .select({ id: upload.id, subjectId: upload.subjectId, filename: upload.filename, contentType: upload.contentType, sha256: upload.sha256, createdAt: upload.createdAt })
+        .select({
+          id: upload.id,
+          subjectId: upload.subjectId,
+          filename: upload.filename,
+          contentType: upload.contentType,
+          sha256: upload.sha256,
+          createdAt: upload.createdAt,
+        })
         .from(upload)
         .where(
           and(
@@ -200,13 +218,20 @@ type LockedRun = { id: string; status: string; vehicleId: string; revisionId: st
 
 async function lockRun(tx: Pick<typeof db, "select">, workspaceId: string, runId: string): Promise<LockedRun> {
   const rows = await tx
-    .select({ id: benchRun.id, status: benchRun.status, vehicleId: benchRun.vehicleId, revisionId: benchRun.revisionId, plan: benchRun.plan })
+    .select({
+      id: benchRun.id,
+      status: benchRun.status,
+      vehicleId: benchRun.vehicleId,
+      revisionId: benchRun.revisionId,
+      plan: benchRun.plan,
+    })
     .from(benchRun)
     .where(and(eq(benchRun.id, runId), eq(benchRun.workspaceId, workspaceId)))
     .for("update");
   const run = rows[0];
   if (!run) throw new BenchRunError("run", "No such bench run.", 404);
-  if (run.status === "completed") throw new BenchRunError("run", "This run is completed and signed; its results can no longer change.", 409);
+  if (run.status === "completed")
+    throw new BenchRunError("run", "This run is completed and signed; its results can no longer change.", 409);
   return run;
 }
 
@@ -270,7 +295,12 @@ type ClaimedStep = { id: string; n: number; note: string };
  * Marks failed, not yet mailed steps as mailed and returns them; the mark is taken in one statement,
  * so two requests at once never both mail a step.
  */
-async function claimFailedSteps(tx: Pick<typeof db, "update">, workspaceId: string, runId: string, which: { except?: number; only?: number }): Promise<ClaimedStep[]> {
+async function claimFailedSteps(
+  tx: Pick<typeof db, "update">,
+  workspaceId: string,
+  runId: string,
+  which: { except?: number; only?: number },
+): Promise<ClaimedStep[]> {
   const rows = await tx
     .update(benchStepResult)
     .set({ failureMailedAt: new Date() })
@@ -288,7 +318,12 @@ async function claimFailedSteps(tx: Pick<typeof db, "update">, workspaceId: stri
   return rows.sort((a, b) => a.n - b.n);
 }
 
-async function mailFailedSteps(workspaceId: string, runId: string, actorId: string, which: { except?: number; only?: number }): Promise<boolean> {
+async function mailFailedSteps(
+  workspaceId: string,
+  runId: string,
+  actorId: string,
+  which: { except?: number; only?: number },
+): Promise<boolean> {
   const claimed = await claimFailedSteps(db, workspaceId, runId, which);
   if (claimed.length === 0) return false;
   const sent = await mailFailures(workspaceId, runId, claimed, actorId, "steps");
@@ -297,7 +332,15 @@ async function mailFailedSteps(workspaceId: string, runId: string, actorId: stri
     await db
       .update(benchStepResult)
       .set({ failureMailedAt: null })
-      .where(and(eq(benchStepResult.workspaceId, workspaceId), inArray(benchStepResult.id, claimed.map((c) => c.id))))
+      .where(
+        and(
+          eq(benchStepResult.workspaceId, workspaceId),
+          inArray(
+            benchStepResult.id,
+            claimed.map((c) => c.id),
+          ),
+        ),
+      )
       .catch(() => {});
   }
   return sent;
@@ -309,7 +352,13 @@ const MAIL_ATTACHMENT_BYTES = 15 * 1024 * 1024;
 async function photosOf(workspaceId: string, stepIds: string[]) {
   if (stepIds.length === 0) return [];
   return db
-    .select({ subjectId: upload.subjectId, storageKey: upload.storageKey, filename: upload.filename, contentType: upload.contentType, size: upload.size })
+    .select({
+      subjectId: upload.subjectId,
+      storageKey: upload.storageKey,
+      filename: upload.filename,
+      contentType: upload.contentType,
+      size: upload.size,
+    })
     .from(upload)
     .where(and(eq(upload.workspaceId, workspaceId), eq(upload.subjectKind, STEP_PHOTO_KIND), inArray(upload.subjectId, stepIds)))
     .orderBy(asc(upload.createdAt), asc(upload.id));
@@ -325,7 +374,13 @@ async function readObject(key: string): Promise<Buffer> {
  * ("digest", when the run is completed), each with its instruction, what was expected, the note and
  * the photos attached, and the isolation caution.
  */
-async function mailFailures(workspaceId: string, runId: string, steps: ClaimedStep[], actorId: string, kind: "steps" | "digest"): Promise<boolean> {
+async function mailFailures(
+  workspaceId: string,
+  runId: string,
+  steps: ClaimedStep[],
+  actorId: string,
+  kind: "steps" | "digest",
+): Promise<boolean> {
   const rows = await db
     .select({
       authorEmail: user.email,
@@ -348,7 +403,10 @@ async function mailFailures(workspaceId: string, runId: string, steps: ClaimedSt
   if (!r) return false;
   try {
     const tech = (await db.select({ name: user.name }).from(user).where(eq(user.id, actorId)).limit(1))[0];
-    const photos = await photosOf(workspaceId, steps.map((s) => s.id));
+    const photos = await photosOf(
+      workspaceId,
+      steps.map((s) => s.id),
+    );
     const attachments: Array<{ filename: string; content: Buffer; contentType: string }> = [];
     const notAttached: string[] = [];
     let bytes = 0;
@@ -368,7 +426,9 @@ async function mailFailures(workspaceId: string, runId: string, steps: ClaimedSt
         `Step ${st.n}${step ? `: ${step.instruction}` : ""}`,
         ...(step ? [`Expected: ${describeExpected(step.expect)}`] : []),
         st.note.trim() ? `The technician's note: ${st.note.trim()}` : "The technician wrote no note.",
-        mine.length > 0 ? `Photos: ${mine.join(", ")}${mine.some((f) => notAttached.includes(f)) ? " (some too large to attach: open the run)" : " (attached)"}.` : "No photos were added.",
+        mine.length > 0
+          ? `Photos: ${mine.join(", ")}${mine.some((f) => notAttached.includes(f)) ? " (some too large to attach: open the run)" : " (attached)"}.`
+          : "No photos were added.",
         `This step in the run: ${base}#step-${st.n}`,
       ];
     });
@@ -388,7 +448,13 @@ async function mailFailures(workspaceId: string, runId: string, steps: ClaimedSt
       ...composeMail(
         r.authorEmail,
         subject,
-        [`Hello ${r.authorName},`, intro, ...blocks, "The vehicle is flagged as needing attention until someone clears it.", `Caution: ${ISOLATE_FIRST} ${SAFETY_TEXT}`],
+        [
+          `Hello ${r.authorName},`,
+          intro,
+          ...blocks,
+          "The vehicle is flagged as needing attention until someone clears it.",
+          `Caution: ${ISOLATE_FIRST} ${SAFETY_TEXT}`,
+        ],
         { label: "Open the bench run", url: steps.length === 1 ? `${base}#step-${steps[0].n}` : base },
       ),
       attachments,
@@ -396,15 +462,32 @@ async function mailFailures(workspaceId: string, runId: string, steps: ClaimedSt
     return true;
   } catch (err) {
     console.error("bench failure mail could not be sent", err);
-    await recordAudit({ workspaceId, actorId, action: "bench-run.mail-failed", detail: { runId, steps: steps.map((s) => s.n), to: r.authorEmail } });
+    await recordAudit({
+      workspaceId,
+      actorId,
+      action: "bench-run.mail-failed",
+      detail: { runId, steps: steps.map((s) => s.n), to: r.authorEmail },
+    });
     return false;
   }
 }
 
 function describeExpected(e: BenchPlan["steps"][number]["expect"]): string {
-  const live = Object.entries(e.inputs).filter(([, on]) => on).map(([id]) => id);
-  const dead = Object.entries(e.inputs).filter(([, on]) => !on).map(([id]) => id);
-  return [e.drive ? "drive runs" : "drive stays off", live.length ? `live: ${live.join(", ")}` : "", dead.length ? `dead: ${dead.join(", ")}` : ""].filter(Boolean).join("; ") + ".";
+  const live = Object.entries(e.inputs)
+    .filter(([, on]) => on)
+    .map(([id]) => id);
+  const dead = Object.entries(e.inputs)
+    .filter(([, on]) => !on)
+    .map(([id]) => id);
+  return (
+    [
+      e.drive ? "drive runs" : "drive stays off",
+      live.length ? `live: ${live.join(", ")}` : "",
+      dead.length ? `dead: ${dead.join(", ")}` : "",
+    ]
+      .filter(Boolean)
+      .join("; ") + "."
+  );
 }
 
 export const NOTE_MAX = 2000;
@@ -495,7 +578,10 @@ export async function completeRun(workspaceId: string, runId: string, actorId: s
     const hash = recordHash(recordOf(detail!, { by: actorId, at }));
     // Failed steps not yet mailed go in one digest; marked before the record is frozen.
     unreported = await claimFailedSteps(tx, workspaceId, runId, {});
-    await tx.update(benchRun).set({ status: "completed", completedBy: actorId, completedAt: at, resultsHash: hash }).where(and(eq(benchRun.id, runId), eq(benchRun.workspaceId, workspaceId)));
+    await tx
+      .update(benchRun)
+      .set({ status: "completed", completedBy: actorId, completedAt: at, resultsHash: hash })
+      .where(and(eq(benchRun.id, runId), eq(benchRun.workspaceId, workspaceId)));
     await recordAudit({ workspaceId, actorId, action: "bench-run.completed", detail: { runId, resultsHash: hash } }, tx);
     return hash;
   });

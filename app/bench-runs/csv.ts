@@ -5,7 +5,20 @@ import { csvLine } from "~/engine";
 import type { runSchema } from "~/api/answers";
 import { ISOLATE_FIRST, SAFETY_TEXT } from "~/lib/safety";
 
-export const BENCH_CSV_COLUMNS = ["step", "kind", "instruction", "conditions", "expected drive", "expected live", "expected dead", "result", "note", "photos", "recorded by", "recorded at"];
+export const BENCH_CSV_COLUMNS = [
+  "step",
+  "kind",
+  "instruction",
+  "conditions",
+  "expected drive",
+  "expected live",
+  "expected dead",
+  "result",
+  "note",
+  "photos",
+  "recorded by",
+  "recorded at",
+];
 
 export function benchRunCsv(run: z.input<typeof runSchema>): string {
   const lines = [csvLine(["Caution", `${ISOLATE_FIRST} ${SAFETY_TEXT}`]), "\n", csvLine(BENCH_CSV_COLUMNS)];
@@ -20,8 +33,14 @@ export function benchRunCsv(run: z.input<typeof runSchema>): string {
           .map(([k, v]) => `${k}=${v}`)
           .join("; "),
         s.expect.drive ? "runs" : "stays off",
-        inputs.filter(([, on]) => on).map(([id]) => id).join(" "),
-        inputs.filter(([, on]) => !on).map(([id]) => id).join(" "),
+        inputs
+          .filter(([, on]) => on)
+          .map(([id]) => id)
+          .join(" "),
+        inputs
+          .filter(([, on]) => !on)
+          .map(([id]) => id)
+          .join(" "),
         s.status ?? "",
         s.note,
         s.photos.map((p) => p.filename).join("; "),

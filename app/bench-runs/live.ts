@@ -66,7 +66,8 @@ export async function putStepOutcome(runId: string, n: number, status: StepOutco
   try {
     return liveStep((await fetchApi(api.recordStep, { params: { runId, n }, body: { status } })).step);
   } catch (e) {
-    if (e instanceof ApiError && e.status === 0) throw new Error("The server could not be reached; check the connection and tap again.", { cause: e });
+    if (e instanceof ApiError && e.status === 0)
+      throw new Error("The server could not be reached; check the connection and tap again.", { cause: e });
     throw e;
   }
 }

@@ -24,6 +24,10 @@ export const noteSchema = z.object({
 
 export const mailStepSchema = z.object({ intent: z.literal("mail-step"), step });
 
-export const runFormSchema = z.discriminatedUnion("intent", [outcomeSchema, noteSchema, mailStepSchema, z.object({ intent: z.literal("complete") })], {
-  message: "Unknown action.",
-});
+export const runFormSchema = z.discriminatedUnion(
+  "intent",
+  [outcomeSchema, noteSchema, mailStepSchema, z.object({ intent: z.literal("complete") })],
+  {
+    message: "Unknown action.",
+  },
+);

@@ -1,15 +1,7 @@
 // Row views and row arithmetic for the bench-test generator: views cached from the engine, the
 // mixed-radix digits of spec 1.1, how a row step approaches its row (decision 130), and the rows the
 // generator searches (every row of a small table; rows near sampled drive rows of a large one).
-import {
-  evaluateRows,
-  pageRows,
-  stepInto,
-  type CompiledDesign,
-  type ControllerMemory,
-  type Predicate,
-  type RowView,
-} from "../engine";
+import { evaluateRows, pageRows, stepInto, type CompiledDesign, type ControllerMemory, type Predicate, type RowView } from "../engine";
 
 /** Up to this many rows, every row is a candidate; above it, rows near sampled drive rows (decision 133). */
 export const EXHAUSTIVE_ROWS = 4096;
@@ -153,7 +145,9 @@ export function searchPool(c: CompiledDesign, book: RowBook, rest: number): Sear
     anchors.add(v.index);
   }
   const pool = new Set<number>(anchors);
-  const ruleConds = c.design.rules.flatMap((r) => (r.type === "no-restart" ? [] : [[...predicateConditions(r.when)].map((id) => c.conditionIndex[id])]));
+  const ruleConds = c.design.rules.flatMap((r) =>
+    r.type === "no-restart" ? [] : [[...predicateConditions(r.when)].map((id) => c.conditionIndex[id])],
+  );
   for (const a of anchors) {
     c.conditions.forEach((cond, ci) => {
       for (let s = 0; s < cond.radix; s++) pool.add(book.withState(a, ci, s));

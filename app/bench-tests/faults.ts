@@ -28,7 +28,13 @@ export const faultId = (contact: string, mode: FaultMode) => `fault:${contact}:$
  * the given rows plus the first rows of the whole table where the fault shows (a full scan proves
  * that none exists).
  */
-export function faultItems(c: CompiledDesign, book: RowBook, rows: number[], exhaustive: boolean, naming: (id: string) => string): FaultItem[] {
+export function faultItems(
+  c: CompiledDesign,
+  book: RowBook,
+  rows: number[],
+  exhaustive: boolean,
+  naming: (id: string) => string,
+): FaultItem[] {
   const faults = c.contacts.flatMap((k) => FAULT_MODES.map((mode) => ({ component: k.id, mode })));
   // Every row of a small table; of a large one the first rows anywhere (none: it shows in no row).
   const found = faultRows(c, faults, exhaustive ? Infinity : WITNESSES);
@@ -44,7 +50,13 @@ export function faultItems(c: CompiledDesign, book: RowBook, rows: number[], exh
       });
       book.load(hits);
     }
-    const item: FaultItem = { id: faultId(fault.component, fault.mode), contact: fault.component, mode: fault.mode, rows: hits, revealable: hits.length > 0 };
+    const item: FaultItem = {
+      id: faultId(fault.component, fault.mode),
+      contact: fault.component,
+      mode: fault.mode,
+      rows: hits,
+      revealable: hits.length > 0,
+    };
     if (!item.revealable) item.reason = whyHidden(c, book, rows, exhaustive, fault.component, fault.mode, naming);
     return item;
   });
@@ -63,7 +75,15 @@ const list = (xs: string[], last = "and") => (xs.length <= 1 ? xs.join("") : `${
  * side that would lose or gain supply reaches no input. The reason names what applies and the
  * contacts responsible.
  */
-function whyHidden(c: CompiledDesign, book: RowBook, rows: number[], exhaustive: boolean, id: string, mode: FaultMode, naming: (id: string) => string): string {
+function whyHidden(
+  c: CompiledDesign,
+  book: RowBook,
+  rows: number[],
+  exhaustive: boolean,
+  id: string,
+  mode: FaultMode,
+  naming: (id: string) => string,
+): string {
   const ki = c.contactIndex[id];
   const k = c.contacts[ki];
   const cond = c.conditions[k.cond];
@@ -107,10 +127,17 @@ function whyHidden(c: CompiledDesign, book: RowBook, rows: number[], exhaustive:
     const feedsInput = (root: number) => c.inputs.some((x) => find(x.net) === root);
     if (fa && fb) note("both-fed", []);
     // Name the open contacts that cut the contact off from a supply, or its far side off from an input.
-    else if (!fa && !fb) note("unfed", boundary(c, v, ki, find, (n) => find(n) === a || find(n) === b, fed));
+    else if (!fa && !fb)
+      note(
+        "unfed",
+        boundary(c, v, ki, find, (n) => find(n) === a || find(n) === b, fed),
+      );
     else {
       const dark = fa ? b : a;
-      note("no-input", boundary(c, v, ki, find, (n) => find(n) === dark, feedsInput));
+      note(
+        "no-input",
+        boundary(c, v, ki, find, (n) => find(n) === dark, feedsInput),
+      );
     }
   }
   const when = mode === "stuck-open" ? "closed" : "open";
@@ -129,7 +156,9 @@ function whyHidden(c: CompiledDesign, book: RowBook, rows: number[], exhaustive:
     const by = named("no-input");
     parts.push(`the wire beyond it leads to no controller input${by.length > 0 ? ` (${list(by, "or")} in series beyond it open)` : ""}`);
   }
-  const scope = exhaustive ? "" : ` (every row was checked for a changed input; the explanation is from the ${relevant.length} rows searched)`;
+  const scope = exhaustive
+    ? ""
+    : ` (every row was checked for a changed input; the explanation is from the ${relevant.length} rows searched)`;
   if (parts.length === 0) return `${head}${scope}: it is never ${when} in the rows searched.${measure}`;
   return `${head}${scope}: whenever it is ${when}, ${list(parts, "or")}.${measure}`;
 }
@@ -152,7 +181,7 @@ function bypass(c: CompiledDesign, v: RowView, ki: number): string[] {
     });
   }
   const out: string[] = [];
-  for (let n = k.netB; via.get(n)! >= 0; ) {
+  for (let n = k.netB; via.get(n)! >= 0;) {
     const j = via.get(n)!;
     out.push(c.contacts[j].id);
     n = c.contacts[j].netA === n ? c.contacts[j].netB : c.contacts[j].netA;
@@ -161,7 +190,14 @@ function bypass(c: CompiledDesign, v: RowView, ki: number): string[] {
 }
 
 /** Open contacts (other than `ki`) joining the region to a component `beyond` accepts (by its root under `find`). */
-function boundary(c: CompiledDesign, v: RowView, ki: number, find: (net: number) => number, inside: (net: number) => boolean, beyond: (root: number) => boolean): string[] {
+function boundary(
+  c: CompiledDesign,
+  v: RowView,
+  ki: number,
+  find: (net: number) => number,
+  inside: (net: number) => boolean,
+  beyond: (root: number) => boolean,
+): string[] {
   return c.contacts
     .filter((o, j) => j !== ki && !v.contacts[o.id] && inside(o.netA) !== inside(o.netB) && beyond(find(inside(o.netA) ? o.netB : o.netA)))
     .map((o) => o.id);

@@ -5,7 +5,17 @@
 // lockout checks (132, lockouts.ts), the fewest rows (133, cover.ts), rules (050 and 134, rules.ts).
 // Every expectation is the replay of the step's moves, in the order the instruction gives them,
 // with the engine's step of spec 1.5; every "reveals" is the same replay with the fault applied.
-import { compileDesign, glimpseRows, stepInto, type CompiledDesign, type ControllerMemory, type Design, type Lockout, type RowGlimpse, type RowView } from "../engine";
+import {
+  compileDesign,
+  glimpseRows,
+  stepInto,
+  type CompiledDesign,
+  type ControllerMemory,
+  type Design,
+  type Lockout,
+  type RowGlimpse,
+  type RowView,
+} from "../engine";
 import { RowBook, restRow, searchPool, EXHAUSTIVE_ROWS } from "./book";
 import { minimumCover, type Need } from "./cover";
 import { faultItems } from "./faults";
@@ -24,7 +34,8 @@ const EXTRA_LOCKOUT_ROWS = 8;
 const SHARED_LOCKOUT_ROWS = 32;
 
 const WHEELS_ROW = "Lift the drive wheels clear of the ground (or otherwise stop the vehicle moving) before applying the throttle.";
-const WHEELS_CHECK = "Lift the drive wheels clear of the ground (or otherwise stop the vehicle moving): this step applies and holds the throttle.";
+const WHEELS_CHECK =
+  "Lift the drive wheels clear of the ground (or otherwise stop the vehicle moving): this step applies and holds the throttle.";
 
 type Draft = {
   kind: "row" | "sequence";
@@ -45,7 +56,9 @@ export function generateBenchPlan(design: Design): BenchPlan {
   // ------------------------------------------------------------ what to cover
   const rest = restRow(c, book);
   const pool = searchPool(c, book, rest);
-  const poolNote = pool.exhaustive ? "" : ` (searched ${pool.rows.length} of ${c.rows} rows, those near ${pool.anchors.length} sampled drive rows)`;
+  const poolNote = pool.exhaustive
+    ? ""
+    : ` (searched ${pool.rows.length} of ${c.rows} rows, those near ${pool.anchors.length} sampled drive rows)`;
   const faults = faultItems(c, book, faultSearchRows(c, book, pool, rest), pool.exhaustive, naming.contact);
   const rules = ruleItems(c, book, pool.rows, pool.exhaustive, poolNote, naming.input);
   const needs: Need[] = [
@@ -97,7 +110,9 @@ export function generateBenchPlan(design: Design): BenchPlan {
 
   // ------------------------------------------------------------ the fewest rows (decision 133)
   const fixed = [...new Set(checks.map((k) => k.d))];
-  const chosen = [...new Set([...fixed, ...(sharedRow === undefined && fixed.length > 0 ? minimumCover(needs, { prefer, fixed }).rows : cover.rows)])];
+  const chosen = [
+    ...new Set([...fixed, ...(sharedRow === undefined && fixed.length > 0 ? minimumCover(needs, { prefer, fixed }).rows : cover.rows)]),
+  ];
 
   // ------------------------------------------------------------ order: nearest neighbour from the start
   const ordered: number[] = [];
@@ -109,7 +124,8 @@ export function generateBenchPlan(design: Design): BenchPlan {
       for (let k = 1; k < left.length; k++) {
         const dk = book.hamming(at, left[k]);
         const db = book.hamming(at, left[bi]);
-        if (dk < db || (dk === db && (prefer(left[k]) < prefer(left[bi]) || (prefer(left[k]) === prefer(left[bi]) && left[k] < left[bi])))) bi = k;
+        if (dk < db || (dk === db && (prefer(left[k]) < prefer(left[bi]) || (prefer(left[k]) === prefer(left[bi]) && left[k] < left[bi]))))
+          bi = k;
       }
       [at] = left.splice(bi, 1);
       ordered.push(at);
@@ -142,7 +158,8 @@ export function generateBenchPlan(design: Design): BenchPlan {
     const faulty = replay(c, book, rest, drafts, (i) => views.get(i)!);
     faulty.steps.forEach((o, k) => {
       const e = plain.steps[k];
-      if (o.drive !== e.drive || o.latched !== e.latched || Object.keys(e.inputs).some((id) => e.inputs[id] !== o.inputs[id])) reveals[k].push(f.id);
+      if (o.drive !== e.drive || o.latched !== e.latched || Object.keys(e.inputs).some((id) => e.inputs[id] !== o.inputs[id]))
+        reveals[k].push(f.id);
     });
   }
   const revealed = new Set(reveals.flat());
@@ -197,7 +214,11 @@ export function generateBenchPlan(design: Design): BenchPlan {
       covers[k].push(...checked.map((l) => `lockout:${l}`));
       notes[k].unshift(lockoutWords(checked, d.driveStep! + 1, check.others).note);
     } else {
-      for (const l of checked) lockoutUncovered.push({ item: `lockout:${l}`, reason: "its check did not hold drive off when replayed, so this procedure does not check it" });
+      for (const l of checked)
+        lockoutUncovered.push({
+          item: `lockout:${l}`,
+          reason: "its check did not hold drive off when replayed, so this procedure does not check it",
+        });
     }
   });
   uncovered.push(...lockoutUncovered);
@@ -212,7 +233,9 @@ export function generateBenchPlan(design: Design): BenchPlan {
     const anyFrom = d.phases.first.length;
     const head = d.kind === "sequence" ? [lockoutWords([d.check!.lockout, ...d.check!.also], d.driveStep! + 1, d.check!.others).head] : [];
     const instruction = [...head, describeMoves(naming, d.phases), describeExpect(naming, expect), ...notes[k]].join(" ");
-    const appliesThrottle = moves.some((m) => m.cond === book.throttle && c.throttle.classOf[m.to] !== 0) || c.throttle.classOf[book.digit(d.row, book.throttle)] !== 0;
+    const appliesThrottle =
+      moves.some((m) => m.cond === book.throttle && c.throttle.classOf[m.to] !== 0) ||
+      c.throttle.classOf[book.digit(d.row, book.throttle)] !== 0;
     const caution = d.kind === "sequence" ? WHEELS_CHECK : appliesThrottle ? WHEELS_ROW : undefined;
     return {
       n: k + 1,
@@ -279,7 +302,8 @@ function rowPhases(c: CompiledDesign, book: RowBook, cur: number, target: number
   const tt = book.digit(target, T);
   const others: Move[] = [];
   c.conditions.forEach((_, ci) => {
-    if (ci !== T && book.digit(cur, ci) !== book.digit(target, ci)) others.push({ cond: ci, from: book.digit(cur, ci), to: book.digit(target, ci) });
+    if (ci !== T && book.digit(cur, ci) !== book.digit(target, ci))
+      others.push({ cond: ci, from: book.digit(cur, ci), to: book.digit(target, ci) });
   });
   const p: Phases = { first: [], free: [], hold: [], then: [], last: [] };
   if (book.releasedStates.length === 0) {
@@ -302,7 +326,8 @@ function checkPhases(book: RowBook, cur: number, check: LockoutCheck): Phases {
   const p: Phases = { first: [], free: [], hold: [], then: [], last: [] };
   if (ct !== check.via) p.first = [{ cond: T, from: ct, to: check.via }];
   c.conditions.forEach((_, ci) => {
-    if (ci !== T && book.digit(cur, ci) !== book.digit(check.b, ci)) p.free.push({ cond: ci, from: book.digit(cur, ci), to: book.digit(check.b, ci) });
+    if (ci !== T && book.digit(cur, ci) !== book.digit(check.b, ci))
+      p.free.push({ cond: ci, from: book.digit(cur, ci), to: book.digit(check.b, ci) });
   });
   p.hold = [{ cond: T, from: check.via, to: book.digit(check.b, T) }];
   let row = check.b;

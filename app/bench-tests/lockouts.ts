@@ -22,7 +22,8 @@ export type LockoutCheck = {
   also: Lockout[];
 };
 
-export const sameCheck = (x: LockoutCheck, y: LockoutCheck) => x.d === y.d && x.b === y.b && x.via === y.via && x.order.join() === y.order.join();
+export const sameCheck = (x: LockoutCheck, y: LockoutCheck) =>
+  x.d === y.d && x.b === y.b && x.via === y.via && x.order.join() === y.order.join();
 
 const MAX_REPLAYS = 6000;
 
@@ -32,7 +33,14 @@ function permutations<T>(xs: T[]): T[][] {
 }
 
 /** Replays a check; the lockouts armed from the first move that latched, or null when it does not hold drive off in D. */
-export function replayCheck(c: CompiledDesign, book: RowBook, b: number, via: number, order: number[], d: number): { cause: Lockout[]; others: Lockout[] } | null {
+export function replayCheck(
+  c: CompiledDesign,
+  book: RowBook,
+  b: number,
+  via: number,
+  order: number[],
+  d: number,
+): { cause: Lockout[]; others: Lockout[] } | null {
   let memory = book.settled(book.withState(b, book.throttle, via));
   let row = b;
   const path = [b];
@@ -78,7 +86,12 @@ export function findCheck(c: CompiledDesign, book: RowBook, lockout: Lockout, dr
         let variants = [d];
         for (const ci of set) {
           const here = book.digit(d, ci);
-          variants = variants.flatMap((i) => c.conditions[ci].states.map((_, s) => s).filter((s) => s !== here).map((s) => book.withState(i, ci, s)));
+          variants = variants.flatMap((i) =>
+            c.conditions[ci].states
+              .map((_, s) => s)
+              .filter((s) => s !== here)
+              .map((s) => book.withState(i, ci, s)),
+          );
         }
         for (const v of variants) {
           for (const t of held) {
@@ -91,7 +104,8 @@ export function findCheck(c: CompiledDesign, book: RowBook, lockout: Lockout, dr
                 if (!r || !r.cause.includes(lockout)) continue;
                 // Fewer other lockouts involved is better; then fewer moves.
                 const score = (r.cause.length - 1) * 4 + r.others.length * 2 + order.length / 10;
-                if (!best || score < best.score) best = { lockout, d, b, via, order, others: [...r.cause.filter((l) => l !== lockout), ...r.others], also: [], score };
+                if (!best || score < best.score)
+                  best = { lockout, d, b, via, order, others: [...r.cause.filter((l) => l !== lockout), ...r.others], also: [], score };
                 if (best.others.length === 0 && order.length <= 1) return best;
               }
             }
@@ -105,13 +119,22 @@ export function findCheck(c: CompiledDesign, book: RowBook, lockout: Lockout, dr
 }
 
 /** Why a listed lockout gets no check. */
-export function lockoutReason(c: CompiledDesign, book: RowBook, l: Lockout, pool: number[], drives: number[], input: (id: string) => string): string {
+export function lockoutReason(
+  c: CompiledDesign,
+  book: RowBook,
+  l: Lockout,
+  pool: number[],
+  drives: number[],
+  input: (id: string) => string,
+): string {
   const live = (fn: InputFunction) => c.inputOf[fn] >= 0 && pool.every((i) => book.view(i).inputs[c.inputs[c.inputOf[fn]].id]);
   const always = l === "power-on" && live("power") ? "power" : l === "enable-restore" && live("enable") ? "enable" : null;
   if (always) return `the ${always} input ${input(c.inputs[c.inputOf[always]].id)} is live in every row, so it never comes on`;
-  if (book.releasedStates.length === 0) return "the throttle has no released state, so a latched lockout can't be cleared to show drive in the same conditions";
+  if (book.releasedStates.length === 0)
+    return "the throttle has no released state, so a latched lockout can't be cleared to show drive in the same conditions";
   if (!pool.some((i) => book.view(i).drive)) return "drive never runs in any row, so holding it off can't be seen";
-  if (drives.length === 0) return "every row where drive could run latches a lockout as the throttle is applied, so drive can never be shown there first";
+  if (drives.length === 0)
+    return "every row where drive could run latches a lockout as the throttle is applied, so drive can never be shown there first";
   const missing: Partial<Record<Lockout, string>> = {
     "power-on": c.inputOf.power < 0 ? "the design has no power input, so the controller is powered whenever the supply is" : "",
     "enable-restore": c.inputOf.enable < 0 ? "the design has no enable input, so enable never comes back" : "",
@@ -119,5 +142,7 @@ export function lockoutReason(c: CompiledDesign, book: RowBook, l: Lockout, pool
     "brake-release": c.inputOf.brake < 0 ? "the design has no brake input, so the brake is never released" : "",
     "throttle-fault": !c.throttle.classOf.includes(2) ? "the throttle has no fault state" : "",
   };
-  return missing[l] || "no change of at most two conditions from a drive row sets it off with the throttle held and drive otherwise able to run";
+  return (
+    missing[l] || "no change of at most two conditions from a drive row sets it off with the throttle held and drive otherwise able to run"
+  );
 }

@@ -33,7 +33,14 @@ export function broken(item: Pick<RuleItem, "rule" | "type" | "forbid">, v: RowV
   return applies(item, v) && (item.type === "inhibit" ? outcomeOf(item, v) : !v.drive);
 }
 
-export function ruleItems(c: CompiledDesign, book: RowBook, pool: number[], exhaustive: boolean, poolNote: string, input: (id: string) => string): RuleItem[] {
+export function ruleItems(
+  c: CompiledDesign,
+  book: RowBook,
+  pool: number[],
+  exhaustive: boolean,
+  poolNote: string,
+  input: (id: string) => string,
+): RuleItem[] {
   const out: RuleItem[] = [];
   for (const r of c.design.rules) {
     if (r.type === "no-restart") continue;

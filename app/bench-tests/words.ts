@@ -28,7 +28,8 @@ export type Phases = { first: Move[]; free: Move[]; hold: Move[]; then: Move[]; 
 
 export const movesOf = (p: Phases): Move[] => [...p.first, ...p.free, ...p.hold, ...p.then, ...p.last];
 
-export const list = (xs: string[], last = "and") => (xs.length <= 1 ? xs.join("") : `${xs.slice(0, -1).join(", ")} ${last} ${xs[xs.length - 1]}`);
+export const list = (xs: string[], last = "and") =>
+  xs.length <= 1 ? xs.join("") : `${xs.slice(0, -1).join(", ")} ${last} ${xs[xs.length - 1]}`;
 
 export function describeMoves(n: Naming, p: Phases): string {
   const change = (m: Move) => `${n.conditionLabel(m.cond)} from ${n.stateName(m.cond, m.from)} to ${n.stateName(m.cond, m.to)}`;
@@ -42,9 +43,14 @@ export function describeMoves(n: Naming, p: Phases): string {
         : `Release ${n.conditionLabel(m.cond)}${first}: set it from ${n.stateName(m.cond, m.from)} to ${n.stateName(m.cond, m.to)}.`,
     );
   }
-  if (p.free.length > 0) parts.push(`${parts.length > 0 ? "Then change" : "Change"} ${p.free.map(change).join("; ")}${p.free.length > 1 ? ", in any order" : ""}.`);
+  if (p.free.length > 0)
+    parts.push(
+      `${parts.length > 0 ? "Then change" : "Change"} ${p.free.map(change).join("; ")}${p.free.length > 1 ? ", in any order" : ""}.`,
+    );
   for (const m of p.hold) {
-    parts.push(`${parts.length > 0 ? "Then apply" : "Apply"} ${n.conditionLabel(m.cond)}: set it from ${n.stateName(m.cond, m.from)} to ${n.stateName(m.cond, m.to)} and keep holding it.`);
+    parts.push(
+      `${parts.length > 0 ? "Then apply" : "Apply"} ${n.conditionLabel(m.cond)}: set it from ${n.stateName(m.cond, m.from)} to ${n.stateName(m.cond, m.to)} and keep holding it.`,
+    );
   }
   if (p.then.length > 0) {
     const held = p.hold.length > 0;
@@ -73,7 +79,10 @@ export const latchedBy = (armed: Lockout[]) =>
  */
 export function lockoutWords(checked: Lockout[], driveStep: number, others: Lockout[]): { head: string; note: string } {
   const names = checked.map(lockoutName);
-  const events = list(checked.map((l) => LOCKOUT_TEXT[l].event), "and");
+  const events = list(
+    checked.map((l) => LOCKOUT_TEXT[l].event),
+    "and",
+  );
   const extra = others.filter((o) => !checked.includes(o));
   const together = [...checked.slice(1), ...extra];
   const also =

@@ -53,10 +53,16 @@ export function CanvasView() {
     },
     [store],
   );
-  const onConnect = useCallback((c: Connection) => {
-    const why = store.getState().connect(c);
-    if (why) store.getState().setCanvasNote({ tone: "error", text: `No wire from ${c.source}.${c.sourceHandle} to ${c.target}.${c.targetHandle}: ${why}.` });
-  }, [store]);
+  const onConnect = useCallback(
+    (c: Connection) => {
+      const why = store.getState().connect(c);
+      if (why)
+        store
+          .getState()
+          .setCanvasNote({ tone: "error", text: `No wire from ${c.source}.${c.sourceHandle} to ${c.target}.${c.targetHandle}: ${why}.` });
+    },
+    [store],
+  );
   // A drag that ends on a terminal the wire may not join: say why instead of doing nothing.
   const onConnectEnd = useCallback(
     (_: MouseEvent | TouchEvent, state: FinalConnectionState) => {
@@ -65,8 +71,13 @@ export function CanvasView() {
       if (!from || !to || state.isValid) return;
       if (from.nodeId === to.nodeId && from.id === to.id) return;
       const s = store.getState();
-      const check = checkConnection({ source: from.nodeId, sourceHandle: from.id ?? null, target: to.nodeId, targetHandle: to.id ?? null }, s.nodes, s.edges);
-      if (!check.ok) s.setCanvasNote({ tone: "error", text: `No wire from ${from.nodeId}.${from.id} to ${to.nodeId}.${to.id}: ${check.reason}.` });
+      const check = checkConnection(
+        { source: from.nodeId, sourceHandle: from.id ?? null, target: to.nodeId, targetHandle: to.id ?? null },
+        s.nodes,
+        s.edges,
+      );
+      if (!check.ok)
+        s.setCanvasNote({ tone: "error", text: `No wire from ${from.nodeId}.${from.id} to ${to.nodeId}.${to.id}: ${check.reason}.` });
     },
     [store],
   );

@@ -114,7 +114,9 @@ export function nodeFromComponent(c: Obj, position: XY): CanvasNode | null {
 
 /** Document -> canvas. Never throws. */
 export function documentToFlow(input: unknown, fallbackName = "Untitled design"): LoadResult {
-  const doc: Obj = isEmptyDocument(input) ? { ...starterDocument(isObj(input) ? str(input.name, fallbackName) || fallbackName : fallbackName) } : (input as Obj);
+  const doc: Obj = isEmptyDocument(input)
+    ? { ...starterDocument(isObj(input) ? str(input.name, fallbackName) || fallbackName : fallbackName) }
+    : (input as Obj);
   const { format, name, conditions, components, wires, controller, rules, layout, ...extra } = doc;
   const dropped: string[] = [];
   const unplaced: string[] = [];

@@ -8,7 +8,13 @@ const Editor = lazy(() => import("./editor"));
 
 function Placeholder() {
   return (
-    <div role="status" className={cardVariants({ padding: "none", className: "flex h-[60vh] min-h-[320px] items-center justify-center text-sm text-ink-500 md:h-auto md:min-h-[480px] md:flex-1" })}>
+    <div
+      role="status"
+      className={cardVariants({
+        padding: "none",
+        className: "flex h-[60vh] min-h-[320px] items-center justify-center text-sm text-ink-500 md:h-auto md:min-h-[480px] md:flex-1",
+      })}
+    >
       Opening the canvas…
     </div>
   );
@@ -18,7 +24,11 @@ const noSubscription = () => () => {};
 
 export function DesignEditor(props: DesignEditorProps) {
   // false while rendering on the server and hydrating, true in the browser afterwards
-  const mounted = useSyncExternalStore(noSubscription, () => true, () => false);
+  const mounted = useSyncExternalStore(
+    noSubscription,
+    () => true,
+    () => false,
+  );
   if (!mounted) return <Placeholder />;
   return (
     <Suspense fallback={<Placeholder />}>

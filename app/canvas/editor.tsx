@@ -21,7 +21,14 @@ import { cardVariants } from "../components/ui/card";
 
 export default function Editor(props: DesignEditorProps) {
   const [store] = useState(() =>
-    createEditorStore({ initial: props.initial, readOnly: props.readOnly, designName: props.designName, baseRevision: props.baseRevision, row: props.row, initialIsRevision: props.initialIsRevision }),
+    createEditorStore({
+      initial: props.initial,
+      readOnly: props.readOnly,
+      designName: props.designName,
+      baseRevision: props.baseRevision,
+      row: props.row,
+      initialIsRevision: props.initialIsRevision,
+    }),
   );
   return (
     <EditorContext.Provider value={store}>
@@ -68,7 +75,12 @@ function EditorShell(props: DesignEditorProps) {
       ref={root}
       className={cardVariants({ padding: "none", className: "cp-editor flex min-w-0 flex-col overflow-hidden md:min-h-[480px] md:flex-1" })}
     >
-      <Toolbar readOnly={readOnly} baseRevision={props.baseRevision} onSaveRevision={props.onSaveRevision} onRevisionSaved={autosave.saveAgain} />
+      <Toolbar
+        readOnly={readOnly}
+        baseRevision={props.baseRevision}
+        onSaveRevision={props.onSaveRevision}
+        onRevisionSaved={autosave.saveAgain}
+      />
       <BannerView />
       <div className="flex min-w-0 flex-col md:min-h-0 md:flex-1 md:flex-row">
         {readOnly ? null : <Palette />}
@@ -94,7 +106,11 @@ function BannerView() {
         ? "border-moss-600 bg-moss-50 text-moss-700"
         : "border-copper-500 bg-copper-50 text-copper-700";
   return (
-    <div role={banner.tone === "error" ? "alert" : "status"} data-testid="editor-banner" className={`flex flex-wrap items-start gap-2 border-b px-3 py-2 text-sm ${tone}`}>
+    <div
+      role={banner.tone === "error" ? "alert" : "status"}
+      data-testid="editor-banner"
+      className={`flex flex-wrap items-start gap-2 border-b px-3 py-2 text-sm ${tone}`}
+    >
       <div className="min-w-0 flex-1">
         <p className="font-medium">{banner.text}</p>
         {banner.detail ? <p className="mt-1 text-xs">{banner.detail}</p> : null}

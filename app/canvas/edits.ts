@@ -107,7 +107,10 @@ export function removeCondition(g: Graph, index: number): Outcome {
   const conditions = g.rest.conditions.filter((_, k) => k !== index);
   if (!conditions.some((x) => x.id === c.id)) {
     const users = usersOfCondition(g, c.id);
-    if (users.length > 0) return refuse(`${q(c.id)} is used by ${list(users.slice(0, 6))}${users.length > 6 ? ` and ${users.length - 6} more` : ""}: change them first`);
+    if (users.length > 0)
+      return refuse(
+        `${q(c.id)} is used by ${list(users.slice(0, 6))}${users.length > 6 ? ` and ${users.length - 6} more` : ""}: change them first`,
+      );
   }
   return { ok: true, nodes: g.nodes, rest: { ...g.rest, conditions } };
 }
@@ -137,7 +140,9 @@ function changeStateEverywhere(g: Graph, cond: string, from: string, to: string 
       },
       rules: mapRules(g.rest.rules, (p) => (p.cond === cond ? { ...p, in: fix(p.in ?? []) } : p)),
     },
-    nodes: g.nodes.map((n) => (n.type === "contact" && n.data.condition === cond ? { ...n, data: { ...n.data, closedIn: fix(n.data.closedIn) } } : n)),
+    nodes: g.nodes.map((n) =>
+      n.type === "contact" && n.data.condition === cond ? { ...n, data: { ...n.data, closedIn: fix(n.data.closedIn) } } : n,
+    ),
   };
 }
 
@@ -183,13 +188,19 @@ export function removeState(g: Graph, condIndex: number, stateIndex: number): Ou
   const withStates = { ...g, rest: { ...g.rest, conditions: g.rest.conditions.map((x, k) => (k === condIndex ? { ...x, states } : x)) } };
   // Removing one of two equal states leaves the name in place: nothing else changes.
   if (states.includes(st) || !ownsReferences(g, condIndex)) return { ok: true, ...withStates };
-  const onlyHere = g.nodes.filter((n) => n.type === "contact" && n.data.condition === c.id && n.data.closedIn.length > 0 && n.data.closedIn.every((s) => s === st));
-  if (onlyHere.length > 0) return refuse(`${list(onlyHere.map((n) => n.id))} ${onlyHere.length === 1 ? "conducts" : "conduct"} only in ${q(st)}: change ${onlyHere.length === 1 ? "it" : "them"} first`);
+  const onlyHere = g.nodes.filter(
+    (n) => n.type === "contact" && n.data.condition === c.id && n.data.closedIn.length > 0 && n.data.closedIn.every((s) => s === st),
+  );
+  if (onlyHere.length > 0)
+    return refuse(
+      `${list(onlyHere.map((n) => n.id))} ${onlyHere.length === 1 ? "conducts" : "conduct"} only in ${q(st)}: change ${onlyHere.length === 1 ? "it" : "them"} first`,
+    );
   const t = g.rest.controller.throttle;
   if (t.condition === c.id) {
     for (const k of ["released", "applied"] as const) {
       const xs = t[k] ?? [];
-      if (xs.length > 0 && xs.every((s) => s === st)) return refuse(`${q(st)} is the throttle's only ${k} state: change the throttle under Controller first`);
+      if (xs.length > 0 && xs.every((s) => s === st))
+        return refuse(`${q(st)} is the throttle's only ${k} state: change the throttle under Controller first`);
     }
   }
   return { ok: true, ...changeStateEverywhere(withStates, c.id, st, null) };
@@ -222,17 +233,31 @@ export function renameComponentIn(g: FullGraph, id: string, typed: string): ({ o
   const next = clean.id;
   if (next === id) return { ok: true, ...g };
   if (g.nodes.some((n) => n.id === next)) return { ok: false, message: `another component is already called ${q(next)}` };
-  if (g.rest.conditions.some((c) => c.id === next)) return { ok: false, message: `a condition is already called ${q(next)}; condition and component ids must differ` };
+  if (g.rest.conditions.some((c) => c.id === next))
+    return { ok: false, message: `a condition is already called ${q(next)}; condition and component ids must differ` };
   const ren = (x: string) => (x === id ? next : x);
   return {
     ok: true,
     nodes: g.nodes.map((n) => (n.id === id ? { ...n, id: next } : n)),
-    edges: g.edges.map((e) => (e.source === id || e.target === id ? { ...e, id: wireId(terminalRef(ren(e.source), e.sourceHandle ?? ""), terminalRef(ren(e.target), e.targetHandle ?? "")) + (/#\d+$/.exec(e.id)?.[0] ?? ""), source: ren(e.source), target: ren(e.target) } : e)),
+    edges: g.edges.map((e) =>
+      e.source === id || e.target === id
+        ? {
+            ...e,
+            id:
+              wireId(terminalRef(ren(e.source), e.sourceHandle ?? ""), terminalRef(ren(e.target), e.targetHandle ?? "")) +
+              (/#\d+$/.exec(e.id)?.[0] ?? ""),
+            source: ren(e.source),
+            target: ren(e.target),
+          }
+        : e,
+    ),
     rest: {
       ...g.rest,
       rules: g.rest.rules.map((r) => {
         const forbid = (r as { forbid?: unknown }).forbid;
-        return typeof forbid === "object" && forbid !== null && (forbid as { energized?: string }).energized === id ? ({ ...r, forbid: { energized: next } } as Rule) : r;
+        return typeof forbid === "object" && forbid !== null && (forbid as { energized?: string }).energized === id
+          ? ({ ...r, forbid: { energized: next } } as Rule)
+          : r;
       }),
     },
   };

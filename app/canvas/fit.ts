@@ -14,9 +14,19 @@ export const FIT_MARGIN = 24;
  * `minimap` / `controls` are the overlays' footprints measured from their corners (size plus their
  * own offset from the edge); null when not shown.
  */
-export function fitPadding(pane: Size, drawing: Size, overlays: { minimap: Size | null; controls: Size | null }, maxZoom: number): FitPadding {
+export function fitPadding(
+  pane: Size,
+  drawing: Size,
+  overlays: { minimap: Size | null; controls: Size | null },
+  maxZoom: number,
+): FitPadding {
   const m = FIT_MARGIN;
-  const px = (t: number, r: number, b: number, l: number): FitPadding => ({ top: `${t}px`, right: `${r}px`, bottom: `${b}px`, left: `${l}px` });
+  const px = (t: number, r: number, b: number, l: number): FitPadding => ({
+    top: `${t}px`,
+    right: `${r}px`,
+    bottom: `${b}px`,
+    left: `${l}px`,
+  });
   const { minimap, controls } = overlays;
   if (!minimap && !controls) return px(m, m, m, m);
   const zoomWithin = (right: number, bottom: number, left: number) => {

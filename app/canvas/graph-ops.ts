@@ -29,7 +29,10 @@ export function checkConnection(c: Ends, nodes: readonly CanvasNode[], edges: re
     return { ok: false, reason: "a wire joins two terminals" };
   }
   if (a.id === b.id) {
-    return { ok: false, reason: ta === tb ? "a wire cannot join a terminal to itself" : "a wire across one component's own terminals is not allowed" };
+    return {
+      ok: false,
+      reason: ta === tb ? "a wire cannot join a terminal to itself" : "a wire across one component's own terminals is not allowed",
+    };
   }
   const from = terminalRef(a.id, ta);
   const to = terminalRef(b.id, tb);
@@ -69,14 +72,19 @@ function takenIds(nodes: readonly CanvasNode[], rest: DesignRest): Set<string> {
  * A new component of `kind` at the free spot nearest `position` (its top-left corner), with a
  * fresh id. `prefer` is the direction searched first when `position` is taken.
  */
-export function newNode(kind: ComponentKind, position: XY, nodes: readonly CanvasNode[], rest: DesignRest, fn?: InputFunction, prefer?: XY): CanvasNode {
+export function newNode(
+  kind: ComponentKind,
+  position: XY,
+  nodes: readonly CanvasNode[],
+  rest: DesignRest,
+  fn?: InputFunction,
+  prefer?: XY,
+): CanvasNode {
   const taken = takenIds(nodes, rest);
   const info = KIND_INFO[kind];
   const data = info.defaultData({ rest, fn });
   const id =
-    kind === "input"
-      ? freshId(INPUT_ID[(data as { function: InputFunction }).function], taken, false)
-      : freshId(ID_PREFIX[kind], taken);
+    kind === "input" ? freshId(INPUT_ID[(data as { function: InputFunction }).function], taken, false) : freshId(ID_PREFIX[kind], taken);
   const spot = freeSpot(position, [{ dx: 0, dy: 0, ...info.size }], nodes, prefer);
   return { id, type: kind, position: spot, data } as CanvasNode;
 }
@@ -96,7 +104,8 @@ const edge = (from: [string, string], to: [string, string]): CanvasEdge => ({
 function newContactNear(c: ContactNode, nodes: readonly CanvasNode[], rest: DesignRest, side: "right" | "below"): ContactNode {
   const size = sizeOf(c);
   const gap = PLACE_MARGIN * 2;
-  const wanted = side === "right" ? { x: c.position.x + size.width + gap, y: c.position.y } : { x: c.position.x, y: c.position.y + size.height + gap };
+  const wanted =
+    side === "right" ? { x: c.position.x + size.width + gap, y: c.position.y } : { x: c.position.x, y: c.position.y + size.height + gap };
   return newNode("contact", wanted, nodes, rest, undefined, side === "right" ? { x: 1, y: 0 } : { x: 0, y: 1 }) as ContactNode;
 }
 
@@ -106,15 +115,22 @@ export function addInSeries(contactId: string, nodes: readonly CanvasNode[], edg
   if (!c || c.type !== "contact") return null;
   const n = newContactNear(c, nodes, rest, "right");
   const moved = edges.map((e) => {
-    if (e.source === c.id && e.sourceHandle === "2") return { ...e, source: n.id, id: wireId(terminalRef(n.id, "2"), terminalRef(e.target, e.targetHandle ?? "")) };
-    if (e.target === c.id && e.targetHandle === "2") return { ...e, target: n.id, id: wireId(terminalRef(e.source, e.sourceHandle ?? ""), terminalRef(n.id, "2")) };
+    if (e.source === c.id && e.sourceHandle === "2")
+      return { ...e, source: n.id, id: wireId(terminalRef(n.id, "2"), terminalRef(e.target, e.targetHandle ?? "")) };
+    if (e.target === c.id && e.targetHandle === "2")
+      return { ...e, target: n.id, id: wireId(terminalRef(e.source, e.sourceHandle ?? ""), terminalRef(n.id, "2")) };
     return e;
   });
   return { nodes: [...nodes, n], edges: [...moved, edge([c.id, "2"], [n.id, "1"])], added: n.id };
 }
 
 /** A new contact across `contactId`: its terminals wired to the same two nets. */
-export function addInParallel(contactId: string, nodes: readonly CanvasNode[], edges: readonly CanvasEdge[], rest: DesignRest): Added | null {
+export function addInParallel(
+  contactId: string,
+  nodes: readonly CanvasNode[],
+  edges: readonly CanvasEdge[],
+  rest: DesignRest,
+): Added | null {
   const c = nodes.find((n) => n.id === contactId);
   if (!c || c.type !== "contact") return null;
   const n = newContactNear(c, nodes, rest, "below");
@@ -162,7 +178,14 @@ export function pasteClip(
     const id = n.type === "input" ? freshId(INPUT_ID[n.data.function], taken, false) : freshId(ID_PREFIX[n.type], taken);
     taken.add(id);
     rename.set(n.id, id);
-    copies.push({ id, type: n.type, position: n.position, data: structuredClone(n.data), selected: true, ...(n.measured ? { measured: n.measured } : {}) } as CanvasNode);
+    copies.push({
+      id,
+      type: n.type,
+      position: n.position,
+      data: structuredClone(n.data),
+      selected: true,
+      ...(n.measured ? { measured: n.measured } : {}),
+    } as CanvasNode);
   }
   if (copies.length === 0) return skippedInputs > 0 ? { nodes: [...nodes], edges: [...edges], added: [], skippedInputs } : null;
   // The group keeps its shape; it moves as a whole to the nearest spot where none of it overlaps.
@@ -174,7 +197,10 @@ export function pasteClip(
   const placed = copies.map((n, i) => ({ ...n, position: { x: at.x + group[i].dx, y: at.y + group[i].dy } }) as CanvasNode);
   const copiedEdges = clip.edges
     .filter((e) => rename.has(e.source) && rename.has(e.target))
-    .map((e) => ({ ...edge([rename.get(e.source)!, e.sourceHandle ?? ""], [rename.get(e.target)!, e.targetHandle ?? ""]), selected: false }));
+    .map((e) => ({
+      ...edge([rename.get(e.source)!, e.sourceHandle ?? ""], [rename.get(e.target)!, e.targetHandle ?? ""]),
+      selected: false,
+    }));
   return {
     nodes: [...nodes.map((n) => (n.selected ? ({ ...n, selected: false } as CanvasNode) : n)), ...placed],
     edges: [...edges.map((e) => (e.selected ? { ...e, selected: false } : e)), ...copiedEdges],
@@ -184,7 +210,11 @@ export function pasteClip(
 }
 
 /** Copies the selected components (and the wires among them) beside the originals, selecting the copies. Inputs are not copied. */
-export function duplicateNodes(nodes: readonly CanvasNode[], edges: readonly CanvasEdge[], rest: DesignRest): { nodes: CanvasNode[]; edges: CanvasEdge[] } | null {
+export function duplicateNodes(
+  nodes: readonly CanvasNode[],
+  edges: readonly CanvasEdge[],
+  rest: DesignRest,
+): { nodes: CanvasNode[]; edges: CanvasEdge[] } | null {
   const clip = copyOf(nodes, edges);
   if (!clip) return null;
   // A second input of the same function would be invalid, so Duplicate leaves inputs out.

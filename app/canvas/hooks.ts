@@ -135,7 +135,8 @@ export function useLayoutRequests() {
     const fit = () => {
       const pane = flowStore.getState().domNode?.getBoundingClientRect();
       const nodes = flow.getNodes();
-      if (!pane || nodes.length === 0) return void flow.fitView({ padding: 0.2, minZoom: FIT_MIN_ZOOM, maxZoom: FIT_MAX_ZOOM, duration: 0 });
+      if (!pane || nodes.length === 0)
+        return void flow.fitView({ padding: 0.2, minZoom: FIT_MIN_ZOOM, maxZoom: FIT_MAX_ZOOM, duration: 0 });
       const bounds = flow.getNodesBounds(nodes);
       const box = (selector: string) => flowStore.getState().domNode?.querySelector(selector)?.getBoundingClientRect() ?? null;
       const mm = box(".react-flow__minimap");
@@ -161,10 +162,20 @@ export type DraftState =
   | { kind: "error"; message: string };
 
 /** Autosaves the working copy (debounced, versioned); a 409 stops autosave until the user picks. */
-export function useAutosave(opts: { enabled: boolean; draftVersion: number; onSaveDraft: (doc: unknown, version: number) => Promise<SaveDraftResult> }) {
+export function useAutosave(opts: {
+  enabled: boolean;
+  draftVersion: number;
+  onSaveDraft: (doc: unknown, version: number) => Promise<SaveDraftResult>;
+}) {
   const store = useEditorStore();
   const [state, setState] = useState<DraftState>({ kind: "saved" });
-  const ref = useRef({ version: opts.draftVersion, saved: JSON.stringify(docOf(store.getState())), busy: false, stopped: false, force: false });
+  const ref = useRef({
+    version: opts.draftVersion,
+    saved: JSON.stringify(docOf(store.getState())),
+    busy: false,
+    stopped: false,
+    force: false,
+  });
   const onSave = useRef(opts.onSaveDraft);
   useEffect(() => {
     onSave.current = opts.onSaveDraft;

@@ -50,10 +50,10 @@ export function layoutGraph(nodes: readonly CanvasNode[], edges: readonly Canvas
       id: n.id,
       ...sizeOf(n),
       layoutOptions: (n.type === "supply"
-          ? { "elk.layered.layering.layerConstraint": "FIRST" }
-          : n.type === "input"
-            ? { "elk.layered.layering.layerConstraint": "LAST" }
-            : {}) as Record<string, string>,
+        ? { "elk.layered.layering.layerConstraint": "FIRST" }
+        : n.type === "input"
+          ? { "elk.layered.layering.layerConstraint": "LAST" }
+          : {}) as Record<string, string>,
     })),
     edges: edges.map((e) => {
       const forward = far(e.source) <= far(e.target) || kind.get(e.target) === "supply";

@@ -19,7 +19,12 @@ const PALETTE: Array<{ kind: ComponentKind; fn?: InputFunction; title: string; h
 export function Palette() {
   const store = useEditorStore();
   const editable = useEditor((s) => s.simulation === null);
-  const usedFunctions = useEditor((s) => s.nodes.filter((n) => n.type === "input").map((n) => (n.data as { function: string }).function).join(","));
+  const usedFunctions = useEditor((s) =>
+    s.nodes
+      .filter((n) => n.type === "input")
+      .map((n) => (n.data as { function: string }).function)
+      .join(","),
+  );
   const { screenToFlowPosition } = useReactFlow();
   const addAtCentre = (kind: ComponentKind, fn?: InputFunction) => {
     const pane = document.querySelector(".cp-editor .react-flow")?.getBoundingClientRect();
@@ -28,7 +33,10 @@ export function Palette() {
     store.getState().addComponent(kind, { x: Math.round(p.x - size.width / 2), y: Math.round(p.y - size.height / 2) }, fn);
   };
   return (
-    <nav aria-label="Component palette" className="flex-none border-b border-ink-200 bg-ink-50 p-2 md:w-36 md:overflow-y-auto md:border-r md:border-b-0">
+    <nav
+      aria-label="Component palette"
+      className="flex-none border-b border-ink-200 bg-ink-50 p-2 md:w-36 md:overflow-y-auto md:border-r md:border-b-0"
+    >
       <h2 className="mb-1 text-xs font-bold uppercase tracking-wide text-ink-500">Components</h2>
       <p className="mb-2 text-[11px] text-ink-500">Drag onto the canvas, or press to add.</p>
       <ul className="flex flex-wrap gap-1 md:block md:space-y-1">

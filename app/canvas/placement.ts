@@ -41,7 +41,9 @@ export function freeSpot(
       if (i > -ring && i < ring) spots.push({ x: -ring, y: i }, { x: ring, y: i });
     }
     // Nearest first; ties broken towards the preferred direction.
-    spots.sort((a, b) => Math.hypot(a.x, a.y) - Math.hypot(b.x, b.y) || b.x * prefer.x + b.y * prefer.y - (a.x * prefer.x + a.y * prefer.y));
+    spots.sort(
+      (a, b) => Math.hypot(a.x, a.y) - Math.hypot(b.x, b.y) || b.x * prefer.x + b.y * prefer.y - (a.x * prefer.x + a.y * prefer.y),
+    );
     for (const s of spots) {
       const p = { x: wanted.x + s.x * STEP, y: wanted.y + s.y * STEP };
       if (fits(p)) return p;

@@ -22,9 +22,18 @@ const TABS: Array<{ id: Panel; label: string }> = [
 export function SidePanel() {
   const panel = useEditor((s) => s.panel);
   const setPanel = useEditor((s) => s.setPanel);
-  const failing = useEditor((s) => (s.proof.status === "invalid" ? s.proof.problems.length : s.proof.status === "done" ? s.proof.verdict.rules.filter((r) => !r.holds).length : 0));
+  const failing = useEditor((s) =>
+    s.proof.status === "invalid"
+      ? s.proof.problems.length
+      : s.proof.status === "done"
+        ? s.proof.verdict.rules.filter((r) => !r.holds).length
+        : 0,
+  );
   return (
-    <aside className="flex min-w-0 flex-none flex-col border-t border-ink-200 bg-ink-50 md:w-80 md:border-t-0 md:border-l" aria-label="Design details">
+    <aside
+      className="flex min-w-0 flex-none flex-col border-t border-ink-200 bg-ink-50 md:w-80 md:border-t-0 md:border-l"
+      aria-label="Design details"
+    >
       <div role="tablist" aria-label="Panels" className="flex flex-wrap gap-0.5 border-b border-ink-200 bg-white px-1 pt-1">
         {TABS.map((t) => (
           <button
@@ -38,7 +47,9 @@ export function SidePanel() {
             className={`rounded-t px-2 py-1 text-xs font-semibold ${panel === t.id ? "border-b-2 border-copper-600 text-copper-700" : "text-ink-600 hover:text-ink-900"}`}
           >
             {t.label}
-            {t.id === "problems" && failing > 0 ? <span className="ml-1 rounded-full bg-brick-600 px-1.5 text-[10px] text-white">{failing}</span> : null}
+            {t.id === "problems" && failing > 0 ? (
+              <span className="ml-1 rounded-full bg-brick-600 px-1.5 text-[10px] text-white">{failing}</span>
+            ) : null}
           </button>
         ))}
       </div>

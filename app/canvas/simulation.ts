@@ -1,6 +1,17 @@
 // Simulation on the main thread: compile the current design once per content, evaluate one row
 // (optionally with a contact fault), or replay a trace up to a step.
-import { compileDesign, decodeRow, evaluateRow, replayTrace, encodeRow, rowCount, validateDesign, type CompiledDesign, type ContactFault, type Design } from "../engine";
+import {
+  compileDesign,
+  decodeRow,
+  evaluateRow,
+  replayTrace,
+  encodeRow,
+  rowCount,
+  validateDesign,
+  type CompiledDesign,
+  type ContactFault,
+  type Design,
+} from "../engine";
 import { contentKey } from "./convert";
 import type { Simulation, SimView } from "./types";
 
@@ -34,7 +45,13 @@ export function viewFor(c: CompiledDesign, sim: Simulation): SimView {
     if (index < 0) throw new Error("pick a state for every condition");
     const faults: ContactFault[] = sim.source.kind === "fault" ? [sim.source.fault] : [];
     const row = evaluateRow(c, index, faults);
-    return { contacts: row.contacts, inputs: row.inputs, energized: new Set(row.nets.energizedTerminals), drive: row.drive, ...(faults[0] ? { fault: faults[0] } : {}) };
+    return {
+      contacts: row.contacts,
+      inputs: row.inputs,
+      energized: new Set(row.nets.energizedTerminals),
+      drive: row.drive,
+      ...(faults[0] ? { fault: faults[0] } : {}),
+    };
   } catch (e) {
     return { contacts: {}, inputs: {}, energized: new Set(), drive: false, error: e instanceof Error ? e.message : String(e) };
   }
@@ -74,12 +91,16 @@ export function parseRowParam(raw: string | null | undefined): RowParam {
 export function rowStart(raw: string | null | undefined, doc: Design): { simulation: Simulation | null; notice: string | null } {
   const param = parseRowParam(raw);
   if (param.kind === "none") return { simulation: null, notice: null };
-  if (param.kind === "bad") return { simulation: null, notice: `“${param.text}” is not a row number, so the design opened without simulating.` };
+  if (param.kind === "bad")
+    return { simulation: null, notice: `“${param.text}” is not a row number, so the design opened without simulating.` };
   const compiled = compiledOf(doc);
   if (!compiled) return { simulation: null, notice: `Row ${param.index} cannot be simulated: this design has problems to fix first.` };
   const rows = rowCount(compiled);
   if (param.index >= rows) {
-    return { simulation: null, notice: `This design has no row ${param.index} (its truth table has rows 0 to ${(rows - 1).toLocaleString("en-US")}), so it opened without simulating.` };
+    return {
+      simulation: null,
+      notice: `This design has no row ${param.index} (its truth table has rows 0 to ${(rows - 1).toLocaleString("en-US")}), so it opened without simulating.`,
+    };
   }
   return { simulation: { states: decodeRow(compiled, param.index), source: { kind: "row", index: param.index } }, notice: null };
 }

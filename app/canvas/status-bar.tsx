@@ -29,7 +29,12 @@ export function StatusBar({ draft, readOnly }: { draft: DraftState; readOnly: bo
     const rules = proof.verdict.rules.length;
     const failText = `${failing} of ${rules} ${rules === 1 ? "rule fails" : "rules fail"}`;
     // Spec 1.1: a design that never drives proves nothing, even when every rule holds.
-    proofText = proof.verdict.driveRows === 0 ? `Never drives: proves nothing${failing ? ` · ${failText}` : ""}` : failing === 0 ? "Proven: every rule holds" : failText;
+    proofText =
+      proof.verdict.driveRows === 0
+        ? `Never drives: proves nothing${failing ? ` · ${failText}` : ""}`
+        : failing === 0
+          ? "Proven: every rule holds"
+          : failText;
     tone = proof.verdict.ok ? "text-moss-700" : "text-brick-700";
     proofText += ` · ${proof.verdict.rows.toLocaleString("en-US")} rows, ${proof.verdict.driveRows.toLocaleString("en-US")} with drive`;
   }
@@ -46,18 +51,31 @@ export function StatusBar({ draft, readOnly }: { draft: DraftState; readOnly: bo
             ? `Draft not saved: ${draft.message}`
             : "Draft saved";
   return (
-    <div role="status" aria-live="polite" data-testid="status-bar" className="flex flex-wrap items-center gap-x-4 gap-y-1 border-t border-ink-200 bg-white px-3 py-1.5 text-sm">
+    <div
+      role="status"
+      aria-live="polite"
+      data-testid="status-bar"
+      className="flex flex-wrap items-center gap-x-4 gap-y-1 border-t border-ink-200 bg-white px-3 py-1.5 text-sm"
+    >
       <span className={`font-semibold ${tone}`} data-testid="proof-status">
         {proofText}
       </span>
       {faults > 0 ? (
         // A single-fault count, with the way to what it does and does not cover (the Problems panel).
-        <Button type="button" variant="link" className="underline-offset-auto" title={COMMON_CAUSE_TEXT} onClick={() => setPanel("problems")}>
+        <Button
+          type="button"
+          variant="link"
+          className="underline-offset-auto"
+          title={COMMON_CAUSE_TEXT}
+          onClick={() => setPanel("problems")}
+        >
           {faults} single {faults === 1 ? "fault defeats" : "faults defeat"} a rule
         </Button>
       ) : null}
       <span className={`font-semibold ${isRevision ? "text-moss-700" : "text-ink-600"}`} data-testid="revision-status">
-        {isRevision ? `Revision ${revision.number}, proven` : `Draft, not proven${revision.number > 0 ? ` (based on revision ${revision.number})` : ""}`}
+        {isRevision
+          ? `Revision ${revision.number}, proven`
+          : `Draft, not proven${revision.number > 0 ? ` (based on revision ${revision.number})` : ""}`}
       </span>
       {simulating ? <span className="font-semibold text-copper-700">Simulating</span> : null}
       {draftText ? <span className="ml-auto text-ink-500">{draftText}</span> : null}

@@ -138,7 +138,14 @@ export type EditorState = {
 
 export type EditorStore = StoreApi<EditorState>;
 
-export function createEditorStore(init: { initial: unknown; readOnly: boolean; designName: string; baseRevision: number; row?: string | null; initialIsRevision?: boolean }): EditorStore {
+export function createEditorStore(init: {
+  initial: unknown;
+  readOnly: boolean;
+  designName: string;
+  baseRevision: number;
+  row?: string | null;
+  initialIsRevision?: boolean;
+}): EditorStore {
   const loaded = documentToFlow(init.initial, init.designName);
   const snapshot = (s: Pick<EditorState, "rest" | "nodes" | "edges">) => flowToDocument(s.rest, s.nodes, s.edges);
   const loadedDoc = flowToDocument(loaded.rest, loaded.nodes, loaded.edges);
@@ -192,7 +199,10 @@ export function createEditorStore(init: { initial: unknown; readOnly: boolean; d
       simView: null,
       layoutRequest: loaded.unplaced.length > 0 && loaded.nodes.length > 0 ? 1 : 0,
       fitRequest: 1,
-      revision: { number: init.baseRevision, key: init.baseRevision > 0 && init.initialIsRevision !== false ? contentKey(loadedDoc) : null },
+      revision: {
+        number: init.baseRevision,
+        key: init.baseRevision > 0 && init.initialIsRevision !== false ? contentKey(loadedDoc) : null,
+      },
       loadNotes: loaded.dropped,
       refusal: null,
       banner: null,
@@ -255,7 +265,10 @@ export function createEditorStore(init: { initial: unknown; readOnly: boolean; d
         if (!editable()) return;
         const from = get().pendingWire;
         if (!from) {
-          set({ pendingWire: t, canvasNote: { tone: "info", text: `Wiring from ${t.component}.${t.terminal}: click the terminal to join it to (Esc cancels).` } });
+          set({
+            pendingWire: t,
+            canvasNote: { tone: "info", text: `Wiring from ${t.component}.${t.terminal}: click the terminal to join it to (Esc cancels).` },
+          });
           return;
         }
         if (from.component === t.component && from.terminal === t.terminal) return get().cancelWire();
@@ -320,7 +333,12 @@ export function createEditorStore(init: { initial: unknown; readOnly: boolean; d
         if (!out) return [];
         if (out.added.length > 0) edit({ nodes: out.nodes, edges: out.edges });
         if (out.skippedInputs > 0) {
-          set({ canvasNote: { tone: "error", text: `${out.skippedInputs === 1 ? "An input was" : `${out.skippedInputs} inputs were`} not pasted: this design already has an input of that function.` } });
+          set({
+            canvasNote: {
+              tone: "error",
+              text: `${out.skippedInputs === 1 ? "An input was" : `${out.skippedInputs} inputs were`} not pasted: this design already has an input of that function.`,
+            },
+          });
         }
         return out.added;
       },

@@ -3,7 +3,17 @@
 // which lockout that is switched off would have caught the start on a held throttle. "Would have
 // caught" is found by replaying the same steps with that one lockout switched on (spec 1.5).
 import { lockoutName } from "../lib/lockouts";
-import { compileDesign, LOCKOUTS, replayTrace, validateDesign, type ControllerState, type Design, type Lockout, type RowStates, type StepView } from "../engine";
+import {
+  compileDesign,
+  LOCKOUTS,
+  replayTrace,
+  validateDesign,
+  type ControllerState,
+  type Design,
+  type Lockout,
+  type RowStates,
+  type StepView,
+} from "../engine";
 
 export type Change = { cond: string; from: string; to: string };
 
@@ -34,7 +44,10 @@ export type TraceExplanation = {
 };
 
 /** The names people read (one source: lib/lockouts, decision 137). */
-export const LOCKOUT_NAME: Record<Lockout, string> = Object.fromEntries(LOCKOUTS.map((l) => [l, lockoutName(l)])) as Record<Lockout, string>;
+export const LOCKOUT_NAME: Record<Lockout, string> = Object.fromEntries(LOCKOUTS.map((l) => [l, lockoutName(l)])) as Record<
+  Lockout,
+  string
+>;
 
 const OFF: ControllerState = { powered: false, enabled: false, direction: "neutral", braking: false, throttle: "released" };
 

@@ -5,13 +5,38 @@ import { BaseEdge, EdgeLabelRenderer, getSmoothStepPath, type EdgeProps, type Ed
 import { useEditor } from "./store";
 import type { CanvasEdge } from "./types";
 
-function WireView({ id, source, target, sourceHandleId, targetHandleId, sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition, selected }: EdgeProps<CanvasEdge>) {
+function WireView({
+  id,
+  source,
+  target,
+  sourceHandleId,
+  targetHandleId,
+  sourceX,
+  sourceY,
+  targetX,
+  targetY,
+  sourcePosition,
+  targetPosition,
+  selected,
+}: EdgeProps<CanvasEdge>) {
   const live = useEditor((s) => (s.simView ? s.simView.energized.has(`${source}.${sourceHandleId}`) : null));
   const [path, labelX, labelY] = getSmoothStepPath({ sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition, borderRadius: 6 });
-  const stroke = live ? "var(--color-moss-600)" : selected ? "var(--color-copper-500)" : live === false ? "var(--color-ink-300)" : "var(--color-ink-600)";
+  const stroke = live
+    ? "var(--color-moss-600)"
+    : selected
+      ? "var(--color-copper-500)"
+      : live === false
+        ? "var(--color-ink-300)"
+        : "var(--color-ink-600)";
   return (
     <>
-      <BaseEdge id={id} path={path} interactionWidth={16} style={{ stroke, strokeWidth: live ? 4 : selected ? 3 : 2 }} className={live ? "cp-wire-live" : ""} />
+      <BaseEdge
+        id={id}
+        path={path}
+        interactionWidth={16}
+        style={{ stroke, strokeWidth: live ? 4 : selected ? 3 : 2 }}
+        className={live ? "cp-wire-live" : ""}
+      />
       {selected ? (
         <EdgeLabelRenderer>
           <div

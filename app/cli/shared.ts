@@ -39,7 +39,9 @@ export function readJsonFile(file: string): unknown {
     text = readFileSync(file, "utf8");
   } catch (e) {
     const code = (e as NodeJS.ErrnoException).code;
-    fail(`cannot read ${JSON.stringify(file)}: ${code === "ENOENT" ? "no such file" : code === "EISDIR" ? "it is a directory" : (code ?? "read error")}`);
+    fail(
+      `cannot read ${JSON.stringify(file)}: ${code === "ENOENT" ? "no such file" : code === "EISDIR" ? "it is a directory" : (code ?? "read error")}`,
+    );
   }
   try {
     return JSON.parse(text);
@@ -85,4 +87,3 @@ export function write(chunk: string): Promise<void> {
     else process.stdout.once("drain", resolve).once("error", reject);
   });
 }
-

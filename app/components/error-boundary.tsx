@@ -18,9 +18,17 @@ export function describeError(error: unknown): ErrorText {
           : error.statusText || "The page could not be shown.";
     const title = error.status === 404 ? "Not found" : error.status === 403 ? "Not allowed" : `Error ${error.status}`;
     // A 404 that names what is missing ("This design has no revision 9.") says it better.
-    return { status: error.status, title, detail: error.status === 404 && typeof error.data === "string" && error.data && error.data !== "Not found" ? error.data : detail };
+    return {
+      status: error.status,
+      title,
+      detail: error.status === 404 && typeof error.data === "string" && error.data && error.data !== "Not found" ? error.data : detail,
+    };
   }
-  const text: ErrorText = { status: null, title: "Something went wrong", detail: "The page could not be shown. Try again; if it keeps happening, tell your workspace admin." };
+  const text: ErrorText = {
+    status: null,
+    title: "Something went wrong",
+    detail: "The page could not be shown. Try again; if it keeps happening, tell your workspace admin.",
+  };
   if (import.meta.env.DEV && error instanceof Error) {
     text.detail = error.message;
     text.stack = error.stack;

@@ -25,7 +25,11 @@ const SECTIONS = [
   { to: "reviews", label: "Reviews", icon: "M4 4h12v9H9l-3 3v-3H4z" },
   { to: "activity", label: "Design activity", icon: "M3 10h3l2-5 4 10 2-5h3", needs: "design-events.read" as Action },
   { to: "bench-tests", label: "Bench tests", icon: "M5 4h10M7 4v5l-3 6a1 1 0 001 1.5h10a1 1 0 001-1.5l-3-6V4" },
-  { to: "settings", label: "Settings", icon: "M10 7a3 3 0 100 6 3 3 0 000-6zM10 2v2M10 16v2M2 10h2M16 10h2M4.3 4.3l1.4 1.4M14.3 14.3l1.4 1.4M4.3 15.7l1.4-1.4M14.3 5.7l1.4-1.4" },
+  {
+    to: "settings",
+    label: "Settings",
+    icon: "M10 7a3 3 0 100 6 3 3 0 000-6zM10 2v2M10 16v2M2 10h2M16 10h2M4.3 4.3l1.4 1.4M14.3 14.3l1.4 1.4M4.3 15.7l1.4-1.4M14.3 5.7l1.4-1.4",
+  },
 ] as const;
 
 function Icon({ d }: { d: string }) {
@@ -111,8 +115,14 @@ function WorkspaceSwitcher({ current, workspaces }: { current: string; workspace
 function UserMenu({ user, role, side = "below" }: { user: ShellProps["user"]; role: Role; side?: "below" | "right" }) {
   return (
     <details className="group relative">
-      <summary className="flex min-h-11 cursor-pointer list-none items-center gap-2 rounded-md px-2 py-1 hover:bg-ink-100" aria-label="Account menu">
-        <span className="flex h-8 w-8 items-center justify-center rounded-full bg-ink-800 text-sm font-semibold text-white" aria-hidden="true">
+      <summary
+        className="flex min-h-11 cursor-pointer list-none items-center gap-2 rounded-md px-2 py-1 hover:bg-ink-100"
+        aria-label="Account menu"
+      >
+        <span
+          className="flex h-8 w-8 items-center justify-center rounded-full bg-ink-800 text-sm font-semibold text-white"
+          aria-hidden="true"
+        >
           {user.name.slice(0, 1).toUpperCase()}
         </span>
         <span className={side === "right" ? "sr-only" : "hidden text-left text-sm sm:block"}>
@@ -120,7 +130,9 @@ function UserMenu({ user, role, side = "below" }: { user: ShellProps["user"]; ro
           <span className="block text-xs text-ink-500">{ROLE_LABELS[role]}</span>
         </span>
       </summary>
-      <div className={`absolute z-30 w-64 rounded-lg border border-ink-200 bg-white p-3 shadow-lg ${side === "right" ? "bottom-0 left-full ml-2" : "right-0 mt-2"}`}>
+      <div
+        className={`absolute z-30 w-64 rounded-lg border border-ink-200 bg-white p-3 shadow-lg ${side === "right" ? "bottom-0 left-full ml-2" : "right-0 mt-2"}`}
+      >
         <p className="text-sm font-medium">{user.name}</p>
         <p className="text-xs text-ink-600">{user.email}</p>
         <p className="mt-1 text-xs text-ink-600">Role here: {ROLE_LABELS[role]}</p>
@@ -146,7 +158,10 @@ export function Shell({ workspace, workspaces, user, role, demo, localMail, revi
   const rail = canvas && !navOpen;
   return (
     <div className={canvas ? "min-h-screen md:flex md:h-dvh md:flex-col" : "min-h-screen"}>
-      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2">
+      <a
+        href="#main"
+        className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2"
+      >
         Skip to content
       </a>
       {demo ? (
@@ -154,7 +169,12 @@ export function Shell({ workspace, workspaces, user, role, demo, localMail, revi
           Demo data: the example accounts (password <code>chainproof-demo</code>) are active in this installation.
           {localMail ? (
             <>
-              {" "}Mail sent by the app is in the <Link to="/outbox" className="underline">outbox</Link>.
+              {" "}
+              Mail sent by the app is in the{" "}
+              <Link to="/outbox" className="underline">
+                outbox
+              </Link>
+              .
             </>
           ) : null}
         </div>
@@ -185,7 +205,10 @@ export function Shell({ workspace, workspaces, user, role, demo, localMail, revi
       ) : null}
       <div className={canvas ? "md:flex md:min-h-0 md:flex-1" : "md:flex"}>
         {rail ? (
-          <aside className="hidden w-14 flex-none flex-col items-center gap-4 border-r border-ink-200 bg-white px-1 py-3 md:flex" aria-label="Workspace navigation (collapsed)">
+          <aside
+            className="hidden w-14 flex-none flex-col items-center gap-4 border-r border-ink-200 bg-white px-1 py-3 md:flex"
+            aria-label="Workspace navigation (collapsed)"
+          >
             <Link to={`/w/${workspace.slug}`} className="text-ink-800" title={`${workspace.name}: home`}>
               <LogoMark />
               <span className="sr-only">Chainproof: {workspace.name}</span>
@@ -207,7 +230,9 @@ export function Shell({ workspace, workspaces, user, role, demo, localMail, revi
             </div>
           </aside>
         ) : (
-          <aside className={`hidden w-60 flex-none flex-col gap-6 border-r border-ink-200 bg-white px-4 py-5 md:flex ${canvas ? "md:overflow-y-auto" : "md:min-h-screen"}`}>
+          <aside
+            className={`hidden w-60 flex-none flex-col gap-6 border-r border-ink-200 bg-white px-4 py-5 md:flex ${canvas ? "md:overflow-y-auto" : "md:min-h-screen"}`}
+          >
             <div className="flex items-center justify-between gap-2">
               <Link to={`/w/${workspace.slug}`} className="text-ink-800">
                 <Logo />
@@ -233,7 +258,10 @@ export function Shell({ workspace, workspaces, user, role, demo, localMail, revi
               <UserMenu user={user} role={role} />
             </div>
           )}
-          <main id="main" className={canvas ? "px-3 py-3 md:flex md:min-h-0 md:flex-1 md:flex-col md:px-4" : "mx-auto max-w-6xl px-4 py-6 md:px-8"}>
+          <main
+            id="main"
+            className={canvas ? "px-3 py-3 md:flex md:min-h-0 md:flex-1 md:flex-col md:px-4" : "mx-auto max-w-6xl px-4 py-6 md:px-8"}
+          >
             {children}
           </main>
         </div>

@@ -21,8 +21,14 @@ export function UploadForm({ intent, label, accept, error }: { intent: string; l
           className="mt-1 block w-full text-sm file:mr-3 file:min-h-10 file:rounded-md file:border-0 file:bg-ink-100 file:px-3 file:py-2 file:font-medium"
         />
       </div>
-      <Button type="submit" tone="secondary" disabled={busy}>{busy ? "Uploading…" : "Upload"}</Button>
-      {error ? <p className="w-full text-sm text-brick-700" role="alert">{error}</p> : null}
+      <Button type="submit" tone="secondary" disabled={busy}>
+        {busy ? "Uploading…" : "Upload"}
+      </Button>
+      {error ? (
+        <p className="w-full text-sm text-brick-700" role="alert">
+          {error}
+        </p>
+      ) : null}
     </Form>
   );
 }

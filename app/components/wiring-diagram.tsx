@@ -49,14 +49,23 @@ function describe(d: Design) {
     id: c.id,
     type: c.type as Kind,
     label: "label" in c && c.label ? c.label : c.id,
-    detail: c.type === "contact" ? `${c.condition}: closed in ${c.closedIn.join(", ")}` : c.type === "input" ? `${c.function} input` : c.type === "supply" ? "supply +" : "",
+    detail:
+      c.type === "contact"
+        ? `${c.condition}: closed in ${c.closedIn.join(", ")}`
+        : c.type === "input"
+          ? `${c.function} input`
+          : c.type === "supply"
+            ? "supply +"
+            : "",
   }));
 }
 
 /** The canvas's positions, or columns by distance from the supplies. */
 function wideBoxes(d: Design): Box[] {
   const layout = (d as Design & { layout?: Record<string, { x?: unknown; y?: unknown }> }).layout ?? {};
-  const placed = d.components.every((c) => typeof layout[c.id]?.x === "number" && Number.isFinite(layout[c.id]?.x) && typeof layout[c.id]?.y === "number");
+  const placed = d.components.every(
+    (c) => typeof layout[c.id]?.x === "number" && Number.isFinite(layout[c.id]?.x) && typeof layout[c.id]?.y === "number",
+  );
   const cols = placed ? null : columnsByDistance(d);
   const rowInCol = new Map<number, number>();
   return describe(d).map((c) => {
@@ -143,7 +152,14 @@ export function WiringDiagram({ design, row, highlight = [], suspects = [], titl
   );
 }
 
-function Drawing({ design, row, highlight, suspects, title, stacked }: Required<Omit<Props, "row" | "phone" | "title">> & { row?: RowView; title: string; stacked: boolean }) {
+function Drawing({
+  design,
+  row,
+  highlight,
+  suspects,
+  title,
+  stacked,
+}: Required<Omit<Props, "row" | "phone" | "title">> & { row?: RowView; title: string; stacked: boolean }) {
   const list = stacked ? stackedBoxes(design) : wideBoxes(design);
   const byId = new Map(list.map((b) => [b.id, b]));
   const terminal = stacked ? stackedTerminal : wideTerminal;
@@ -207,7 +223,12 @@ function Drawing({ design, row, highlight, suspects, title, stacked }: Required<
           const on = live.has(`${b.id}.j`);
           return (
             <g key={b.id} data-kind={b.type}>
-              <circle cx={b.x + b.w / 2} cy={b.y + b.h / 2} r={plain ? 5 : 8} fill={plain ? kindColours("junction").fill : on ? "var(--color-copper-500)" : "var(--color-ink-400)"} />
+              <circle
+                cx={b.x + b.w / 2}
+                cy={b.y + b.h / 2}
+                r={plain ? 5 : 8}
+                fill={plain ? kindColours("junction").fill : on ? "var(--color-copper-500)" : "var(--color-ink-400)"}
+              />
               {plain ? (
                 <text x={b.x + b.w / 2} y={b.y - 4} fontSize={11} textAnchor="middle" fill="#5f6878">
                   {b.id}
@@ -252,8 +273,24 @@ function Drawing({ design, row, highlight, suspects, title, stacked }: Required<
           // The switch is drawn across the box: from terminal 1 to terminal 2 (left to right, or top to bottom).
           const cx = b.x + b.w / 2;
           const cy = b.y + b.h / 2;
-          const [s1, s2] = stacked ? [{ x: cx, y: b.y + 18 }, { x: cx, y: b.y + b.h - 18 }] : [{ x: b.x + 20, y: cy }, { x: b.x + b.w - 20, y: cy }];
-          const [t1, t2] = stacked ? [{ x: cx, y: b.y }, { x: cx, y: b.y + b.h }] : [{ x: b.x, y: cy }, { x: b.x + b.w, y: cy }];
+          const [s1, s2] = stacked
+            ? [
+                { x: cx, y: b.y + 18 },
+                { x: cx, y: b.y + b.h - 18 },
+              ]
+            : [
+                { x: b.x + 20, y: cy },
+                { x: b.x + b.w - 20, y: cy },
+              ];
+          const [t1, t2] = stacked
+            ? [
+                { x: cx, y: b.y },
+                { x: cx, y: b.y + b.h },
+              ]
+            : [
+                { x: b.x, y: cy },
+                { x: b.x + b.w, y: cy },
+              ];
           const blade = closed ? s2 : stacked ? { x: s2.x + 30, y: s2.y - 8 } : { x: s2.x - 10, y: s2.y - 32 };
           return (
             <g key={b.id} data-kind={b.type} data-contact={b.id} data-state={closed ? "closed" : "open"} data-ring={ring ?? undefined}>
@@ -274,7 +311,15 @@ function Drawing({ design, row, highlight, suspects, title, stacked }: Required<
               <line x1={s2.x} y1={s2.y} x2={t2.x} y2={t2.y} stroke="var(--color-ink-700)" strokeWidth={3} />
               <circle cx={s1.x} cy={s1.y} r={6} fill="white" stroke="var(--color-ink-700)" strokeWidth={3} />
               <circle cx={s2.x} cy={s2.y} r={6} fill="white" stroke="var(--color-ink-700)" strokeWidth={3} />
-              <line x1={s1.x} y1={s1.y} x2={blade.x} y2={blade.y} stroke={closed ? "var(--color-moss-600)" : "var(--color-ink-700)"} strokeWidth={5} strokeLinecap="round" />
+              <line
+                x1={s1.x}
+                y1={s1.y}
+                x2={blade.x}
+                y2={blade.y}
+                stroke={closed ? "var(--color-moss-600)" : "var(--color-ink-700)"}
+                strokeWidth={5}
+                strokeLinecap="round"
+              />
               {stacked ? (
                 <>
                   <text x={cx + 40} y={cy - 6} fontSize={20} fontWeight={600} fill="var(--color-ink-900)">

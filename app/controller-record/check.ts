@@ -23,7 +23,11 @@ export function parseRecord(input: unknown): ParsedRecord {
 }
 
 /** Derived values and findings of a valid record, against a design when one is given. */
-export function checkRecord(record: ControllerRecord, design?: Pick<Design, "controller">, derived = deriveValues(record)): ControllerCheck {
+export function checkRecord(
+  record: ControllerRecord,
+  design?: Pick<Design, "controller">,
+  derived = deriveValues(record),
+): ControllerCheck {
   const findings = recordFindings(record, derived);
   if (design) findings.push(...designFindings(record, derived, design));
   return { format: CONTROLLER_CHECK_FORMAT, derived, findings: sortFindings(findings) };

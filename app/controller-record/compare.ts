@@ -22,7 +22,8 @@ export function leaves(doc: unknown, prefix = "", out = new Map<string, unknown>
 export function showValue(path: string, v: unknown): string {
   if (v === undefined) return "—";
   if (path === "pack.chemistry" && typeof v === "string" && v in CHEMISTRY_WORDS) return CHEMISTRY_WORDS[v as keyof typeof CHEMISTRY_WORDS];
-  if (path === "settings.throttle.sensor" && typeof v === "string" && v in SENSOR_WORDS) return SENSOR_WORDS[v as keyof typeof SENSOR_WORDS];
+  if (path === "settings.throttle.sensor" && typeof v === "string" && v in SENSOR_WORDS)
+    return SENSOR_WORDS[v as keyof typeof SENSOR_WORDS];
   if (path === "settings.brakeCutsDrive") return v === false ? "no" : "yes";
   if (path === "settings.lockouts" && Array.isArray(v)) return v.length === 0 ? "none" : (v as Lockout[]).join(", ");
   if (typeof v === "string") return v === "" ? "(empty)" : v;
@@ -40,7 +41,11 @@ export function compareRecords(before: unknown, after: unknown): RecordChange[] 
   for (const m of [a, b]) {
     if (!m.has("settings.brakeCutsDrive")) m.set("settings.brakeCutsDrive", true);
     const listed = m.get("settings.lockouts") ?? [];
-    if (Array.isArray(listed)) m.set("settings.lockouts", LOCKOUTS.filter((l) => listed.includes(l)));
+    if (Array.isArray(listed))
+      m.set(
+        "settings.lockouts",
+        LOCKOUTS.filter((l) => listed.includes(l)),
+      );
   }
   const known = Object.keys(FIELD_WORDS) as RecordField[];
   const others = [...new Set([...a.keys(), ...b.keys()])].filter((p) => !(known as string[]).includes(p)).sort();

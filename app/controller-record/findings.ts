@@ -1,13 +1,7 @@
 // Findings of a controller settings record on its own (spec section 3) and against a design's proof
 // (section 4). Every comparison is on the ROUNDED derived values.
 import type { Design, Lockout } from "../engine/index";
-import {
-  CELL_VOLTS,
-  OPEN_GROUND_V,
-  OPEN_SIGNAL_V,
-  type DerivedValues,
-  type ThrottleClassName,
-} from "./derive";
+import { CELL_VOLTS, OPEN_GROUND_V, OPEN_SIGNAL_V, type DerivedValues, type ThrottleClassName } from "./derive";
 import { recordBrakeCutsDrive, recordLockouts, type ControllerRecord } from "./schema";
 import { CHEMISTRY_WORDS, CLASS_WORDS, LOCKOUT_WORDS } from "./words";
 import { lockoutName } from "../lib/lockouts";
@@ -65,12 +59,20 @@ export function recordFindings(r: ControllerRecord, d: DerivedValues): Finding[]
   const s = r.settings;
 
   if (s.lowVoltageCutbackV < pack.minV) {
-    out.push(finding("cutback-below-pack-min",
-      `The low-voltage cut-back (${s.lowVoltageCutbackV} V) is below the pack's minimum of ${volts(pack.minV)} (${cells} at ${cell.min} V): the controller keeps full power on a pack that is already empty.`));
+    out.push(
+      finding(
+        "cutback-below-pack-min",
+        `The low-voltage cut-back (${s.lowVoltageCutbackV} V) is below the pack's minimum of ${volts(pack.minV)} (${cells} at ${cell.min} V): the controller keeps full power on a pack that is already empty.`,
+      ),
+    );
   }
   if (s.overVoltageCutoffV <= pack.maxV) {
-    out.push(finding("cutoff-below-pack-max",
-      `The over-voltage cut-off (${s.overVoltageCutoffV} V) is not above the pack's full-charge voltage of ${volts(pack.maxV)} (${cells} at ${cell.max} V): a full pack, or braking energy returned to it, trips the cut-off.`));
+    out.push(
+      finding(
+        "cutoff-below-pack-max",
+        `The over-voltage cut-off (${s.overVoltageCutoffV} V) is not above the pack's full-charge voltage of ${volts(pack.maxV)} (${cells} at ${cell.max} V): a full pack, or braking energy returned to it, trips the cut-off.`,
+      ),
+    );
   }
   const c = r.controller;
   const below = pack.minV < c.minVoltageV;
@@ -80,13 +82,21 @@ export function recordFindings(r: ControllerRecord, d: DerivedValues): Finding[]
       below ? `its minimum is below the controller's lowest (${c.minVoltageV} V)` : "",
       above ? `its maximum is above the controller's highest (${c.maxVoltageV} V)` : "",
     ].filter(Boolean);
-    out.push(finding("outside-controller-range",
-      `The pack's window, ${volts(pack.minV)} to ${volts(pack.maxV)}, is not inside the controller's rated range of ${c.minVoltageV} to ${c.maxVoltageV} V: ${ends.join(" and ")}.`));
+    out.push(
+      finding(
+        "outside-controller-range",
+        `The pack's window, ${volts(pack.minV)} to ${volts(pack.maxV)}, is not inside the controller's rated range of ${c.minVoltageV} to ${c.maxVoltageV} V: ${ends.join(" and ")}.`,
+      ),
+    );
   }
   const limit = `The battery current limit (${s.batteryCurrentPercent} % of ${c.ratedCurrentA} A, ${amps(d.batteryCurrentA)})`;
   if (d.packContinuousA !== undefined && d.batteryCurrentA > d.packContinuousA) {
-    out.push(finding("battery-current-above-pack",
-      `${limit} is above what the pack can give continuously (${r.pack.capacityAh} Ah at ${r.pack.continuousC} C, ${amps(d.packContinuousA)}).`));
+    out.push(
+      finding(
+        "battery-current-above-pack",
+        `${limit} is above what the pack can give continuously (${r.pack.capacityAh} Ah at ${r.pack.continuousC} C, ${amps(d.packContinuousA)}).`,
+      ),
+    );
   }
   if (r.pack.fuseA !== undefined && d.batteryCurrentA > r.pack.fuseA) {
     out.push(finding("battery-current-above-fuse", `${limit} is above the main fuse's rating (${r.pack.fuseA} A).`));
@@ -94,27 +104,43 @@ export function recordFindings(r: ControllerRecord, d: DerivedValues): Finding[]
   const t = s.throttle;
   const cls = (k: ThrottleClassName) => CLASS_WORDS[k];
   if (d.throttle.rest !== "released") {
-    out.push(finding("throttle-rest-not-released",
-      `At rest the throttle reads ${t.restV} V, which the thresholds class as ${cls(d.throttle.rest)}, not released (released below ${t.releasedBelowV} V, fault below ${t.faultBelowV} V).`));
+    out.push(
+      finding(
+        "throttle-rest-not-released",
+        `At rest the throttle reads ${t.restV} V, which the thresholds class as ${cls(d.throttle.rest)}, not released (released below ${t.releasedBelowV} V, fault below ${t.faultBelowV} V).`,
+      ),
+    );
   }
   if (d.throttle.full !== "applied") {
-    out.push(finding("throttle-full-not-applied",
-      `Fully applied the throttle reads ${t.fullV} V, which the thresholds class as ${cls(d.throttle.full)}, not applied (applied from ${t.appliedFromV} V, fault above ${t.faultAboveV} V).`));
+    out.push(
+      finding(
+        "throttle-full-not-applied",
+        `Fully applied the throttle reads ${t.fullV} V, which the thresholds class as ${cls(d.throttle.full)}, not applied (applied from ${t.appliedFromV} V, fault above ${t.faultAboveV} V).`,
+      ),
+    );
   }
   const open: string[] = [];
   if (d.throttle.openSignal !== "fault") {
-    open.push(`an open signal wire reads ${OPEN_SIGNAL_V.toFixed(1)} V, classed as ${cls(d.throttle.openSignal)} (fault below ${t.faultBelowV} V)`);
+    open.push(
+      `an open signal wire reads ${OPEN_SIGNAL_V.toFixed(1)} V, classed as ${cls(d.throttle.openSignal)} (fault below ${t.faultBelowV} V)`,
+    );
   }
   if (d.throttle.openGround !== undefined && d.throttle.openGround !== "fault") {
-    open.push(`an open ground wire reads ${OPEN_GROUND_V.toFixed(1)} V, classed as ${cls(d.throttle.openGround)} (fault above ${t.faultAboveV} V)`);
+    open.push(
+      `an open ground wire reads ${OPEN_GROUND_V.toFixed(1)} V, classed as ${cls(d.throttle.openGround)} (fault above ${t.faultAboveV} V)`,
+    );
   }
   if (open.length > 0) {
     out.push(finding("throttle-open-wire-not-fault", `A broken throttle wire is not seen as a fault: ${open.join("; ")}.`));
   }
   if (s.precharge && d.precharge && d.precharge.reachedAtDelay < PRECHARGE_LEAST_FRACTION) {
     const p = d.precharge;
-    out.push(finding("precharge-too-short",
-      `The precharge time (${s.precharge.delayMs} ms) charges the controller to ${(p.reachedAtDelay * 100).toFixed(1)} % of the pack's ${volts(pack.maxV)} (time constant ${fixed(p.tauMs, 1)} ms); 95 % takes ${fixed(p.t95Ms, 1)} ms.`));
+    out.push(
+      finding(
+        "precharge-too-short",
+        `The precharge time (${s.precharge.delayMs} ms) charges the controller to ${(p.reachedAtDelay * 100).toFixed(1)} % of the pack's ${volts(pack.maxV)} (time constant ${fixed(p.tauMs, 1)} ms); 95 % takes ${fixed(p.t95Ms, 1)} ms.`,
+      ),
+    );
   }
   return out;
 }
@@ -129,22 +155,29 @@ export function designFindings(r: ControllerRecord, d: DerivedValues, design: Pi
   const has = new Set(recordLockouts(r));
   for (const l of assumed) {
     if (!has.has(l)) {
-      out.push(finding("lockout-missing",
-        `The proof assumes the ${lockoutName(l)} (${LOCKOUT_WORDS[l]}); the record does not have it.`));
+      out.push(finding("lockout-missing", `The proof assumes the ${lockoutName(l)} (${LOCKOUT_WORDS[l]}); the record does not have it.`));
     }
   }
   const designBrake = design.controller.brakeCutsDrive ?? true;
   const recordBrake = recordBrakeCutsDrive(r);
   if (designBrake !== recordBrake) {
     const says = (cuts: boolean) => (cuts ? "cuts drive" : "does not cut drive");
-    out.push(finding("brake-behaviour-differs",
-      `The proof assumes the brake input ${says(designBrake)}; the record says it ${says(recordBrake)}.`));
+    out.push(
+      finding(
+        "brake-behaviour-differs",
+        `The proof assumes the brake input ${says(designBrake)}; the record says it ${says(recordBrake)}.`,
+      ),
+    );
   }
   const openFault = d.throttle.openSignal === "fault" || d.throttle.openGround === "fault";
   const designFault = design.controller.throttle.fault ?? [];
   if (openFault && assumed.includes("throttle-fault") && designFault.length === 0) {
-    out.push(finding("throttle-fault-unused",
-      `The controller reads a broken throttle wire as a fault and the design lists the ${lockoutName("throttle-fault")}, but the design's throttle has no fault state, so the proof never looks at a throttle fault.`));
+    out.push(
+      finding(
+        "throttle-fault-unused",
+        `The controller reads a broken throttle wire as a fault and the design lists the ${lockoutName("throttle-fault")}, but the design's throttle has no fault state, so the proof never looks at a throttle fault.`,
+      ),
+    );
   }
   return out;
 }

@@ -29,7 +29,11 @@ export const NUMBER_FIELDS = [
 ] as const;
 
 export const OPTIONAL_FIELDS = new Set<string>(["pack.continuousC", "pack.fuseA"]);
-export const PRECHARGE_FIELDS = ["settings.precharge.resistorOhm", "settings.precharge.capacitanceUF", "settings.precharge.delayMs"] as const;
+export const PRECHARGE_FIELDS = [
+  "settings.precharge.resistorOhm",
+  "settings.precharge.capacitanceUF",
+  "settings.precharge.delayMs",
+] as const;
 
 /** The name of a lockout's checkbox. */
 export const lockoutField = (l: Lockout) => `settings.lockouts.${l}`;
@@ -70,8 +74,16 @@ export function formToRecord(form: RecordForm, base: unknown = undefined): Recor
   put(doc, "controller.description", (form["controller.description"] ?? "").trim());
   put(doc, "settings.throttle.sensor", (form["settings.throttle.sensor"] ?? "").trim() || undefined);
   const brake = form["settings.brakeCutsDrive"];
-  put(doc, "settings.brakeCutsDrive", brake === "yes" ? true : brake === "no" ? false : brake === undefined || brake === "" ? undefined : brake);
-  put(doc, "settings.lockouts", LOCKOUTS.filter((l) => form[lockoutField(l)] !== undefined && form[lockoutField(l)] !== ""));
+  put(
+    doc,
+    "settings.brakeCutsDrive",
+    brake === "yes" ? true : brake === "no" ? false : brake === undefined || brake === "" ? undefined : brake,
+  );
+  put(
+    doc,
+    "settings.lockouts",
+    LOCKOUTS.filter((l) => form[lockoutField(l)] !== undefined && form[lockoutField(l)] !== ""),
+  );
   const prechargeEmpty = PRECHARGE_FIELDS.every((f) => (form[f] ?? "").trim() === "");
   if (prechargeEmpty) put(doc, "settings.precharge", undefined);
   for (const f of NUMBER_FIELDS) {
@@ -85,7 +97,8 @@ export function formToRecord(form: RecordForm, base: unknown = undefined): Recor
 export function recordToForm(r: ControllerRecord | null): RecordForm {
   const out: RecordForm = {};
   if (!r) return out;
-  const get = (path: string): unknown => path.split(".").reduce<unknown>((at, k) => (at && typeof at === "object" ? (at as Record<string, unknown>)[k] : undefined), r);
+  const get = (path: string): unknown =>
+    path.split(".").reduce<unknown>((at, k) => (at && typeof at === "object" ? (at as Record<string, unknown>)[k] : undefined), r);
   for (const f of NUMBER_FIELDS) {
     const v = get(f);
     if (typeof v === "number") out[f] = String(v);

@@ -15,8 +15,7 @@ export type ThrottleSensor = (typeof SENSORS)[number];
 /** The longest controller description kept. */
 export const DESCRIPTION_MAX = 200;
 
-const required = (what: string) => (issue: { input?: unknown }) =>
-  issue.input === undefined ? "is required" : `must be ${what}`;
+const required = (what: string) => (issue: { input?: unknown }) => (issue.input === undefined ? "is required" : `must be ${what}`);
 
 /** A finite number above 0 (the unit is the field's own). */
 const positive = z.number({ error: required("a number") }).positive({ error: "must be above 0" });
@@ -41,9 +40,7 @@ const packSchema = z.looseObject({
 });
 
 const controllerSchema = z.looseObject({
-  description: z
-    .string({ error: required("text") })
-    .max(DESCRIPTION_MAX, { error: `must be at most ${DESCRIPTION_MAX} characters` }),
+  description: z.string({ error: required("text") }).max(DESCRIPTION_MAX, { error: `must be at most ${DESCRIPTION_MAX} characters` }),
   ratedCurrentA: positive,
   minVoltageV: positive,
   maxVoltageV: positive,
@@ -72,9 +69,7 @@ const settingsSchema = z.looseObject({
   motorCurrentPercent: percent,
   throttle: throttleSchema,
   brakeCutsDrive: z.boolean({ error: "must be true or false" }).optional(),
-  lockouts: z
-    .array(z.enum(LOCKOUTS, { error: `must be one of ${LOCKOUTS.join(", ")}` }), { error: "must be a list" })
-    .optional(),
+  lockouts: z.array(z.enum(LOCKOUTS, { error: `must be one of ${LOCKOUTS.join(", ")}` }), { error: "must be a list" }).optional(),
   precharge: prechargeSchema.optional(),
 });
 
@@ -108,12 +103,47 @@ export function orderProblems(input: unknown): Problem[] {
   const controller = isObj(input.controller) ? input.controller : undefined;
   // The spec's orders of the throttle.
   pairs.push([throttle, "settings.throttle", "restV", "fullV", "<", "the reading at rest must be below the reading fully applied"]);
-  pairs.push([throttle, "settings.throttle", "faultBelowV", "releasedBelowV", "<", "the low fault threshold must be below the released threshold"]);
-  pairs.push([throttle, "settings.throttle", "releasedBelowV", "appliedFromV", "<=", "the released threshold must not be above the applied threshold"]);
-  pairs.push([throttle, "settings.throttle", "appliedFromV", "faultAboveV", "<", "the applied threshold must be below the high fault threshold"]);
+  pairs.push([
+    throttle,
+    "settings.throttle",
+    "faultBelowV",
+    "releasedBelowV",
+    "<",
+    "the low fault threshold must be below the released threshold",
+  ]);
+  pairs.push([
+    throttle,
+    "settings.throttle",
+    "releasedBelowV",
+    "appliedFromV",
+    "<=",
+    "the released threshold must not be above the applied threshold",
+  ]);
+  pairs.push([
+    throttle,
+    "settings.throttle",
+    "appliedFromV",
+    "faultAboveV",
+    "<",
+    "the applied threshold must be below the high fault threshold",
+  ]);
   // Ours (decision 121): a range whose bottom is above its top cannot be set.
-  pairs.push([controller, "controller", "minVoltageV", "maxVoltageV", "<", "the lowest voltage the controller accepts must be below the highest"]);
-  pairs.push([settings, "settings", "lowVoltageCutbackV", "overVoltageCutoffV", "<", "the low-voltage cut-back must be below the over-voltage cut-off"]);
+  pairs.push([
+    controller,
+    "controller",
+    "minVoltageV",
+    "maxVoltageV",
+    "<",
+    "the lowest voltage the controller accepts must be below the highest",
+  ]);
+  pairs.push([
+    settings,
+    "settings",
+    "lowVoltageCutbackV",
+    "overVoltageCutoffV",
+    "<",
+    "the low-voltage cut-back must be below the over-voltage cut-off",
+  ]);
   for (const [obj, at, a, b, op, message] of pairs) {
     if (!obj) continue;
     const x = num(obj[a]);

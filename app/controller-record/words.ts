@@ -19,7 +19,11 @@ export const FIELD_WORDS = {
   "controller.ratedCurrentA": { label: "Rated current", unit: "A" },
   "controller.minVoltageV": { label: "Lowest rated supply voltage", unit: "V" },
   "controller.maxVoltageV": { label: "Highest rated supply voltage", unit: "V" },
-  "settings.lowVoltageCutbackV": { label: "Low-voltage cut-back", unit: "V", hint: "Pack voltage where the controller starts reducing power" },
+  "settings.lowVoltageCutbackV": {
+    label: "Low-voltage cut-back",
+    unit: "V",
+    hint: "Pack voltage where the controller starts reducing power",
+  },
   "settings.overVoltageCutoffV": { label: "Over-voltage cut-off", unit: "V", hint: "Pack voltage where the controller stops" },
   "settings.batteryCurrentPercent": { label: "Battery current limit", unit: "%", hint: "Percent of the controller's rated current" },
   "settings.motorCurrentPercent": { label: "Motor current limit", unit: "%", hint: "Percent of the controller's rated current" },
@@ -53,7 +57,10 @@ export const SENSOR_WORDS: Record<ThrottleSensor, string> = {
 };
 
 /** What each lockout makes the controller do, as a technician would check it on the vehicle (one source: lib/lockouts). */
-export const LOCKOUT_WORDS: Record<Lockout, string> = Object.fromEntries(LOCKOUTS.map((l) => [l, LOCKOUT_TEXT[l].check])) as Record<Lockout, string>;
+export const LOCKOUT_WORDS: Record<Lockout, string> = Object.fromEntries(LOCKOUTS.map((l) => [l, LOCKOUT_TEXT[l].check])) as Record<
+  Lockout,
+  string
+>;
 
 export const CLASS_WORDS: Record<ThrottleClassName, string> = {
   released: "released",

@@ -7,8 +7,7 @@ import * as schema from "./schema.server";
 const globalForDb = globalThis as unknown as { chainproofPool?: pg.Pool };
 
 export const pool =
-  globalForDb.chainproofPool ??
-  new pg.Pool({ connectionString: env.DATABASE_URL, max: 20, connectionTimeoutMillis: 5_000 });
+  globalForDb.chainproofPool ?? new pg.Pool({ connectionString: env.DATABASE_URL, max: 20, connectionTimeoutMillis: 5_000 });
 globalForDb.chainproofPool = pool;
 // A dropped connection must not crash the process; the next query reconnects.
 pool.on("error", () => {});

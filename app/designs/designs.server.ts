@@ -75,7 +75,11 @@ export async function getDesign(workspaceId: string, designId: string) {
 
 export async function listDesigns(workspaceId: string, filter: DesignFilter = {}): Promise<DesignSummary[]> {
   const vehicleCond =
-    filter.vehicle === undefined ? undefined : filter.vehicle === NO_VEHICLE ? isNull(design.vehicleId) : eq(design.vehicleId, filter.vehicle);
+    filter.vehicle === undefined
+      ? undefined
+      : filter.vehicle === NO_VEHICLE
+        ? isNull(design.vehicleId)
+        : eq(design.vehicleId, filter.vehicle);
   const [designs, latest, drafts] = await Promise.all([
     db
       .select({ id: design.id, name: design.name, vehicleId: design.vehicleId, vehicleName: vehicle.name, createdAt: design.createdAt })
@@ -167,7 +171,10 @@ export async function createDesign(workspaceId: string, actorId: string, input: 
       baseRevision: 0,
       updatedBy: actorId,
     });
-    await recordAudit({ workspaceId, actorId, action: "design.created", subject: input.name, detail: { designId: id, start: input.start } }, tx);
+    await recordAudit(
+      { workspaceId, actorId, action: "design.created", subject: input.name, detail: { designId: id, start: input.start } },
+      tx,
+    );
   });
   return { ok: true, id, draftVersion: 1 };
 }
@@ -175,9 +182,7 @@ export async function createDesign(workspaceId: string, actorId: string, input: 
 // ---------------------------------------------------------------- revisions
 
 export type SaveRevisionOutcome =
-  | { kind: "saved"; number: number; contentHash: string }
-  | { kind: "stale"; latestRevision: number }
-  | { kind: "missing" };
+  { kind: "saved"; number: number; contentHash: string } | { kind: "stale"; latestRevision: number } | { kind: "missing" };
 
 function isUniqueViolation(e: unknown): boolean {
   const code = (x: unknown) => (x && typeof x === "object" && "code" in x ? (x as { code: unknown }).code : undefined);

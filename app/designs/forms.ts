@@ -6,7 +6,11 @@ import { DESIGN_STATUSES, REVISION_MESSAGE_MAX } from "./types";
 
 /** How a new design starts: blank, or a copy of one of the demo designs. */
 export const STARTS = [
-  { key: "blank", label: "Blank", description: "A supply, an unwired enable input, a throttle and one “must drive when” rule to complete." },
+  {
+    key: "blank",
+    label: "Blank",
+    description: "A supply, an unwired enable input, a throttle and one “must drive when” rule to complete.",
+  },
   { key: "haybarn", label: "Haybarn campus hauler", description: "Key, seat, charge inlet and park brake; every rule holds." },
   { key: "meadowline", label: "Meadowline deck mower", description: "Seat switch without its lockout; the no-restart rule fails." },
   { key: "scree", label: "Scree trail bike", description: "Side-stand switch bridged by a button; the side-stand rule fails." },
@@ -45,7 +49,14 @@ export type CreateDesignInput = z.output<typeof createDesignSchema>;
 /** The same, as a JSON body of POST /api/v1/designs (vehicleId may be null). */
 export const createDesignBodySchema = z.object({
   name: designNameSchema,
-  vehicleId: z.string().trim().max(100).refine(storableText, UNSTORABLE_MESSAGE).nullable().optional().transform((v) => (v ? v : null)),
+  vehicleId: z
+    .string()
+    .trim()
+    .max(100)
+    .refine(storableText, UNSTORABLE_MESSAGE)
+    .nullable()
+    .optional()
+    .transform((v) => (v ? v : null)),
   start: z.enum(startKeys, { message: `start is one of ${startKeys.join(", ")}` }).default("blank"),
 });
 

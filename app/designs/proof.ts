@@ -37,7 +37,10 @@ export function proveDocument(document: unknown): ProofOutcome {
 export function revisionRefusal(verdict: Verdict): { code: "never_drives" | "rules_fail"; message: string } | null {
   if (verdict.ok) return null;
   const failing = verdict.rules.filter((r) => !r.holds).map((r) => r.id);
-  const fails = failing.length === 0 ? "" : `${failing.length} of ${verdict.rules.length} ${verdict.rules.length === 1 ? "rule fails" : "rules fail"} (${failing.join(", ")})`;
+  const fails =
+    failing.length === 0
+      ? ""
+      : `${failing.length} of ${verdict.rules.length} ${verdict.rules.length === 1 ? "rule fails" : "rules fail"} (${failing.join(", ")})`;
   if (verdict.driveRows === 0) {
     return {
       code: "never_drives",

@@ -17,7 +17,10 @@ export type Standing = { passes: true } | { passes: false; reasons: string[] };
 export function revisionStanding(document: unknown, verdict: Verdict): Standing {
   const reasons: string[] = [];
   const valid = validateStoredDesign(document);
-  if (!valid.ok) reasons.push(`the stored design breaks the format: ${valid.problems[0]?.path || "(document)"} ${valid.problems[0]?.message ?? ""}`.trim());
+  if (!valid.ok)
+    reasons.push(
+      `the stored design breaks the format: ${valid.problems[0]?.path || "(document)"} ${valid.problems[0]?.message ?? ""}`.trim(),
+    );
   else {
     for (const p of valid.rulesMatchingNoRow) {
       const i = Number(/^rules\[(\d+)\]/.exec(p.path)?.[1] ?? -1);
@@ -25,9 +28,11 @@ export function revisionStanding(document: unknown, verdict: Verdict): Standing 
       reasons.push(`rule ${id} matches no row of its truth table (${p.path}), so it checks nothing`);
     }
   }
-  if (verdict.driveRows === 0) reasons.push("the design never drives: no row of its truth table has the drive on, so its rules prove nothing");
+  if (verdict.driveRows === 0)
+    reasons.push("the design never drives: no row of its truth table has the drive on, so its rules prove nothing");
   const failing = verdict.rules.filter((r) => !r.holds).map((r) => r.id);
-  if (failing.length > 0) reasons.push(`${failing.length === 1 ? "rule" : "rules"} ${failing.join(", ")} ${failing.length === 1 ? "fails" : "fail"}`);
+  if (failing.length > 0)
+    reasons.push(`${failing.length === 1 ? "rule" : "rules"} ${failing.join(", ")} ${failing.length === 1 ? "fails" : "fail"}`);
   return reasons.length === 0 ? { passes: true } : { passes: false, reasons };
 }
 

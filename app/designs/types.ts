@@ -67,7 +67,10 @@ export function describeDraftCheck(check: DraftCheck): string {
       return `too large to check on save (${check.rows.toLocaleString("en-US")} rows)`;
     case "checked":
       if (check.ok) return check.rules === 0 ? "no rules yet" : "every rule holds";
-      if (check.driveRows === 0) return check.failing === 0 ? "never drives" : `never drives; ${check.failing} of ${check.rules} ${check.rules === 1 ? "rule fails" : "rules fail"}`;
+      if (check.driveRows === 0)
+        return check.failing === 0
+          ? "never drives"
+          : `never drives; ${check.failing} of ${check.rules} ${check.rules === 1 ? "rule fails" : "rules fail"}`;
       return `${check.failing} of ${check.rules} ${check.rules === 1 ? "rule fails" : "rules fail"}`;
   }
 }

@@ -1,15 +1,7 @@
 // Compiles a valid design into plain numeric tables: conditions with their mixed-radix strides,
 // nets (union-find over wired terminals), contacts between nets, inputs, literals and rules.
 // The result is plain data (JSON-serializable) and keeps the source design.
-import {
-  LOCKOUTS,
-  TERMINALS,
-  type ContactComponent,
-  type Design,
-  type InputFunction,
-  type Lockout,
-  type Predicate,
-} from "./schema";
+import { LOCKOUTS, TERMINALS, type ContactComponent, type Design, type InputFunction, type Lockout, type Predicate } from "./schema";
 import { validateStoredDesign } from "./validate";
 
 export type CompiledCondition = {
@@ -172,9 +164,7 @@ export function compileDesign(design: Design): CompiledDesign {
     terminalNet[t] = net;
   });
 
-  const supplyNets = [
-    ...new Set(design.components.filter((c) => c.type === "supply").map((c) => terminalNet[`${c.id}.+`])),
-  ];
+  const supplyNets = [...new Set(design.components.filter((c) => c.type === "supply").map((c) => terminalNet[`${c.id}.+`]))];
 
   const contacts: CompiledContact[] = design.components
     .filter((c): c is ContactComponent => c.type === "contact")
@@ -210,9 +200,7 @@ export function compileDesign(design: Design): CompiledDesign {
 
   const t = design.controller.throttle;
   const tc = conditionIndex[t.condition];
-  const classOf = conditions[tc].states.map((s) =>
-    t.released.includes(s) ? 0 : t.applied.includes(s) ? 1 : 2,
-  );
+  const classOf = conditions[tc].states.map((s) => (t.released.includes(s) ? 0 : t.applied.includes(s) ? 1 : 2));
   const throttle = {
     cond: tc,
     classOf,
@@ -275,10 +263,7 @@ export function compileDesign(design: Design): CompiledDesign {
  * (all contacts taken as closed), and tells whether that graph is a tree (parallel contacts between
  * the same two nets count as one edge), in which case a single pass settles every net.
  */
-function planFlow(
-  supplyNets: number[],
-  contacts: CompiledContact[],
-): { flow: CompiledDesign["flow"]; singlePass: boolean } {
+function planFlow(supplyNets: number[], contacts: CompiledContact[]): { flow: CompiledDesign["flow"]; singlePass: boolean } {
   const SOURCE = -1;
   const node = (net: number) => (supplyNets.includes(net) ? SOURCE : net);
   const adj = new Map<number, number[]>();

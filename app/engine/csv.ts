@@ -157,25 +157,20 @@ function* rowLines(
 }
 
 /** CSV: the header line, then matching rows from position `from` (within the filtered rows), `count` at most. */
-export function csvChunks(
-  c: CompiledDesign,
-  filter?: RowFilter,
-  opts: { from?: number; count?: number } = {},
-): Generator<string> {
+export function csvChunks(c: CompiledDesign, filter?: RowFilter, opts: { from?: number; count?: number } = {}): Generator<string> {
   const header = csvHeader(c).map(csvField).join(",") + "\n";
   return rowLines(c, filter, opts, (_, text) => csvField(text), ",", header);
 }
 
 /** The same rows as an aligned, human-readable text table (header line first). */
-export function textTableChunks(
-  c: CompiledDesign,
-  filter?: RowFilter,
-  opts: { from?: number; count?: number } = {},
-): Generator<string> {
+export function textTableChunks(c: CompiledDesign, filter?: RowFilter, opts: { from?: number; count?: number } = {}): Generator<string> {
   const widths = columnWidths(c);
   const last = widths.length - 1;
   const cell = (column: number, text: string) =>
     column === 0 ? text.padStart(widths[0]) : column === last ? text : text.padEnd(widths[column]);
-  const header = csvHeader(c).map((h, i) => cell(i, h)).join("  ") + "\n";
+  const header =
+    csvHeader(c)
+      .map((h, i) => cell(i, h))
+      .join("  ") + "\n";
   return rowLines(c, filter, opts, cell, "  ", header);
 }

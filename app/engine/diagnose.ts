@@ -28,14 +28,7 @@ export type InputDiagnosis = {
 };
 
 export type DriveReasonCode =
-  | "unpowered"
-  | "not-enabled"
-  | "neutral"
-  | "direction-conflict"
-  | "braking"
-  | "throttle-released"
-  | "throttle-fault"
-  | "lockout-latched";
+  "unpowered" | "not-enabled" | "neutral" | "direction-conflict" | "braking" | "throttle-released" | "throttle-fault" | "lockout-latched";
 
 export type DriveReason = { code: DriveReasonCode; message: string; input?: string; lockouts?: Lockout[] };
 
@@ -239,7 +232,11 @@ function driveReasons(c: CompiledDesign, view: RowView, latched: boolean, latche
     });
   }
   if (ctl.braking && c.brakeCutsDrive) {
-    out.push({ code: "braking", input: input("brake")!.id, message: `The brake input ${name("brake")} is live, and braking cuts the drive.` });
+    out.push({
+      code: "braking",
+      input: input("brake")!.id,
+      message: `The brake input ${name("brake")} is live, and braking cuts the drive.`,
+    });
   }
   const t = c.conditions[c.throttle.cond];
   const state = view.states[t.id];
@@ -270,11 +267,7 @@ export type ReadingsExplanation = {
  * produce in this row. Ordering: fewest unmeasured inputs changed, then fewest nets changed,
  * then component id (code-unit order), stuck-closed before stuck-open.
  */
-export function explainReadings(
-  c: CompiledDesign,
-  states: Record<string, string>,
-  measured: Record<string, boolean>,
-): ReadingsExplanation {
+export function explainReadings(c: CompiledDesign, states: Record<string, string>, measured: Record<string, boolean>): ReadingsExplanation {
   const index = rowIndexOf(c, states);
   for (const id of Object.keys(measured)) {
     if (!(id in c.inputIndex)) throw new Error(`no input with id ${q(id)}`);
@@ -289,9 +282,7 @@ export function explainReadings(
       if (base.contacts[k.id] === (mode === "stuck-closed")) continue; // no change in this row
       const v = evaluateRow(c, index, [{ component: k.id, mode }]);
       if (!matches(v)) continue;
-      const otherInputsChanged = c.inputs
-        .filter((x) => !(x.id in measured) && v.inputs[x.id] !== base.inputs[x.id])
-        .map((x) => x.id);
+      const otherInputsChanged = c.inputs.filter((x) => !(x.id in measured) && v.inputs[x.id] !== base.inputs[x.id]).map((x) => x.id);
       const now = new Set(v.nets.energized);
       let nets = 0;
       for (let n = 0; n < c.nets.length; n++) if (now.has(n) !== baseNets.has(n)) nets++;

@@ -47,7 +47,11 @@ export type RowSet =
 
 const SET_FORMS = "drive, unsafe:RULE, violating:RULE, demand:RULE, failing:RULE or broken:CONTACT/MODE";
 
-const A_RULE: Record<string, string> = { inhibit: "an inhibit rule", "require-drive": "a require-drive rule", "no-restart": "a no-restart rule" };
+const A_RULE: Record<string, string> = {
+  inhibit: "an inhibit rule",
+  "require-drive": "a require-drive rule",
+  "no-restart": "a no-restart rule",
+};
 
 function ruleNamed(c: CompiledDesign, id: string) {
   const rule = c.rules.find((r) => r.id === id);
@@ -82,7 +86,8 @@ export function parseRowSet(c: CompiledDesign, set: string): RowSet {
     if (rule.type !== "inhibit") throw new RowSetError(`${kind}: needs an inhibit rule; ${JSON.stringify(arg)} is ${A_RULE[rule.type]}`);
     return { kind, rule: rule.index };
   }
-  if (rule.type !== "require-drive") throw new RowSetError(`${kind}: needs a require-drive rule; ${JSON.stringify(arg)} is ${A_RULE[rule.type]}`);
+  if (rule.type !== "require-drive")
+    throw new RowSetError(`${kind}: needs a require-drive rule; ${JSON.stringify(arg)} is ${A_RULE[rule.type]}`);
   return { kind: kind as "demand" | "failing", rule: rule.index };
 }
 
@@ -257,8 +262,7 @@ export type OutcomeChangeKind = "drive-on" | "drive-off" | "now-violating" | "no
 export type OutcomeChange = { kind: OutcomeChangeKind; rule?: string; rows: number; groups: RowGroup[]; groupCount: number };
 
 export type OutcomeComparison =
-  | { comparable: false; reason: string }
-  | { comparable: true; rows: number; changedRows: number; changes: OutcomeChange[] };
+  { comparable: false; reason: string } | { comparable: true; rows: number; changedRows: number; changes: OutcomeChange[] };
 
 /** Same condition ids and states in the same order: row N is the same situation in both tables. */
 export function sameRowNumbering(before: CompiledDesign, after: CompiledDesign): boolean {

@@ -28,7 +28,14 @@ export type {
   RowStates,
 } from "./schema";
 export { designSchema, DESIGN_FORMAT, VERDICT_FORMAT, INPUT_FUNCTIONS, LOCKOUTS, RULE_TYPES, TERMINALS } from "./schema";
-export { ENGINE_ROW_LIMIT, validateDesign, validateStoredDesign, formatPath, type ValidationResult, type StoredValidationResult } from "./validate";
+export {
+  ENGINE_ROW_LIMIT,
+  validateDesign,
+  validateStoredDesign,
+  formatPath,
+  type ValidationResult,
+  type StoredValidationResult,
+} from "./validate";
 export { compileDesign, type CompiledDesign, type ThrottleClass } from "./compile";
 export { prove } from "./prove";
 export {

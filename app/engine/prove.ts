@@ -39,9 +39,7 @@ export function prove(input: Design | CompiledDesign): Verdict {
     } else {
       if (restartTrace === undefined) restartTrace = shortestRestart(c, summary.views);
       rules.push(
-        restartTrace === null
-          ? { id: r.id, holds: true }
-          : { id: r.id, holds: false, trace: restartTrace.map((row) => decodeRow(c, row)) },
+        restartTrace === null ? { id: r.id, holds: true } : { id: r.id, holds: false, trace: restartTrace.map((row) => decodeRow(c, row)) },
       );
     }
   }

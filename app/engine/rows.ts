@@ -174,7 +174,8 @@ export function compileFilter(c: CompiledDesign, filter: RowFilter = {}): Compil
   if (filter.rule !== undefined) {
     const r = c.rules.find((x) => x.id === filter.rule);
     if (!r) throw new Error(`no rule with id ${JSON.stringify(filter.rule)}`);
-    if (r.type !== type) throw new Error(`rule ${JSON.stringify(filter.rule)} is not ${type === "inhibit" ? "an inhibit" : "a require-drive"} rule`);
+    if (r.type !== type)
+      throw new Error(`rule ${JSON.stringify(filter.rule)} is not ${type === "inhibit" ? "an inhibit" : "a require-drive"} rule`);
     rules = [r.index];
   } else {
     rules = c.rules.filter((r) => r.type === type).map((r) => r.index);

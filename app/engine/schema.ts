@@ -4,7 +4,16 @@ import { z } from "zod";
 
 import { DESIGN_FORMAT, ID_PATTERN, INPUT_FUNCTIONS, LOCKOUTS, VERDICT_FORMAT, type InputFunction, type Lockout } from "./vocabulary";
 
-export { DESIGN_FORMAT, VERDICT_FORMAT, INPUT_FUNCTIONS, LOCKOUTS, ID_PATTERN, TERMINALS, type InputFunction, type Lockout } from "./vocabulary";
+export {
+  DESIGN_FORMAT,
+  VERDICT_FORMAT,
+  INPUT_FUNCTIONS,
+  LOCKOUTS,
+  ID_PATTERN,
+  TERMINALS,
+  type InputFunction,
+  type Lockout,
+} from "./vocabulary";
 
 // ---------------------------------------------------------------- types
 
@@ -39,11 +48,7 @@ export type Controller = {
 };
 
 export type Predicate =
-  | { cond: string; in: string[] }
-  | { all: Predicate[] }
-  | { any: Predicate[] }
-  | { not: Predicate }
-  | { always: true };
+  { cond: string; in: string[] } | { all: Predicate[] } | { any: Predicate[] } | { not: Predicate } | { always: true };
 
 export type InhibitRule = {
   id: string;
@@ -107,9 +112,7 @@ export type Problem = { path: string; message: string };
 
 // ---------------------------------------------------------------- zod schema (shape only)
 
-const id = z
-  .string()
-  .regex(ID_PATTERN, { message: "an id is 1-64 characters from A-Z a-z 0-9 _ - ." });
+const id = z.string().regex(ID_PATTERN, { message: "an id is 1-64 characters from A-Z a-z 0-9 _ - ." });
 const stateName = z.string().min(1, { message: "a state name must not be empty" }).max(64);
 const label = z.string().optional();
 
@@ -148,9 +151,7 @@ const predicateSchema: z.ZodType<Predicate> = z.lazy(() =>
       always: z.literal(true).optional(),
     })
     .superRefine((p, ctx) => {
-      const forms = ["cond", "all", "any", "not", "always"].filter(
-        (k) => (p as Record<string, unknown>)[k] !== undefined,
-      );
+      const forms = ["cond", "all", "any", "not", "always"].filter((k) => (p as Record<string, unknown>)[k] !== undefined);
       if (forms.length !== 1) {
         ctx.addIssue({
           code: "custom",

@@ -29,13 +29,7 @@ export function initialViewCode(firstThrottle: number): number {
 }
 
 export function steadyDriveOf(c: CompiledDesign, code: number): boolean {
-  return (
-    powered(code) &&
-    enabled(code) &&
-    moving(code) &&
-    !(braking(code) && c.brakeCutsDrive) &&
-    throttle(code) === APPLIED
-  );
+  return powered(code) && enabled(code) && moving(code) && !(braking(code) && c.brakeCutsDrive) && throttle(code) === APPLIED;
 }
 
 export type StepResult = {

@@ -101,10 +101,7 @@ function crossReferences(d: Obj, problems: Problem[]): void {
     conditionStates.set(c.id, states);
   });
   if (rows > ENGINE_ROW_LIMIT) {
-    add(
-      "conditions",
-      `the truth table would have ${rows} rows; the engine's limit is ${ENGINE_ROW_LIMIT} rows (2^24)`,
-    );
+    add("conditions", `the truth table would have ${rows} rows; the engine's limit is ${ENGINE_ROW_LIMIT} rows (2^24)`);
   }
 
   const checkState = (condId: string, state: unknown, path: string) => {
@@ -134,10 +131,7 @@ function crossReferences(d: Obj, problems: Problem[]): void {
         add(`components[${i}].id`, `duplicate component id ${q(c.id)} (first at components[${componentAt.get(c.id)}])`);
       } else {
         if (conditionAt.has(c.id)) {
-          add(
-            `components[${i}].id`,
-            `component id ${q(c.id)} is also the id of a condition (conditions[${conditionAt.get(c.id)}])`,
-          );
+          add(`components[${i}].id`, `component id ${q(c.id)} is also the id of a condition (conditions[${conditionAt.get(c.id)}])`);
         }
         componentAt.set(c.id, i);
         if (isStr(c.type)) componentType.set(c.id, c.type);

@@ -6,13 +6,7 @@ export const VERDICT_FORMAT = "chainproof/verdict@1";
 export const INPUT_FUNCTIONS = ["power", "enable", "forward", "reverse", "brake"] as const;
 export type InputFunction = (typeof INPUT_FUNCTIONS)[number];
 
-export const LOCKOUTS = [
-  "power-on",
-  "enable-restore",
-  "direction-engage",
-  "brake-release",
-  "throttle-fault",
-] as const;
+export const LOCKOUTS = ["power-on", "enable-restore", "direction-engage", "brake-release", "throttle-fault"] as const;
 export type Lockout = (typeof LOCKOUTS)[number];
 
 export const ID_PATTERN = /^[A-Za-z0-9_.-]{1,64}$/;

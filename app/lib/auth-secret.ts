@@ -17,6 +17,7 @@ export function authSecretProblem(secret: string | undefined, production: boolea
     return "AUTH_SECRET is the built-in development value, which is public: anyone could sign e-mail tokens for any account. Set a random secret of at least 32 bytes.";
   }
   const bytes = new TextEncoder().encode(secret).length;
-  if (bytes < AUTH_SECRET_MIN_BYTES) return `AUTH_SECRET is ${bytes} bytes; it needs at least ${AUTH_SECRET_MIN_BYTES} (a random one, for example \`openssl rand -base64 48\`).`;
+  if (bytes < AUTH_SECRET_MIN_BYTES)
+    return `AUTH_SECRET is ${bytes} bytes; it needs at least ${AUTH_SECRET_MIN_BYTES} (a random one, for example \`openssl rand -base64 48\`).`;
   return null;
 }

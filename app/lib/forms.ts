@@ -26,7 +26,9 @@ const password = z.string().min(10, "Use at least 10 characters.").max(128, "Use
 
 /** A person's name: the sign-up form, and better-auth's own sign-up and update-user endpoints (auth.server.ts). */
 export const USER_NAME_MAX = 100;
-export const userNameSchema = storable(z.string().trim().min(1, "Enter your name.").max(USER_NAME_MAX, `Use at most ${USER_NAME_MAX} characters.`));
+export const userNameSchema = storable(
+  z.string().trim().min(1, "Enter your name.").max(USER_NAME_MAX, `Use at most ${USER_NAME_MAX} characters.`),
+);
 
 export const signInSchema = z.object({ email, password: z.string().min(1, "Enter your password.") });
 export const signUpSchema = z.object({
@@ -35,9 +37,15 @@ export const signUpSchema = z.object({
   password,
 });
 export const forgotSchema = z.object({ email });
-export const resetSchema = z.object({ token: storable(z.string().min(1, "The reset link is incomplete.").max(500, "The reset link is not valid.")), password });
+export const resetSchema = z.object({
+  token: storable(z.string().min(1, "The reset link is incomplete.").max(500, "The reset link is not valid.")),
+  password,
+});
 export const inviteSchema = z.object({ email, role: z.enum(ROLES, { message: "Choose a role." }) });
-export const roleChangeSchema = z.object({ memberId: storable(z.string().min(1, "Choose a member.").max(ID_MAX, "No such member.")), role: z.enum(ROLES, { message: "Choose a role." }) });
+export const roleChangeSchema = z.object({
+  memberId: storable(z.string().min(1, "Choose a member.").max(ID_MAX, "No such member.")),
+  role: z.enum(ROLES, { message: "Choose a role." }),
+});
 export const workspaceSchema = z.object({
   name: storable(z.string().trim().min(2, "Use at least 2 characters.").max(80, "Use at most 80 characters.")),
 });

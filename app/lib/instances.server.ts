@@ -37,7 +37,8 @@ export function onToldByOtherInstance(topic: string, fn: (payload: unknown) => v
 /** Tells every other process of this cluster (nothing to do outside one). */
 export function tellOtherInstances(topic: string, payload: unknown = null): void {
   // Nobody left to tell once the channel closed (this process is stopping).
-  if (inClusterWorker && process.connected) process.send!({ chainproof: "tell", topic, payload } satisfies Envelope, undefined, undefined, () => {});
+  if (inClusterWorker && process.connected)
+    process.send!({ chainproof: "tell", topic, payload } satisfies Envelope, undefined, undefined, () => {});
 }
 
 /**
@@ -70,7 +71,10 @@ export function askPrimary<T>(topic: string, payload: unknown, fallback: () => T
  * In the primary: relays what one worker tells to all the others, and answers questions with the
  * handlers given (one per topic).
  */
-type Reachable = { id: number; send: (m: Envelope, handle?: undefined, options?: undefined, done?: (err: Error | null) => void) => unknown };
+type Reachable = {
+  id: number;
+  send: (m: Envelope, handle?: undefined, options?: undefined, done?: (err: Error | null) => void) => unknown;
+};
 
 /**
  * Sends without ever throwing: a process that has just ended (its channel closed) misses the
@@ -78,7 +82,11 @@ type Reachable = { id: number; send: (m: Envelope, handle?: undefined, options?:
  */
 const deliver = (to: Reachable, m: Envelope) => to.send(m, undefined, undefined, () => {});
 
-export function serveWorker(worker: Reachable & { on: (e: "message", fn: (m: unknown) => void) => unknown }, others: () => Iterable<Reachable>, answers: Record<string, (payload: unknown) => unknown>): void {
+export function serveWorker(
+  worker: Reachable & { on: (e: "message", fn: (m: unknown) => void) => unknown },
+  others: () => Iterable<Reachable>,
+  answers: Record<string, (payload: unknown) => unknown>,
+): void {
   worker.on("message", (m: unknown) => {
     if (!isEnvelope(m)) return;
     if (m.chainproof === "tell") {

@@ -14,7 +14,8 @@ const BIDI_CONTROL = /[\u202a-\u202e\u2066-\u2069]/;
 /** Why `s` cannot be stored as typed, or null. */
 export function textProblem(s: string): string | null {
   if (NUL.test(s)) return "Remove the NUL character.";
-  if (LONE_SURROGATE.test(s) || REPLACEMENT.test(s)) return "Remove the broken character (an unpaired surrogate, or U+FFFD where text was damaged).";
+  if (LONE_SURROGATE.test(s) || REPLACEMENT.test(s))
+    return "Remove the broken character (an unpaired surrogate, or U+FFFD where text was damaged).";
   if (BIDI_CONTROL.test(s)) return "Remove the text-direction override characters (U+202A–U+202E, U+2066–U+2069).";
   return null;
 }

@@ -18,8 +18,7 @@ export type Mail = {
   attachments?: Array<{ filename: string; content: Buffer; contentType: string }>;
 };
 
-const escapeHtml = (s: string) =>
-  s.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/"/g, "&quot;");
+const escapeHtml = (s: string) => s.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/"/g, "&quot;");
 
 /** Plain paragraphs and one call-to-action link, as text and HTML. */
 export function composeMail(to: string, subject: string, paragraphs: string[], action?: { label: string; url: string }): Mail {

@@ -57,7 +57,11 @@ async function takeTurn(user: string): Promise<void> {
     return;
   }
   if (slot.waiting.length >= PROOFS_WAITING_PER_USER) {
-    throw new ProofLimitError(429, "too_many_proofs", `You have ${slot.running} proofs running and ${slot.waiting.length} waiting; wait for them to finish.`);
+    throw new ProofLimitError(
+      429,
+      "too_many_proofs",
+      `You have ${slot.running} proofs running and ${slot.waiting.length} waiting; wait for them to finish.`,
+    );
   }
   await new Promise<void>((resolve) => slot.waiting.push(resolve));
 }
@@ -66,7 +70,8 @@ function giveTurn(user: string): void {
   const slot = perUser.get(user);
   if (!slot) return;
   const next = slot.waiting.shift();
-  if (next) next(); // the turn passes on: running stays the same
+  if (next)
+    next(); // the turn passes on: running stays the same
   else if (--slot.running <= 0) perUser.delete(user);
 }
 

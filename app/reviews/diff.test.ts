@@ -5,7 +5,13 @@ import { compileDesign, pageRows, type RowView } from "../engine";
 import { generatedDesign } from "../../test/bench/designs";
 import { rowDiff, structuralDiff } from "./diff";
 
-const outcome = (v: RowView) => JSON.stringify([v.drive, Object.keys(v.rules).filter((k) => v.rules[k]!.violating).sort()]);
+const outcome = (v: RowView) =>
+  JSON.stringify([
+    v.drive,
+    Object.keys(v.rules)
+      .filter((k) => v.rules[k]!.violating)
+      .sort(),
+  ]);
 
 describe("rowDiff", () => {
   it("lists exactly the rows whose drive or violated rules differ, in row order", () => {
@@ -31,7 +37,17 @@ describe("rowDiff", () => {
     // Must drive with the key on (c00) and the throttle applied: a demand row without drive is failing (spec 1.6, 1.1).
     const drives = (d: ReturnType<typeof generatedDesign>) => {
       const throttle = d.controller.throttle;
-      d.rules.push({ id: "D1", label: "Drives keyed, throttle applied", type: "require-drive", when: { all: [{ cond: "c00", in: ["on"] }, { cond: throttle.condition, in: throttle.applied }] } });
+      d.rules.push({
+        id: "D1",
+        label: "Drives keyed, throttle applied",
+        type: "require-drive",
+        when: {
+          all: [
+            { cond: "c00", in: ["on"] },
+            { cond: throttle.condition, in: throttle.applied },
+          ],
+        },
+      });
       return d;
     };
     const a = drives(generatedDesign(10));
@@ -40,7 +56,13 @@ describe("rowDiff", () => {
     const ca = compileDesign(a);
     const cb = compileDesign(b);
     const broken = (v: RowView) =>
-      JSON.stringify([v.drive, [...Object.keys(v.rules).filter((k) => v.rules[k]!.violating), ...Object.keys(v.demands).filter((k) => v.demands[k]!.failing)].sort()]);
+      JSON.stringify([
+        v.drive,
+        [
+          ...Object.keys(v.rules).filter((k) => v.rules[k]!.violating),
+          ...Object.keys(v.demands).filter((k) => v.demands[k]!.failing),
+        ].sort(),
+      ]);
     const A = pageRows(ca, { from: 0, count: ca.rows }).rows;
     const B = pageRows(cb, { from: 0, count: cb.rows }).rows;
     const want = A.map((_, i) => i).filter((i) => broken(A[i]!) !== broken(B[i]!));
@@ -91,7 +113,9 @@ describe("structuralDiff", () => {
     const b = structuredClone(a);
     const key = b.components.find((c) => c.id === "KEY") as { closedIn: string[] };
     key.closedIn = ["off", "on"];
-    expect(structuralDiff(a, b).components.changed).toEqual([{ id: "KEY", fields: ["closedIn"], values: [{ field: "closedIn", before: '["on"]', after: '["off","on"]' }] }]);
+    expect(structuralDiff(a, b).components.changed).toEqual([
+      { id: "KEY", fields: ["closedIn"], values: [{ field: "closedIn", before: '["on"]', after: '["off","on"]' }] },
+    ]);
   });
 
   it("does not count key order as a change, and counts a field that appears as one", () => {
@@ -102,6 +126,8 @@ describe("structuralDiff", () => {
     expect(structuralDiff(a, b).empty).toBe(true);
     const key = b.components.find((c) => c.id === "KEY") as { note?: string };
     key.note = "added";
-    expect(structuralDiff(a, b).components.changed).toEqual([{ id: "KEY", fields: ["note"], values: [{ field: "note", before: "(none)", after: '"added"' }] }]);
+    expect(structuralDiff(a, b).components.changed).toEqual([
+      { id: "KEY", fields: ["note"], values: [{ field: "note", before: "(none)", after: '"added"' }] },
+    ]);
   });
 });

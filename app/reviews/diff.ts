@@ -40,7 +40,11 @@ function listDiff<T extends { id: string }>(before: readonly T[], after: readonl
     if (!y) continue;
     const keys = [...new Set([...Object.keys(x), ...Object.keys(y)])].sort();
     const fields = keys.filter((k) => canonical((x as Record<string, unknown>)[k]) !== canonical((y as Record<string, unknown>)[k]));
-    const values = fields.map((k) => ({ field: k, before: shown((y as Record<string, unknown>)[k]), after: shown((x as Record<string, unknown>)[k]) }));
+    const values = fields.map((k) => ({
+      field: k,
+      before: shown((y as Record<string, unknown>)[k]),
+      after: shown((x as Record<string, unknown>)[k]),
+    }));
     if (fields.length > 0) changed.push({ id, fields, values });
   }
   return {
@@ -88,8 +92,7 @@ export function sameConditions(before: Design, after: Design): boolean {
 export type RowOutcome = { drive: boolean; violated: string[] };
 export type RowChange = { index: number; states: Record<string, string>; before: RowOutcome; after: RowOutcome };
 export type RowDiff =
-  | { comparable: false; reason: string }
-  | { comparable: true; rows: number; changedRows: number; listed: RowChange[]; truncated: boolean };
+  { comparable: false; reason: string } | { comparable: true; rows: number; changedRows: number; listed: RowChange[]; truncated: boolean };
 
 /** Largest table compared row by row while a page loads. */
 export const ROW_DIFF_LIMIT = 2 ** 22;
@@ -122,7 +125,10 @@ function outcomeOf(c: CompiledDesign, index: number): RowOutcome {
   const v = evaluateRow(c, index);
   return {
     drive: v.drive,
-    violated: [...Object.keys(v.rules).filter((id) => v.rules[id]!.violating), ...Object.keys(v.demands).filter((id) => v.demands[id]!.failing)].sort(),
+    violated: [
+      ...Object.keys(v.rules).filter((id) => v.rules[id]!.violating),
+      ...Object.keys(v.demands).filter((id) => v.demands[id]!.failing),
+    ].sort(),
   };
 }
 

@@ -96,7 +96,11 @@ export async function openFaultsOf(workspaceId: string, revisionId: string): Pro
 export type DisposeOutcome = { ok: true } | { ok: false; status: 400 | 404; fields: Record<string, string> };
 
 /** Records a disposition for one of the revision's defeating faults, with an audit event, in one transaction. */
-export async function recordDisposition(m: Membership, revisionId: string, input: Omit<DispositionInput, "intent">): Promise<DisposeOutcome> {
+export async function recordDisposition(
+  m: Membership,
+  revisionId: string,
+  input: Omit<DispositionInput, "intent">,
+): Promise<DisposeOutcome> {
   const rev = await revisionFacts(m.workspace.id, revisionId);
   if (!rev) return { ok: false, status: 404, fields: { form: "No such revision." } };
   const fault = (rev.verdict.singleFaults ?? []).find((f) => f.component === input.component && f.mode === input.mode);

@@ -22,13 +22,18 @@ export const FAULT_MODES = ["stuck-open", "stuck-closed"] as const;
 export type FaultModeName = (typeof FAULT_MODES)[number];
 
 export const faultKey = (f: { component: string; mode: string }) => `${f.component}/${f.mode}`;
-export const faultWords = (f: { component: string; mode: string }) => `${f.component} ${f.mode === "stuck-open" ? "stuck open" : "stuck closed"}`;
+export const faultWords = (f: { component: string; mode: string }) =>
+  `${f.component} ${f.mode === "stuck-open" ? "stuck open" : "stuck closed"}`;
 
 export const dispositionSchema = z.object({
   intent: z.literal("dispose"),
   component: z.string().trim().min(1, "Name the contact.").max(64),
   mode: z.enum(FAULT_MODES, { message: "Choose stuck-open or stuck-closed." }),
   disposition: z.enum(DISPOSITIONS, { message: "Choose how this fault is dealt with." }),
-  justification: z.string().trim().min(10, "Justify the disposition in a sentence or more (at least 10 characters).").max(2000, "Use at most 2000 characters."),
+  justification: z
+    .string()
+    .trim()
+    .min(10, "Justify the disposition in a sentence or more (at least 10 characters).")
+    .max(2000, "Use at most 2000 characters."),
 });
 export type DispositionInput = z.output<typeof dispositionSchema>;

@@ -2,12 +2,14 @@
 import { z } from "zod";
 import { ID_MAX, storable } from "../lib/text";
 
-const comment = (what: string) =>
-  storable(z.string().trim().min(1, `Write ${what}.`).max(4000, "Use at most 4000 characters."));
+const comment = (what: string) => storable(z.string().trim().min(1, `Write ${what}.`).max(4000, "Use at most 4000 characters."));
 
 export const requestReviewSchema = z.object({
   intent: z.literal("request"),
-  reviewers: z.array(storable(z.string().min(1).max(ID_MAX, "Choose reviewers from the list."))).max(50, "Choose at most 50 reviewers.").min(1, "Choose at least one reviewer."),
+  reviewers: z
+    .array(storable(z.string().min(1).max(ID_MAX, "Choose reviewers from the list.")))
+    .max(50, "Choose at most 50 reviewers.")
+    .min(1, "Choose at least one reviewer."),
   note: storable(z.string().trim().max(2000, "Use at most 2000 characters.")).default(""),
 });
 

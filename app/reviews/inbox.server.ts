@@ -19,4 +19,3 @@ export async function inboxFor(m: Membership): Promise<ReviewInbox> {
     })),
   };
 }
-

@@ -13,7 +13,12 @@ let queue: Promise<unknown> = Promise.resolve();
 /** The user already has a print running or waiting. */
 export class PrintBusyError extends Error {}
 
-export async function printPdf(path: string, cookie: string, format: "A4" | "Letter", opts: { userId: string; signal: AbortSignal }): Promise<Buffer> {
+export async function printPdf(
+  path: string,
+  cookie: string,
+  format: "A4" | "Letter",
+  opts: { userId: string; signal: AbortSignal },
+): Promise<Buffer> {
   const client = await pool.connect();
   try {
     const locked = await client.query<{ ok: boolean }>("SELECT pg_try_advisory_lock(hashtext($1)) AS ok", [`report-pdf:${opts.userId}`]);

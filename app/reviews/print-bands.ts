@@ -40,7 +40,10 @@ export function printBands(columns: TableColumns, totalRows: number, pageChars =
     { width: cell(Math.max("Drive".length, CELL_TEXT.drive)), add: (b) => (b.drive = true) },
     ...columns.rules.map((r, i) => ({ width: cell(Math.max(r.id.length, CELL_TEXT.rule)), add: (b: Band) => b.rules.push(i) })),
     ...columns.contacts.map((c, i) => ({ width: cell(Math.max(c.id.length, CELL_TEXT.contact)), add: (b: Band) => b.contacts.push(i) })),
-    ...columns.inputs.map((x, i) => ({ width: cell(Math.max(`${x.id} ${x.fn}`.length, CELL_TEXT.input)), add: (b: Band) => b.inputs.push(i) })),
+    ...columns.inputs.map((x, i) => ({
+      width: cell(Math.max(`${x.id} ${x.fn}`.length, CELL_TEXT.input)),
+      add: (b: Band) => b.inputs.push(i),
+    })),
     { width: CONTROLLER.reduce((a, b) => a + b, 0), add: (b) => (b.controller = true) },
   ];
   const bands: Band[] = [];
@@ -62,7 +65,13 @@ export function printBands(columns: TableColumns, totalRows: number, pageChars =
 /** What a band holds, in words, for its heading: "drive, rules 1–8" or "contacts 5–8, inputs 1–3". */
 export function describeBand(b: Band, columns: TableColumns): string {
   const span = (name: string, ix: number[], of: number) =>
-    ix.length === 0 ? null : ix.length === of ? name : ix.length === 1 ? `${name} ${ix[0]! + 1}` : `${name} ${ix[0]! + 1}–${ix.at(-1)! + 1}`;
+    ix.length === 0
+      ? null
+      : ix.length === of
+        ? name
+        : ix.length === 1
+          ? `${name} ${ix[0]! + 1}`
+          : `${name} ${ix[0]! + 1}–${ix.at(-1)! + 1}`;
   return [
     b.drive ? "drive" : null,
     span("rules", b.rules, columns.rules.length),

@@ -44,14 +44,16 @@ export function readableSummary(revisionId: string, c: CompiledDesign, verdict: 
     broken: groupRows(c, `broken:${f.component}/${f.mode}`, { limit }),
   }));
   // Plain JSON objects for the page's data (the engine's states maps have no prototype).
-  const out: Readable = JSON.parse(JSON.stringify({
-    rows: c.rows,
-    conditions: c.conditions.map((x) => ({ id: x.id, label: x.label, states: x.states })),
-    drive: groupRows(c, "drive", { limit }),
-    rules,
-    faults,
-    limit,
-  } satisfies Readable));
+  const out: Readable = JSON.parse(
+    JSON.stringify({
+      rows: c.rows,
+      conditions: c.conditions.map((x) => ({ id: x.id, label: x.label, states: x.states })),
+      drive: groupRows(c, "drive", { limit }),
+      rules,
+      faults,
+      limit,
+    } satisfies Readable),
+  );
   cache.set(key, out);
   while (cache.size > MAX_ENTRIES) cache.delete(cache.keys().next().value!);
   return out;

@@ -2,7 +2,16 @@
 import type { GroupsDocument, WhyDocument } from "~/engine";
 
 export type RuleReading =
-  | { type: "inhibit"; id: string; label: string; forbids: string; holds: boolean; unsafe: GroupsDocument; violating: GroupsDocument; why: WhyDocument | null }
+  | {
+      type: "inhibit";
+      id: string;
+      label: string;
+      forbids: string;
+      holds: boolean;
+      unsafe: GroupsDocument;
+      violating: GroupsDocument;
+      why: WhyDocument | null;
+    }
   | { type: "require-drive"; id: string; label: string; holds: boolean; demand: GroupsDocument; failing: GroupsDocument }
   | { type: "no-restart"; id: string; label: string; holds: boolean };
 
@@ -17,4 +26,3 @@ export type Readable = {
   /** Groups shown per set; groupCount tells how many a set has. */
   limit: number;
 };
-

@@ -48,7 +48,14 @@ async function revisionById(workspaceId: string, revisionId: string): Promise<Re
   return rows[0] ?? null;
 }
 
-export type Approval = { reviewerId: string; reviewerName: string; reviewerEmail: string; decidedAt: Date; contentHash: string; comment: string };
+export type Approval = {
+  reviewerId: string;
+  reviewerName: string;
+  reviewerEmail: string;
+  decidedAt: Date;
+  contentHash: string;
+  comment: string;
+};
 
 /** Decisions on a revision, oldest first, with the reviewer's name. */
 async function decisionsOf(workspaceId: string, revisionIds: string[]) {
@@ -135,7 +142,12 @@ export async function reviewStatusOf(workspaceId: string, designIds?: string[]):
   const out = new Map<string, DesignReviewState>();
   if (designIds && designIds.length === 0) return out;
   const revisions = await db
-    .select({ id: designRevision.id, designId: designRevision.designId, number: designRevision.number, contentHash: designRevision.contentHash })
+    .select({
+      id: designRevision.id,
+      designId: designRevision.designId,
+      number: designRevision.number,
+      contentHash: designRevision.contentHash,
+    })
     .from(designRevision)
     .where(and(eq(designRevision.workspaceId, workspaceId), designIds ? inArray(designRevision.designId, designIds) : undefined))
     .orderBy(asc(designRevision.designId), asc(designRevision.number));
@@ -159,7 +171,11 @@ export async function reviewStatusOf(workspaceId: string, designIds?: string[]):
 }
 
 /** The newest approved revision of the design numbered below `number` (what a review compares with). */
-export async function lastApprovedBefore(workspaceId: string, designId: string, number: number): Promise<{ id: string; number: number } | null> {
+export async function lastApprovedBefore(
+  workspaceId: string,
+  designId: string,
+  number: number,
+): Promise<{ id: string; number: number } | null> {
   const earlier = await db
     .select({ id: designRevision.id, number: designRevision.number, contentHash: designRevision.contentHash })
     .from(designRevision)
@@ -437,7 +453,10 @@ export async function reviewInbox(workspaceId: string, reviewerId?: string) {
       requestedBy: reviewRequest.requestedBy,
     })
     .from(reviewRequest)
-    .innerJoin(designRevision, and(eq(designRevision.id, reviewRequest.revisionId), eq(designRevision.workspaceId, reviewRequest.workspaceId)))
+    .innerJoin(
+      designRevision,
+      and(eq(designRevision.id, reviewRequest.revisionId), eq(designRevision.workspaceId, reviewRequest.workspaceId)),
+    )
     .innerJoin(design, and(eq(design.id, reviewRequest.designId), eq(design.workspaceId, reviewRequest.workspaceId)))
     .innerJoin(workspace, eq(workspace.id, reviewRequest.workspaceId))
     .where(and(eq(reviewRequest.workspaceId, workspaceId), reviewerId ? eq(reviewRequest.reviewerId, reviewerId) : undefined))
@@ -447,7 +466,10 @@ export async function reviewInbox(workspaceId: string, reviewerId?: string) {
   const names = new Map(
     userIds.length === 0
       ? []
-      : (await db.select({ id: requester.id, name: requester.name }).from(requester).where(inArray(requester.id, userIds))).map((u) => [u.id, u.name]),
+      : (await db.select({ id: requester.id, name: requester.name }).from(requester).where(inArray(requester.id, userIds))).map((u) => [
+          u.id,
+          u.name,
+        ]),
   );
   const revisionIds = [...new Set(rows.map((r) => r.revisionId))];
   const [decisions, counts] = await Promise.all([decisionsOf(workspaceId, revisionIds), requestCounts(workspaceId, revisionIds)]);
@@ -475,7 +497,13 @@ export async function changeRequestsFor(workspaceId: string, authorId: string) {
   const wanted = [...states.values()].flatMap((s) => (s.latest?.status === "changes-requested" ? [s.latest.revisionId] : []));
   if (wanted.length === 0) return [];
   const revisions = await db
-    .select({ revisionId: designRevision.id, designId: design.id, designName: design.name, number: designRevision.number, contentHash: designRevision.contentHash })
+    .select({
+      revisionId: designRevision.id,
+      designId: design.id,
+      designName: design.name,
+      number: designRevision.number,
+      contentHash: designRevision.contentHash,
+    })
     .from(designRevision)
     .innerJoin(design, and(eq(design.id, designRevision.designId), eq(design.workspaceId, designRevision.workspaceId)))
     .where(and(eq(designRevision.workspaceId, workspaceId), eq(designRevision.authorId, authorId), inArray(designRevision.id, wanted)))
@@ -485,7 +513,9 @@ export async function changeRequestsFor(workspaceId: string, authorId: string) {
     revisions.map((r) => r.revisionId),
   );
   return revisions.map((r) => {
-    const asks = decisions.filter((d) => d.revisionId === r.revisionId && d.verdict === "changes-requested" && d.contentHash === r.contentHash);
+    const asks = decisions.filter(
+      (d) => d.revisionId === r.revisionId && d.verdict === "changes-requested" && d.contentHash === r.contentHash,
+    );
     const last = asks.at(-1);
     return { ...r, reviewerName: last?.reviewerName ?? "", comment: last?.comment ?? "", decidedAt: last?.decidedAt ?? null };
   });

@@ -22,7 +22,13 @@ export function tracesOf(c: CompiledDesign, verdict: Verdict): Record<string, Tr
   const out: Record<string, TraceStepView[]> = {};
   for (const r of verdict.rules) {
     if ("trace" in r && r.trace) {
-      out[r.id] = replayTrace(c, r.trace).map((s) => ({ step: s.step, states: s.row.states, drive: s.drive, restart: s.restart, armed: s.armed }));
+      out[r.id] = replayTrace(c, r.trace).map((s) => ({
+        step: s.step,
+        states: s.row.states,
+        drive: s.drive,
+        restart: s.restart,
+        armed: s.armed,
+      }));
     }
   }
   return out;
@@ -65,7 +71,9 @@ export async function compareWithLastApproved(
   const chosen = against && against !== number ? await getRevision(workspaceId, designId, against) : null;
   const approved = chosen ? null : await lastApprovedBefore(workspaceId, designId, number);
   const previous = chosen || approved ? null : number > 1 ? await getRevision(workspaceId, designId, number - 1) : null;
-  const base = chosen ? { id: chosen.id, number: chosen.number } : (approved ?? (previous ? { id: previous.id, number: previous.number } : null));
+  const base = chosen
+    ? { id: chosen.id, number: chosen.number }
+    : (approved ?? (previous ? { id: previous.id, number: previous.number } : null));
   if (!base) return { baseline: null };
   const key = `${base.id}:${designId}:${number}:${chosen ? "chosen" : "default"}`;
   const hit = comparisons.get(key);

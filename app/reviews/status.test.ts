@@ -3,7 +3,12 @@ import { describe, expect, it } from "vitest";
 import { reviewStatus } from "./status";
 
 const at = (m: number) => new Date(Date.UTC(2026, 10, 30, 12, m));
-const d = (reviewerId: string, verdict: "approved" | "changes-requested", m: number, contentHash = "h1") => ({ reviewerId, verdict, decidedAt: at(m), contentHash });
+const d = (reviewerId: string, verdict: "approved" | "changes-requested", m: number, contentHash = "h1") => ({
+  reviewerId,
+  verdict,
+  decidedAt: at(m),
+  contentHash,
+});
 
 describe("reviewStatus", () => {
   it("is not-requested without requests or decisions, in-review with a request only", () => {

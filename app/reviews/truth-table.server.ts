@@ -10,7 +10,9 @@ export function tableColumns(c: CompiledDesign): TableColumns {
     contacts: c.contacts.map((x) => ({ id: x.id, label: x.label || x.id, condition: c.conditions[x.cond]!.id })),
     inputs: c.inputs.map((x) => ({ id: x.id, label: x.label || x.id, fn: x.fn })),
     // Inhibit and require-drive rules in design order, as the CSV's rule:ID columns (decision 110).
-    rules: c.rules.flatMap((r) => (r.type === "inhibit" || r.type === "require-drive" ? [{ id: r.id, label: r.label || r.id, type: r.type }] : [])),
+    rules: c.rules.flatMap((r) =>
+      r.type === "inhibit" || r.type === "require-drive" ? [{ id: r.id, label: r.label || r.id, type: r.type }] : [],
+    ),
   };
 }
 
@@ -23,11 +25,16 @@ export function requestFilter(c: CompiledDesign, params: URLSearchParams): RowFi
   const type = filterRuleType(filter.only);
   if (filter.rule !== undefined && !c.rules.some((r) => r.id === filter.rule && r.type === type)) {
     const what = type === "inhibit" ? "inhibit rule (only=unsafe or violating, or no only)" : "require-drive rule (only=demand or failing)";
-    throw apiError(400, "invalid_filter", "The row filter is not valid.", [{ path: "rule", message: `no ${what} with id ${JSON.stringify(filter.rule)}` }]);
+    throw apiError(400, "invalid_filter", "The row filter is not valid.", [
+      { path: "rule", message: `no ${what} with id ${JSON.stringify(filter.rule)}` },
+    ]);
   }
   for (const [cond, states] of Object.entries(filter.where ?? {})) {
     const ci = c.conditionIndex[cond];
-    if (ci === undefined) throw apiError(400, "invalid_filter", "The row filter is not valid.", [{ path: "where", message: `no condition with id ${JSON.stringify(cond)}` }]);
+    if (ci === undefined)
+      throw apiError(400, "invalid_filter", "The row filter is not valid.", [
+        { path: "where", message: `no condition with id ${JSON.stringify(cond)}` },
+      ]);
     const bad = states.find((s) => !c.conditions[ci]!.states.includes(s));
     if (bad !== undefined) {
       throw apiError(400, "invalid_filter", "The row filter is not valid.", [
@@ -42,7 +49,9 @@ function intParam(params: URLSearchParams, name: string, fallback: number, max: 
   const raw = params.get(name);
   if (raw === null || raw === "") return fallback;
   if (!/^[0-9]{1,10}$/.test(raw) || Number(raw) > max) {
-    throw apiError(400, "invalid_query", `The query parameter ${name} is not valid.`, [{ path: name, message: `a whole number from 0 to ${max}` }]);
+    throw apiError(400, "invalid_query", `The query parameter ${name} is not valid.`, [
+      { path: name, message: `a whole number from 0 to ${max}` },
+    ]);
   }
   return Number(raw);
 }
@@ -57,7 +66,10 @@ export function rowsPage(c: CompiledDesign, params: URLSearchParams): RowsPage {
 }
 
 /** One row: its values, the energized terminals (for the canvas) and the engine's diagnosis. */
-export function rowDetail(c: CompiledDesign, index: number): { row: TableRow; energizedTerminals: string[]; diagnosis: ReturnType<typeof diagnose> } {
+export function rowDetail(
+  c: CompiledDesign,
+  index: number,
+): { row: TableRow; energizedTerminals: string[]; diagnosis: ReturnType<typeof diagnose> } {
   const view = evaluateRow(c, index);
   return { row: tableRow(tableColumns(c), view), energizedTerminals: view.nets.energizedTerminals, diagnosis: diagnose(c, view.states) };
 }

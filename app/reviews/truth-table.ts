@@ -21,7 +21,8 @@ export function parseFilterQuery(params: URLSearchParams): { ok: true; query: Fi
   const where: FilterQuery["where"] = [];
   for (const w of params.getAll("where")) {
     const at = w.indexOf(":");
-    if (at <= 0 || at === w.length - 1) fields.push({ path: "where", message: `write a condition filter as CONDITION:STATE, not ${JSON.stringify(w)}` });
+    if (at <= 0 || at === w.length - 1)
+      fields.push({ path: "where", message: `write a condition filter as CONDITION:STATE, not ${JSON.stringify(w)}` });
     else where.push({ cond: w.slice(0, at), state: w.slice(at + 1) });
   }
   if (fields.length > 0) return { ok: false, fields };

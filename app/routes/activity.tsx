@@ -26,13 +26,20 @@ export default function Activity({ loaderData }: Route.ComponentProps) {
   const { events } = loaderData;
   return (
     <>
-      <PageHeader title="Design activity" description="Who saved, asked for a review, commented, decided, dealt with a fault or released, newest first (the last 100)." />
+      <PageHeader
+        title="Design activity"
+        description="Who saved, asked for a review, commented, decided, dealt with a fault or released, newest first (the last 100)."
+      />
       {events.length === 0 ? (
         <EmptyState title="No design activity yet">Saving a revision, asking for a review and every decision on it appear here.</EmptyState>
       ) : (
         <ol className="divide-y divide-ink-100 rounded-lg border border-ink-200 bg-white" aria-label="Design activity">
           {events.map((e) => (
-            <li key={e.id} className="flex flex-col gap-1 px-4 py-3 text-sm sm:flex-row sm:items-baseline sm:gap-4" data-testid="design-event">
+            <li
+              key={e.id}
+              className="flex flex-col gap-1 px-4 py-3 text-sm sm:flex-row sm:items-baseline sm:gap-4"
+              data-testid="design-event"
+            >
               <span className="flex-none text-xs text-ink-500 sm:w-40">
                 <When iso={e.at} />
               </span>

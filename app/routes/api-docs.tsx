@@ -52,7 +52,10 @@ type ApiDoc = {
   info: { title: string; version: string; description?: string };
   tags?: Array<{ name: string; description?: string }>;
   paths: Record<string, Record<string, Operation>>;
-  components?: { schemas?: Record<string, Schema>; securitySchemes?: Record<string, { type: string; scheme?: string; in?: string; name?: string; description?: string }> };
+  components?: {
+    schemas?: Record<string, Schema>;
+    securitySchemes?: Record<string, { type: string; scheme?: string; in?: string; name?: string; description?: string }>;
+  };
 };
 
 const METHODS = ["get", "post", "put", "patch", "delete"] as const;
@@ -64,7 +67,11 @@ const METHOD_STYLE: Record<string, string> = {
   delete: "bg-brick-100 text-brick-700",
 };
 
-const slugOf = (s: string) => s.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "");
+const slugOf = (s: string) =>
+  s
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, "-")
+    .replace(/^-|-$/g, "");
 
 /** Resolves "#/components/schemas/X" (and "#/$defs/X" inside a component) to the schema and its name. */
 function resolve(doc: ApiDoc, s: Schema, defs: Record<string, Schema>): { schema: Schema; name?: string } {
@@ -95,7 +102,19 @@ function limits(s: Schema): string {
 }
 
 /** One schema as an indented outline; a named schema seen higher up is shown by name only. */
-function Outline({ doc, schema, defs, seen, depth }: { doc: ApiDoc; schema: Schema; defs: Record<string, Schema>; seen: string[]; depth: number }) {
+function Outline({
+  doc,
+  schema,
+  defs,
+  seen,
+  depth,
+}: {
+  doc: ApiDoc;
+  schema: Schema;
+  defs: Record<string, Schema>;
+  seen: string[];
+  depth: number;
+}) {
   // "X or null" reads as X with "| null" after it.
   const either = schema.anyOf ?? schema.oneOf;
   if (either?.length === 2 && !schema.properties) {
@@ -103,7 +122,13 @@ function Outline({ doc, schema, defs, seen, depth }: { doc: ApiDoc; schema: Sche
     if (other && either.some((v) => v.type === "null")) {
       return (
         <span>
-          <Outline doc={doc} schema={{ ...other, description: other.description ?? schema.description }} defs={defs} seen={seen} depth={depth} />
+          <Outline
+            doc={doc}
+            schema={{ ...other, description: other.description ?? schema.description }}
+            defs={defs}
+            seen={seen}
+            depth={depth}
+          />
           <span className="ml-1 font-mono text-xs text-ink-500">| null</span>
         </span>
       );
@@ -210,7 +235,9 @@ function OperationCard({ doc, method, path, op }: { doc: ApiDoc; method: string;
                 </span>
                 <span className="mx-1 text-ink-400">:</span>
                 {p.schema ? <Outline doc={doc} schema={p.schema} defs={{}} seen={[]} depth={0} /> : null}
-                {p.description && p.description !== p.schema?.description ? <span className="ml-2 text-xs text-ink-700">{p.description}</span> : null}
+                {p.description && p.description !== p.schema?.description ? (
+                  <span className="ml-2 text-xs text-ink-700">{p.description}</span>
+                ) : null}
               </li>
             ))}
           </ul>
@@ -230,7 +257,8 @@ function OperationCard({ doc, method, path, op }: { doc: ApiDoc; method: string;
               {status.startsWith("2") ? (
                 <details open>
                   <summary className="cursor-pointer">
-                    <span className="font-mono font-semibold text-moss-700">{status}</span> <span className="text-ink-700">{r.description}</span>
+                    <span className="font-mono font-semibold text-moss-700">{status}</span>{" "}
+                    <span className="text-ink-700">{r.description}</span>
                   </summary>
                   <div className="ml-4">
                     <Bodies doc={doc} content={r.content} />
@@ -238,7 +266,8 @@ function OperationCard({ doc, method, path, op }: { doc: ApiDoc; method: string;
                 </details>
               ) : (
                 <p>
-                  <span className="font-mono font-semibold text-brick-700">{status}</span> <span className="text-ink-700">{r.description}</span>{" "}
+                  <span className="font-mono font-semibold text-brick-700">{status}</span>{" "}
+                  <span className="text-ink-700">{r.description}</span>{" "}
                   <a href="#schema-Error" className="text-xs text-copper-700 underline">
                     Error
                   </a>
@@ -265,12 +294,18 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
         <Link to="/" className="text-ink-800">
           <Logo />
         </Link>
-        <a href="/api/v1/openapi.json" className="inline-flex min-h-11 items-center rounded-md border border-ink-300 bg-white px-4 text-sm font-medium hover:bg-ink-100">
+        <a
+          href="/api/v1/openapi.json"
+          className="inline-flex min-h-11 items-center rounded-md border border-ink-300 bg-white px-4 text-sm font-medium hover:bg-ink-100"
+        >
           openapi.json
         </a>
       </div>
       <h1 className="mt-6 text-2xl font-semibold">
-        {doc.info.title} <span className="text-base font-normal text-ink-500">v{doc.info.version} · OpenAPI {doc.openapi}</span>
+        {doc.info.title}{" "}
+        <span className="text-base font-normal text-ink-500">
+          v{doc.info.version} · OpenAPI {doc.openapi}
+        </span>
       </h1>
       {doc.info.description ? <p className="mt-2 max-w-3xl text-sm text-ink-700">{doc.info.description}</p> : null}
       <div className="mt-6 grid gap-6 lg:grid-cols-[13rem_1fr]">

@@ -12,7 +12,12 @@ export async function loader({ params, context }: Route.LoaderArgs) {
   const run = await getRun(m.workspace.id, params.runId);
   if (!run) throw new Response("Not found", { status: 404 });
   const json = runJson(run, m.workspace.slug);
-  const base = run.vehicleName.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "").slice(0, 60) || "vehicle";
+  const base =
+    run.vehicleName
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, "-")
+      .replace(/^-|-$/g, "")
+      .slice(0, 60) || "vehicle";
   return new Response(benchRunCsv(json), {
     headers: {
       "content-type": "text/csv; charset=utf-8",

@@ -11,7 +11,16 @@ import type { Route } from "./+types/bench-run";
 import { requireCan } from "~/auth/context.server";
 import { can } from "~/lib/roles";
 import { fieldErrors, type FieldErrors } from "~/lib/forms";
-import { addStepPhoto, BenchRunError, completeRun, getRun, mailStepNow, setStepNote, setStepOutcome, verifyRecord } from "~/bench-runs/bench-runs.server";
+import {
+  addStepPhoto,
+  BenchRunError,
+  completeRun,
+  getRun,
+  mailStepNow,
+  setStepNote,
+  setStepOutcome,
+  verifyRecord,
+} from "~/bench-runs/bench-runs.server";
 import { runFormSchema } from "~/bench-runs/outcomes";
 import { liveFromApi, progressOf, type LiveStep } from "~/bench-runs/live";
 import { StepCard, type ActionResult } from "~/components/bench-runs/step-card";
@@ -56,7 +65,6 @@ export async function loader({ params, context }: Route.LoaderArgs) {
     live: liveFromApi(runJson(run, m.workspace.slug)),
   };
 }
-
 
 function failure(fields: FieldErrors, status: number, step?: number) {
   return data<ActionResult>({ ok: false, fields, step }, { status });
@@ -113,7 +121,15 @@ export default function BenchRun({ loaderData, actionData }: Route.ComponentProp
   }, [live.run.status, run.status, revalidator]);
   const results = live.run.steps;
   const resultOf = (n: number): LiveStep =>
-    results.find((r) => r.n === n) ?? { n, outcome: null, note: "", updatedAt: null, updatedByName: null, failureMailedAt: null, photos: [] };
+    results.find((r) => r.n === n) ?? {
+      n,
+      outcome: null,
+      note: "",
+      updatedAt: null,
+      updatedByName: null,
+      failureMailedAt: null,
+      photos: [],
+    };
   const { done, failed } = progressOf(results);
   const busy = useNavigation().state === "submitting";
   const completeError = actionData && !actionData.ok && actionData.step === undefined ? Object.values(actionData.fields)[0] : null;
@@ -132,7 +148,8 @@ export default function BenchRun({ loaderData, actionData }: Route.ComponentProp
         title={`Bench test: ${run.vehicleName}`}
         description={
           <>
-            Revision {run.number} of {run.designName} <HashPrefix hash={run.revisionHash} /> · started by {run.startedByName}, <When iso={run.startedAt} />
+            Revision {run.number} of {run.designName} <HashPrefix hash={run.revisionHash} /> · started by {run.startedByName},{" "}
+            <When iso={run.startedAt} />
           </>
         }
         actions={<RunBadge run={{ status: live.run.status, failed }} />}
@@ -167,14 +184,19 @@ export default function BenchRun({ loaderData, actionData }: Route.ComponentProp
             </div>
           </dl>
           <p className={`mt-3 text-sm font-medium ${run.intact ? "text-moss-700" : "text-brick-700"}`}>
-            {run.intact ? "Recomputed from the stored results: the record is intact." : "Recomputed from the stored results: the hash does NOT match. The record was altered."}
+            {run.intact
+              ? "Recomputed from the stored results: the record is intact."
+              : "Recomputed from the stored results: the hash does NOT match. The record was altered."}
           </p>
           <Button type="button" tone="secondary" className="mt-3 print:hidden" onClick={() => window.print()}>
             Print the record
           </Button>
         </section>
       ) : (
-        <div className="sticky top-0 z-10 mb-4 rounded-lg border border-ink-200 bg-white/95 px-3 py-2 shadow-sm backdrop-blur md:top-2 print:static" data-testid="run-banner">
+        <div
+          className="sticky top-0 z-10 mb-4 rounded-lg border border-ink-200 bg-white/95 px-3 py-2 shadow-sm backdrop-blur md:top-2 print:static"
+          data-testid="run-banner"
+        >
           <p className="text-base font-medium" data-testid="progress">
             {done} of {steps.length} steps recorded{failed ? ` · ${failed} failed` : ""}
           </p>
@@ -206,7 +228,9 @@ export default function BenchRun({ loaderData, actionData }: Route.ComponentProp
 
       {plan.uncovered.length > 0 ? (
         <details className="mt-6 rounded-lg border border-ink-200 bg-white p-4 text-base">
-          <summary className="flex min-h-11 cursor-pointer items-center font-semibold">Not checked by this procedure ({plan.uncovered.length})</summary>
+          <summary className="flex min-h-11 cursor-pointer items-center font-semibold">
+            Not checked by this procedure ({plan.uncovered.length})
+          </summary>
           <ul className="mt-2 list-disc space-y-1 pl-5">
             {plan.uncovered.map((u) => (
               <li key={u.item}>
@@ -218,7 +242,11 @@ export default function BenchRun({ loaderData, actionData }: Route.ComponentProp
       ) : null}
 
       <p className="mt-6 print:hidden">
-        <a href={`/w/${slug}/bench-tests/${run.id}/results.csv`} className="inline-flex min-h-11 items-center text-base text-copper-700 underline" download>
+        <a
+          href={`/w/${slug}/bench-tests/${run.id}/results.csv`}
+          className="inline-flex min-h-11 items-center text-base text-copper-700 underline"
+          download
+        >
           Download the results (CSV)
         </a>
       </p>

@@ -36,7 +36,10 @@ export default function BenchTests({ loaderData }: Route.ComponentProps) {
   const { runs, slug, status } = loaderData;
   return (
     <>
-      <PageHeader title="Bench tests" description="Step-by-step checks generated from a vehicle's released design, run on the bench and kept as signed records." />
+      <PageHeader
+        title="Bench tests"
+        description="Step-by-step checks generated from a vehicle's released design, run on the bench and kept as signed records."
+      />
       <nav aria-label="Filter runs" className="mb-4 flex flex-wrap gap-2">
         {FILTERS.map((f) => (
           <Link

@@ -28,7 +28,13 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
     const number = /^[1-9][0-9]{0,8}$/.test(wanted) ? Number(wanted) : null;
     const rev = number === null ? null : await getRevision(m.workspace.id, d.id, number);
     if (!rev) throw new Response(`This design has no revision ${wanted}.`, { status: 404 });
-    return { ...common, readOnly: true, initial: rev.document, baseRevision: rev.number, showing: { kind: "revision" as const, number: rev.number } };
+    return {
+      ...common,
+      readOnly: true,
+      initial: rev.document,
+      baseRevision: rev.number,
+      showing: { kind: "revision" as const, number: rev.number },
+    };
   }
   const latest = await getRevision(m.workspace.id, d.id);
   const start = editorStart(draft, latest);
@@ -87,9 +93,11 @@ export default function DesignEditorPage({ loaderData }: Route.ComponentProps) {
       // The editor hands over what it holds; the server refuses (400) anything but a JSON object.
       const document = doc as Record<string, unknown>;
       const m = await loadApi();
-      const a = await m.callApi(m.api.saveDraft, { params: { designId: design.id }, body: { document, version, baseRevision: base.current } }).catch((e) => {
-        throw failure(m, e);
-      });
+      const a = await m
+        .callApi(m.api.saveDraft, { params: { designId: design.id }, body: { document, version, baseRevision: base.current } })
+        .catch((e) => {
+          throw failure(m, e);
+        });
       if (a.status === 200) return { ok: true, version: a.body.version };
       if (a.status === 409) return { ok: false, status: 409, currentVersion: a.body.currentVersion };
       throw refused(m, a);
@@ -100,9 +108,11 @@ export default function DesignEditorPage({ loaderData }: Route.ComponentProps) {
   const onSaveRevision = useCallback(
     async (doc: unknown, baseRevision: number, message: string): Promise<SaveRevisionResult> => {
       const m = await loadApi();
-      const a = await m.callApi(m.api.saveRevision, { params: { designId: design.id }, body: { document: doc, baseRevision, message } }).catch((e) => {
-        throw failure(m, e);
-      });
+      const a = await m
+        .callApi(m.api.saveRevision, { params: { designId: design.id }, body: { document: doc, baseRevision, message } })
+        .catch((e) => {
+          throw failure(m, e);
+        });
       if (a.status === 201) {
         base.current = a.body.revision.number;
         return { status: 201, revision: a.body.revision };

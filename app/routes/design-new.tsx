@@ -42,10 +42,20 @@ export default function NewDesign({ loaderData, actionData }: Route.ComponentPro
           All designs
         </Link>
       </p>
-      <PageHeader title="New design" description="The design starts as a draft. It becomes revision 1 when you save it and every rule holds." />
+      <PageHeader
+        title="New design"
+        description="The design starts as a draft. It becomes revision 1 when you save it and every rule holds."
+      />
       <section className={cardVariants({ padding: "lg", className: "max-w-xl" })}>
         <Form method="post" className="space-y-5" onSubmit={onSubmit} noValidate>
-          <TextField label="Name" name="name" required maxLength={120} error={errors.name} placeholder="e.g. Hauler #3 rear deck, inhibit wiring" />
+          <TextField
+            label="Name"
+            name="name"
+            required
+            maxLength={120}
+            error={errors.name}
+            placeholder="e.g. Hauler #3 rear deck, inhibit wiring"
+          />
           <SelectField label="Vehicle" name="vehicleId" defaultValue={loaderData.vehicleId ?? ""} error={errors.vehicleId}>
             <option value="">No vehicle</option>
             {loaderData.vehicles.map((v) => (
@@ -58,7 +68,10 @@ export default function NewDesign({ loaderData, actionData }: Route.ComponentPro
             <legend className="block text-sm font-medium text-ink-700">Start from</legend>
             <div className="mt-2 space-y-2">
               {STARTS.map((s, i) => (
-                <label key={s.key} className="flex min-h-11 cursor-pointer items-start gap-3 rounded-md border border-ink-200 px-3 py-2 has-[:checked]:border-copper-500 has-[:checked]:bg-copper-50">
+                <label
+                  key={s.key}
+                  className="flex min-h-11 cursor-pointer items-start gap-3 rounded-md border border-ink-200 px-3 py-2 has-[:checked]:border-copper-500 has-[:checked]:bg-copper-50"
+                >
                   <input type="radio" name="start" value={s.key} defaultChecked={i === 0} className="mt-1 accent-copper-600" />
                   <span>
                     <span className="block text-sm font-semibold">{s.label}</span>

@@ -29,7 +29,10 @@ export async function loader({ params, context }: Route.LoaderArgs) {
     reviewStatusOf(m.workspace.id, [d.id]),
   ]);
   const review = reviews.get(d.id);
-  const standings = await standingsFor(m.workspace.id, history.map((h) => h.id));
+  const standings = await standingsFor(
+    m.workspace.id,
+    history.map((h) => h.id),
+  );
   const refusedOf = (id: string) => {
     const st = standings.get(id);
     return st && !st.passes ? st.reasons : null;
@@ -146,14 +149,17 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
               </p>
             )}
           </Section>
-
         </div>
 
         <div className="min-w-0 space-y-5">
           <Section title="Draft">
             {draft ? (
               <div className="space-y-3 text-sm">
-                {draft.changed ? <NotProven check={draft.check} /> : <p className="text-ink-700">Same as revision {latest?.number}; nothing unsaved.</p>}
+                {draft.changed ? (
+                  <NotProven check={draft.check} />
+                ) : (
+                  <p className="text-ink-700">Same as revision {latest?.number}; nothing unsaved.</p>
+                )}
                 {draft.changed && draft.failing.length > 0 ? (
                   <ul className="list-inside list-disc text-brick-700" aria-label="Rules the draft breaks">
                     {draft.failing.map((name) => (
@@ -163,7 +169,9 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
                 ) : null}
                 <dl className="grid grid-cols-2 gap-x-3 gap-y-1 text-ink-700">
                   <dt className="text-ink-500">Last saved</dt>
-                  <dd><When iso={draft.updatedAt} /></dd>
+                  <dd>
+                    <When iso={draft.updatedAt} />
+                  </dd>
                   <dt className="text-ink-500">By</dt>
                   <dd>{draft.updatedByName}</dd>
                   <dt className="text-ink-500">Builds on</dt>
@@ -197,13 +205,27 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
               <table className="min-w-full text-left text-sm">
                 <thead className="border-b border-ink-200 text-xs uppercase tracking-wide text-ink-500">
                   <tr>
-                    <th scope="col" className="px-5 py-2 font-medium">Revision</th>
-                    <th scope="col" className="px-3 py-2 font-medium">Author</th>
-                    <th scope="col" className="px-3 py-2 font-medium">Saved</th>
-                    <th scope="col" className="px-3 py-2 font-medium">Message</th>
-                    <th scope="col" className="px-3 py-2 font-medium">Hash</th>
-                    <th scope="col" className="px-3 py-2 font-medium">Review</th>
-                    <th scope="col" className="px-5 py-2 font-medium"><span className="sr-only">Open</span></th>
+                    <th scope="col" className="px-5 py-2 font-medium">
+                      Revision
+                    </th>
+                    <th scope="col" className="px-3 py-2 font-medium">
+                      Author
+                    </th>
+                    <th scope="col" className="px-3 py-2 font-medium">
+                      Saved
+                    </th>
+                    <th scope="col" className="px-3 py-2 font-medium">
+                      Message
+                    </th>
+                    <th scope="col" className="px-3 py-2 font-medium">
+                      Hash
+                    </th>
+                    <th scope="col" className="px-3 py-2 font-medium">
+                      Review
+                    </th>
+                    <th scope="col" className="px-5 py-2 font-medium">
+                      <span className="sr-only">Open</span>
+                    </th>
                   </tr>
                 </thead>
                 <tbody className="divide-y divide-ink-100">
@@ -214,9 +236,15 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
                         {h.refused ? <RefusedBadge reasons={h.refused} className="ml-2" /> : null}
                       </td>
                       <td className="px-3 py-2">{h.authorName}</td>
-                      <td className="whitespace-nowrap px-3 py-2"><When iso={h.createdAt} /></td>
-                      <td className="min-w-48 px-3 py-2 text-ink-700 [overflow-wrap:anywhere]">{h.message || <span className="text-ink-400">—</span>}</td>
-                      <td className="px-3 py-2"><HashPrefix hash={h.contentHash} /></td>
+                      <td className="whitespace-nowrap px-3 py-2">
+                        <When iso={h.createdAt} />
+                      </td>
+                      <td className="min-w-48 px-3 py-2 text-ink-700 [overflow-wrap:anywhere]">
+                        {h.message || <span className="text-ink-400">—</span>}
+                      </td>
+                      <td className="px-3 py-2">
+                        <HashPrefix hash={h.contentHash} />
+                      </td>
                       <td className="whitespace-nowrap px-3 py-2">
                         <Link to={reviewPath(slug, design.id, h.number)} aria-label={`Review of revision ${h.number}`}>
                           <ReviewStatusBadge status={h.review} />
@@ -260,8 +288,7 @@ function VerdictSummary({
           {verdict.rules.map((r) => (
             <li key={r.id} className="flex flex-wrap items-center justify-between gap-2 px-3 py-2 text-sm">
               <span>
-                <span className="font-medium">{ruleLabels[r.id] ?? r.id}</span>{" "}
-                <code className="text-xs text-ink-500">{r.id}</code>
+                <span className="font-medium">{ruleLabels[r.id] ?? r.id}</span> <code className="text-xs text-ink-500">{r.id}</code>
               </span>
               <span className="flex items-center gap-3">
                 {"unsafeRows" in r ? (
@@ -286,8 +313,8 @@ function VerdictSummary({
             {verdict.singleFaults.map((f) => (
               <li key={`${f.component}-${f.mode}`}>
                 <span className="font-medium">{componentLabels[f.component] ?? f.component}</span>{" "}
-                <code className="text-xs text-ink-500">{f.component}</code> {f.mode === "stuck-closed" ? "stuck closed" : "stuck open"} defeats{" "}
-                {f.defeats.map((id) => ruleLabels[id] ?? id).join(", ")}
+                <code className="text-xs text-ink-500">{f.component}</code> {f.mode === "stuck-closed" ? "stuck closed" : "stuck open"}{" "}
+                defeats {f.defeats.map((id) => ruleLabels[id] ?? id).join(", ")}
               </li>
             ))}
           </ul>

@@ -23,7 +23,11 @@ export const meta: Route.MetaFunction = () => [{ title: "Designs · Chainproof" 
 export async function loader({ request, context }: Route.LoaderArgs) {
   const m = requireCan(context, "workspace.view");
   const filter = designFilterSchema.parse(Object.fromEntries(new URL(request.url).searchParams));
-  const [designs, vehicles, reviews] = await Promise.all([listDesigns(m.workspace.id, filter), vehicleNames(m.workspace.id), reviewStatusOf(m.workspace.id)]);
+  const [designs, vehicles, reviews] = await Promise.all([
+    listDesigns(m.workspace.id, filter),
+    vehicleNames(m.workspace.id),
+    reviewStatusOf(m.workspace.id),
+  ]);
   // Review status of the latest revision, and the newest approved one when that is older.
   const review: Record<string, { latest: ReviewStatus | null; approved: number | null }> = {};
   for (const [id, r] of reviews) review[id] = { latest: r.latest?.status ?? null, approved: r.lastApproved?.number ?? null };
@@ -58,12 +62,23 @@ export default function Designs({ loaderData }: Route.ComponentProps) {
         }
       />
 
-      <Form method="get" className="mb-5 flex flex-wrap items-end gap-3" onChange={(e) => submit(e.currentTarget)} aria-label="Filter designs">
+      <Form
+        method="get"
+        className="mb-5 flex flex-wrap items-end gap-3"
+        onChange={(e) => submit(e.currentTarget)}
+        aria-label="Filter designs"
+      >
         <div className="min-w-48">
           <label htmlFor="filter-vehicle" className="block text-sm font-medium text-ink-700">
             Vehicle
           </label>
-          <select id="filter-vehicle" name="vehicle" defaultValue={filter.vehicle ?? ""} className={selectClass} key={`v-${filter.vehicle ?? ""}`}>
+          <select
+            id="filter-vehicle"
+            name="vehicle"
+            defaultValue={filter.vehicle ?? ""}
+            className={selectClass}
+            key={`v-${filter.vehicle ?? ""}`}
+          >
             <option value="">All vehicles</option>
             {vehicles.map((v) => (
               <option key={v.id} value={v.id}>
@@ -77,7 +92,13 @@ export default function Designs({ loaderData }: Route.ComponentProps) {
           <label htmlFor="filter-status" className="block text-sm font-medium text-ink-700">
             Status
           </label>
-          <select id="filter-status" name="status" defaultValue={filter.status ?? ""} className={selectClass} key={`s-${filter.status ?? ""}`}>
+          <select
+            id="filter-status"
+            name="status"
+            defaultValue={filter.status ?? ""}
+            className={selectClass}
+            key={`s-${filter.status ?? ""}`}
+          >
             <option value="">Any status</option>
             {DESIGN_STATUSES.map((s) => (
               <option key={s} value={s}>
@@ -164,19 +185,21 @@ function DesignRow({
       <div className="mt-3 flex flex-wrap items-center gap-x-5 gap-y-2 text-sm">
         {rev ? (
           <span className="text-ink-700">
-            <span className="font-semibold">Revision {rev.number}</span> · <span className="text-moss-700">
+            <span className="font-semibold">Revision {rev.number}</span> ·{" "}
+            <span className="text-moss-700">
               proven, {rev.rules === 0 ? "no rules yet" : rev.rules === 1 ? "1 rule holds" : `${rev.rules} rules hold`}
             </span>
             {rev.singleFaults > 0
               ? ` · ${rev.singleFaults} single ${rev.singleFaults === 1 ? "fault defeats a rule" : "faults defeat rules"}`
               : " · no single fault defeats a rule"}{" "}
-            ·{" "}
-            <HashPrefix hash={rev.contentHash} /> · <When iso={rev.createdAt} />
+            · <HashPrefix hash={rev.contentHash} /> · <When iso={rev.createdAt} />
           </span>
         ) : (
           <span className="text-ink-600">No revision yet</span>
         )}
-        {review?.approved && review.latest !== "approved" ? <span className="text-moss-700">Revision {review.approved} is approved</span> : null}
+        {review?.approved && review.latest !== "approved" ? (
+          <span className="text-moss-700">Revision {review.approved} is approved</span>
+        ) : null}
         {d.draft?.changed ? <NotProven check={d.draft.check} /> : null}
       </div>
     </li>

@@ -23,13 +23,22 @@ export async function action({ request }: Route.ActionArgs) {
 export default function ForgotPassword({ actionData }: Route.ComponentProps) {
   const { errors, onSubmit } = useFormCheck(forgotSchema, actionData?.fields);
   return (
-    <AuthFrame title="Reset your password" footer={<Link className="text-copper-700 underline" to="/sign-in">Back to sign in</Link>}>
+    <AuthFrame
+      title="Reset your password"
+      footer={
+        <Link className="text-copper-700 underline" to="/sign-in">
+          Back to sign in
+        </Link>
+      }
+    >
       {actionData?.sent ? (
         <Notice tone="success">If that address has an account, a reset link is on its way.</Notice>
       ) : (
         <Form method="post" className="space-y-4" onSubmit={onSubmit} noValidate>
           <TextField label="E-mail" name="email" type="email" autoComplete="email" required error={errors.email} />
-          <Button type="submit" className="w-full">Send the link</Button>
+          <Button type="submit" className="w-full">
+            Send the link
+          </Button>
         </Form>
       )}
     </AuthFrame>

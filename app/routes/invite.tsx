@@ -44,11 +44,17 @@ export default function Invite({ loaderData, actionData }: Route.ComponentProps)
         You are invited as <strong>{ROLE_LABELS[invitation.role]}</strong>, to {ROLE_DUTIES[invitation.role]}. The invitation is for{" "}
         <strong>{invitation.email}</strong>.
       </p>
-      {actionData?.message ? <div className="mt-4"><Notice tone="error">{actionData.message}</Notice></div> : null}
+      {actionData?.message ? (
+        <div className="mt-4">
+          <Notice tone="error">{actionData.message}</Notice>
+        </div>
+      ) : null}
       {signedInAs ? (
         <Form method="post" className="mt-5">
           <p className="mb-3 text-sm text-ink-600">Signed in as {signedInAs}.</p>
-          <Button type="submit" className="w-full">Accept and join</Button>
+          <Button type="submit" className="w-full">
+            Accept and join
+          </Button>
         </Form>
       ) : (
         <div className="mt-5 flex flex-col gap-3">

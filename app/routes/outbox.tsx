@@ -43,7 +43,11 @@ const fetchOutbox = apiFetcher(api.outbox);
 
 export default function Outbox({ loaderData }: Route.ComponentProps) {
   // Live: new mail appears without a reload (every 3 s, and when the tab regains focus).
-  const { data, mutate } = useSWR(apiUrl(api.outbox), fetchOutbox, { fallbackData: loaderData, refreshInterval: 3000, revalidateOnFocus: true });
+  const { data, mutate } = useSWR(apiUrl(api.outbox), fetchOutbox, {
+    fallbackData: loaderData,
+    refreshInterval: 3000,
+    revalidateOnFocus: true,
+  });
   const mail = data?.mail ?? loaderData.mail;
   return (
     <main className="mx-auto max-w-3xl px-4 py-8">
@@ -51,11 +55,14 @@ export default function Outbox({ loaderData }: Route.ComponentProps) {
         <Link to="/" className="text-ink-800">
           <Logo />
         </Link>
-        <Button tone="secondary" onClick={() => void mutate()}>Refresh</Button>
+        <Button tone="secondary" onClick={() => void mutate()}>
+          Refresh
+        </Button>
       </div>
       <h1 className="mt-6 text-2xl font-semibold">Outbox</h1>
       <p className="mt-1 text-sm text-ink-600">
-        Every message Chainproof sent while running locally, newest first. In production, mail goes to a real relay and this page does not exist.
+        Every message Chainproof sent while running locally, newest first. In production, mail goes to a real relay and this page does not
+        exist.
       </p>
       {mail.length === 0 ? (
         <p className="mt-8 rounded-md border border-dashed border-ink-300 bg-white p-6 text-center text-sm text-ink-600">No mail yet.</p>

@@ -10,18 +10,30 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
   const size = new URL(request.url).searchParams.get("size") === "letter" ? "letter" : "a4";
   let pdf: Buffer;
   try {
-    pdf = await printPdf(reportPath(member.workspace.slug, design.id, ref.number, size), request.headers.get("cookie") ?? "", size === "letter" ? "Letter" : "A4", {
-      userId: member.user.id,
-      signal: request.signal,
-    });
+    pdf = await printPdf(
+      reportPath(member.workspace.slug, design.id, ref.number, size),
+      request.headers.get("cookie") ?? "",
+      size === "letter" ? "Letter" : "A4",
+      {
+        userId: member.user.id,
+        signal: request.signal,
+      },
+    );
   } catch (e) {
     if (e instanceof PrintBusyError) throw new Response(e.message, { status: 429, headers: { "retry-after": "5" } });
     // The requester has gone: nobody reads the answer.
     if (request.signal.aborted) throw new Response("The request was cancelled.", { status: 499 });
     console.error("report PDF:", e);
-    throw new Response("The PDF could not be made just now. Print the report page from the browser instead, or try again.", { status: 503 });
+    throw new Response("The PDF could not be made just now. Print the report page from the browser instead, or try again.", {
+      status: 503,
+    });
   }
-  const base = design.name.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "").slice(0, 60) || "design";
+  const base =
+    design.name
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, "-")
+      .replace(/^-|-$/g, "")
+      .slice(0, 60) || "design";
   return new Response(new Uint8Array(pdf), {
     headers: {
       "content-type": "application/pdf",

@@ -48,7 +48,12 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
   ]);
   const dispositions: Record<string, ReportDisposition> = {};
   for (const [key, x] of currentDispositions(history)) {
-    dispositions[key] = { disposition: x.disposition, justification: x.justification, authorName: x.authorName, createdAt: x.createdAt.toISOString() };
+    dispositions[key] = {
+      disposition: x.disposition,
+      justification: x.justification,
+      authorName: x.authorName,
+      createdAt: x.createdAt.toISOString(),
+    };
   }
   const wiring = loaded.design.wires.map((w) => ({ from: w.from, to: w.to, net: c.terminalNet[w.from] ?? -1 }));
   return {
@@ -100,7 +105,9 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
   };
 }
 
-export const meta: Route.MetaFunction = ({ data }) => [{ title: `Report · ${data?.design.name ?? "Design"} r${data?.revision.number ?? ""} · Chainproof` }];
+export const meta: Route.MetaFunction = ({ data }) => [
+  { title: `Report · ${data?.design.name ?? "Design"} r${data?.revision.number ?? ""} · Chainproof` },
+];
 
 function predicateText(p: Predicate): string {
   if ("cond" in p) return `${p.cond} is ${p.in.join(" or ")}`;
@@ -146,7 +153,10 @@ export default function Report({ loaderData }: Route.ComponentProps) {
             </Link>
           ),
         )}
-        <a href={reportPdfPath(d.slug, d.design.id, d.revision.number, d.size)} className="ml-auto rounded-md bg-copper-600 px-3 py-1.5 font-semibold text-white">
+        <a
+          href={reportPdfPath(d.slug, d.design.id, d.revision.number, d.size)}
+          className="ml-auto rounded-md bg-copper-600 px-3 py-1.5 font-semibold text-white"
+        >
           Download PDF ({SIZES[d.size]})
         </a>
       </div>
@@ -281,9 +291,10 @@ export default function Report({ loaderData }: Route.ComponentProps) {
             </tbody>
           </table>
           <p className="mt-2 text-xs text-ink-600">
-            Controller: throttle on {doc.controller.throttle.condition} (released: {doc.controller.throttle.released.join(", ") || "—"}; applied:{" "}
-            {doc.controller.throttle.applied.join(", ") || "—"}; fault: {(doc.controller.throttle.fault ?? []).join(", ") || "—"}); brake{" "}
-            {doc.controller.brakeCutsDrive === false ? "does not cut" : "cuts"} the drive; lockouts: {(doc.controller.lockouts ?? []).join(", ") || "none"}.
+            Controller: throttle on {doc.controller.throttle.condition} (released: {doc.controller.throttle.released.join(", ") || "—"};
+            applied: {doc.controller.throttle.applied.join(", ") || "—"}; fault: {(doc.controller.throttle.fault ?? []).join(", ") || "—"});
+            brake {doc.controller.brakeCutsDrive === false ? "does not cut" : "cuts"} the drive; lockouts:{" "}
+            {(doc.controller.lockouts ?? []).join(", ") || "none"}.
           </p>
         </section>
 
@@ -307,7 +318,9 @@ export default function Report({ loaderData }: Route.ComponentProps) {
         <ReportChanges comparison={d.comparison} conditions={d.readable.conditions} number={d.revision.number} />
         <section aria-label="Review comments" data-testid="report-comments">
           <h2 className={h2}>Review comments</h2>
-          {d.comments.length === 0 ? <p className="mt-2">No comments.</p> : (
+          {d.comments.length === 0 ? (
+            <p className="mt-2">No comments.</p>
+          ) : (
             <ul className="mt-2 space-y-2">
               {d.comments.map((x) => (
                 <li key={x.id} className="break-inside-avoid">
@@ -336,8 +349,8 @@ export default function Report({ loaderData }: Route.ComponentProps) {
             <TruthTableBands columns={d.columns} rows={d.table} />
           ) : (
             <p className="mt-2">
-              The full table is not printed: it would take about {d.tablePages.toLocaleString("en-US")} pages, more than {TABLE_PAGE_LIMIT}. The groups above
-              describe every row; the whole table is the CSV at{" "}
+              The full table is not printed: it would take about {d.tablePages.toLocaleString("en-US")} pages, more than {TABLE_PAGE_LIMIT}.
+              The groups above describe every row; the whole table is the CSV at{" "}
               <a href={d.csvUrl} className="break-all text-copper-700 underline" data-testid="report-csv-url">
                 {d.csvUrl}
               </a>{" "}

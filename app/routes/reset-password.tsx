@@ -36,8 +36,18 @@ export default function ResetPassword({ loaderData, actionData }: Route.Componen
         {actionData?.message ? <Notice tone="error">{actionData.message}</Notice> : null}
         {errors.token ? <Notice tone="error">{errors.token}</Notice> : null}
         <input type="hidden" name="token" value={loaderData.token} />
-        <TextField label="New password" name="password" type="password" autoComplete="new-password" hint="At least 10 characters." required error={errors.password} />
-        <Button type="submit" className="w-full">Save the new password</Button>
+        <TextField
+          label="New password"
+          name="password"
+          type="password"
+          autoComplete="new-password"
+          hint="At least 10 characters."
+          required
+          error={errors.password}
+        />
+        <Button type="submit" className="w-full">
+          Save the new password
+        </Button>
       </Form>
     </AuthFrame>
   );

@@ -45,7 +45,14 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
   ]);
   const dispositions: Record<string, DispositionView> = {};
   for (const [key, d] of currentDispositions(history)) {
-    dispositions[key] = { component: d.component, mode: d.mode, disposition: d.disposition, justification: d.justification, authorName: d.authorName, createdAt: d.createdAt.toISOString() };
+    dispositions[key] = {
+      component: d.component,
+      mode: d.mode,
+      disposition: d.disposition,
+      justification: d.justification,
+      authorName: d.authorName,
+      createdAt: d.createdAt.toISOString(),
+    };
   }
   const latestNumber = statuses.get(design.id)?.latest?.number ?? ref.number;
   const otherNumbers = [...(statuses.get(design.id)?.byNumber.keys() ?? [])].filter((x) => x !== ref.number).sort((a, b) => b - a);
@@ -88,11 +95,17 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
   };
 }
 
-
 export async function action({ request, params, context }: Route.ActionArgs) {
   const form = reviewFormObject(await request.formData());
   const intent = String(form.intent ?? "");
-  const needs: Action = intent === "request" ? "design.edit" : intent === "decide" ? "review.decide" : intent === "dispose" ? "fault.dispose" : "workspace.view";
+  const needs: Action =
+    intent === "request"
+      ? "design.edit"
+      : intent === "decide"
+        ? "review.decide"
+        : intent === "dispose"
+          ? "fault.dispose"
+          : "workspace.view";
   // The role is checked first (requireCan inside), so a technician's forged decision is 403 whatever the body says.
   const { member, ref } = await requireRevisionPage(context, params, needs);
   const fault = intent === "dispose" ? `${String(form.component ?? "")}/${String(form.mode ?? "")}` : undefined;
@@ -116,7 +129,11 @@ export async function action({ request, params, context }: Route.ActionArgs) {
     if (!parsed.success) return fail(400, fieldErrors(parsed.error));
     const out = await recordDisposition(member, ref.id, parsed.data);
     if (!out.ok) return fail(out.status, out.fields);
-    return { intent, ok: true, message: `Disposition recorded for ${parsed.data.component} ${parsed.data.mode.replace("-", " ")}.` } satisfies ActionResult;
+    return {
+      intent,
+      ok: true,
+      message: `Disposition recorded for ${parsed.data.component} ${parsed.data.mode.replace("-", " ")}.`,
+    } satisfies ActionResult;
   }
   if (intent === "decide") {
     const parsed = decisionSchema.safeParse(form);
@@ -128,7 +145,9 @@ export async function action({ request, params, context }: Route.ActionArgs) {
   return fail(400, { intent: "Unknown action." });
 }
 
-export const meta: Route.MetaFunction = ({ data }) => [{ title: `Review · ${data?.design.name ?? "Design"} r${data?.revision.number ?? ""} · Chainproof` }];
+export const meta: Route.MetaFunction = ({ data }) => [
+  { title: `Review · ${data?.design.name ?? "Design"} r${data?.revision.number ?? ""} · Chainproof` },
+];
 
 export default function Review({ loaderData }: Route.ComponentProps) {
   const { slug, design, revision, verdict, labels, traces, comparison, status, requests, decisions, comments, can, authored } = loaderData;
@@ -145,7 +164,8 @@ export default function Review({ loaderData }: Route.ComponentProps) {
         title={`Review of revision ${revision.number}`}
         description={
           <span className="inline-flex flex-wrap items-center gap-2">
-            <ReviewStatusBadge status={status} /> Saved by {revision.authorName}, <When iso={revision.createdAt} /> · <HashPrefix hash={revision.contentHash} />
+            <ReviewStatusBadge status={status} /> Saved by {revision.authorName}, <When iso={revision.createdAt} /> ·{" "}
+            <HashPrefix hash={revision.contentHash} />
           </span>
         }
         actions={
@@ -198,7 +218,11 @@ export default function Review({ loaderData }: Route.ComponentProps) {
             ruleLabels={labels.rules}
             dispositions={loaderData.dispositions}
             canDispose={can.dispose}
-            dispositionErrors={result && !result.ok && result.intent === "dispose" && result.fault ? { key: result.fault, errors: result.errors ?? {} } : null}
+            dispositionErrors={
+              result && !result.ok && result.intent === "dispose" && result.fault
+                ? { key: result.fault, errors: result.errors ?? {} }
+                : null
+            }
           />
           <Section title="Verdict">
             <VerdictSummary verdict={verdict} ruleLabels={labels.rules} componentLabels={labels.components} traces={traces} />
@@ -258,4 +282,3 @@ export default function Review({ loaderData }: Route.ComponentProps) {
     </>
   );
 }
-

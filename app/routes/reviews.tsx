@@ -54,7 +54,9 @@ export default function Reviews({ loaderData }: Route.ComponentProps) {
       />
       {error ? (
         <div className="mb-4">
-          <Notice tone="warning">Could not refresh the list ({error instanceof Error ? error.message : "network error"}); showing what was loaded last.</Notice>
+          <Notice tone="warning">
+            Could not refresh the list ({error instanceof Error ? error.message : "network error"}); showing what was loaded last.
+          </Notice>
         </div>
       ) : null}
       {items.length === 0 ? (
@@ -70,7 +72,11 @@ export default function Reviews({ loaderData }: Route.ComponentProps) {
               <h2 id="waiting" className="mb-2 font-semibold">
                 Waiting for your decision ({waiting.length})
               </h2>
-              {waiting.length === 0 ? <p className="text-sm text-ink-600">Nothing is waiting for you.</p> : <Items slug={slug} items={waiting} showReviewer={false} />}
+              {waiting.length === 0 ? (
+                <p className="text-sm text-ink-600">Nothing is waiting for you.</p>
+              ) : (
+                <Items slug={slug} items={waiting} showReviewer={false} />
+              )}
             </section>
           ) : null}
           {rest.length > 0 ? (
@@ -94,7 +100,10 @@ function Items({ slug, items, showReviewer }: { slug: string; items: Route.Compo
         <li key={i.requestId} className={cardVariants({ padding: "md" })} data-testid="review-item">
           <div className="flex flex-wrap items-start justify-between gap-2">
             <div className="min-w-0">
-              <Link to={reviewPath(slug, i.designId, i.number)} className="font-semibold text-ink-900 hover:text-copper-700 hover:underline">
+              <Link
+                to={reviewPath(slug, i.designId, i.number)}
+                className="font-semibold text-ink-900 hover:text-copper-700 hover:underline"
+              >
                 {i.designName}, revision {i.number}
               </Link>
               <p className="text-sm text-ink-600">

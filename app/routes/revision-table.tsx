@@ -8,7 +8,16 @@ import { requireRevisionPage } from "~/reviews/access.server";
 import { compiledRevision } from "~/reviews/compiled.server";
 import { reviewStatusOf } from "~/reviews/reviews.server";
 import { tableColumns } from "~/reviews/truth-table.server";
-import { filterOf, filterSearch, ONLY, parseFilterQuery, tableRow, type FilterQuery, type Only, type RowsPage } from "~/reviews/truth-table";
+import {
+  filterOf,
+  filterSearch,
+  ONLY,
+  parseFilterQuery,
+  tableRow,
+  type FilterQuery,
+  type Only,
+  type RowsPage,
+} from "~/reviews/truth-table";
 import { csvApiPath, reportPath, reviewPath, rowApiPath, rowsApiPath, simulateRowPath } from "~/reviews/paths";
 import { designPath } from "~/designs/paths";
 import { pageRows } from "~/engine";
@@ -63,7 +72,10 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
     const p = pageRows(compiled, { from: 0, count: PAGE });
     page = { total: p.total, from: 0, rows: p.rows.map((v) => tableRow(columns, v)) };
   }
-  const [statuses, standings] = await Promise.all([reviewStatusOf(member.workspace.id, [design.id]), standingsFor(member.workspace.id, [ref.id])]);
+  const [statuses, standings] = await Promise.all([
+    reviewStatusOf(member.workspace.id, [design.id]),
+    standingsFor(member.workspace.id, [ref.id]),
+  ]);
   const status = statuses.get(design.id)?.byNumber.get(ref.number)?.status ?? "not-requested";
   const standing = standings.get(ref.id);
   return {
@@ -185,7 +197,8 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
         title={`Truth table, revision ${revision.number}`}
         description={
           <span className="inline-flex flex-wrap items-center gap-2">
-            <ReviewStatusBadge status={revision.status} /> {totalRows.toLocaleString("en-US")} rows, computed on the server a page at a time.
+            <ReviewStatusBadge status={revision.status} /> {totalRows.toLocaleString("en-US")} rows, computed on the server a page at a
+            time.
           </span>
         }
         actions={
@@ -239,11 +252,13 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
             onChange={(e) => setQuery({ ...query, rule: e.target.value || undefined })}
           >
             <option value="">{ruleTypeFor(query.only) === "inhibit" ? "Any inhibit rule" : "Any must-drive rule"}</option>
-            {columns.rules.filter((r) => r.type === ruleTypeFor(query.only)).map((r) => (
-              <option key={r.id} value={r.id}>
-                {r.id}: {r.label}
-              </option>
-            ))}
+            {columns.rules
+              .filter((r) => r.type === ruleTypeFor(query.only))
+              .map((r) => (
+                <option key={r.id} value={r.id}>
+                  {r.id}: {r.label}
+                </option>
+              ))}
           </select>
         </div>
         <form onSubmit={onAddCondition} className="flex items-end gap-2" aria-label="Condition filter">
@@ -336,7 +351,13 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
         {page.rows.length === 0 ? (
           <p className="p-6 text-center text-sm text-ink-600">No row matches these filters.</p>
         ) : (
-          <TruthTableGrid columns={columns} rows={page.rows} selected={selected} onSelect={(i) => select(i)} caption={`Truth table of revision ${revision.number}`} />
+          <TruthTableGrid
+            columns={columns}
+            rows={page.rows}
+            selected={selected}
+            onSelect={(i) => select(i)}
+            caption={`Truth table of revision ${revision.number}`}
+          />
         )}
       </div>
 
@@ -345,7 +366,12 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
           <PageLabel rows={page.rows} total={page.total} totalRows={totalRows} from={page.from} last={last} filtered={filtered} />
         </p>
         <div className="flex gap-2">
-          <button type="button" className={buttonClass("secondary")} disabled={from === 0} onClick={() => update((p) => p.set("from", String(Math.max(0, from - PAGE))))}>
+          <button
+            type="button"
+            className={buttonClass("secondary")}
+            disabled={from === 0}
+            onClick={() => update((p) => p.set("from", String(Math.max(0, from - PAGE))))}
+          >
             Previous
           </button>
           <button

@@ -49,7 +49,10 @@ export default function SignIn({ loaderData, actionData }: Route.ComponentProps)
       title="Sign in"
       footer={
         <>
-          New here? <Link className="font-semibold text-copper-700 underline" to="/sign-up">Create an account</Link>
+          New here?{" "}
+          <Link className="font-semibold text-copper-700 underline" to="/sign-up">
+            Create an account
+          </Link>
         </>
       }
     >
@@ -66,7 +69,9 @@ export default function SignIn({ loaderData, actionData }: Route.ComponentProps)
           </Button>
         </Form>
         <p className="text-sm">
-          <Link className="text-copper-700 underline" to="/forgot-password">Forgot your password?</Link>
+          <Link className="text-copper-700 underline" to="/forgot-password">
+            Forgot your password?
+          </Link>
         </p>
       </div>
     </AuthFrame>

@@ -25,8 +25,13 @@ export async function action({ request }: Route.ActionArgs) {
   const response = await callAuth(request, "/sign-up/email", { ...parsed.data, callbackURL });
   if (!response.ok) {
     const { code, message } = await authErrorMessage(response);
-    const fields: FieldErrors = code.includes("USER_ALREADY_EXISTS") ? { email: "An account with this e-mail already exists. Sign in instead." } : {};
-    return data({ fields, message: Object.keys(fields).length ? null : message, sentTo: null }, { status: response.status === 429 ? 429 : 400 });
+    const fields: FieldErrors = code.includes("USER_ALREADY_EXISTS")
+      ? { email: "An account with this e-mail already exists. Sign in instead." }
+      : {};
+    return data(
+      { fields, message: Object.keys(fields).length ? null : message, sentTo: null },
+      { status: response.status === 429 ? 429 : 400 },
+    );
   }
   return { fields: {}, message: null, sentTo: parsed.data.email };
 }
@@ -48,7 +53,10 @@ export default function SignUp({ loaderData, actionData }: Route.ComponentProps)
       title="Create an account"
       footer={
         <>
-          Already have one? <Link className="font-semibold text-copper-700 underline" to="/sign-in">Sign in</Link>
+          Already have one?{" "}
+          <Link className="font-semibold text-copper-700 underline" to="/sign-in">
+            Sign in
+          </Link>
         </>
       }
     >
@@ -56,8 +64,24 @@ export default function SignUp({ loaderData, actionData }: Route.ComponentProps)
         {actionData?.message ? <Notice tone="error">{actionData.message}</Notice> : null}
         <input type="hidden" name="next" value={loaderData.next} />
         <TextField label="Your name" name="name" autoComplete="name" required error={errors.name} />
-        <TextField label="E-mail" name="email" type="email" autoComplete="email" defaultValue={loaderData.email} required error={errors.email} />
-        <TextField label="Password" name="password" type="password" autoComplete="new-password" hint="At least 10 characters." required error={errors.password} />
+        <TextField
+          label="E-mail"
+          name="email"
+          type="email"
+          autoComplete="email"
+          defaultValue={loaderData.email}
+          required
+          error={errors.email}
+        />
+        <TextField
+          label="Password"
+          name="password"
+          type="password"
+          autoComplete="new-password"
+          hint="At least 10 characters."
+          required
+          error={errors.password}
+        />
         <Button type="submit" className="w-full" disabled={busy}>
           {busy ? "Creating…" : "Create account"}
         </Button>

@@ -32,7 +32,10 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
   const m = requireCan(context, "workspace.view");
   const v = await getVehicle(m.workspace.id, params.vehicleId);
   if (!v) throw new Response("Not found", { status: 404 });
-  const [history, { status, latest }] = await Promise.all([recordHistory(m.workspace.id, v.id), vehicleControllerStatus(m.workspace.id, v.id)]);
+  const [history, { status, latest }] = await Promise.all([
+    recordHistory(m.workspace.id, v.id),
+    vehicleControllerStatus(m.workspace.id, v.id),
+  ]);
   const query = compareQuery.safeParse(Object.fromEntries(new URL(request.url).searchParams));
   const q = query.success ? query.data : {};
   let comparison: { from: number; to: number; changes: ReturnType<typeof compareRecords> } | { error: string } | null = null;
@@ -40,7 +43,10 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
   else if (q.from !== undefined && q.to !== undefined) {
     const a = history.find((h) => h.version === q.from);
     const b = history.find((h) => h.version === q.to);
-    comparison = a && b ? { from: a.version, to: b.version, changes: compareRecords(a.document, b.document) } : { error: "This vehicle has no such version." };
+    comparison =
+      a && b
+        ? { from: a.version, to: b.version, changes: compareRecords(a.document, b.document) }
+        : { error: "This vehicle has no such version." };
   }
   const parsed = latest ? parseRecord(latest.document) : null;
   return {
@@ -49,7 +55,14 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
     canRecord: can(m.role, "controller.record"),
     latest: latest ? { version: latest.version, recordedAt: latest.recordedAt.toISOString(), recordedBy: latest.recordedBy.name } : null,
     values: parsed?.ok ? recordToForm(parsed.record) : {},
-    status: { state: status.state, errors: status.errors, warnings: status.warnings, derived: status.derived, mark: proofDoesNotHold(status), differences: differenceInWords(status) },
+    status: {
+      state: status.state,
+      errors: status.errors,
+      warnings: status.warnings,
+      derived: status.derived,
+      mark: proofDoesNotHold(status),
+      differences: differenceInWords(status),
+    },
     history: history.map((h) => ({ version: h.version, recordedAt: h.recordedAt.toISOString(), recordedBy: h.recordedBy.name })),
     comparison,
     saved: q.saved ?? null,
@@ -72,7 +85,10 @@ export async function action({ request, params, context }: Route.ActionArgs) {
   if (!base.success) return data<ActionResult>({ fields: { form: base.error.issues[0]!.message }, values: form }, { status: 400 });
   // Keys the form does not show (sent through the API) are carried over from the version being changed.
   const previous = base.data > 0 ? await recordVersion(m.workspace.id, v.id, base.data) : null;
-  const out = await saveRecord(m.workspace.id, v.id, m.user.id, { baseVersion: base.data, document: formToRecord(form, previous?.document) });
+  const out = await saveRecord(m.workspace.id, v.id, m.user.id, {
+    baseVersion: base.data,
+    document: formToRecord(form, previous?.document),
+  });
   if (out.ok) return redirect(`/w/${m.workspace.slug}/vehicles/${v.id}/controller?saved=${out.version}`);
   if (out.reason === "not-found") throw new Response("Not found", { status: 404 });
   if (out.reason === "stale") {
@@ -107,7 +123,9 @@ export default function VehicleController({ loaderData, actionData }: Route.Comp
       </p>
       <PageHeader
         title="Controller settings"
-        description={latest ? `Version ${latest.version}, recorded by ${latest.recordedBy}.` : "No settings have been recorded for this vehicle yet."}
+        description={
+          latest ? `Version ${latest.version}, recorded by ${latest.recordedBy}.` : "No settings have been recorded for this vehicle yet."
+        }
       />
       <div className="grid gap-5">
         <RecordCaution />
@@ -126,7 +144,9 @@ export default function VehicleController({ loaderData, actionData }: Route.Comp
                 The released revision's assumptions about the controller agree with this record.
               </p>
             ) : status.state === "no-release" ? (
-              <p className="text-sm text-ink-600">No revision is released to this vehicle, so there is no proof to check this record against.</p>
+              <p className="text-sm text-ink-600">
+                No revision is released to this vehicle, so there is no proof to check this record against.
+              </p>
             ) : (
               <p className="text-sm text-ink-600">Nothing to check until the settings are recorded.</p>
             )}
@@ -135,7 +155,10 @@ export default function VehicleController({ loaderData, actionData }: Route.Comp
             <>
               <h3 className="mt-5 text-sm font-semibold">Findings of version {latest.version}</h3>
               <div className="mt-2">
-                <FindingList findings={[...status.errors, ...status.warnings]} empty="No findings: the settings fit the pack and the throttle as recorded." />
+                <FindingList
+                  findings={[...status.errors, ...status.warnings]}
+                  empty="No findings: the settings fit the pack and the throttle as recorded."
+                />
               </div>
             </>
           ) : null}

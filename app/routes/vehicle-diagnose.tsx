@@ -21,7 +21,13 @@ export async function loader({ params, context }: Route.LoaderArgs) {
     slug: m.workspace.slug,
     vehicle: { id: v.id, name: v.name },
     release: release
-      ? { designId: release.designId, designName: release.designName, number: release.number, contentHash: release.contentHash, document: release.document }
+      ? {
+          designId: release.designId,
+          designName: release.designName,
+          number: release.number,
+          contentHash: release.contentHash,
+          document: release.document,
+        }
       : null,
   };
 }
@@ -51,7 +57,8 @@ export default function VehicleDiagnose({ loaderData }: Route.ComponentProps) {
         <div className="mt-4">
           <ProofMark differences={loaderData.controllerDifferences} to={`/w/${slug}/vehicles/${vehicle.id}/controller`} />
           <p className="mt-2 text-sm text-ink-700">
-            The answers below follow the released design; where the controller is set differently, the vehicle may behave differently from them.
+            The answers below follow the released design; where the controller is set differently, the vehicle may behave differently from
+            them.
           </p>
         </div>
       ) : null}

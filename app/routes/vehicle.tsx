@@ -36,8 +36,6 @@ import { cardVariants } from "~/components/ui/card";
 import { Badge } from "~/components/ui/badge";
 import { ButtonLink } from "~/components/ui/link";
 
-
-
 export async function loader({ params, context }: Route.LoaderArgs) {
   const m = requireCan(context, "workspace.view");
   const v = await getVehicle(m.workspace.id, params.vehicleId);
@@ -53,8 +51,17 @@ export async function loader({ params, context }: Route.LoaderArgs) {
   ]);
   // Which revisions the controller record contradicts: releasing one of them needs a reason.
   const [against, standings] = await Promise.all([
-    canRelease ? statusAgainstRevisions(m.workspace.id, v.id, releasable.map((r) => r.id)) : null,
-    standingsFor(m.workspace.id, history.map((r) => r.revisionId)),
+    canRelease
+      ? statusAgainstRevisions(
+          m.workspace.id,
+          v.id,
+          releasable.map((r) => r.id),
+        )
+      : null,
+    standingsFor(
+      m.workspace.id,
+      history.map((r) => r.revisionId),
+    ),
   ]);
   const refusedOf = (revisionId: string) => {
     const st = standings.get(revisionId);
@@ -88,7 +95,13 @@ export async function loader({ params, context }: Route.LoaderArgs) {
       mark: proofDoesNotHold(controller.status),
       differences: differenceInWords(controller.status),
       warnings: controller.status.warnings.length,
-      latest: controller.latest ? { version: controller.latest.version, recordedAt: controller.latest.recordedAt.toISOString(), recordedBy: controller.latest.recordedBy.name } : null,
+      latest: controller.latest
+        ? {
+            version: controller.latest.version,
+            recordedAt: controller.latest.recordedAt.toISOString(),
+            recordedBy: controller.latest.recordedBy.name,
+          }
+        : null,
     },
   };
 }
@@ -108,7 +121,14 @@ export async function action({ request, params, context }: Route.ActionArgs) {
     try {
       const form = await readCappedFormData(request);
       if (form.get("intent") !== "upload-photo") return fail("upload-photo", { intent: "Unknown action." });
-      await saveUpload({ workspaceId: m.workspace.id, subjectKind: "vehicle", subjectId: v.id, file: form.get("file"), userId: m.user.id, accept: VEHICLE_FILES });
+      await saveUpload({
+        workspaceId: m.workspace.id,
+        subjectKind: "vehicle",
+        subjectId: v.id,
+        file: form.get("file"),
+        userId: m.user.id,
+        accept: VEHICLE_FILES,
+      });
       return { intent: "upload-photo", fields: {}, done: "Photo added." } satisfies ActionResult;
     } catch (err) {
       if (err instanceof UploadError) return fail("upload-photo", { [err.field]: err.message }, err.status);
@@ -318,7 +338,9 @@ export default function Vehicle({ loaderData, actionData }: Route.ComponentProps
               <dd className="mt-1 whitespace-pre-wrap">{v.notes || "—"}</dd>
             </div>
           </dl>
-          {loaderData.canEdit ? <EditForm vehicle={v} errors={errorsOf("edit")} busy={busy} saved={result?.intent === "edit" && !!result.done} /> : null}
+          {loaderData.canEdit ? (
+            <EditForm vehicle={v} errors={errorsOf("edit")} busy={busy} saved={result?.intent === "edit" && !!result.done} />
+          ) : null}
         </section>
 
         <section className={cardVariants({ padding: "lg" })}>
@@ -331,7 +353,12 @@ export default function Vehicle({ loaderData, actionData }: Route.ComponentProps
                 <li key={p.id}>
                   <a href={`/w/${slug}/files/${p.id}`} className="block rounded-md border border-ink-200 p-1 hover:border-copper-500">
                     {p.contentType.startsWith("image/") ? (
-                      <img src={`/w/${slug}/files/${p.id}`} alt={p.filename} className="aspect-square w-full rounded object-cover" loading="lazy" />
+                      <img
+                        src={`/w/${slug}/files/${p.id}`}
+                        alt={p.filename}
+                        className="aspect-square w-full rounded object-cover"
+                        loading="lazy"
+                      />
                     ) : (
                       <span className="flex aspect-square items-center justify-center text-sm text-ink-600">PDF</span>
                     )}
@@ -343,7 +370,12 @@ export default function Vehicle({ loaderData, actionData }: Route.ComponentProps
           )}
           {loaderData.canEdit ? (
             <div className="mt-4">
-              <UploadForm intent="upload-photo" label={`Add a photo or document: ${acceptedWords(VEHICLE_FILES)}, up to 20 MB`} accept={acceptOf(VEHICLE_FILES)} error={errorsOf("upload-photo")?.file} />
+              <UploadForm
+                intent="upload-photo"
+                label={`Add a photo or document: ${acceptedWords(VEHICLE_FILES)}, up to 20 MB`}
+                accept={acceptOf(VEHICLE_FILES)}
+                error={errorsOf("upload-photo")?.file}
+              />
             </div>
           ) : null}
         </section>
@@ -370,14 +402,21 @@ function ReleaseForm({
 }) {
   const { errors: shown, onSubmit } = useFormCheck(releaseSchema, errors);
   const [selected, setSelected] = useState(chosen ?? "");
-  if (releasable.length === 0) return <p className="mt-4 text-sm text-ink-600">No design in this workspace has a saved revision to release yet.</p>;
+  if (releasable.length === 0)
+    return <p className="mt-4 text-sm text-ink-600">No design in this workspace has a saved revision to release yet.</p>;
   const conflicts = releasable.find((r) => r.id === selected)?.controllerConflicts ?? contradictions ?? [];
   return (
     <Form method="post" className="mt-5 space-y-3 border-t border-ink-200 pt-4" onSubmit={onSubmit} noValidate>
       <input type="hidden" name="intent" value="release" />
       <h3 className="text-sm font-semibold">Release a revision to this vehicle</h3>
       <p className="text-xs text-ink-600">Only a revision a reviewer has approved, and that passes design format 1.1, can be released.</p>
-      <SelectField label="Revision" name="revisionId" value={selected} onChange={(e) => setSelected(e.target.value)} error={shown.revisionId}>
+      <SelectField
+        label="Revision"
+        name="revisionId"
+        value={selected}
+        onChange={(e) => setSelected(e.target.value)}
+        error={shown.revisionId}
+      >
         <option value="" disabled>
           Choose a revision
         </option>
@@ -448,7 +487,17 @@ function ControllerSection({ controller }: { controller: Route.ComponentProps["l
   );
 }
 
-function EditForm({ vehicle: v, errors, busy, saved }: { vehicle: Route.ComponentProps["loaderData"]["vehicle"]; errors?: FieldErrors; busy: boolean; saved: boolean }) {
+function EditForm({
+  vehicle: v,
+  errors,
+  busy,
+  saved,
+}: {
+  vehicle: Route.ComponentProps["loaderData"]["vehicle"];
+  errors?: FieldErrors;
+  busy: boolean;
+  saved: boolean;
+}) {
   const { errors: shown, onSubmit } = useFormCheck(vehicleSchema, errors);
   const open = Object.keys(shown).length > 0;
   return (
@@ -462,7 +511,13 @@ function EditForm({ vehicle: v, errors, busy, saved }: { vehicle: Route.Componen
           <TextField label="Serial or VIN" name="serial" defaultValue={v.serial} error={shown.serial} />
           <TextField label="Model" name="model" defaultValue={v.model} error={shown.model} />
         </div>
-        <TextArea label="Motor controller (free text)" name="controllerDescription" rows={2} defaultValue={v.controllerDescription} error={shown.controllerDescription} />
+        <TextArea
+          label="Motor controller (free text)"
+          name="controllerDescription"
+          rows={2}
+          defaultValue={v.controllerDescription}
+          error={shown.controllerDescription}
+        />
         <TextArea label="Notes" name="notes" rows={3} defaultValue={v.notes} error={shown.notes} />
         <Button type="submit" disabled={busy}>
           Save details

@@ -48,10 +48,15 @@ export default function Vehicles({ loaderData, actionData }: Route.ComponentProp
   const busy = useNavigation().state === "submitting";
   return (
     <>
-      <PageHeader title="Vehicles" description="Each vehicle carries the design revision released to it, its photos and its bench-test records." />
+      <PageHeader
+        title="Vehicles"
+        description="Each vehicle carries the design revision released to it, its photos and its bench-test records."
+      />
       {loaderData.vehicles.length === 0 ? (
         <EmptyState title="No vehicles yet">
-          {loaderData.canAdd ? "Add the first vehicle below with its name and serial number." : "An engineer or technician adds vehicles here."}
+          {loaderData.canAdd
+            ? "Add the first vehicle below with its name and serial number."
+            : "An engineer or technician adds vehicles here."}
         </EmptyState>
       ) : (
         <ul className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
@@ -59,15 +64,22 @@ export default function Vehicles({ loaderData, actionData }: Route.ComponentProp
             <li key={v.id}>
               <Link to={v.id} className={cardVariants({ padding: "md", interactive: true, className: "block min-h-20" })}>
                 <span className="block font-semibold">{v.name}</span>
-                <span className="block text-sm text-ink-600">{[v.model, v.serial].filter(Boolean).join(" · ") || "No model or serial yet"}</span>
+                <span className="block text-sm text-ink-600">
+                  {[v.model, v.serial].filter(Boolean).join(" · ") || "No model or serial yet"}
+                </span>
                 <span className="mt-2 block text-xs text-ink-600">
                   {v.release ? `Released: ${v.release.designName}, revision ${v.release.number}` : "No revision released"}
                 </span>
                 {v.needsAttention ? (
-                  <Badge tone="failing-solid" className="mt-2">Needs attention</Badge>
+                  <Badge tone="failing-solid" className="mt-2">
+                    Needs attention
+                  </Badge>
                 ) : null}
                 {v.controllerDifferences.length > 0 ? (
-                  <span className="mt-2 block rounded-md border-2 border-brick-600 bg-brick-50 p-2 text-xs text-brick-700" data-testid="proof-mark">
+                  <span
+                    className="mt-2 block rounded-md border-2 border-brick-600 bg-brick-50 p-2 text-xs text-brick-700"
+                    data-testid="proof-mark"
+                  >
                     <span className="block font-semibold">{PROOF_DOES_NOT_HOLD}.</span>
                     {v.controllerDifferences.map((d) => (
                       <span key={d} className="mt-1 block">
@@ -92,7 +104,9 @@ export default function Vehicles({ loaderData, actionData }: Route.ComponentProp
             </div>
             <TextArea label="Motor controller (free text)" name="controllerDescription" rows={2} error={errors.controllerDescription} />
             <TextArea label="Notes" name="notes" rows={2} error={errors.notes} />
-            <Button type="submit" disabled={busy}>{busy ? "Adding…" : "Add vehicle"}</Button>
+            <Button type="submit" disabled={busy}>
+              {busy ? "Adding…" : "Add vehicle"}
+            </Button>
           </Form>
         </section>
       ) : null}

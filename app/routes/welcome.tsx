@@ -28,12 +28,14 @@ export default function Welcome({ loaderData, actionData }: Route.ComponentProps
   return (
     <AuthFrame title={`Welcome, ${loaderData.name}`}>
       <p className="text-sm text-ink-700">
-        A workspace holds your team's vehicles, designs, reviews and bench tests. Create one for your team, or open the
-        invitation link a colleague sent you to join theirs.
+        A workspace holds your team's vehicles, designs, reviews and bench tests. Create one for your team, or open the invitation link a
+        colleague sent you to join theirs.
       </p>
       <Form method="post" className="mt-5 space-y-4" onSubmit={onSubmit} noValidate>
         <TextField label="Workspace name" name="name" placeholder="e.g. Harbourside Carts" required error={errors.name} />
-        <Button type="submit" className="w-full">Create workspace</Button>
+        <Button type="submit" className="w-full">
+          Create workspace
+        </Button>
       </Form>
       <Form method="post" action="/sign-out" className="mt-4">
         <KitButton type="submit" variant="link" size="inline">

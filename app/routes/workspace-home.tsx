@@ -42,7 +42,11 @@ export async function loader({ context }: Route.LoaderArgs) {
 }
 
 const NEXT_STEP: Record<string, { text: string; to: string; label: string }> = {
-  admin: { text: "Invite your engineers, technicians and reviewers, each with the role they need.", to: "settings", label: "Manage members" },
+  admin: {
+    text: "Invite your engineers, technicians and reviewers, each with the role they need.",
+    to: "settings",
+    label: "Manage members",
+  },
   engineer: { text: "Draw a vehicle's interlock chain and let Chainproof prove its rules.", to: "designs", label: "Open designs" },
   technician: { text: "Pick a vehicle to find what blocks drive, or run a bench test.", to: "vehicles", label: "Open vehicles" },
   reviewer: { text: "Read the truth table of a revision waiting for you and sign it off.", to: "reviews", label: "Open reviews" },
@@ -57,7 +61,11 @@ export default function WorkspaceHome({ loaderData }: Route.ComponentProps) {
         description={`You are ${ROLE_LABELS[loaderData.role].toLowerCase()} here: you ${ROLE_DUTIES[loaderData.role]}.`}
       />
       {loaderData.failedSteps.length > 0 || loaderData.changeRequests.length > 0 ? (
-        <section className="mb-6 rounded-lg border-2 border-brick-600/60 bg-white p-5" aria-labelledby="yours-h" data-testid="your-attention">
+        <section
+          className="mb-6 rounded-lg border-2 border-brick-600/60 bg-white p-5"
+          aria-labelledby="yours-h"
+          data-testid="your-attention"
+        >
           <h2 id="yours-h" className="font-semibold">
             Waiting for you
           </h2>
@@ -67,7 +75,10 @@ export default function WorkspaceHome({ loaderData }: Route.ComponentProps) {
               <ul className="mt-2 space-y-3" data-testid="failed-steps">
                 {loaderData.failedSteps.map((f) => (
                   <li key={`${f.runId}-${f.n}`} data-run={f.runId} data-step={f.n}>
-                    <Link to={`bench-tests/${f.runId}#step-${f.n}`} className="inline-flex min-h-11 items-center font-semibold text-copper-700 underline">
+                    <Link
+                      to={`bench-tests/${f.runId}#step-${f.n}`}
+                      className="inline-flex min-h-11 items-center font-semibold text-copper-700 underline"
+                    >
                       {f.vehicleName}: step {f.n} failed
                     </Link>
                     <p className="text-sm text-ink-700">
@@ -92,7 +103,10 @@ export default function WorkspaceHome({ loaderData }: Route.ComponentProps) {
               <ul className="mt-2 space-y-3" data-testid="change-requests">
                 {loaderData.changeRequests.map((c) => (
                   <li key={c.revisionId}>
-                    <Link to={`designs/${c.designId}/revisions/${c.number}/review`} className="inline-flex min-h-11 items-center font-semibold text-copper-700 underline">
+                    <Link
+                      to={`designs/${c.designId}/revisions/${c.number}/review`}
+                      className="inline-flex min-h-11 items-center font-semibold text-copper-700 underline"
+                    >
                       {c.designName}, revision {c.number}
                     </Link>
                     <p className="text-sm text-ink-700">
@@ -156,7 +170,9 @@ export default function WorkspaceHome({ loaderData }: Route.ComponentProps) {
         <section className={cardVariants({ padding: "lg" })}>
           <h2 className="font-semibold">Fleet</h2>
           <p className="mt-2 text-sm text-ink-700">
-            {loaderData.vehicleCount === 0 ? "No vehicles yet." : `${loaderData.vehicleCount} vehicle${loaderData.vehicleCount === 1 ? "" : "s"} in this workspace.`}
+            {loaderData.vehicleCount === 0
+              ? "No vehicles yet."
+              : `${loaderData.vehicleCount} vehicle${loaderData.vehicleCount === 1 ? "" : "s"} in this workspace.`}
           </p>
           <Link to="vehicles" className="mt-4 inline-block font-semibold text-copper-700 underline">
             See vehicles

@@ -13,7 +13,15 @@ export async function loader({ context }: Route.LoaderArgs) {
     demoAccountsExist(),
     m.role === "reviewer" ? reviewsWaitingFor(m.workspace.id, m.user.id) : Promise.resolve(null),
   ]);
-  return { workspace: m.workspace, workspaces: workspacesIn(context), user: m.user, role: m.role, demo, localMail: env.CHAINPROOF_LOCAL === "1", reviewsWaiting };
+  return {
+    workspace: m.workspace,
+    workspaces: workspacesIn(context),
+    user: m.user,
+    role: m.role,
+    demo,
+    localMail: env.CHAINPROOF_LOCAL === "1",
+    reviewsWaiting,
+  };
 }
 
 export default function WorkspaceShell({ loaderData }: Route.ComponentProps) {

@@ -10,9 +10,7 @@ const s3 = new S3Client({
 });
 
 export async function putObject(key: string, body: Uint8Array, contentType: string, sha256: string) {
-  await s3.send(
-    new PutObjectCommand({ Bucket: env.S3_BUCKET, Key: key, Body: body, ContentType: contentType, Metadata: { sha256 } }),
-  );
+  await s3.send(new PutObjectCommand({ Bucket: env.S3_BUCKET, Key: key, Body: body, ContentType: contentType, Metadata: { sha256 } }));
 }
 
 export async function getObject(key: string): Promise<{ body: ReadableStream<Uint8Array>; length?: number }> {

@@ -120,7 +120,16 @@ export async function saveUpload(opts: {
         sha256,
         uploadedBy: opts.userId,
       });
-      await recordAudit({ workspaceId: opts.workspaceId, actorId: opts.userId, action: "upload.created", subject: filename, detail: { subjectKind: opts.subjectKind, subjectId: opts.subjectId, sha256 } }, tx);
+      await recordAudit(
+        {
+          workspaceId: opts.workspaceId,
+          actorId: opts.userId,
+          action: "upload.created",
+          subject: filename,
+          detail: { subjectKind: opts.subjectKind, subjectId: opts.subjectId, sha256 },
+        },
+        tx,
+      );
     });
   } catch (err) {
     await deleteObject(storageKey).catch(() => {});
@@ -131,9 +140,18 @@ export async function saveUpload(opts: {
 
 export async function listUploads(workspaceId: string, subjectKind: string, subjectId: string) {
   return db
-    .select({ id: schema.upload.id, filename: schema.upload.filename, contentType: schema.upload.contentType, size: schema.upload.size, sha256: schema.upload.sha256, createdAt: schema.upload.createdAt })
+    .select({
+      id: schema.upload.id,
+      filename: schema.upload.filename,
+      contentType: schema.upload.contentType,
+      size: schema.upload.size,
+      sha256: schema.upload.sha256,
+      createdAt: schema.upload.createdAt,
+    })
     .from(schema.upload)
-    .where(and(eq(schema.upload.workspaceId, workspaceId), eq(schema.upload.subjectKind, subjectKind), eq(schema.upload.subjectId, subjectId)))
+    .where(
+      and(eq(schema.upload.workspaceId, workspaceId), eq(schema.upload.subjectKind, subjectKind), eq(schema.upload.subjectId, subjectId)),
+    )
     .orderBy(asc(schema.upload.createdAt));
 }
 

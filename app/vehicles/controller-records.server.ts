@@ -25,7 +25,13 @@ const versionColumns = {
   recordedByName: user.name,
 };
 
-const toVersion = (r: { version: number; document: Record<string, unknown>; recordedAt: Date; recordedById: string; recordedByName: string }): RecordVersion => ({
+const toVersion = (r: {
+  version: number;
+  document: Record<string, unknown>;
+  recordedAt: Date;
+  recordedById: string;
+  recordedByName: string;
+}): RecordVersion => ({
   version: r.version,
   document: r.document,
   recordedAt: r.recordedAt,
@@ -47,7 +53,12 @@ export async function recordHistory(workspaceId: string, vehicleId: string): Pro
 type Reader = Pick<typeof db, "select">;
 
 /** One version, or the newest when `version` is not given; null when there is none. */
-export async function recordVersion(workspaceId: string, vehicleId: string, version?: number, ex: Reader = db): Promise<RecordVersion | null> {
+export async function recordVersion(
+  workspaceId: string,
+  vehicleId: string,
+  version?: number,
+  ex: Reader = db,
+): Promise<RecordVersion | null> {
   const rows = await ex
     .select(versionColumns)
     .from(controllerRecord)
@@ -121,7 +132,10 @@ async function releasedDesign(workspaceId: string, vehicleId: string): Promise<u
   const rows = await db
     .select({ controller: sql<unknown>`${designRevision.document}->'controller'` })
     .from(vehicleRelease)
-    .innerJoin(designRevision, and(eq(designRevision.id, vehicleRelease.revisionId), eq(designRevision.workspaceId, vehicleRelease.workspaceId)))
+    .innerJoin(
+      designRevision,
+      and(eq(designRevision.id, vehicleRelease.revisionId), eq(designRevision.workspaceId, vehicleRelease.workspaceId)),
+    )
     .where(and(eq(vehicleRelease.workspaceId, workspaceId), eq(vehicleRelease.vehicleId, vehicleId)))
     .orderBy(desc(vehicleRelease.at), desc(vehicleRelease.id))
     .limit(1);
@@ -145,7 +159,10 @@ export async function recordWithStatus(workspaceId: string, vehicleId: string, v
 }
 
 /** The vehicle's newest record against its released revision. */
-export async function vehicleControllerStatus(workspaceId: string, vehicleId: string): Promise<{ status: ControllerStatus; latest: RecordVersion | null }> {
+export async function vehicleControllerStatus(
+  workspaceId: string,
+  vehicleId: string,
+): Promise<{ status: ControllerStatus; latest: RecordVersion | null }> {
   const [latest, released] = await Promise.all([recordVersion(workspaceId, vehicleId), releasedDesign(workspaceId, vehicleId)]);
   return { status: controllerStatus(latest?.document ?? null, released), latest };
 }
@@ -180,7 +197,11 @@ export async function fleetControllerStatus(workspaceId: string): Promise<Map<st
   const [vehicles, records, releases] = await Promise.all([
     db.select({ id: vehicle.id, name: vehicle.name }).from(vehicle).where(eq(vehicle.workspaceId, workspaceId)),
     db
-      .selectDistinctOn([controllerRecord.vehicleId], { vehicleId: controllerRecord.vehicleId, version: controllerRecord.version, document: controllerRecord.document })
+      .selectDistinctOn([controllerRecord.vehicleId], {
+        vehicleId: controllerRecord.vehicleId,
+        version: controllerRecord.version,
+        document: controllerRecord.document,
+      })
       .from(controllerRecord)
       .where(eq(controllerRecord.workspaceId, workspaceId))
       .orderBy(controllerRecord.vehicleId, desc(controllerRecord.version)),
@@ -190,7 +211,10 @@ export async function fleetControllerStatus(workspaceId: string): Promise<Map<st
         controller: sql<unknown>`${designRevision.document}->'controller'`,
       })
       .from(vehicleRelease)
-      .innerJoin(designRevision, and(eq(designRevision.id, vehicleRelease.revisionId), eq(designRevision.workspaceId, vehicleRelease.workspaceId)))
+      .innerJoin(
+        designRevision,
+        and(eq(designRevision.id, vehicleRelease.revisionId), eq(designRevision.workspaceId, vehicleRelease.workspaceId)),
+      )
       .where(eq(vehicleRelease.workspaceId, workspaceId))
       .orderBy(vehicleRelease.vehicleId, desc(vehicleRelease.at), desc(vehicleRelease.id)),
   ]);

@@ -54,6 +54,7 @@ export const proofDoesNotHold = (s: Pick<ControllerStatus, "state">) => s.state 
 
 /** The difference in words: every error finding's message (or the stored record's problems). */
 export function differenceInWords(s: ControllerStatus): string[] {
-  if (s.state === "record-invalid") return s.problems.map((p) => `The stored record no longer passes its checks: ${p.path || "(root)"} ${p.message}.`);
+  if (s.state === "record-invalid")
+    return s.problems.map((p) => `The stored record no longer passes its checks: ${p.path || "(root)"} ${p.message}.`);
   return s.errors.map((f) => f.message);
 }

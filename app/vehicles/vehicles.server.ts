@@ -33,11 +33,18 @@ export async function listVehicles(workspaceId: string) {
 
 /** Only the names, for pickers and filters (no releases or flags to look up). */
 export async function vehicleNames(workspaceId: string) {
-  return db.select({ id: vehicle.id, name: vehicle.name }).from(vehicle).where(eq(vehicle.workspaceId, workspaceId)).orderBy(asc(vehicle.name));
+  return db
+    .select({ id: vehicle.id, name: vehicle.name })
+    .from(vehicle)
+    .where(eq(vehicle.workspaceId, workspaceId))
+    .orderBy(asc(vehicle.name));
 }
 
 export async function countVehicles(workspaceId: string): Promise<number> {
-  const rows = await db.select({ n: sql<number>`count(*)::int` }).from(vehicle).where(eq(vehicle.workspaceId, workspaceId));
+  const rows = await db
+    .select({ n: sql<number>`count(*)::int` })
+    .from(vehicle)
+    .where(eq(vehicle.workspaceId, workspaceId));
   return rows[0]?.n ?? 0;
 }
 
@@ -91,7 +98,10 @@ function releaseQuery(workspaceId: string) {
   return db
     .select(releaseColumns)
     .from(vehicleRelease)
-    .innerJoin(designRevision, and(eq(designRevision.id, vehicleRelease.revisionId), eq(designRevision.workspaceId, vehicleRelease.workspaceId)))
+    .innerJoin(
+      designRevision,
+      and(eq(designRevision.id, vehicleRelease.revisionId), eq(designRevision.workspaceId, vehicleRelease.workspaceId)),
+    )
     .innerJoin(design, and(eq(design.id, designRevision.designId), eq(design.workspaceId, designRevision.workspaceId)))
     .innerJoin(user, eq(user.id, vehicleRelease.releasedBy))
     .where(eq(vehicleRelease.workspaceId, workspaceId))
@@ -105,7 +115,10 @@ async function currentReleases(workspaceId: string) {
   return db
     .selectDistinctOn([vehicleRelease.vehicleId], releaseColumns)
     .from(vehicleRelease)
-    .innerJoin(designRevision, and(eq(designRevision.id, vehicleRelease.revisionId), eq(designRevision.workspaceId, vehicleRelease.workspaceId)))
+    .innerJoin(
+      designRevision,
+      and(eq(designRevision.id, vehicleRelease.revisionId), eq(designRevision.workspaceId, vehicleRelease.workspaceId)),
+    )
     .innerJoin(design, and(eq(design.id, designRevision.designId), eq(design.workspaceId, designRevision.workspaceId)))
     .innerJoin(user, eq(user.id, vehicleRelease.releasedBy))
     .where(eq(vehicleRelease.workspaceId, workspaceId))
@@ -146,7 +159,13 @@ export async function releasableRevisions(workspaceId: string, vehicleId: string
     .innerJoin(design, and(eq(design.id, designRevision.designId), eq(design.workspaceId, designRevision.workspaceId)))
     .where(eq(designRevision.workspaceId, workspaceId))
     .orderBy(desc(sql`${design.vehicleId} is not distinct from ${vehicleId}`), asc(design.name), desc(designRevision.number));
-  const [approved, standings] = await Promise.all([Promise.all(rows.map((r) => revisionApproval(workspaceId, r.id))), standingsFor(workspaceId, rows.map((r) => r.id))]);
+  const [approved, standings] = await Promise.all([
+    Promise.all(rows.map((r) => revisionApproval(workspaceId, r.id))),
+    standingsFor(
+      workspaceId,
+      rows.map((r) => r.id),
+    ),
+  ]);
   return rows.map((r, i) => {
     const st = standings.get(r.id);
     return { ...r, approval: approved[i], refused: st && !st.passes ? st.reasons : null };
@@ -217,7 +236,9 @@ export async function releaseRevision(
       };
     }
     const id = crypto.randomUUID();
-    await tx.insert(vehicleRelease).values({ id, workspaceId, vehicleId, revisionId: input.revisionId, releasedBy: actorId, note: input.note });
+    await tx
+      .insert(vehicleRelease)
+      .values({ id, workspaceId, vehicleId, revisionId: input.revisionId, releasedBy: actorId, note: input.note });
     await recordAudit(
       {
         workspaceId,
@@ -231,7 +252,14 @@ export async function releaseRevision(
           design: rev[0].designName,
           contentHash: rev[0].contentHash,
           ...(contradictions.length > 0
-            ? { controllerOverride: { reason: override, recordVersion: against.version, findings: status!.errors.map((f) => ({ code: f.code, message: f.message })), problems: status!.problems } }
+            ? {
+                controllerOverride: {
+                  reason: override,
+                  recordVersion: against.version,
+                  findings: status!.errors.map((f) => ({ code: f.code, message: f.message })),
+                  problems: status!.problems,
+                },
+              }
             : {}),
         },
       },
@@ -257,7 +285,9 @@ export async function openAttention(workspaceId: string, vehicleId: string) {
     })
     .from(vehicleAttention)
     .leftJoin(user, eq(user.id, vehicleAttention.raisedBy))
-    .where(and(eq(vehicleAttention.workspaceId, workspaceId), eq(vehicleAttention.vehicleId, vehicleId), isNull(vehicleAttention.clearedAt)))
+    .where(
+      and(eq(vehicleAttention.workspaceId, workspaceId), eq(vehicleAttention.vehicleId, vehicleId), isNull(vehicleAttention.clearedAt)),
+    )
     .orderBy(asc(vehicleAttention.raisedAt));
 }
 
@@ -299,10 +329,15 @@ export async function clearAttention(workspaceId: string, vehicleId: string, act
     const cleared = await tx
       .update(vehicleAttention)
       .set({ clearedAt: new Date(), clearedBy: actorId, clearNote: note })
-      .where(and(eq(vehicleAttention.workspaceId, workspaceId), eq(vehicleAttention.vehicleId, vehicleId), isNull(vehicleAttention.clearedAt)))
+      .where(
+        and(eq(vehicleAttention.workspaceId, workspaceId), eq(vehicleAttention.vehicleId, vehicleId), isNull(vehicleAttention.clearedAt)),
+      )
       .returning({ id: vehicleAttention.id });
     if (cleared.length > 0) {
-      await recordAudit({ workspaceId, actorId, action: "vehicle.attention-cleared", detail: { vehicleId, note, flags: cleared.length } }, tx);
+      await recordAudit(
+        { workspaceId, actorId, action: "vehicle.attention-cleared", detail: { vehicleId, note, flags: cleared.length } },
+        tx,
+      );
     }
     return cleared.length;
   });

@@ -4,7 +4,9 @@ import { describe, expect, it } from "vitest";
 import { compileDesign, type Design } from "../engine";
 import { explainMeasured, restingStates, whyNot } from "./why-not";
 
-const hauler = compileDesign(JSON.parse(readFileSync(new URL("../../drizzle/demo-designs/haybarn-campus-hauler.json", import.meta.url), "utf8")) as Design);
+const hauler = compileDesign(
+  JSON.parse(readFileSync(new URL("../../drizzle/demo-designs/haybarn-campus-hauler.json", import.meta.url), "utf8")) as Design,
+);
 const ready = { key: "on", seat: "occupied", plug: "free", park: "released", lever: "forward", brake: "up", pedal: "down" };
 
 describe("whyNot", () => {

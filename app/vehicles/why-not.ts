@@ -168,7 +168,13 @@ const restStateOf = (c: CompiledDesign) => {
  * replayed (spec 1.5) and, when a lockout latches on the way, the throttle returned to rest and
  * applied again.
  */
-function optionOf(c: CompiledDesign, states: Record<string, string>, changes: ChangeStep[], history: Array<Record<string, string>> | undefined, goal: RestoreGoal): ChangeOption {
+function optionOf(
+  c: CompiledDesign,
+  states: Record<string, string>,
+  changes: ChangeStep[],
+  history: Array<Record<string, string>> | undefined,
+  goal: RestoreGoal,
+): ChangeOption {
   const t = c.conditions[c.throttle.cond].id;
   const target = { ...states };
   for (const ch of changes) target[ch.condition] = ch.to;
@@ -197,7 +203,13 @@ function optionOf(c: CompiledDesign, states: Record<string, string>, changes: Ch
   return { changes, cycleThrottle, heldOff, steps };
 }
 
-function adviceOf(c: CompiledDesign, states: Record<string, string>, found: SmallestChange, history: Array<Record<string, string>> | undefined, goal: RestoreGoal): ChangeAdvice {
+function adviceOf(
+  c: CompiledDesign,
+  states: Record<string, string>,
+  found: SmallestChange,
+  history: Array<Record<string, string>> | undefined,
+  goal: RestoreGoal,
+): ChangeAdvice {
   if (!found.reachable) return { kind: "none" };
   const label = (id: string) => c.conditions[c.conditionIndex[id]].label;
   return {
@@ -217,7 +229,12 @@ function adviceOf(c: CompiledDesign, states: Record<string, string>, found: Smal
 }
 
 /** The smallest change of conditions that reaches `goal` from `states` (after `history`, for drive). */
-export function changeFor(c: CompiledDesign, states: Record<string, string>, goal: RestoreGoal, history?: Array<Record<string, string>>): ChangeAdvice {
+export function changeFor(
+  c: CompiledDesign,
+  states: Record<string, string>,
+  goal: RestoreGoal,
+  history?: Array<Record<string, string>>,
+): ChangeAdvice {
   return adviceOf(c, states, smallestChange(c, states, goal), history, goal);
 }
 
@@ -279,11 +296,15 @@ export function whyNot(c: CompiledDesign, states: Record<string, string>, histor
         break;
       }
       case "direction-conflict": {
-        const sets = [...contactsFeeding(c, row, c.inputs[c.inputOf.forward].id), ...contactsFeeding(c, row, c.inputs[c.inputOf.reverse].id)];
+        const sets = [
+          ...contactsFeeding(c, row, c.inputs[c.inputOf.forward].id),
+          ...contactsFeeding(c, row, c.inputs[c.inputOf.reverse].id),
+        ];
         blockers.push({
           code: r.code,
           title: "Forward and reverse are both live",
-          advice: "The controller refuses to choose. If none of the contacts below should be closed here, look for a short between the direction lines.",
+          advice:
+            "The controller refuses to choose. If none of the contacts below should be closed here, look for a short between the direction lines.",
           change: changeFor(c, states, "direction"),
           contactSets: sets,
         });
@@ -369,7 +390,14 @@ export function explainMeasured(c: CompiledDesign, states: Record<string, string
       e.mode === "stuck-closed"
         ? `${ISOLATE_FIRST} Then, with ${cond.label} ${state}, it should be open: measure across its terminals; continuity means it is stuck closed.`
         : `${ISOLATE_FIRST} Then, with ${cond.label} ${state}, it should be closed: measure across its terminals; no continuity means it is stuck open (or a wire to it is broken).`;
-    return { contact: k.id, label: k.label ?? k.id, mode: e.mode, check, terminals: wiresAt(c, k.id), otherInputsChanged: e.otherInputsChanged };
+    return {
+      contact: k.id,
+      label: k.label ?? k.id,
+      mode: e.mode,
+      check,
+      terminals: wiresAt(c, k.id),
+      otherInputsChanged: e.otherInputsChanged,
+    };
   });
   return { kind: "faults", suspects, mismatched };
 }

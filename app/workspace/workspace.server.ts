@@ -10,12 +10,19 @@ import { ROLE_DUTIES, ROLE_LABELS, type Role } from "~/lib/roles";
 const hashToken = (token: string) => createHash("sha256").update(token).digest("hex");
 
 export function slugify(name: string): string {
-  const base = name.toLowerCase().normalize("NFKD").replace(/[^a-z0-9]+/g, "-").replace(/^-+|-+$/g, "").slice(0, 40);
+  const base = name
+    .toLowerCase()
+    .normalize("NFKD")
+    .replace(/[^a-z0-9]+/g, "-")
+    .replace(/^-+|-+$/g, "")
+    .slice(0, 40);
   return base || "workspace";
 }
 
 /** PostgreSQL's unique_violation: another request took the slug first. */
-const isUniqueViolation = (err: unknown) => (err as { code?: string; cause?: { code?: string } })?.code === "23505" || (err as { cause?: { code?: string } })?.cause?.code === "23505";
+const isUniqueViolation = (err: unknown) =>
+  (err as { code?: string; cause?: { code?: string } })?.code === "23505" ||
+  (err as { cause?: { code?: string } })?.cause?.code === "23505";
 
 /**
  * A new workspace with its owner as admin. Workspaces of one name made at the same moment race for
@@ -60,7 +67,12 @@ export async function listMembers(workspaceId: string) {
 
 export async function listOpenInvitations(workspaceId: string) {
   return db
-    .select({ id: schema.invitation.id, email: schema.invitation.email, role: schema.invitation.role, expiresAt: schema.invitation.expiresAt })
+    .select({
+      id: schema.invitation.id,
+      email: schema.invitation.email,
+      role: schema.invitation.role,
+      expiresAt: schema.invitation.expiresAt,
+    })
     .from(schema.invitation)
     .where(
       and(
@@ -89,10 +101,15 @@ export async function inviteMember(ws: { id: string; name: string }, inviter: { 
   });
   const url = new URL(`/invite/${token}`, env.APP_URL).href;
   await sendMail(
-    composeMail(email, `${inviter.name} invited you to ${ws.name} on Chainproof`, [
-      `${inviter.name} invited you to join the workspace "${ws.name}" as ${ROLE_LABELS[role].toLowerCase()}, to ${ROLE_DUTIES[role]}.`,
-      "The invitation is valid for seven days.",
-    ], { label: "Accept the invitation", url }),
+    composeMail(
+      email,
+      `${inviter.name} invited you to ${ws.name} on Chainproof`,
+      [
+        `${inviter.name} invited you to join the workspace "${ws.name}" as ${ROLE_LABELS[role].toLowerCase()}, to ${ROLE_DUTIES[role]}.`,
+        "The invitation is valid for seven days.",
+      ],
+      { label: "Accept the invitation", url },
+    ),
   );
   return url;
 }
@@ -119,7 +136,11 @@ export async function findInvitation(token: string) {
 
 export async function acceptInvitation(token: string, user: { id: string; email: string }) {
   return db.transaction(async (tx) => {
-    const peek = await tx.select({ workspaceId: schema.invitation.workspaceId }).from(schema.invitation).where(eq(schema.invitation.tokenHash, hashToken(token))).limit(1);
+    const peek = await tx
+      .select({ workspaceId: schema.invitation.workspaceId })
+      .from(schema.invitation)
+      .where(eq(schema.invitation.tokenHash, hashToken(token)))
+      .limit(1);
     if (peek[0]) await lockWorkspace(tx, peek[0].workspaceId);
     const found = await tx
       .select()
@@ -128,7 +149,8 @@ export async function acceptInvitation(token: string, user: { id: string; email:
       .for("update")
       .limit(1);
     const inv = found[0];
-    if (!inv || inv.acceptedAt || inv.revokedAt || inv.expiresAt < new Date()) return { ok: false as const, reason: "This invitation is no longer valid." };
+    if (!inv || inv.acceptedAt || inv.revokedAt || inv.expiresAt < new Date())
+      return { ok: false as const, reason: "This invitation is no longer valid." };
     if (inv.email.toLowerCase() !== user.email.toLowerCase())
       return { ok: false as const, reason: `This invitation is for ${inv.email}. Sign in with that address to accept it.` };
     // Accepting a lesser role as the workspace's only admin would leave it without one.
@@ -143,7 +165,10 @@ export async function acceptInvitation(token: string, user: { id: string; email:
       .values({ id: crypto.randomUUID(), workspaceId: inv.workspaceId, userId: user.id, role: inv.role })
       .onConflictDoUpdate({ target: [schema.member.workspaceId, schema.member.userId], set: { role: inv.role } });
     await tx.update(schema.invitation).set({ acceptedAt: new Date() }).where(eq(schema.invitation.id, inv.id));
-    await recordAudit({ workspaceId: inv.workspaceId, actorId: user.id, action: "member.joined", subject: user.email, detail: { role: inv.role } }, tx);
+    await recordAudit(
+      { workspaceId: inv.workspaceId, actorId: user.id, action: "member.joined", subject: user.email, detail: { role: inv.role } },
+      tx,
+    );
     return { ok: true as const, workspaceId: inv.workspaceId };
   });
 }
@@ -154,7 +179,14 @@ export async function revokeInvitation(workspaceId: string, actorId: string, inv
     const r = await tx
       .update(schema.invitation)
       .set({ revokedAt: new Date() })
-      .where(and(eq(schema.invitation.id, invitationId), eq(schema.invitation.workspaceId, workspaceId), isNull(schema.invitation.acceptedAt), isNull(schema.invitation.revokedAt)))
+      .where(
+        and(
+          eq(schema.invitation.id, invitationId),
+          eq(schema.invitation.workspaceId, workspaceId),
+          isNull(schema.invitation.acceptedAt),
+          isNull(schema.invitation.revokedAt),
+        ),
+      )
       .returning({ email: schema.invitation.email });
     if (r[0]) await recordAudit({ workspaceId, actorId, action: "member.invitation-revoked", subject: r[0].email }, tx);
     return r.length > 0;
@@ -201,7 +233,10 @@ export async function changeRole(workspaceId: string, actorId: string, memberId:
       if ((await adminCount(tx, workspaceId)) <= 1) return { ok: false as const, message: "A workspace needs at least one admin." };
     }
     await tx.update(schema.member).set({ role }).where(eq(schema.member.id, memberId));
-    await recordAudit({ workspaceId, actorId, action: "member.role-changed", subject: target.email, detail: { from: target.role, to: role } }, tx);
+    await recordAudit(
+      { workspaceId, actorId, action: "member.role-changed", subject: target.email, detail: { from: target.role, to: role } },
+      tx,
+    );
     return { ok: true as const };
   });
 }

@@ -11,10 +11,15 @@ const EXAMPLES = "/work/shared/spec/examples";
 const FIXTURES = new URL("../unit/bench-tests/fixtures/", import.meta.url);
 
 function designs(): Array<[string, Design]> {
-  const read = (dir: string | URL, f: string): [string, Design] => [f.replace(".design.json", ""), JSON.parse(readFileSync(new URL(f, dir instanceof URL ? dir : `file://${dir}/`), "utf8"))];
+  const read = (dir: string | URL, f: string): [string, Design] => [
+    f.replace(".design.json", ""),
+    JSON.parse(readFileSync(new URL(f, dir instanceof URL ? dir : `file://${dir}/`), "utf8")),
+  ];
   const list = (dir: string | URL) => {
     try {
-      return readdirSync(dir).filter((f) => f.endsWith(".design.json")).sort();
+      return readdirSync(dir)
+        .filter((f) => f.endsWith(".design.json"))
+        .sort();
     } catch {
       return [];
     }

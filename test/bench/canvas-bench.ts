@@ -37,54 +37,64 @@ try {
 async function harnessFigures(browser: Browser) {
   const server = await serveHarness(PORT);
   try {
-  const page = await browser.newPage({ viewport: { width: 1400, height: 860 } });
-  const base = `http://127.0.0.1:${PORT}/`;
+    const page = await browser.newPage({ viewport: { width: 1400, height: 860 } });
+    const base = `http://127.0.0.1:${PORT}/`;
 
-  // Warm up Vite's transforms so the first measurement is not the dev server compiling.
-  await page.goto(`${base}?design=empty`);
-  await page.waitForSelector(".react-flow__pane");
-  const proof = await page.evaluate(async () => {
-    const bench = (window as unknown as { __proofBench: (r: number, c: number) => Promise<number[]> }).__proofBench;
-    await bench(3, 20);
-    return bench(50, 20);
-  });
-  console.log(`live proof, 20 contacts (2^21 rows), worker round trip over ${proof.length} runs: p50 ${ms(pct(proof, 50))}, p95 ${ms(pct(proof, 95))}, max ${ms(Math.max(...proof))}`);
-  // The same 20 contacts actuated by 10 conditions (two contacts on each, as on a real vehicle).
-  const typical = await page.evaluate(async () => {
-    const bench = (window as unknown as { __proofBench: (r: number, c: number, k?: number) => Promise<number[]> }).__proofBench;
-    return bench(50, 20, 10);
-  });
-  console.log(`live proof, 20 contacts on 10 conditions, worker round trip over ${typical.length} runs: p50 ${ms(pct(typical, 50))}, p95 ${ms(pct(typical, 95))}, max ${ms(Math.max(...typical))}`);
+    // Warm up Vite's transforms so the first measurement is not the dev server compiling.
+    await page.goto(`${base}?design=empty`);
+    await page.waitForSelector(".react-flow__pane");
+    const proof = await page.evaluate(async () => {
+      const bench = (window as unknown as { __proofBench: (r: number, c: number) => Promise<number[]> }).__proofBench;
+      await bench(3, 20);
+      return bench(50, 20);
+    });
+    console.log(
+      `live proof, 20 contacts (2^21 rows), worker round trip over ${proof.length} runs: p50 ${ms(pct(proof, 50))}, p95 ${ms(pct(proof, 95))}, max ${ms(Math.max(...proof))}`,
+    );
+    // The same 20 contacts actuated by 10 conditions (two contacts on each, as on a real vehicle).
+    const typical = await page.evaluate(async () => {
+      const bench = (window as unknown as { __proofBench: (r: number, c: number, k?: number) => Promise<number[]> }).__proofBench;
+      return bench(50, 20, 10);
+    });
+    console.log(
+      `live proof, 20 contacts on 10 conditions, worker round trip over ${typical.length} runs: p50 ${ms(pct(typical, 50))}, p95 ${ms(pct(typical, 95))}, max ${ms(Math.max(...typical))}`,
+    );
 
-  await page.goto(`${base}?design=chain-198&conds=8`);
-  const rendered = await page.waitForFunction(() => (document.querySelectorAll(".react-flow__node").length >= 200 ? performance.now() : 0), null, { timeout: 60_000 });
-  const renderMs = (await rendered.jsonValue()) as number;
-  await page.waitForTimeout(1500);
-  const count = await page.locator(".react-flow__node").count();
-  // A string, not a function: tsx would add helpers to a named function that the page lacks.
-  await page.evaluate(`(() => {
+    await page.goto(`${base}?design=chain-198&conds=8`);
+    const rendered = await page.waitForFunction(
+      () => (document.querySelectorAll(".react-flow__node").length >= 200 ? performance.now() : 0),
+      null,
+      { timeout: 60_000 },
+    );
+    const renderMs = (await rendered.jsonValue()) as number;
+    await page.waitForTimeout(1500);
+    const count = await page.locator(".react-flow__node").count();
+    // A string, not a function: tsx would add helpers to a named function that the page lacks.
+    await page.evaluate(`(() => {
     window.__frames = [];
     window.__recording = true;
     let last = performance.now();
     const tick = (t) => { window.__frames.push(t - last); last = t; if (window.__recording) requestAnimationFrame(tick); };
     requestAnimationFrame(tick);
   })()`);
-  const pane = (await page.locator(".react-flow__pane").boundingBox())!;
-  const cx = pane.x + pane.width / 2;
-  const cy = pane.y + pane.height / 2;
-  for (let round = 0; round < 4; round++) {
-    await page.mouse.move(cx, cy);
-    await page.mouse.down();
-    for (let i = 1; i <= 30; i++) await page.mouse.move(cx + (round % 2 ? -1 : 1) * i * 8, cy + i * 3);
-    await page.mouse.up();
-  }
-  const frames = await page.evaluate(() => {
-    const w = window as unknown as { __frames: number[]; __recording: boolean };
-    w.__recording = false;
-    return w.__frames.slice(1);
-  });
-  console.log(`canvas with ${count} nodes: rendered ${ms(renderMs)} after navigation start`);
-  console.log(`panning: ${frames.length} frames, frame time p50 ${ms(pct(frames, 50))}, p95 ${ms(pct(frames, 95))}, max ${ms(Math.max(...frames))}`);
+    const pane = (await page.locator(".react-flow__pane").boundingBox())!;
+    const cx = pane.x + pane.width / 2;
+    const cy = pane.y + pane.height / 2;
+    for (let round = 0; round < 4; round++) {
+      await page.mouse.move(cx, cy);
+      await page.mouse.down();
+      for (let i = 1; i <= 30; i++) await page.mouse.move(cx + (round % 2 ? -1 : 1) * i * 8, cy + i * 3);
+      await page.mouse.up();
+    }
+    const frames = await page.evaluate(() => {
+      const w = window as unknown as { __frames: number[]; __recording: boolean };
+      w.__recording = false;
+      return w.__frames.slice(1);
+    });
+    console.log(`canvas with ${count} nodes: rendered ${ms(renderMs)} after navigation start`);
+    console.log(
+      `panning: ${frames.length} frames, frame time p50 ${ms(pct(frames, 50))}, p95 ${ms(pct(frames, 95))}, max ${ms(Math.max(...frames))}`,
+    );
   } finally {
     await server.close();
   }
@@ -97,8 +107,17 @@ async function editorWeight(browser: Browser) {
   try {
     if (!base) {
       stack = await bringUp({
-        name: "canvas-bench", dataDir: ".data/canvas-bench", pgPort: 54359 + offset, database: "chainproof_canvas_bench", freshDatabase: true,
-        smtpPort: 2555 + offset, s3Port: 4599 + offset, appPort: 3300 + offset, demo: true, authSecret: randomBytes(48).toString("base64url"), extraEnv: { NODE_ENV: "production", WEB_CONCURRENCY: "1" },
+        name: "canvas-bench",
+        dataDir: ".data/canvas-bench",
+        pgPort: 54359 + offset,
+        database: "chainproof_canvas_bench",
+        freshDatabase: true,
+        smtpPort: 2555 + offset,
+        s3Port: 4599 + offset,
+        appPort: 3300 + offset,
+        demo: true,
+        authSecret: randomBytes(48).toString("base64url"),
+        extraEnv: { NODE_ENV: "production", WEB_CONCURRENCY: "1" },
       });
       if ((await run("npx", ["react-router", "build"], { NODE_ENV: "production" })) !== 0) throw new Error("the build failed");
       await stack.startApp();
@@ -106,7 +125,7 @@ async function editorWeight(browser: Browser) {
     }
     const runs: Array<{ files: string[]; scripts: number; encoded: number; decoded: number; usableMs: number }> = [];
     for (let i = 0; i < 3; i++) runs.push(await openEditorOnce(browser, base));
-    const median = <T,>(xs: T[], f: (x: T) => number) => [...xs.map(f)].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+    const median = <T>(xs: T[], f: (x: T) => number) => [...xs.map(f)].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
     const kb = (n: number) => `${(n / 1000).toFixed(1)} kB`;
     console.log(
       `editor, opened in the app (CPU 4x slower, 1.6 Mbit/s, 150 ms RTT, cache empty; ${runs.length} runs): ` +
@@ -129,7 +148,9 @@ async function editorWeight(browser: Browser) {
       const onlyFetched = [...fetched].filter((f) => !counted.has(f));
       const onlyCounted = [...counted].filter((f) => !fetched.has(f));
       if (onlyFetched.length + onlyCounted.length > 0)
-        console.log(`  the browser fetched but the build count leaves out: ${onlyFetched.join(", ") || "nothing"}; counted but not fetched: ${onlyCounted.join(", ") || "nothing"}`);
+        console.log(
+          `  the browser fetched but the build count leaves out: ${onlyFetched.join(", ") || "nothing"}; counted but not fetched: ${onlyCounted.join(", ") || "nothing"}`,
+        );
     }
     console.log(
       JSON.stringify({
@@ -152,7 +173,10 @@ async function editorWeight(browser: Browser) {
 
 /** One cold open of the demo design's editor; counts every script response of the page and its workers. */
 async function openEditorOnce(browser: Browser, base: string) {
-  const context = await browser.newContext({ viewport: { width: 1440, height: 900 }, extraHTTPHeaders: { "x-forwarded-for": "198.18.77.1" } });
+  const context = await browser.newContext({
+    viewport: { width: 1440, height: 900 },
+    extraHTTPHeaders: { "x-forwarded-for": "198.18.77.1" },
+  });
   try {
     const page = await context.newPage();
     await page.goto(`${base}/sign-in`);
@@ -167,7 +191,12 @@ async function openEditorOnce(browser: Browser, base: string) {
     const cdp = await context.newCDPSession(page);
     await cdp.send("Network.enable");
     await cdp.send("Network.setCacheDisabled", { cacheDisabled: true });
-    await cdp.send("Network.emulateNetworkConditions", { offline: false, latency: 150, downloadThroughput: (1.6e6 / 8) * 0.9, uploadThroughput: (750e3 / 8) * 0.9 });
+    await cdp.send("Network.emulateNetworkConditions", {
+      offline: false,
+      latency: 150,
+      downloadThroughput: (1.6e6 / 8) * 0.9,
+      uploadThroughput: (750e3 / 8) * 0.9,
+    });
     await cdp.send("Emulation.setCPUThrottlingRate", { rate: 4 });
 
     const scripts: Array<Promise<{ file: string; encoded: number; decoded: number }>> = [];
@@ -194,7 +223,13 @@ async function openEditorOnce(browser: Browser, base: string) {
     const usableMs = (await usable.jsonValue()) as number;
     await page.waitForLoadState("networkidle");
     const sizes = await Promise.all(scripts);
-    return { files: sizes.map((x) => x.file), scripts: sizes.length, encoded: sizes.reduce((a, s) => a + s.encoded, 0), decoded: sizes.reduce((a, s) => a + s.decoded, 0), usableMs };
+    return {
+      files: sizes.map((x) => x.file),
+      scripts: sizes.length,
+      encoded: sizes.reduce((a, s) => a + s.encoded, 0),
+      decoded: sizes.reduce((a, s) => a + s.decoded, 0),
+      usableMs,
+    };
   } finally {
     await context.close();
   }

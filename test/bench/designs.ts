@@ -113,8 +113,28 @@ export function generatedDesign(conditions = 21, stageLimit = Infinity): Design 
   const rules: Rule[] = [
     { id: "first-stage", type: "inhibit", when: { cond: cond(1), in: ["off"] }, forbid: "drive" },
     { id: "redundant", type: "inhibit", when: { cond: cond(3), in: ["on"] }, forbid: { energized: "EN" } },
-    { id: "brake", type: "inhibit", when: { any: [{ cond: cond(brakeA), in: ["on"] }, { cond: cond(brakeB), in: ["on"] }] }, forbid: "drive" },
-    { id: "neutral", type: "inhibit", when: { all: [{ cond: cond(dirF), in: ["off"] }, { cond: cond(dirR), in: ["off"] }] }, forbid: "drive" },
+    {
+      id: "brake",
+      type: "inhibit",
+      when: {
+        any: [
+          { cond: cond(brakeA), in: ["on"] },
+          { cond: cond(brakeB), in: ["on"] },
+        ],
+      },
+      forbid: "drive",
+    },
+    {
+      id: "neutral",
+      type: "inhibit",
+      when: {
+        all: [
+          { cond: cond(dirF), in: ["off"] },
+          { cond: cond(dirR), in: ["off"] },
+        ],
+      },
+      forbid: "drive",
+    },
     { id: "parallel-member", type: "inhibit", when: { cond: cond(2), in: ["off"] }, forbid: "drive" },
     { id: "key-off", type: "inhibit", when: { cond: cond(0), in: ["off"] }, forbid: { energized: "EN" } },
     {

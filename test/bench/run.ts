@@ -95,7 +95,11 @@ const [csvMs] = time(() => {
 const groupSets = [
   "drive",
   ...c.rules.flatMap((r) =>
-    r.type === "inhibit" ? [`unsafe:${r.id}`, `violating:${r.id}`] : r.type === "require-drive" ? [`demand:${r.id}`, `failing:${r.id}`] : [],
+    r.type === "inhibit"
+      ? [`unsafe:${r.id}`, `violating:${r.id}`]
+      : r.type === "require-drive"
+        ? [`demand:${r.id}`, `failing:${r.id}`]
+        : [],
   ),
   ...c.contacts.flatMap((k) => [`broken:${k.id}/stuck-closed`, `broken:${k.id}/stuck-open`]),
 ];
@@ -107,7 +111,14 @@ const grouped = groupSets.map((set) => {
 const whys = c.rules.flatMap((r) => {
   if (r.type !== "inhibit" || r.forbidInput >= 0) return [];
   const [ms, doc] = time(() => whyRuleHolds(c, r.id));
-  return [{ rule: r.id, unsafeRows: doc.unsafeRows, reasons: doc.reasons.map((p) => `${p.reason}: ${p.rows} rows in ${p.groupCount} groups`), ms: round(ms, 0) }];
+  return [
+    {
+      rule: r.id,
+      unsafeRows: doc.unsafeRows,
+      reasons: doc.reasons.map((p) => `${p.reason}: ${p.rows} rows in ${p.groupCount} groups`),
+      ms: round(ms, 0),
+    },
+  ];
 });
 const slowest = [...grouped, ...whys.map((w) => ({ set: `why ${w.rule}`, ms: w.ms }))].sort((a, b) => b.ms - a.ms)[0];
 const emptyBroken = grouped.filter((g) => g.set.startsWith("broken:") && g.rows === 0);
@@ -155,7 +166,8 @@ const report = {
     megabytesPerSecond: round(csvChars / 1e6 / (csvMs / 1000)),
   },
   rowGroups: {
-    method: "groupRows / whyRuleHolds on the large design: every set scanned from the table, then its reduced decision diagram read as groups",
+    method:
+      "groupRows / whyRuleHolds on the large design: every set scanned from the table, then its reduced decision diagram read as groups",
     slowest: { set: slowest.set, ms: slowest.ms, goalMs: 1000 },
     sets: grouped.filter((g) => !(g.set.startsWith("broken:") && g.rows === 0)),
     brokenSetsEmpty: { count: emptyBroken.length, slowestMs: Math.max(...emptyBroken.map((g) => g.ms)) },

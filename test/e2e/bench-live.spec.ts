@@ -55,7 +55,9 @@ test("a refused save rolls the step back and says why", async ({ page }) => {
     route.fulfill({
       status: 409,
       contentType: "application/json",
-      body: JSON.stringify({ error: { code: "run_completed", message: "This run is completed and signed; its results can no longer change.", fields: [] } }),
+      body: JSON.stringify({
+        error: { code: "run_completed", message: "This run is completed and signed; its results can no longer change.", fields: [] },
+      }),
     }),
   );
   await step(page, 2).getByRole("button", { name: "Skip" }).tap();

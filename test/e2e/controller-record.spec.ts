@@ -21,7 +21,9 @@ test("a technician on a phone records settings without the brake-release lockout
   await expect(page.getByRole("heading", { name })).toBeVisible();
   await expect(page.getByTestId("controller-summary")).toContainText("Not recorded yet");
   const revision = page.getByLabel("Revision");
-  const option = await revision.locator("option", { hasText: "Haybarn hauler #3, drive inhibit · revision 1 · approved" }).getAttribute("value");
+  const option = await revision
+    .locator("option", { hasText: "Haybarn hauler #3, drive inhibit · revision 1 · approved" })
+    .getAttribute("value");
   await revision.selectOption(option!);
   await page.getByRole("button", { name: "Release", exact: true }).click();
   await expect(page.getByTestId("current-release")).toContainText("Revision 1 of");
@@ -59,7 +61,8 @@ test("a technician on a phone records settings without the brake-release lockout
   await fill("Wiring fault below", "0.5");
   await fill("Wiring fault above", "4.6");
   await page.getByLabel("Yes, braking cuts drive").check();
-  for (const l of ["power-on", "enable-restore", "direction-engage"]) await page.getByRole("checkbox", { name: new RegExp(`^${l}:`) }).check();
+  for (const l of ["power-on", "enable-restore", "direction-engage"])
+    await page.getByRole("checkbox", { name: new RegExp(`^${l}:`) }).check();
   await expect(page.getByRole("checkbox", { name: /^brake-release:/ })).not.toBeChecked();
   await fill("Precharge resistor", "100");
   await fill("Controller input capacitance", "2200");

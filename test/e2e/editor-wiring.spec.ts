@@ -18,7 +18,10 @@ async function designWith(page: Page, name: string, document?: (name: string) =>
   expect(res.status()).toBe(201);
   const body = (await res.json()) as { design: { id: string }; draft: { version: number } };
   if (document) {
-    const put = await page.request.put(`/api/v1/designs/${body.design.id}/draft`, { data: { document: document(name), version: body.draft.version }, headers: { origin: APP_ORIGIN } });
+    const put = await page.request.put(`/api/v1/designs/${body.design.id}/draft`, {
+      data: { document: document(name), version: body.draft.version },
+      headers: { origin: APP_ORIGIN },
+    });
     expect(put.status()).toBe(200);
   }
   return body.design.id;
@@ -37,42 +40,49 @@ const empty = (name: string): Doc => ({
 });
 
 /** A tow tug of our own: key, seat and brake wired to power, enable and brake; forward only. */
-const towTug = (lockouts: string[]) => (name: string): Doc => ({
-  format: "chainproof/design@1",
-  name,
-  conditions: [
-    { id: "key", label: "Key", states: ["off", "on"] },
-    { id: "seat", label: "Operator seat", states: ["empty", "occupied"] },
-    { id: "brake", label: "Parking brake", states: ["off", "set"] },
-    { id: "throttle", label: "Throttle", states: ["released", "applied"] },
-  ],
-  components: [
-    { id: "B1", type: "supply", label: "Pack +" },
-    { id: "KEY", type: "contact", label: "Key switch", condition: "key", closedIn: ["on"] },
-    { id: "SEAT", type: "contact", label: "Seat switch", condition: "seat", closedIn: ["occupied"] },
-    { id: "PB", type: "contact", label: "Brake switch", condition: "brake", closedIn: ["set"] },
-    { id: "PWR", type: "input", label: "Power", function: "power" },
-    { id: "EN", type: "input", label: "Enable", function: "enable" },
-    { id: "BRK", type: "input", label: "Brake", function: "brake" },
-  ],
-  wires: [
-    { from: "B1.+", to: "KEY.1" },
-    { from: "KEY.2", to: "PWR.in" },
-    { from: "KEY.2", to: "SEAT.1" },
-    { from: "SEAT.2", to: "EN.in" },
-    { from: "KEY.2", to: "PB.1" },
-    { from: "PB.2", to: "BRK.in" },
-  ],
-  controller: { throttle: THROTTLE, brakeCutsDrive: true, lockouts },
-  rules: [
-    { id: "R1", label: "No drive with the seat empty", type: "inhibit", when: { cond: "seat", in: ["empty"] }, forbid: "drive" },
-    { id: "R2", label: "No start on a held throttle", type: "no-restart" },
-  ],
-  layout: {
-    B1: { x: 0, y: 120 }, KEY: { x: 240, y: 120 }, SEAT: { x: 480, y: 0 }, PB: { x: 480, y: 240 },
-    PWR: { x: 760, y: 120 }, EN: { x: 760, y: 0 }, BRK: { x: 760, y: 240 },
-  },
-});
+const towTug =
+  (lockouts: string[]) =>
+  (name: string): Doc => ({
+    format: "chainproof/design@1",
+    name,
+    conditions: [
+      { id: "key", label: "Key", states: ["off", "on"] },
+      { id: "seat", label: "Operator seat", states: ["empty", "occupied"] },
+      { id: "brake", label: "Parking brake", states: ["off", "set"] },
+      { id: "throttle", label: "Throttle", states: ["released", "applied"] },
+    ],
+    components: [
+      { id: "B1", type: "supply", label: "Pack +" },
+      { id: "KEY", type: "contact", label: "Key switch", condition: "key", closedIn: ["on"] },
+      { id: "SEAT", type: "contact", label: "Seat switch", condition: "seat", closedIn: ["occupied"] },
+      { id: "PB", type: "contact", label: "Brake switch", condition: "brake", closedIn: ["set"] },
+      { id: "PWR", type: "input", label: "Power", function: "power" },
+      { id: "EN", type: "input", label: "Enable", function: "enable" },
+      { id: "BRK", type: "input", label: "Brake", function: "brake" },
+    ],
+    wires: [
+      { from: "B1.+", to: "KEY.1" },
+      { from: "KEY.2", to: "PWR.in" },
+      { from: "KEY.2", to: "SEAT.1" },
+      { from: "SEAT.2", to: "EN.in" },
+      { from: "KEY.2", to: "PB.1" },
+      { from: "PB.2", to: "BRK.in" },
+    ],
+    controller: { throttle: THROTTLE, brakeCutsDrive: true, lockouts },
+    rules: [
+      { id: "R1", label: "No drive with the seat empty", type: "inhibit", when: { cond: "seat", in: ["empty"] }, forbid: "drive" },
+      { id: "R2", label: "No start on a held throttle", type: "no-restart" },
+    ],
+    layout: {
+      B1: { x: 0, y: 120 },
+      KEY: { x: 240, y: 120 },
+      SEAT: { x: 480, y: 0 },
+      PB: { x: 480, y: 240 },
+      PWR: { x: 760, y: 120 },
+      EN: { x: 760, y: 0 },
+      BRK: { x: 760, y: 240 },
+    },
+  });
 
 const editorUrl = (id: string) => `/w/${WS}/designs/${id}/edit`;
 const status = (page: Page) => page.getByTestId("proof-status");
@@ -117,7 +127,9 @@ async function setContact(page: Page, id: string, condition: string, closedIn: s
   await chips.getByRole("button", { name: closedIn }).click();
 }
 
-test("an engineer builds a two-contact chain by clicking terminals, is refused a colliding condition id at the field, and saves", async ({ page }) => {
+test("an engineer builds a two-contact chain by clicking terminals, is refused a colliding condition id at the field, and saves", async ({
+  page,
+}) => {
   test.setTimeout(150_000);
   await signIn(page, "engineer");
   const id = await designWith(page, `Tow tug T-4 chain ${Date.now()}`, empty);
@@ -129,7 +141,8 @@ test("an engineer builds a two-contact chain by clicking terminals, is refused a
   await expect(page.locator(".react-flow__node")).toHaveCount(4);
   // New parts land in free space: no two nodes overlap.
   const boxes = await page.locator(".react-flow__node").evaluateAll((els) => els.map((e) => e.getBoundingClientRect().toJSON() as DOMRect));
-  for (const [i, a] of boxes.entries()) for (const b of boxes.slice(i + 1)) expect(a.right <= b.left || b.right <= a.left || a.bottom <= b.top || b.bottom <= a.top).toBe(true);
+  for (const [i, a] of boxes.entries())
+    for (const b of boxes.slice(i + 1)) expect(a.right <= b.left || b.right <= a.left || a.bottom <= b.top || b.bottom <= a.top).toBe(true);
 
   await clickWire(page, "B1.+", "K1.1");
   await clickWire(page, "K1.2", "K2.1");
@@ -138,7 +151,9 @@ test("an engineer builds a two-contact chain by clicking terminals, is refused a
   // A refused wire says why.
   await handle(page, "K1.1").click();
   await handle(page, "K1.2").click();
-  await expect(page.getByTestId("canvas-note")).toHaveText(/No wire from K1\.1 to K1\.2: a wire across one component's own terminals is not allowed\./);
+  await expect(page.getByTestId("canvas-note")).toHaveText(
+    /No wire from K1\.1 to K1\.2: a wire across one component's own terminals is not allowed\./,
+  );
 
   await setContact(page, "K1", "park", "off");
   await setContact(page, "K2", "seat", "occupied");
@@ -223,7 +238,9 @@ test("the editor gets the window; wires name their ends; terminals stay 24 px at
   await expect(page.locator(".react-flow__edge")).toHaveCount(before + 1);
 });
 
-test("shortcuts work after a click on empty canvas: select all, copy, paste, undo, delete; 'Add in series' right after an id change", async ({ page }) => {
+test("shortcuts work after a click on empty canvas: select all, copy, paste, undo, delete; 'Add in series' right after an id change", async ({
+  page,
+}) => {
   await signIn(page, "engineer");
   const id = await designWith(page, `Tow tug T-4 keys ${Date.now()}`, towTug(["power-on"]));
   await open(page, id);
@@ -265,7 +282,11 @@ test("a 5,000-character message wraps instead of widening the page", async ({ pa
   await open(page, id);
   const long = "x".repeat(5000);
   await page.route(`**/api/v1/designs/${id}/revisions`, (route) =>
-    route.fulfill({ status: 500, contentType: "application/json", body: JSON.stringify({ error: { code: "internal", message: long, fields: [] } }) }),
+    route.fulfill({
+      status: 500,
+      contentType: "application/json",
+      body: JSON.stringify({ error: { code: "internal", message: long, fields: [] } }),
+    }),
   );
   await page.getByRole("button", { name: "Save revision" }).click();
   await expect(page.getByTestId("editor-banner")).toContainText("xxxxxxxx");

@@ -19,10 +19,15 @@ async function setTest(card: Locator, path: string, cond: string, states: string
   for (const s of states) await test_.getByRole("button", { name: s, exact: true }).click();
 }
 
-test("an engineer adds a 'Must drive when' rule through the picker, sees it fail, completes it until it holds, and saves", async ({ page }) => {
+test("an engineer adds a 'Must drive when' rule through the picker, sees it fail, completes it until it holds, and saves", async ({
+  page,
+}) => {
   test.setTimeout(150_000);
   await signIn(page, "engineer");
-  const made = await page.request.post(`/api/v1/designs?workspace=${WS}`, { data: { name: `Haybarn must-drive ${Date.now()}`, start: "haybarn" }, headers: { origin: APP_ORIGIN } });
+  const made = await page.request.post(`/api/v1/designs?workspace=${WS}`, {
+    data: { name: `Haybarn must-drive ${Date.now()}`, start: "haybarn" },
+    headers: { origin: APP_ORIGIN },
+  });
   expect(made.status()).toBe(201);
   const id = ((await made.json()) as { design: { id: string } }).design.id;
   await page.goto(`/w/${WS}/designs/${id}/edit`);
@@ -77,7 +82,9 @@ test("an engineer adds a 'Must drive when' rule through the picker, sees it fail
 
   // The saved revision holds the rule as built, and the server's verdict says it holds.
   const rev = await page.request.get(`/api/v1/designs/${id}/revisions/1`, { headers: { origin: APP_ORIGIN } });
-  const { revision } = (await rev.json()) as { revision: { document: { rules: Array<Record<string, unknown>> }; verdict: { ok: boolean; rules: Array<Record<string, unknown>> } } };
+  const { revision } = (await rev.json()) as {
+    revision: { document: { rules: Array<Record<string, unknown>> }; verdict: { ok: boolean; rules: Array<Record<string, unknown>> } };
+  };
   expect(revision.document.rules.at(-1)).toMatchObject({
     id: "D1",
     type: "require-drive",

@@ -51,12 +51,20 @@ async function height(l: Locator): Promise<number> {
   return box!.height;
 }
 
-test("why won't it drive on a phone: the verdict follows the readings, bars stay small, text and taps are large, the diagram fits", async ({ page }) => {
+test("why won't it drive on a phone: the verdict follows the readings, bars stay small, text and taps are large, the diagram fits", async ({
+  page,
+}) => {
   await signIn(page, "technician");
   await openHauler(page);
   await page.getByRole("link", { name: "Why won't it drive?" }).click();
   const condition = (id: string) => page.locator(`fieldset[data-condition="${id}"]`);
-  for (const [id, state] of [["key", "on"], ["park", "released"], ["seat", "occupied"], ["lever", "forward"], ["pedal", "down"]] as const) {
+  for (const [id, state] of [
+    ["key", "on"],
+    ["park", "released"],
+    ["seat", "occupied"],
+    ["lever", "forward"],
+    ["pedal", "down"],
+  ] as const) {
     await condition(id).getByRole("button", { name: state, exact: true }).tap();
   }
   await page.getByRole("checkbox", { name: /Follow my taps in order/ }).uncheck();
@@ -82,7 +90,12 @@ test("why won't it drive on a phone: the verdict follows the readings, bars stay
   // Text of the checklist and the readings is 16 px or more.
   await condition("seat").getByRole("button", { name: "empty", exact: true }).tap();
   await page.getByRole("button", { name: "EN not measured" }).tap();
-  for (const part of [page.getByTestId("blocker").first(), page.locator('fieldset[data-input="EN"]'), page.getByTestId("restore"), verdict]) {
+  for (const part of [
+    page.getByTestId("blocker").first(),
+    page.locator('fieldset[data-input="EN"]'),
+    page.getByTestId("restore"),
+    verdict,
+  ]) {
     const min = await smallestText(part);
     expect(min.size, `"${min.text}"`).toBeGreaterThanOrEqual(16);
   }

@@ -18,7 +18,9 @@ test("the printed truth table keeps every column within the page", async ({ page
   // screen's pinned "rules in this row" column repeats the rule columns and is not printed.
   const headings = () =>
     page.$$eval("table[data-testid=truth-table] thead", (heads) =>
-      heads.map((h) => [...h.querySelectorAll("th[data-col]")].map((th) => th.getAttribute("data-col")!).filter((t) => t !== "rules-summary")),
+      heads.map((h) =>
+        [...h.querySelectorAll("th[data-col]")].map((th) => th.getAttribute("data-col")!).filter((t) => t !== "rules-summary"),
+      ),
     );
 
   // The screen's table: all columns in one.

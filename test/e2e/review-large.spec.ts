@@ -7,7 +7,10 @@ import { compileDesign, prove } from "../../app/engine";
 
 const SHOTS = ".data/test-results/screens";
 
-test("a reviewer reads why a rule holds on a 98,304-row revision, records each fault's disposition, then approves", async ({ page, browser }) => {
+test("a reviewer reads why a rule holds on a 98,304-row revision, records each fault's disposition, then approves", async ({
+  page,
+  browser,
+}) => {
   test.setTimeout(300_000);
   const design = accessoryHauler();
   const verdict = prove(compileDesign(design));
@@ -16,13 +19,22 @@ test("a reviewer reads why a rule holds on a 98,304-row revision, records each f
   // The engineer saves the revision through the API.
   await signIn(page, "engineer");
   const headers = { origin: APP_ORIGIN };
-  const made = await page.request.post("/api/v1/designs?workspace=larkspur", { data: { name: `Accessory hauler ${Date.now()}`, start: "blank" }, headers });
+  const made = await page.request.post("/api/v1/designs?workspace=larkspur", {
+    data: { name: `Accessory hauler ${Date.now()}`, start: "blank" },
+    headers,
+  });
   expect(made.status()).toBe(201);
   const designId = (await made.json()).design.id as string;
-  const saved = await page.request.post(`/api/v1/designs/${designId}/revisions`, { data: { document: design, baseRevision: 0, message: "accessories on the enable line" }, headers });
+  const saved = await page.request.post(`/api/v1/designs/${designId}/revisions`, {
+    data: { document: design, baseRevision: 0, message: "accessories on the enable line" },
+    headers,
+  });
   expect(saved.status()).toBe(201);
 
-  const context = await browser.newContext({ extraHTTPHeaders: { "x-forwarded-for": "198.19.201.12" }, viewport: { width: 1280, height: 900 } });
+  const context = await browser.newContext({
+    extraHTTPHeaders: { "x-forwarded-for": "198.19.201.12" },
+    viewport: { width: 1280, height: 900 },
+  });
   const reviewer = await context.newPage();
   await signIn(reviewer, "reviewer");
   const review = `/w/larkspur/designs/${designId}/revisions/1/review`;
@@ -48,7 +60,9 @@ test("a reviewer reads why a rule holds on a 98,304-row revision, records each f
   const firstGroup = why.locator('[data-reason="disabled"]').getByTestId("row-group").first();
   const groupRows = Number((await firstGroup.getByRole("link").innerText()).replace(/[^0-9]/g, ""));
   await firstGroup.getByRole("link").click();
-  await expect(reviewer.getByTestId("match-count")).toHaveText(new RegExp(`^${groupRows.toLocaleString("en-US")} of 98,304 rows match`), { timeout: 30_000 });
+  await expect(reviewer.getByTestId("match-count")).toHaveText(new RegExp(`^${groupRows.toLocaleString("en-US")} of 98,304 rows match`), {
+    timeout: 30_000,
+  });
   await reviewer.screenshot({ path: `${SHOTS}/large-table-group.png` });
   await reviewer.goto(review);
 

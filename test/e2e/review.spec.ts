@@ -51,7 +51,10 @@ async function openMailLink(page: Page, subject: string) {
   await mail.getByRole("link").first().click();
 }
 
-test("request review, comment on a row, request changes, revise, approve, and read the signature in the report", async ({ page, browser }) => {
+test("request review, comment on a row, request changes, revise, approve, and read the signature in the report", async ({
+  page,
+  browser,
+}) => {
   test.setTimeout(150_000); // seven dispositions are recorded through the page before approval
   const name = `Hauler review ${Date.now()}`;
   await signIn(page, "engineer");
@@ -60,7 +63,10 @@ test("request review, comment on a row, request changes, revise, approve, and re
   const made = await page.request.post("/api/v1/designs?workspace=larkspur", { data: { name, start: "blank" }, headers });
   expect(made.status()).toBe(201);
   const designId = (await made.json()).design.id as string;
-  const r1 = await page.request.post(`/api/v1/designs/${designId}/revisions`, { data: { document: PROVEN, baseRevision: 0, message: "first wiring" }, headers });
+  const r1 = await page.request.post(`/api/v1/designs/${designId}/revisions`, {
+    data: { document: PROVEN, baseRevision: 0, message: "first wiring" },
+    headers,
+  });
   expect(r1.status()).toBe(201);
 
   // The engineer asks the demo reviewer.
@@ -80,7 +86,10 @@ test("request review, comment on a row, request changes, revise, approve, and re
   await reviewer.getByRole("button", { name: "Row 157: open its diagnosis" }).click();
   const drawer = reviewer.getByTestId("row-drawer");
   await expect(drawer).toContainText("Steady drive");
-  await expect(drawer.getByRole("link", { name: "Simulate this row on the canvas" })).toHaveAttribute("href", new RegExp(`/edit\\?revision=1&row=157$`));
+  await expect(drawer.getByRole("link", { name: "Simulate this row on the canvas" })).toHaveAttribute(
+    "href",
+    new RegExp(`/edit\\?revision=1&row=157$`),
+  );
   await drawer.getByRole("link", { name: "Comment on this row" }).click();
   const commentForm = reviewer.getByRole("form", { name: "Add a comment" });
   await expect(commentForm.getByLabel("Anchor")).toHaveValue("row");
@@ -103,7 +112,10 @@ test("request review, comment on a row, request changes, revise, approve, and re
   const changed = structuredClone(PROVEN);
   const lf = changed.components.find((c) => c.id === "LF")!;
   lf.label = "Direction lever, forward contact (blue)";
-  const r2 = await page.request.post(`/api/v1/designs/${designId}/revisions`, { data: { document: changed, baseRevision: 1, message: "labelled lever contacts" }, headers });
+  const r2 = await page.request.post(`/api/v1/designs/${designId}/revisions`, {
+    data: { document: changed, baseRevision: 1, message: "labelled lever contacts" },
+    headers,
+  });
   expect(r2.status()).toBe(201);
   await requestReview(page, designId, 2);
 

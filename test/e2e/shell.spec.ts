@@ -69,7 +69,13 @@ test("a forgotten password is reset through the mailed link", async ({ page }) =
   await page.getByRole("button", { name: "Send the link" }).click();
   await expect(page.getByText("a reset link is on its way")).toBeVisible();
   await page.goto("/outbox");
-  await page.getByTestId("mail").filter({ hasText: "Reset your Chainproof password" }).filter({ hasText: email }).first().getByRole("link").click();
+  await page
+    .getByTestId("mail")
+    .filter({ hasText: "Reset your Chainproof password" })
+    .filter({ hasText: email })
+    .first()
+    .getByRole("link")
+    .click();
   await expect(page.getByRole("heading", { name: "Choose a new password" })).toBeVisible();
   await page.getByLabel("New password").fill("second-password-2");
   await page.getByRole("button", { name: "Save the new password" }).click();
@@ -114,6 +120,11 @@ test("a missing page inside a workspace keeps the workspace navigation", async (
   expect(editor?.status()).toBe(404);
   await expect(page.getByText("This design has no revision 999.")).toBeVisible();
   await expect(page.getByRole("link", { name: "Back to the design" })).toBeVisible();
-  await page.getByRole("navigation", { name: "Sections" }).filter({ visible: true }).first().getByRole("link", { name: "Vehicles" }).click();
+  await page
+    .getByRole("navigation", { name: "Sections" })
+    .filter({ visible: true })
+    .first()
+    .getByRole("link", { name: "Vehicles" })
+    .click();
   await expect(page.getByRole("heading", { name: "Vehicles" })).toBeVisible();
 });

@@ -40,7 +40,10 @@ test("the seat contact is named when the seat is empty, and a live enable points
   await expect(seat).toContainText("Seat switch");
   await expect(seat).toContainText("closes when Driver seat is occupied");
   await expect(seat).toContainText("SEAT.1");
-  await expect(page.locator('[data-testid="wiring-diagram"][data-layout="stacked"] [data-contact="SEAT"]')).toHaveAttribute("data-ring", "check");
+  await expect(page.locator('[data-testid="wiring-diagram"][data-layout="stacked"] [data-contact="SEAT"]')).toHaveAttribute(
+    "data-ring",
+    "check",
+  );
   // The advice is a change of conditions the technician can make, not a set of contacts.
   await expect(page.getByTestId("restore")).toContainText("Set Driver seat from empty to occupied.");
 

@@ -7,19 +7,31 @@ import { accessoryHauler } from "../support/accessory-hauler";
 
 const SHOTS = ".data/test-results/screens";
 
-test("a reviewer jumps to a row, reads its number, and keeps the drive and rules in view while scrolling sideways", async ({ page, browser }) => {
+test("a reviewer jumps to a row, reads its number, and keeps the drive and rules in view while scrolling sideways", async ({
+  page,
+  browser,
+}) => {
   test.setTimeout(180_000);
   const design = accessoryHauler();
   await signIn(page, "engineer");
   const headers = { origin: APP_ORIGIN };
-  const made = await page.request.post("/api/v1/designs?workspace=larkspur", { data: { name: `Table reading ${Date.now()}`, start: "blank" }, headers });
+  const made = await page.request.post("/api/v1/designs?workspace=larkspur", {
+    data: { name: `Table reading ${Date.now()}`, start: "blank" },
+    headers,
+  });
   expect(made.status()).toBe(201);
   const designId = (await made.json()).design.id as string;
-  const saved = await page.request.post(`/api/v1/designs/${designId}/revisions`, { data: { document: design, baseRevision: 0, message: "for the table" }, headers });
+  const saved = await page.request.post(`/api/v1/designs/${designId}/revisions`, {
+    data: { document: design, baseRevision: 0, message: "for the table" },
+    headers,
+  });
   expect(saved.status()).toBe(201);
 
   // A laptop-sized window: the table is far wider than its box.
-  const context = await browser.newContext({ extraHTTPHeaders: { "x-forwarded-for": "198.19.201.13" }, viewport: { width: 1100, height: 800 } });
+  const context = await browser.newContext({
+    extraHTTPHeaders: { "x-forwarded-for": "198.19.201.13" },
+    viewport: { width: 1100, height: 800 },
+  });
   const reviewer = await context.newPage();
   await signIn(reviewer, "reviewer");
   await reviewer.goto(`/w/larkspur/designs/${designId}/revisions/1/table`);
@@ -60,7 +72,13 @@ test("a reviewer jumps to a row, reads its number, and keeps the drive and rules
     }, selector);
   for (const at of [0.5, 0]) {
     await scroller.evaluate((el, f) => (el.scrollLeft = (el.scrollWidth - el.clientWidth) * f), at);
-    for (const sel of ['tr[data-row="50123"] th', "thead th:first-child", 'th[data-col="drive"]', 'th[data-col="rules-summary"]', 'tr[data-row="50123"] [data-testid="rules-summary"]']) {
+    for (const sel of [
+      'tr[data-row="50123"] th',
+      "thead th:first-child",
+      'th[data-col="drive"]',
+      'th[data-col="rules-summary"]',
+      'tr[data-row="50123"] [data-testid="rules-summary"]',
+    ]) {
       const seen = await onTop(sel);
       expect(seen, `${sel} at ${at}`).toEqual({ inBox: true, hitsItself: true, alpha: 1 });
     }

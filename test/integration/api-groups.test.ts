@@ -11,7 +11,12 @@ let reviewer: Client, outsider: Client;
 let base: string;
 let rules: Array<{ id: string; type: string; forbid?: unknown }>;
 let contacts: string[];
-let verdict: { rows: number; driveRows: number; rules: Array<{ id: string; unsafeRows?: number; violatingRows?: number }>; singleFaults: Array<{ component: string; mode: string }> };
+let verdict: {
+  rows: number;
+  driveRows: number;
+  rules: Array<{ id: string; unsafeRows?: number; violatingRows?: number }>;
+  singleFaults: Array<{ component: string; mode: string }>;
+};
 
 beforeAll(async () => {
   reviewer = await signIn(DEMO.reviewer);
@@ -21,7 +26,9 @@ beforeAll(async () => {
   };
   const hauler = list.designs.find((d) => d.name.startsWith("Haybarn") && d.latestRevision)!;
   base = `/api/v1/designs/${hauler.id}/revisions/${hauler.latestRevision!.number}`;
-  const rev = (await (await reviewer.fetch(base)).json()) as { revision: { document: { rules: typeof rules; components: Array<{ id: string; type: string }> }; verdict: typeof verdict } };
+  const rev = (await (await reviewer.fetch(base)).json()) as {
+    revision: { document: { rules: typeof rules; components: Array<{ id: string; type: string }> }; verdict: typeof verdict };
+  };
   rules = rev.revision.document.rules;
   contacts = rev.revision.document.components.filter((c) => c.type === "contact").map((c) => c.id);
   verdict = rev.revision.verdict;
@@ -52,7 +59,9 @@ describe("GET …/groups", () => {
 
   it("gives at most limit groups and says how many there are", async () => {
     const all = (await (await reviewer.fetch(`${base}/groups?set=unsafe:${encodeURIComponent(rules[0].id)}`)).json()) as GroupsDocument;
-    const one = (await (await reviewer.fetch(`${base}/groups?set=unsafe:${encodeURIComponent(rules[0].id)}&limit=1`)).json()) as GroupsDocument;
+    const one = (await (
+      await reviewer.fetch(`${base}/groups?set=unsafe:${encodeURIComponent(rules[0].id)}&limit=1`)
+    ).json()) as GroupsDocument;
     expect(one.groupCount).toBe(all.groupCount);
     expect(one.groups).toEqual(all.groups.slice(0, 1));
   });

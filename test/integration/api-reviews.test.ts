@@ -9,7 +9,9 @@ import { createOutsider } from "../support/outsider";
 import type { Design } from "../../app/engine";
 
 const WS = "larkspur";
-const PROVEN = JSON.parse(readFileSync(new URL("../../drizzle/demo-designs/haybarn-campus-hauler.json", import.meta.url), "utf8")) as Design;
+const PROVEN = JSON.parse(
+  readFileSync(new URL("../../drizzle/demo-designs/haybarn-campus-hauler.json", import.meta.url), "utf8"),
+) as Design;
 
 type Item = {
   requestId: string;
@@ -30,7 +32,10 @@ let reviewerId: string;
 const created: string[] = [];
 let waitingId: string, decidedId: string;
 
-async function inbox(c: Client, query = `workspace=${WS}`): Promise<{ status: number; body: Inbox & { error?: { code: string; fields: Array<{ path: string }> } } }> {
+async function inbox(
+  c: Client,
+  query = `workspace=${WS}`,
+): Promise<{ status: number; body: Inbox & { error?: { code: string; fields: Array<{ path: string }> } } }> {
   const res = await c.fetch(`/api/v1/reviews?${query}`);
   expect(res.headers.get("content-type")).toContain("application/json");
   return { status: res.status, body: await res.json() };
@@ -60,7 +65,10 @@ async function designWithRequest(name: string, note: string): Promise<string> {
     headers: { "content-type": "application/json" },
   });
   expect(saved.status).toBe(201);
-  const asked = await engineer.fetch(`/w/${WS}/designs/${id}/revisions/1/review`, formBody({ intent: "request", reviewers: reviewerId, note }));
+  const asked = await engineer.fetch(
+    `/w/${WS}/designs/${id}/revisions/1/review`,
+    formBody({ intent: "request", reviewers: reviewerId, note }),
+  );
   expect(asked.status).toBe(200);
   return id;
 }
@@ -138,7 +146,11 @@ describe("GET /api/v1/reviews", () => {
     const bad = await inbox(reviewer, "");
     expect(bad.status).toBe(400);
     expect(bad.body.error?.fields.map((f) => f.path)).toEqual(["workspace"]);
-    const post = await reviewer.fetch(`/api/v1/reviews?workspace=${WS}`, { method: "POST", body: "{}", headers: { "content-type": "application/json" } });
+    const post = await reviewer.fetch(`/api/v1/reviews?workspace=${WS}`, {
+      method: "POST",
+      body: "{}",
+      headers: { "content-type": "application/json" },
+    });
     expect(post.status).toBe(405);
   });
 });

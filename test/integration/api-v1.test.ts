@@ -60,14 +60,20 @@ async function expectEveryItemOnce(c: Client, url: string, key: string) {
 }
 
 beforeAll(async () => {
-  [admin, engineer, technician, reviewer] = await Promise.all([signIn(DEMO.admin), signIn(DEMO.engineer), signIn(DEMO.technician), signIn(DEMO.reviewer)]);
+  [admin, engineer, technician, reviewer] = await Promise.all([
+    signIn(DEMO.admin),
+    signIn(DEMO.engineer),
+    signIn(DEMO.technician),
+    signIn(DEMO.reviewer),
+  ]);
   const o = await createOutsider();
   outsider = o.client;
   outsiderSlug = o.slug;
   const list = await getJson(engineer, "/api/v1/vehicles?workspace=larkspur&limit=100");
   haulerId = list.body.vehicles.find((v: { name: string }) => v.name === "Haybarn campus hauler #3").id;
   // Enough runs on the hauler to page through.
-  for (let i = 0; i < 3; i++) expect((await technician.fetch(`/api/v1/vehicles/${haulerId}/bench-runs`, { method: "POST" })).status).toBe(201);
+  for (let i = 0; i < 3; i++)
+    expect((await technician.fetch(`/api/v1/vehicles/${haulerId}/bench-runs`, { method: "POST" })).status).toBe(201);
 });
 
 describe("the OpenAPI document", () => {
@@ -101,11 +107,15 @@ describe("the OpenAPI document", () => {
   it("names both ways in, the error shape, and the main answers", () => {
     expect(doc.components.securitySchemes.apiKey).toMatchObject({ type: "http", scheme: "bearer" });
     expect(doc.components.securitySchemes.session).toMatchObject({ type: "apiKey", in: "cookie" });
-    expect(Object.keys(doc.components.schemas)).toEqual(expect.arrayContaining(["Error", "Verdict", "DesignSummary", "Vehicle", "BenchRun", "Diagnosis"]));
+    expect(Object.keys(doc.components.schemas)).toEqual(
+      expect.arrayContaining(["Error", "Verdict", "DesignSummary", "Vehicle", "BenchRun", "Diagnosis"]),
+    );
     // The request bodies are the routes' own zod schemas: the vehicle form's 120-character name limit shows.
     const body = doc.paths["/api/v1/vehicles"].post.requestBody.content["application/json"].schema;
     expect(body.properties.name.maxLength).toBe(120);
-    expect(doc.paths["/api/v1/bench-runs/{runId}/steps/{n}"].put.requestBody.content["application/json"].schema.properties.status.enum).toEqual(["pass", "fail", "skip"]);
+    expect(
+      doc.paths["/api/v1/bench-runs/{runId}/steps/{n}"].put.requestBody.content["application/json"].schema.properties.status.enum,
+    ).toEqual(["pass", "fail", "skip"]);
   });
 
   it("is rendered at /api/v1/docs for anyone", async () => {
@@ -195,19 +205,28 @@ describe("bench runs", () => {
   });
 
   it("starts only for technicians", async () => {
-    for (const c of [admin, engineer, reviewer]) expect((await c.fetch(`/api/v1/vehicles/${haulerId}/bench-runs`, { method: "POST" })).status).toBe(403);
+    for (const c of [admin, engineer, reviewer])
+      expect((await c.fetch(`/api/v1/vehicles/${haulerId}/bench-runs`, { method: "POST" })).status).toBe(403);
     expect((await outsider.fetch(`/api/v1/vehicles/${haulerId}/bench-runs`, { method: "POST" })).status).toBe(404);
   });
 
   it("records a step's result with its note, for technicians only", async () => {
-    const res = await technician.fetch(`/api/v1/bench-runs/${runId}/steps/1`, json("PUT", { status: "pass", note: "Drive ran as expected." }));
+    const res = await technician.fetch(
+      `/api/v1/bench-runs/${runId}/steps/1`,
+      json("PUT", { status: "pass", note: "Drive ran as expected." }),
+    );
     expect(res.status).toBe(200);
     const body = (await res.json()) as any;
     expect(body.step).toMatchObject({ n: 1, status: "pass", note: "Drive ran as expected." });
     expect(body.mailed).toBe(false);
     const run = await getJson(reviewer, `/api/v1/bench-runs/${runId}`);
     expect(run.status).toBe(200);
-    expect(run.body.run.steps[0]).toMatchObject({ n: 1, status: "pass", note: "Drive ran as expected.", updatedBy: { name: expect.any(String) } });
+    expect(run.body.run.steps[0]).toMatchObject({
+      n: 1,
+      status: "pass",
+      note: "Drive ran as expected.",
+      updatedBy: { name: expect.any(String) },
+    });
     expect(run.body.run.steps[1].status).toBeNull();
 
     expect((await engineer.fetch(`/api/v1/bench-runs/${runId}/steps/2`, json("PUT", { status: "skip" }))).status).toBe(403);
@@ -248,7 +267,9 @@ describe("design lists in pages", () => {
     expect(whole.body.nextCursor).toBeNull();
     await expectEveryItemOnce(engineer, "/api/v1/designs?workspace=larkspur", "designs");
     const paged = await getJson(engineer, "/api/v1/designs?workspace=larkspur&limit=100");
-    expect([...paged.body.designs.map((d: { id: string }) => d.id)].sort()).toEqual([...whole.body.designs.map((d: { id: string }) => d.id)].sort());
+    expect([...paged.body.designs.map((d: { id: string }) => d.id)].sort()).toEqual(
+      [...whole.body.designs.map((d: { id: string }) => d.id)].sort(),
+    );
   });
 
   it("pages revisions newest first", async () => {
@@ -263,7 +284,9 @@ describe("design lists in pages", () => {
 describe("diagnosis", () => {
   it("agrees with the engine's diagnose and explainReadings for a demo row", async () => {
     const designs = await getJson(technician, "/api/v1/designs?workspace=larkspur");
-    const hauler = designs.body.designs.find((d: { name: string; latestRevision: unknown }) => d.name.startsWith("Haybarn") && d.latestRevision);
+    const hauler = designs.body.designs.find(
+      (d: { name: string; latestRevision: unknown }) => d.name.startsWith("Haybarn") && d.latestRevision,
+    );
     const n = hauler.latestRevision.number;
     const rev = await getJson(technician, `/api/v1/designs/${hauler.id}/revisions/${n}`);
     const valid = validateDesign(rev.body.revision.document);

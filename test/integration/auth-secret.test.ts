@@ -62,7 +62,13 @@ describe("e-mail tokens signed with the once-public secret", () => {
 /** Starts the production server with `secret` (or none) and returns its exit code and output. */
 function startWith(secret: string | undefined) {
   const port = Number(new URL(BASE_URL).port) + 91;
-  const env: NodeJS.ProcessEnv = { ...process.env, PORT: String(port), APP_URL: `http://127.0.0.1:${port}`, WEB_CONCURRENCY: "1", NODE_ENV: "production" };
+  const env: NodeJS.ProcessEnv = {
+    ...process.env,
+    PORT: String(port),
+    APP_URL: `http://127.0.0.1:${port}`,
+    WEB_CONCURRENCY: "1",
+    NODE_ENV: "production",
+  };
   delete env.AUTH_SECRET;
   if (secret !== undefined) env.AUTH_SECRET = secret;
   const child = spawn(process.execPath, ["--import", "tsx", "scripts/serve.ts"], { env, stdio: ["ignore", "pipe", "pipe"] });

@@ -9,7 +9,9 @@ async function latestMailTo(address: string): Promise<string> {
   await db.connect();
   try {
     for (let i = 0; i < 40; i++) {
-      const r = await db.query("SELECT text_body FROM mail_message WHERE recipients LIKE $1 ORDER BY received_at DESC LIMIT 1", [`%${address}%`]);
+      const r = await db.query("SELECT text_body FROM mail_message WHERE recipients LIKE $1 ORDER BY received_at DESC LIMIT 1", [
+        `%${address}%`,
+      ]);
       if (r.rows[0]) return r.rows[0].text_body as string;
       await new Promise((res) => setTimeout(res, 100));
     }
@@ -110,7 +112,9 @@ describe("invitations", () => {
     expect(accepted.headers.get("location")).toBe("/w/larkspur");
     expect((await outsider.client.fetch("/w/larkspur")).status).toBe(200);
     // A reviewer may not invite.
-    expect((await outsider.client.fetch("/w/larkspur/settings", formBody({ intent: "invite", email: "a@b.co", role: "admin" }))).status).toBe(403);
+    expect(
+      (await outsider.client.fetch("/w/larkspur/settings", formBody({ intent: "invite", email: "a@b.co", role: "admin" }))).status,
+    ).toBe(403);
     // The link works once.
     const again = await outsider.client.fetch(path, { method: "POST" });
     expect(again.status).toBe(400);

@@ -16,7 +16,11 @@ let admin: Client;
 let workspaceId: string;
 let approvedRevisionId: string;
 
-const json = (method: string, body: unknown): RequestInit => ({ method, body: JSON.stringify(body), headers: { "content-type": "application/json" } });
+const json = (method: string, body: unknown): RequestInit => ({
+  method,
+  body: JSON.stringify(body),
+  headers: { "content-type": "application/json" },
+});
 const pagePath = (vehicleId: string) => `/w/larkspur/vehicles/${vehicleId}/controller`;
 
 /** The Haybarn revision's lockouts, all four, on a pack that fits: a record that agrees with it. */
@@ -53,7 +57,12 @@ beforeAll(async () => {
       [workspaceId],
     )
   ).rows[0].id;
-  [engineer, technician, reviewer, admin] = await Promise.all([signIn(DEMO.engineer), signIn(DEMO.technician), signIn(DEMO.reviewer), signIn(DEMO.admin)]);
+  [engineer, technician, reviewer, admin] = await Promise.all([
+    signIn(DEMO.engineer),
+    signIn(DEMO.technician),
+    signIn(DEMO.reviewer),
+    signIn(DEMO.admin),
+  ]);
 });
 
 afterAll(async () => {
@@ -75,7 +84,10 @@ describe("recording versions on the vehicle's page", () => {
     expect(rows.map((r) => emailOf.get(r.recorded_by))).toEqual([DEMO.technician, DEMO.engineer]);
     expect(rows[0].document.settings.throttle.restV).toBe(0.85);
     expect(rows[1].document.settings.throttle.restV).toBe(0.8);
-    const audit = await db.query("SELECT detail FROM audit_event WHERE action = 'vehicle.controller-recorded' AND detail->>'vehicleId' = $1 ORDER BY at", [id]);
+    const audit = await db.query(
+      "SELECT detail FROM audit_event WHERE action = 'vehicle.controller-recorded' AND detail->>'vehicleId' = $1 ORDER BY at",
+      [id],
+    );
     expect(audit.rows.map((r) => r.detail.version)).toEqual([1, 2]);
     // The page compares the two versions in words.
     const page = await reviewer.fetch(`${pagePath(id)}?from=1&to=2`);
@@ -98,7 +110,11 @@ describe("recording versions on the vehicle's page", () => {
 
   it.each([
     ["a rest voltage above full", { "settings.throttle.restV": "4.3" }, "the reading at rest must be below the reading fully applied"],
-    ["thresholds out of order", { "settings.throttle.faultBelowV": "1.05" }, "the low fault threshold must be below the released threshold"],
+    [
+      "thresholds out of order",
+      { "settings.throttle.faultBelowV": "1.05" },
+      "the low fault threshold must be below the released threshold",
+    ],
     ["a negative capacity", { "pack.capacityAh": "-100" }, "must be above 0"],
     ["an unknown chemistry", { "pack.chemistry": "nickel-zinc" }, "must be one of lifepo4, nmc, lto, lead-acid"],
     ["a percentage over 100", { "settings.motorCurrentPercent": "101" }, "must be from 0 to 100 %"],
@@ -114,7 +130,9 @@ describe("recording versions on the vehicle's page", () => {
     // The error sits under its field (the page writes messages as sentences).
     const [field] = Object.keys(change);
     const fieldId = `cr-${field.replace(/[^A-Za-z0-9-]/g, "-")}-error`;
-    expect(html).toMatch(new RegExp(`id="${fieldId}"[^>]*>${message.charAt(0).toUpperCase()}${message.slice(1).replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}`));
+    expect(html).toMatch(
+      new RegExp(`id="${fieldId}"[^>]*>${message.charAt(0).toUpperCase()}${message.slice(1).replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}`),
+    );
     expect((await versions(id)).length).toBe(0);
   });
 
@@ -134,7 +152,10 @@ describe("the released proof against the record", () => {
     vehicleId = await newVehicle("Proof cart");
     vehicleName = (await db.query("SELECT name FROM vehicle WHERE id = $1", [vehicleId])).rows[0].name;
     // No record yet: the release asks for no reason.
-    const release = await engineer.fetch(`/w/larkspur/vehicles/${vehicleId}`, formBody({ intent: "release", revisionId: approvedRevisionId, note: "first" }));
+    const release = await engineer.fetch(
+      `/w/larkspur/vehicles/${vehicleId}`,
+      formBody({ intent: "release", revisionId: approvedRevisionId, note: "first" }),
+    );
     expect(release.status).toBe(200);
   });
 
@@ -143,26 +164,44 @@ describe("the released proof against the record", () => {
     const dropped = withValue(agreeing(), "settings.lockouts", ["power-on", "enable-restore", "direction-engage"]);
     expect((await technician.fetch(pagePath(vehicleId), form(dropped, 0))).status).toBe(302);
     const difference = "The proof assumes the brake-release lockout";
-    for (const path of ["/w/larkspur/vehicles", `/w/larkspur/vehicles/${vehicleId}`, `/w/larkspur/vehicles/${vehicleId}/why`, "/w/larkspur", pagePath(vehicleId)]) {
+    for (const path of [
+      "/w/larkspur/vehicles",
+      `/w/larkspur/vehicles/${vehicleId}`,
+      `/w/larkspur/vehicles/${vehicleId}/why`,
+      "/w/larkspur",
+      pagePath(vehicleId),
+    ]) {
       const html = await (await reviewer.fetch(path)).text();
       expect(html, path).toContain(PROOF_DOES_NOT_HOLD.replace("'", "&#x27;"));
       expect(html, path).toContain(difference);
     }
     // The record is what was entered, not what the controller holds: the page says so.
-    expect(await (await technician.fetch(pagePath(vehicleId))).text()).toContain("This record is what a technician entered, not what the controller holds");
+    expect(await (await technician.fetch(pagePath(vehicleId))).text()).toContain(
+      "This record is what a technician entered, not what the controller holds",
+    );
   });
 
   it("a release over the contradicting record needs a reason, and the audit keeps it with the findings", async () => {
-    const refused = await engineer.fetch(`/w/larkspur/vehicles/${vehicleId}`, formBody({ intent: "release", revisionId: approvedRevisionId, note: "again" }));
+    const refused = await engineer.fetch(
+      `/w/larkspur/vehicles/${vehicleId}`,
+      formBody({ intent: "release", revisionId: approvedRevisionId, note: "again" }),
+    );
     expect(refused.status).toBe(409);
     expect(await refused.text()).toContain("To release revision 1 anyway, give the reason");
     const before = (await db.query("SELECT count(*)::int AS n FROM vehicle_release WHERE vehicle_id = $1", [vehicleId])).rows[0].n;
     const done = await engineer.fetch(
       `/w/larkspur/vehicles/${vehicleId}`,
-      formBody({ intent: "release", revisionId: approvedRevisionId, note: "again", override: "Controller is reprogrammed before the cart leaves the shop" }),
+      formBody({
+        intent: "release",
+        revisionId: approvedRevisionId,
+        note: "again",
+        override: "Controller is reprogrammed before the cart leaves the shop",
+      }),
     );
     expect(done.status).toBe(200);
-    expect((await db.query("SELECT count(*)::int AS n FROM vehicle_release WHERE vehicle_id = $1", [vehicleId])).rows[0].n).toBe(before + 1);
+    expect((await db.query("SELECT count(*)::int AS n FROM vehicle_release WHERE vehicle_id = $1", [vehicleId])).rows[0].n).toBe(
+      before + 1,
+    );
     const audit = await db.query(
       "SELECT detail FROM audit_event WHERE action = 'vehicle.revision-released' AND detail->>'vehicleId' = $1 ORDER BY at DESC LIMIT 1",
       [vehicleId],
@@ -196,7 +235,8 @@ describe("the demo", () => {
 
 describe("the API", () => {
   const recordPath = (vehicleId: string) => `/api/v1/vehicles/${vehicleId}/controller-record`;
-  const put = (c: Client, vehicleId: string, version: number, record: unknown) => c.fetch(recordPath(vehicleId), json("PUT", { version, record }));
+  const put = (c: Client, vehicleId: string, version: number, record: unknown) =>
+    c.fetch(recordPath(vehicleId), json("PUT", { version, record }));
 
   it("round trip: nothing, a first version, its check and the proof against the released revision, an earlier version", async () => {
     const id = await newVehicle("API cart");
@@ -215,7 +255,9 @@ describe("the API", () => {
     expect(body.caution).toContain("not what the controller holds");
 
     // Released revision assumes brake-release; version 2 drops it.
-    expect((await engineer.fetch(`/w/larkspur/vehicles/${id}`, formBody({ intent: "release", revisionId: approvedRevisionId }))).status).toBe(200);
+    expect(
+      (await engineer.fetch(`/w/larkspur/vehicles/${id}`, formBody({ intent: "release", revisionId: approvedRevisionId }))).status,
+    ).toBe(200);
     const dropped = withValue(agreeing(), "settings.lockouts", ["power-on", "enable-restore", "direction-engage"]);
     const second = await put(engineer, id, 1, dropped);
     expect(second.status).toBe(200);
@@ -223,7 +265,9 @@ describe("the API", () => {
     expect(after.versions.map((v: { version: number }) => v.version)).toEqual([2, 1]);
     expect(after.proof).toMatchObject({ state: "does-not-hold", holds: false });
     expect(after.proof.differences).toEqual([expect.stringContaining("brake-release")]);
-    expect(after.record.check.findings).toEqual([expect.objectContaining({ code: "lockout-missing", severity: "error", path: "settings.lockouts" })]);
+    expect(after.record.check.findings).toEqual([
+      expect.objectContaining({ code: "lockout-missing", severity: "error", path: "settings.lockouts" }),
+    ]);
 
     const old = (await (await reviewer.fetch(`${recordPath(id)}?version=1`)).json()) as any;
     expect(old.record.version).toBe(1);
@@ -240,7 +284,10 @@ describe("the API", () => {
     expect(stale.status).toBe(409);
     expect(await stale.json()).toMatchObject({ error: { code: "stale_record" }, currentVersion: 1 });
     expect((await versions(id)).length).toBe(1);
-    const both = await Promise.all([put(technician, id, 1, agreeing()), put(engineer, id, 1, withValue(agreeing(), "pack.capacityAh", 90))]);
+    const both = await Promise.all([
+      put(technician, id, 1, agreeing()),
+      put(engineer, id, 1, withValue(agreeing(), "pack.capacityAh", 90)),
+    ]);
     expect(both.map((r) => r.status).sort()).toEqual([200, 409]);
     expect((await versions(id)).map((r) => r.version)).toEqual([1, 2]);
   });
@@ -315,7 +362,9 @@ describe("the API", () => {
     it("names a bad record's and a bad design's fields", async () => {
       const badRecord = await check(technician, { record: withValue(exampleRecord(), "settings.throttle.faultAboveV", 6) });
       expect(badRecord.status).toBe(400);
-      expect(await badRecord.json()).toMatchObject({ error: { code: "invalid_record", fields: [{ path: "record.settings.throttle.faultAboveV" }] } });
+      expect(await badRecord.json()).toMatchObject({
+        error: { code: "invalid_record", fields: [{ path: "record.settings.throttle.faultAboveV" }] },
+      });
       const badDesign = await check(technician, { record: exampleRecord(), design: { format: "chainproof/design@1" } });
       expect(badDesign.status).toBe(400);
       const body = (await badDesign.json()) as any;

@@ -9,7 +9,9 @@ import { DEMO, formBody, signIn, type Client } from "../support/http";
 import type { Design } from "../../app/engine";
 
 const WS = "larkspur";
-const PROVEN = JSON.parse(readFileSync(new URL("../../drizzle/demo-designs/haybarn-campus-hauler.json", import.meta.url), "utf8")) as Design;
+const PROVEN = JSON.parse(
+  readFileSync(new URL("../../drizzle/demo-designs/haybarn-campus-hauler.json", import.meta.url), "utf8"),
+) as Design;
 let db: pg.Pool;
 let engineer: Client, technician: Client, reviewer: Client, admin: Client;
 let reviewerId: string;
@@ -44,7 +46,12 @@ async function inboxWaiting(c: Client): Promise<number> {
 
 beforeAll(async () => {
   db = new pg.Pool({ connectionString: process.env.DATABASE_URL, max: 2 });
-  [engineer, technician, reviewer, admin] = await Promise.all([signIn(DEMO.engineer), signIn(DEMO.technician), signIn(DEMO.reviewer), signIn(DEMO.admin)]);
+  [engineer, technician, reviewer, admin] = await Promise.all([
+    signIn(DEMO.engineer),
+    signIn(DEMO.technician),
+    signIn(DEMO.reviewer),
+    signIn(DEMO.admin),
+  ]);
   reviewerId = (await db.query<{ id: string }>('SELECT id FROM "user" WHERE email = $1', [DEMO.reviewer])).rows[0]!.id;
 });
 
@@ -61,7 +68,11 @@ describe("reviews waiting and design activity", () => {
     expect(await badgeCount(reviewer)).toBe(before);
 
     const name = `Activity check ${Date.now()}`;
-    const made = await engineer.fetch(`/api/v1/designs?workspace=${WS}`, { method: "POST", body: JSON.stringify({ name, start: "blank" }), headers: { "content-type": "application/json" } });
+    const made = await engineer.fetch(`/api/v1/designs?workspace=${WS}`, {
+      method: "POST",
+      body: JSON.stringify({ name, start: "blank" }),
+      headers: { "content-type": "application/json" },
+    });
     expect(made.status).toBe(201);
     const id = ((await made.json()) as { design: { id: string } }).design.id;
     created.push(id);
@@ -78,8 +89,12 @@ describe("reviews waiting and design activity", () => {
     expect(await badgeCount(reviewer)).toBe(before! + 1);
     expect(await inboxWaiting(reviewer)).toBe(before! + 1);
 
-    expect((await reviewer.fetch(review, formBody({ intent: "comment", anchor: "row", row: "3", body: "Row 3 reads right." }))).status).toBe(200);
-    expect((await reviewer.fetch(review, formBody({ intent: "decide", verdict: "changes-requested", comment: "Label the plug." }))).status).toBe(200);
+    expect(
+      (await reviewer.fetch(review, formBody({ intent: "comment", anchor: "row", row: "3", body: "Row 3 reads right." }))).status,
+    ).toBe(200);
+    expect(
+      (await reviewer.fetch(review, formBody({ intent: "decide", verdict: "changes-requested", comment: "Label the plug." }))).status,
+    ).toBe(200);
     expect(await homeCount(reviewer)).toBe(before);
     expect(await badgeCount(reviewer)).toBe(before);
 
@@ -92,7 +107,12 @@ describe("reviews waiting and design activity", () => {
     // The reviewer reads what happened, in words.
     const { status, html } = await pageText(reviewer, `/w/${WS}/activity`);
     expect(status).toBe(200);
-    const events = [...html.matchAll(/data-testid="design-event"[\s\S]*?<\/li>/g)].map((m) => m[0].replace(/<[^>]+>/g, " ").replace(/\s+/g, " ").replace(/&quot;/g, '"'));
+    const events = [...html.matchAll(/data-testid="design-event"[\s\S]*?<\/li>/g)].map((m) =>
+      m[0]
+        .replace(/<[^>]+>/g, " ")
+        .replace(/\s+/g, " ")
+        .replace(/&quot;/g, '"'),
+    );
     const about = events.filter((e) => e.includes(name));
     expect(about.some((e) => e.includes(`saved revision 1 of “${name}”.`))).toBe(true);
     expect(about.some((e) => e.includes(`asked a reviewer to review “${name} revision 1”.`))).toBe(true);
@@ -100,7 +120,8 @@ describe("reviews waiting and design activity", () => {
     expect(about.some((e) => e.includes(`asked for changes to “${name} revision 1”.`))).toBe(true);
     expect(about.some((e) => e.includes(`created the design “${name}”.`))).toBe(true);
     // No action codes and no member addresses on the page.
-    for (const code of ["design.revision-saved", "review.requested", "review.commented", "review.changes-requested", "design.created"]) expect(html).not.toContain(code);
+    for (const code of ["design.revision-saved", "review.requested", "review.commented", "review.changes-requested", "design.created"])
+      expect(html).not.toContain(code);
     // (the page's own account menu shows the reader's address; nobody else's appears)
     expect(html).not.toContain(DEMO.engineer);
     for (const e of events) expect(e).not.toContain("@");

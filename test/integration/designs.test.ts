@@ -7,7 +7,8 @@ import { client, DEMO, formBody, signIn, type Client } from "../support/http";
 import { createOutsider } from "../support/outsider";
 
 const WS = "larkspur";
-const demo = (file: string) => JSON.parse(readFileSync(new URL(`../../drizzle/demo-designs/${file}`, import.meta.url), "utf8")) as Record<string, unknown>;
+const demo = (file: string) =>
+  JSON.parse(readFileSync(new URL(`../../drizzle/demo-designs/${file}`, import.meta.url), "utf8")) as Record<string, unknown>;
 const PROVEN = demo("haybarn-campus-hauler.json");
 const NO_RESTART_FAILS = demo("meadowline-deck-mower.draft.json");
 const SIDE_STAND_FAILS = demo("scree-trail-bike.draft.json");
@@ -197,13 +198,37 @@ describe("malformed requests", () => {
       { name: "no base", body: JSON.stringify({ document: PROVEN }), code: "invalid_body", field: "baseRevision" },
       { name: "base as text", body: JSON.stringify({ document: PROVEN, baseRevision: "0" }), code: "invalid_body", field: "baseRevision" },
       { name: "negative base", body: JSON.stringify({ document: PROVEN, baseRevision: -1 }), code: "invalid_body", field: "baseRevision" },
-      { name: "fractional base", body: JSON.stringify({ document: PROVEN, baseRevision: 0.5 }), code: "invalid_body", field: "baseRevision" },
-      { name: "message not text", body: JSON.stringify({ document: PROVEN, baseRevision: 0, message: 7 }), code: "invalid_body", field: "message" },
+      {
+        name: "fractional base",
+        body: JSON.stringify({ document: PROVEN, baseRevision: 0.5 }),
+        code: "invalid_body",
+        field: "baseRevision",
+      },
+      {
+        name: "message not text",
+        body: JSON.stringify({ document: PROVEN, baseRevision: 0, message: 7 }),
+        code: "invalid_body",
+        field: "message",
+      },
       { name: "document is text", body: JSON.stringify({ document: "design", baseRevision: 0 }), code: "invalid_design" },
       { name: "document is empty", body: JSON.stringify({ document: {}, baseRevision: 0 }), code: "invalid_design", field: "format" },
-      { name: "NUL in a label", body: JSON.stringify({ document: { ...PROVEN, name: "a\u0000b" }, baseRevision: 0 }), code: "invalid_design", field: "name" },
-      { name: "lone surrogate", body: `{"document": ${JSON.stringify({ ...PROVEN, name: "X" })}, "baseRevision": 0}`.replace('"name":"X"', '"name":"\\ud800"'), code: "invalid_design", field: "name" },
-      { name: "nesting too deep", body: JSON.stringify({ document: { ...PROVEN, layout: { deep } }, baseRevision: 0 }), code: "invalid_design" },
+      {
+        name: "NUL in a label",
+        body: JSON.stringify({ document: { ...PROVEN, name: "a\u0000b" }, baseRevision: 0 }),
+        code: "invalid_design",
+        field: "name",
+      },
+      {
+        name: "lone surrogate",
+        body: `{"document": ${JSON.stringify({ ...PROVEN, name: "X" })}, "baseRevision": 0}`.replace('"name":"X"', '"name":"\\ud800"'),
+        code: "invalid_design",
+        field: "name",
+      },
+      {
+        name: "nesting too deep",
+        body: JSON.stringify({ document: { ...PROVEN, layout: { deep } }, baseRevision: 0 }),
+        code: "invalid_design",
+      },
     ];
     for (const c of cases) {
       const res = await engineer.fetch(path, { method: "POST", body: c.body, headers: { "content-type": "application/json" } });
@@ -212,9 +237,17 @@ describe("malformed requests", () => {
       expect(body.error.code, c.name).toBe(c.code);
       expect(body.error.message.length, c.name).toBeGreaterThan(10);
       expect(Array.isArray(body.error.fields), c.name).toBe(true);
-      if (c.field) expect(body.error.fields.map((f: Json) => f.path), c.name).toContain(c.field);
+      if (c.field)
+        expect(
+          body.error.fields.map((f: Json) => f.path),
+          c.name,
+        ).toContain(c.field);
     }
-    const wrongType = await engineer.fetch(path, { method: "POST", body: JSON.stringify({ document: PROVEN, baseRevision: 0 }), headers: { "content-type": "text/plain" } });
+    const wrongType = await engineer.fetch(path, {
+      method: "POST",
+      body: JSON.stringify({ document: PROVEN, baseRevision: 0 }),
+      headers: { "content-type": "text/plain" },
+    });
     expect(wrongType.status).toBe(415);
     expect(((await wrongType.json()) as Json).error.code).toBe("unsupported_media_type");
     const huge = JSON.stringify({ document: { ...PROVEN, layout: { padding: "x".repeat(1_100_000) } }, baseRevision: 0 });
@@ -254,7 +287,11 @@ describe("designs of another workspace", () => {
     const ws = await db.query<{ id: string }>("SELECT id FROM workspace WHERE slug = $1", [outsider.slug]);
     const u = await db.query<{ id: string }>('SELECT id FROM "user" WHERE email = $1', [outsider.email]);
     otherDesign = crypto.randomUUID();
-    await db.query("INSERT INTO design (id, workspace_id, name, created_by) VALUES ($1, $2, 'Elsewhere', $3)", [otherDesign, ws.rows[0]!.id, u.rows[0]!.id]);
+    await db.query("INSERT INTO design (id, workspace_id, name, created_by) VALUES ($1, $2, 'Elsewhere', $3)", [
+      otherDesign,
+      ws.rows[0]!.id,
+      u.rows[0]!.id,
+    ]);
     await db.query(
       `INSERT INTO design_draft (design_id, workspace_id, version, document, content_hash, "check", updated_by)
        VALUES ($1, $2, 1, '{}', 'x', '{"state":"invalid","problems":1}', $3)`,
@@ -314,7 +351,9 @@ describe("drafts", () => {
   it("concurrent writes of the same version: one 200, the rest 409", async () => {
     const id = await newDesign("Test: draft race");
     const results = await Promise.all(
-      Array.from({ length: 6 }, (_, i) => send(engineer, "PUT", `/api/v1/designs/${id}/draft`, { document: { ...PROVEN, name: `copy ${i}` }, version: 1 })),
+      Array.from({ length: 6 }, (_, i) =>
+        send(engineer, "PUT", `/api/v1/designs/${id}/draft`, { document: { ...PROVEN, name: `copy ${i}` }, version: 1 }),
+      ),
     );
     expect(results.map((r) => r.status).sort()).toEqual([200, 409, 409, 409, 409, 409]);
     const row = await db.query<{ version: number }>("SELECT version FROM design_draft WHERE design_id = $1", [id]);
@@ -328,7 +367,11 @@ describe("drafts", () => {
       expect(r.status, JSON.stringify(body)).toBe(400);
       expect(r.body.error.code).toBe("invalid_body");
     }
-    const res = await engineer.fetch(`/api/v1/designs/${id}/draft`, { method: "PUT", body: "{nope", headers: { "content-type": "application/json" } });
+    const res = await engineer.fetch(`/api/v1/designs/${id}/draft`, {
+      method: "PUT",
+      body: "{nope",
+      headers: { "content-type": "application/json" },
+    });
     expect(res.status).toBe(400);
     const row = await db.query<{ version: number }>("SELECT version FROM design_draft WHERE design_id = $1", [id]);
     expect(row.rows).toEqual([{ version: 1 }]);
@@ -361,7 +404,11 @@ describe("proofs", () => {
     expect(r.status).toBe(400);
     expect(r.body.error.code).toBe("invalid_design");
     expect(r.body.error.fields.map((f: Json) => f.path)).toContain("controller.throttle");
-    const bad = await reviewer.fetch(`/api/v1/proofs?workspace=${WS}`, { method: "POST", body: "{", headers: { "content-type": "application/json" } });
+    const bad = await reviewer.fetch(`/api/v1/proofs?workspace=${WS}`, {
+      method: "POST",
+      body: "{",
+      headers: { "content-type": "application/json" },
+    });
     expect(bad.status).toBe(400);
     expect((await send(reviewer, "POST", "/api/v1/proofs", { document: PROVEN })).status).toBe(400);
   });
@@ -373,7 +420,12 @@ describe("listing", () => {
     const all = await send(technician, "GET", `/api/v1/designs?workspace=${WS}`);
     expect(all.status).toBe(200);
     const mine = all.body.designs.find((d: Json) => d.id === drafted);
-    expect(mine).toMatchObject({ status: "draft", latestRevision: null, vehicleId: null, draft: { changed: true, check: { state: "checked", ok: false, failing: 1 } } });
+    expect(mine).toMatchObject({
+      status: "draft",
+      latestRevision: null,
+      vehicleId: null,
+      draft: { changed: true, check: { state: "checked", ok: false, failing: 1 } },
+    });
 
     const drafts = await send(technician, "GET", `/api/v1/designs?workspace=${WS}&status=draft`);
     expect(drafts.body.designs.every((d: Json) => d.status === "draft")).toBe(true);
@@ -389,7 +441,10 @@ describe("listing", () => {
   });
 
   it("a vehicle from another workspace cannot be given to a new design", async () => {
-    const r = await send(engineer, "POST", `/api/v1/designs?workspace=${WS}`, { name: "Test: foreign vehicle", vehicleId: crypto.randomUUID() });
+    const r = await send(engineer, "POST", `/api/v1/designs?workspace=${WS}`, {
+      name: "Test: foreign vehicle",
+      vehicleId: crypto.randomUUID(),
+    });
     expect(r.status).toBe(400);
     expect(r.body.error.fields.map((f: Json) => f.path)).toContain("vehicleId");
   });

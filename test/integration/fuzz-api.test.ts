@@ -92,7 +92,8 @@ function checkAnswer(a: Answer & { sent: unknown; bytes: number }, allowed: numb
       const where = e.code === "invalid_design" && isObj(a.sent) ? a.sent.document : a.sent;
       if (a.sent !== undefined) {
         for (const f of e.fields) {
-          if (!pathNamesPlaceIn(where, f.path)) throw new Error(`${e.code} path ${JSON.stringify(f.path)} names no place in what was sent (${f.message})`);
+          if (!pathNamesPlaceIn(where, f.path))
+            throw new Error(`${e.code} path ${JSON.stringify(f.path)} names no place in what was sent (${f.message})`);
         }
       }
     }
@@ -158,23 +159,26 @@ describe("the design API under generated bad input", () => {
     const before = await snapshot();
     const tally: Record<number, number> = {};
     await fc.assert(
-      fc.asyncProperty(cases((d) => ({ document: d }), { document: BASE_DESIGNS[0]! }), async (item) => {
-        const a = await send(c, "POST", `/api/v1/proofs?workspace=${WS}`, item);
-        tally[a.status] = (tally[a.status] ?? 0) + 1;
-        checkAnswer(a, [200, 400, 413, 415]);
-        if (item.kind !== "json") return;
-        const e = engineView(a);
-        if (e.readable && !e.valid) {
-          expect(a.status).toBe(400);
-          expect(a.json.error.code).toBe("invalid_design");
-        }
-        if (a.status === 200) {
-          expect(e.valid).toBe(true);
-          expect(a.json.verdict.format).toBe("chainproof/verdict@1");
-          expect(a.json.verdict.rows).toBe(e.rows);
-          if (e.proven !== null) expect(a.json.verdict.ok).toBe(e.proven);
-        }
-      }),
+      fc.asyncProperty(
+        cases((d) => ({ document: d }), { document: BASE_DESIGNS[0]! }),
+        async (item) => {
+          const a = await send(c, "POST", `/api/v1/proofs?workspace=${WS}`, item);
+          tally[a.status] = (tally[a.status] ?? 0) + 1;
+          checkAnswer(a, [200, 400, 413, 415]);
+          if (item.kind !== "json") return;
+          const e = engineView(a);
+          if (e.readable && !e.valid) {
+            expect(a.status).toBe(400);
+            expect(a.json.error.code).toBe("invalid_design");
+          }
+          if (a.status === 200) {
+            expect(e.valid).toBe(true);
+            expect(a.json.verdict.format).toBe("chainproof/verdict@1");
+            expect(a.json.verdict.rows).toBe(e.rows);
+            if (e.proven !== null) expect(a.json.verdict.ok).toBe(e.proven);
+          }
+        },
+      ),
       { seed: SEED, numRuns: 500 },
     );
     expect(await snapshot()).toBe(before);
@@ -187,31 +191,39 @@ describe("the design API under generated bad input", () => {
     const c = await signedInEngineer();
     const id = await newDesign(c, "Fuzz: revisions");
     const latest = async () =>
-      (await db.query<{ n: number; count: number }>("SELECT coalesce(max(number), 0)::int AS n, count(*)::int AS count FROM design_revision WHERE design_id = $1", [id])).rows[0]!;
+      (
+        await db.query<{ n: number; count: number }>(
+          "SELECT coalesce(max(number), 0)::int AS n, count(*)::int AS count FROM design_revision WHERE design_id = $1",
+          [id],
+        )
+      ).rows[0]!;
     const tally: Record<number, number> = {};
     await fc.assert(
-      fc.asyncProperty(cases((d) => ({ document: d, baseRevision: CURRENT, message: "fuzz" }), { document: BASE_DESIGNS[0]!, baseRevision: 0 }), async (item) => {
-        const before = await latest();
-        const sent: Case = item.kind === "json" ? { kind: "json", body: withCurrent(item.body, "baseRevision", before.n) } : item;
-        const a = await send(c, "POST", `/api/v1/designs/${id}/revisions`, sent);
-        tally[a.status] = (tally[a.status] ?? 0) + 1;
-        checkAnswer(a, [201, 400, 409, 413, 415, 422]);
-        const after = await latest();
-        expect(after.count).toBe(before.count + (a.status === 201 ? 1 : 0));
-        if (a.status === 201) expect(a.json.revision.number).toBe(after.n);
-        if (sent.kind !== "json") return;
-        const e = engineView(a);
-        if (e.readable && !e.valid && isObj(a.sent) && a.sent.baseRevision === before.n) {
-          expect(a.status).toBe(400);
-        }
-        if (a.status === 201) expect(e.valid && e.proven !== false).toBe(true);
-        if (a.status === 422) {
-          expect(e.proven === null || e.proven === false).toBe(true);
-          // Spec 1.1: a design that never drives is refused as such, whatever its rules say.
-          if (e.neverDrives !== null) expect(a.json.error.code).toBe(e.neverDrives ? "never_drives" : "rules_fail");
-          else expect(["never_drives", "rules_fail"]).toContain(a.json.error.code);
-        }
-      }),
+      fc.asyncProperty(
+        cases((d) => ({ document: d, baseRevision: CURRENT, message: "fuzz" }), { document: BASE_DESIGNS[0]!, baseRevision: 0 }),
+        async (item) => {
+          const before = await latest();
+          const sent: Case = item.kind === "json" ? { kind: "json", body: withCurrent(item.body, "baseRevision", before.n) } : item;
+          const a = await send(c, "POST", `/api/v1/designs/${id}/revisions`, sent);
+          tally[a.status] = (tally[a.status] ?? 0) + 1;
+          checkAnswer(a, [201, 400, 409, 413, 415, 422]);
+          const after = await latest();
+          expect(after.count).toBe(before.count + (a.status === 201 ? 1 : 0));
+          if (a.status === 201) expect(a.json.revision.number).toBe(after.n);
+          if (sent.kind !== "json") return;
+          const e = engineView(a);
+          if (e.readable && !e.valid && isObj(a.sent) && a.sent.baseRevision === before.n) {
+            expect(a.status).toBe(400);
+          }
+          if (a.status === 201) expect(e.valid && e.proven !== false).toBe(true);
+          if (a.status === 422) {
+            expect(e.proven === null || e.proven === false).toBe(true);
+            // Spec 1.1: a design that never drives is refused as such, whatever its rules say.
+            if (e.neverDrives !== null) expect(a.json.error.code).toBe(e.neverDrives ? "never_drives" : "rules_fail");
+            else expect(["never_drives", "rules_fail"]).toContain(a.json.error.code);
+          }
+        },
+      ),
       { seed: SEED + 1, numRuns: 450 },
     );
     expect(tally[201] ?? 0).toBeGreaterThan(5);
@@ -222,25 +234,32 @@ describe("the design API under generated bad input", () => {
     const c = await signedInEngineer();
     const id = await newDesign(c, "Fuzz: drafts");
     const draft = async () =>
-      (await db.query<{ version: number; content_hash: string }>("SELECT version, content_hash FROM design_draft WHERE design_id = $1", [id])).rows[0]!;
+      (
+        await db.query<{ version: number; content_hash: string }>("SELECT version, content_hash FROM design_draft WHERE design_id = $1", [
+          id,
+        ])
+      ).rows[0]!;
     const tally: Record<number, number> = {};
     await fc.assert(
-      fc.asyncProperty(cases((d) => ({ document: d, version: CURRENT, baseRevision: 0 }), { document: BASE_DESIGNS[1]!, version: 1 }), async (item) => {
-        const before = await draft();
-        const sent: Case = item.kind === "json" ? { kind: "json", body: withCurrent(item.body, "version", before.version) } : item;
-        const a = await send(c, "PUT", `/api/v1/designs/${id}/draft`, sent);
-        tally[a.status] = (tally[a.status] ?? 0) + 1;
-        checkAnswer(a, [200, 400, 409, 413, 415]);
-        const after = await draft();
-        if (a.status === 200) {
-          expect(after.version).toBe(before.version + 1);
-          expect(a.json.version).toBe(after.version);
-          expect(isObj(isObj(a.sent) ? a.sent.document : undefined)).toBe(true);
-        } else {
-          expect(after).toEqual(before);
-        }
-        if (a.status === 409) expect(a.json.currentVersion).toBe(before.version);
-      }),
+      fc.asyncProperty(
+        cases((d) => ({ document: d, version: CURRENT, baseRevision: 0 }), { document: BASE_DESIGNS[1]!, version: 1 }),
+        async (item) => {
+          const before = await draft();
+          const sent: Case = item.kind === "json" ? { kind: "json", body: withCurrent(item.body, "version", before.version) } : item;
+          const a = await send(c, "PUT", `/api/v1/designs/${id}/draft`, sent);
+          tally[a.status] = (tally[a.status] ?? 0) + 1;
+          checkAnswer(a, [200, 400, 409, 413, 415]);
+          const after = await draft();
+          if (a.status === 200) {
+            expect(after.version).toBe(before.version + 1);
+            expect(a.json.version).toBe(after.version);
+            expect(isObj(isObj(a.sent) ? a.sent.document : undefined)).toBe(true);
+          } else {
+            expect(after).toEqual(before);
+          }
+          if (a.status === 409) expect(a.json.currentVersion).toBe(before.version);
+        },
+      ),
       { seed: SEED + 2, numRuns: 300 },
     );
     expect(tally[200] ?? 0).toBeGreaterThan(50);
@@ -249,17 +268,28 @@ describe("the design API under generated bad input", () => {
 
   it("POST /api/v1/designs: 250 bodies; a design row exactly for each 201", { timeout: SLOW }, async () => {
     const c = await signedInEngineer();
-    const vehicleId = (await db.query<{ id: string }>("SELECT v.id FROM vehicle v JOIN workspace w ON w.id = v.workspace_id WHERE w.slug = $1 LIMIT 1", [WS])).rows[0]?.id ?? null;
+    const vehicleId =
+      (
+        await db.query<{ id: string }>("SELECT v.id FROM vehicle v JOIN workspace w ON w.id = v.workspace_id WHERE w.slug = $1 LIMIT 1", [
+          WS,
+        ])
+      ).rows[0]?.id ?? null;
     const count = async () =>
-      (await db.query<{ n: number }>("SELECT count(*)::int AS n FROM design d JOIN workspace w ON w.id = d.workspace_id WHERE w.slug = $1", [WS])).rows[0]!.n;
+      (
+        await db.query<{ n: number }>(
+          "SELECT count(*)::int AS n FROM design d JOIN workspace w ON w.id = d.workspace_id WHERE w.slug = $1",
+          [WS],
+        )
+      ).rows[0]!.n;
     const bodies = fc.oneof(
       {
         weight: 8,
-        arbitrary: fc
-          .tuple(fc.constantFrom("haybarn", "meadowline", "scree", "blank"), fc.boolean())
-          .chain(([start, withVehicle]) =>
-            mutatedBody(() => ({ name: "Fuzz: created", vehicleId: withVehicle ? vehicleId : null, start }), 3).map((body): Case => ({ kind: "json", body })),
-          ),
+        arbitrary: fc.tuple(fc.constantFrom("haybarn", "meadowline", "scree", "blank"), fc.boolean()).chain(([start, withVehicle]) =>
+          mutatedBody(() => ({ name: "Fuzz: created", vehicleId: withVehicle ? vehicleId : null, start }), 3).map((body): Case => ({
+            kind: "json",
+            body,
+          })),
+        ),
       },
       { weight: 2, arbitrary: rawBodyArb({ name: "Fuzz: created", start: "blank" }).map((raw): Case => ({ kind: "raw", raw })) },
     );
@@ -297,7 +327,12 @@ describe("bodies that fuzzing turned into 500s once", () => {
       ["POST", `/api/v1/designs/${id}/revisions`, { document: hauler, baseRevision: 2 ** 31 }, "baseRevision"],
       ["PUT", `/api/v1/designs/${id}/draft`, { document: hauler, version: 2 ** 32 }, "version"],
       ["PUT", `/api/v1/designs/${id}/draft`, { document: hauler, version: 1, baseRevision: 2 ** 31 }, "baseRevision"],
-      ["POST", `/api/v1/proofs?workspace=${WS}`, { document: { ...hauler, components: [{ id: "X", type: "__proto__" }] } }, "components[0].type"],
+      [
+        "POST",
+        `/api/v1/proofs?workspace=${WS}`,
+        { document: { ...hauler, components: [{ id: "X", type: "__proto__" }] } },
+        "components[0].type",
+      ],
     ];
     for (const [method, path, body, field] of cases) {
       const a = await send(c, method, path, { kind: "json", body });

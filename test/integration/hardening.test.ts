@@ -7,7 +7,14 @@ import { describe, expect, it } from "vitest";
 import { BASE_URL, client, DEMO, DEMO_PASSWORD, formBody, signIn, type Client } from "../support/http";
 
 describe("open redirect after sign-in", () => {
-  const hostile = ["/%09/evil.example/", "/%0a/evil.example/", "/%0d%0a/evil.example/", "/%5cevil.example/", "/.//evil.example/", "/%E2%80%8A/evil.example/"];
+  const hostile = [
+    "/%09/evil.example/",
+    "/%0a/evil.example/",
+    "/%0d%0a/evil.example/",
+    "/%5cevil.example/",
+    "/.//evil.example/",
+    "/%E2%80%8A/evil.example/",
+  ];
 
   it.each(hostile)("a signed-in user sent to /sign-in?next=%s stays on our site", async (next) => {
     const c = await signIn(DEMO.reviewer);
@@ -17,23 +24,29 @@ describe("open redirect after sign-in", () => {
   });
 
   it("signing in with a hostile next goes home; a path of ours is kept", async () => {
-    const hostileRes = await client().fetch("/sign-in", formBody({ email: DEMO.reviewer, password: DEMO_PASSWORD, next: "/\t/evil.example/" }));
+    const hostileRes = await client().fetch(
+      "/sign-in",
+      formBody({ email: DEMO.reviewer, password: DEMO_PASSWORD, next: "/\t/evil.example/" }),
+    );
     expect(hostileRes.status).toBe(302);
     expect(hostileRes.headers.get("location")).toBe("/");
     const kept = await client().fetch("/sign-in", formBody({ email: DEMO.reviewer, password: DEMO_PASSWORD, next: "/w/larkspur/reviews" }));
     expect(kept.headers.get("location")).toBe("/w/larkspur/reviews");
   });
 
-  it.each(["/%0a", "/%0d%0aSet-Cookie:%20x=1", "/w/%D1%84%D0%BE%D1%82%D0%BE", "/w/%F0%9F%93%B7", "/%00"])("next=%s answers a redirect, never a 500", async (next) => {
-    const c = await signIn(DEMO.reviewer);
-    const res = await c.fetch(`/sign-in?next=${next}`);
-    expect(res.status).toBe(302);
-    const location = res.headers.get("location")!;
-    expect(new URL(location, "http://x.invalid").origin).toBe("http://x.invalid");
-    expect(res.headers.get("set-cookie") ?? "").not.toContain("x=1");
-    // The sign-in page itself (signed out) renders.
-    expect((await client().fetch(`/sign-in?next=${next}`)).status).toBe(200);
-  });
+  it.each(["/%0a", "/%0d%0aSet-Cookie:%20x=1", "/w/%D1%84%D0%BE%D1%82%D0%BE", "/w/%F0%9F%93%B7", "/%00"])(
+    "next=%s answers a redirect, never a 500",
+    async (next) => {
+      const c = await signIn(DEMO.reviewer);
+      const res = await c.fetch(`/sign-in?next=${next}`);
+      expect(res.status).toBe(302);
+      const location = res.headers.get("location")!;
+      expect(new URL(location, "http://x.invalid").origin).toBe("http://x.invalid");
+      expect(res.headers.get("set-cookie") ?? "").not.toContain("x=1");
+      // The sign-in page itself (signed out) renders.
+      expect((await client().fetch(`/sign-in?next=${next}`)).status).toBe(200);
+    },
+  );
 });
 
 async function query<T extends pg.QueryResultRow>(sql: string, params: unknown[] = []): Promise<T[]> {
@@ -68,12 +81,18 @@ describe("personal API keys are accepted only under /api/v1", () => {
     expect(page.headers.get("location")).toMatch(/^\/sign-in/);
 
     const keysBefore = await query("SELECT id FROM api_key WHERE revoked_at IS NULL");
-    const another = await withKey.fetch("/w/larkspur/settings", { ...formBody({ intent: "create-key", name: "second key" }), headers: { ...bearer, "content-type": "application/x-www-form-urlencoded" } });
+    const another = await withKey.fetch("/w/larkspur/settings", {
+      ...formBody({ intent: "create-key", name: "second key" }),
+      headers: { ...bearer, "content-type": "application/x-www-form-urlencoded" },
+    });
     expect([302, 401, 403]).toContain(another.status);
     expect(await query("SELECT id FROM api_key WHERE revoked_at IS NULL")).toHaveLength(keysBefore.length);
 
     const workspacesBefore = await query("SELECT id FROM workspace");
-    const created = await withKey.fetch("/welcome", { ...formBody({ name: "Made with a key" }), headers: { ...bearer, "content-type": "application/x-www-form-urlencoded" } });
+    const created = await withKey.fetch("/welcome", {
+      ...formBody({ name: "Made with a key" }),
+      headers: { ...bearer, "content-type": "application/x-www-form-urlencoded" },
+    });
     expect(created.headers.get("location") ?? "").not.toMatch(/^\/w\//);
     expect(await query("SELECT id FROM workspace")).toHaveLength(workspacesBefore.length);
 
@@ -85,7 +104,11 @@ describe("personal API keys are accepted only under /api/v1", () => {
 
 describe("user names through better-auth's own endpoints", () => {
   const signUpJson = (name: string, email: string) =>
-    client().fetch("/api/auth/sign-up/email", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ email, password: "a-long-enough-password", name }) });
+    client().fetch("/api/auth/sign-up/email", {
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify({ email, password: "a-long-enough-password", name }),
+    });
 
   it("sign-up refuses a name over the form's 100 characters, or one holding NUL, and keeps no account", { timeout: 90_000 }, async () => {
     for (const name of ["n".repeat(101), "n".repeat(5_000_000), "bad\u0000name", "evil\u202Egnp.exe"]) {
@@ -103,7 +126,11 @@ describe("user names through better-auth's own endpoints", () => {
     const c = await signIn(DEMO.technician);
     const before = (await query<{ name: string }>('SELECT name FROM "user" WHERE email = $1', [DEMO.technician]))[0]!.name;
     for (const name of ["n".repeat(101), "  ", "x\u0000y"]) {
-      const res = await c.fetch("/api/auth/update-user", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ name }) });
+      const res = await c.fetch("/api/auth/update-user", {
+        method: "POST",
+        headers: { "content-type": "application/json" },
+        body: JSON.stringify({ name }),
+      });
       expect(res.status).toBe(400);
       expect(((await res.json()) as { message: string }).message).toMatch(/^name: /);
     }
@@ -115,13 +142,19 @@ describe("a photo whose file name is not Latin-1", () => {
   // RFC 6266, section 4.3 (and RFC 8187): filename* carries the name in UTF-8, filename an ASCII stand-in.
   it("is downloaded under its own name (filename*), not a 500", async () => {
     const admin = await signIn(DEMO.admin);
-    const vehicle = (await query<{ id: string }>("SELECT v.id FROM vehicle v JOIN workspace w ON w.id = v.workspace_id WHERE w.slug = 'larkspur' ORDER BY v.name LIMIT 1"))[0]!.id;
+    const vehicle = (
+      await query<{ id: string }>(
+        "SELECT v.id FROM vehicle v JOIN workspace w ON w.id = v.workspace_id WHERE w.slug = 'larkspur' ORDER BY v.name LIMIT 1",
+      )
+    )[0]!.id;
     const png = Buffer.from("iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAQAAAC1HAwCAAAAC0lEQVR42mNkYAAAAAYAAjCB0C8AAAAASUVORK5CYII=", "base64");
     const form = new FormData();
     form.set("intent", "upload-photo");
     form.set("file", new File([png], "фото 📷.png", { type: "image/png" }));
     expect((await admin.fetch(`/w/larkspur/vehicles/${vehicle}`, { method: "POST", body: form })).status).toBe(200);
-    const id = (await query<{ id: string }>("SELECT id FROM upload WHERE filename = $1 ORDER BY created_at DESC LIMIT 1", ["фото 📷.png"]))[0]!.id;
+    const id = (
+      await query<{ id: string }>("SELECT id FROM upload WHERE filename = $1 ORDER BY created_at DESC LIMIT 1", ["фото 📷.png"])
+    )[0]!.id;
     const res = await admin.fetch(`/w/larkspur/files/${id}`);
     expect(res.status).toBe(200);
     const disposition = res.headers.get("content-disposition")!;
@@ -138,7 +171,13 @@ describe("a chunked body over the limit", () => {
     const url = new URL(path, BASE_URL);
     return new Promise((resolve) => {
       const req = http.request(
-        { host: url.hostname, port: url.port, path: url.pathname + url.search, method: "POST", headers: { "content-type": "application/json", cookie: c.cookie, origin: BASE_URL, "x-forwarded-for": c.ip } },
+        {
+          host: url.hostname,
+          port: url.port,
+          path: url.pathname + url.search,
+          method: "POST",
+          headers: { "content-type": "application/json", cookie: c.cookie, origin: BASE_URL, "x-forwarded-for": c.ip },
+        },
         (res) => {
           let body = "";
           res.on("data", (d) => (body += d));

@@ -27,7 +27,10 @@ async function serve(port: number, env: Record<string, string>): Promise<string>
   const url = `http://127.0.0.1:${port}`;
   for (let i = 0; i < 600; i++) {
     if (child.exitCode !== null) throw new Error(`the server on ${port} exited (${child.exitCode})`);
-    const ok = await fetch(`${url}/healthz`).then((r) => r.ok, () => false);
+    const ok = await fetch(`${url}/healthz`).then(
+      (r) => r.ok,
+      () => false,
+    );
     if (ok) return url;
     await new Promise((r) => setTimeout(r, 250));
   }
@@ -43,7 +46,9 @@ describe("two server processes on one database", () => {
     const reader = await signIn(DEMO.reviewer);
     const statuses: number[] = [];
     for (let i = 0; i < 12; i++) {
-      const res = await fetch(`${i % 2 ? b : a}/api/v1/designs?workspace=larkspur`, { headers: { cookie: reader.cookie, "x-forwarded-for": reader.ip } });
+      const res = await fetch(`${i % 2 ? b : a}/api/v1/designs?workspace=larkspur`, {
+        headers: { cookie: reader.cookie, "x-forwarded-for": reader.ip },
+      });
       statuses.push(res.status);
     }
     expect(statuses.slice(0, 8)).toEqual([200, 200, 200, 200, 200, 200, 200, 200]);
@@ -72,7 +77,13 @@ describe("behind a TLS-terminating proxy", () => {
     const proxy = http.createServer((req, res) => {
       const forwarded = [req.headers["x-forwarded-for"], req.socket.remoteAddress].filter(Boolean).join(", ");
       const upstream = http.request(
-        { host: app.hostname, port: app.port, path: req.url, method: req.method, headers: { ...req.headers, "x-forwarded-for": forwarded, "x-forwarded-proto": "https" } },
+        {
+          host: app.hostname,
+          port: app.port,
+          path: req.url,
+          method: req.method,
+          headers: { ...req.headers, "x-forwarded-for": forwarded, "x-forwarded-proto": "https" },
+        },
         (up) => {
           res.writeHead(up.statusCode ?? 502, up.headers);
           up.pipe(res);
@@ -94,7 +105,9 @@ describe("behind a TLS-terminating proxy", () => {
     const signedIn = await form(DEMO_PASSWORD, "203.0.113.1");
     expect(signedIn.status).toBe(302);
     expect(signedIn.headers.get("location")).toBe("/w/larkspur");
-    expect(signedIn.headers.getSetCookie().some((c) => c.startsWith("__Secure-better-auth.session_token=") && /;\s*Secure/i.test(c))).toBe(true);
+    expect(signedIn.headers.getSetCookie().some((c) => c.startsWith("__Secure-better-auth.session_token=") && /;\s*Secure/i.test(c))).toBe(
+      true,
+    );
 
     // Each attempt claims another client address; the proxy's own entry says they all come from one.
     const statuses: number[] = [];
@@ -112,26 +125,30 @@ describe("proof limits", () => {
     return d;
   };
 
-  it("a proof over the stated time is stopped with a clear answer; one user runs two at once, eight wait, more are refused", { timeout: 240_000 }, async () => {
-    const [quick, normal] = await Promise.all([serve(base + 96, { PROOF_TIME_LIMIT_MS: "1" }), serve(base + 97, {})]);
-    const engineer = await signIn(DEMO.engineer);
-    const prove = (server: string, document: unknown) =>
-      fetch(`${server}/api/v1/proofs?workspace=larkspur`, {
-        method: "POST",
-        headers: { "content-type": "application/json", cookie: engineer.cookie, origin: server, "x-forwarded-for": engineer.ip },
-        body: JSON.stringify({ document }),
-      });
-    const stopped = await prove(quick, bigDesign(12));
-    expect(stopped.status).toBe(422);
-    const error = ((await stopped.json()) as { error: { code: string; message: string } }).error;
-    expect(error.code).toBe("proof_too_long");
-    expect(error.message).toMatch(/longer than 0\.001 s and was stopped/);
+  it(
+    "a proof over the stated time is stopped with a clear answer; one user runs two at once, eight wait, more are refused",
+    { timeout: 240_000 },
+    async () => {
+      const [quick, normal] = await Promise.all([serve(base + 96, { PROOF_TIME_LIMIT_MS: "1" }), serve(base + 97, {})]);
+      const engineer = await signIn(DEMO.engineer);
+      const prove = (server: string, document: unknown) =>
+        fetch(`${server}/api/v1/proofs?workspace=larkspur`, {
+          method: "POST",
+          headers: { "content-type": "application/json", cookie: engineer.cookie, origin: server, "x-forwarded-for": engineer.ip },
+          body: JSON.stringify({ document }),
+        });
+      const stopped = await prove(quick, bigDesign(12));
+      expect(stopped.status).toBe(422);
+      const error = ((await stopped.json()) as { error: { code: string; message: string } }).error;
+      expect(error.code).toBe("proof_too_long");
+      expect(error.message).toMatch(/longer than 0\.001 s and was stopped/);
 
-    // Two run, eight wait their turn, and the rest of twelve sent at once are refused.
-    const answers = await Promise.all(Array.from({ length: 12 }, () => prove(normal, bigDesign(12))));
-    const statuses = answers.map((r) => r.status).sort();
-    expect(statuses.filter((s) => s === 200).length).toBeGreaterThanOrEqual(10);
-    expect(statuses).toContain(429);
-    expect(statuses.every((s) => s === 200 || s === 429)).toBe(true);
-  });
+      // Two run, eight wait their turn, and the rest of twelve sent at once are refused.
+      const answers = await Promise.all(Array.from({ length: 12 }, () => prove(normal, bigDesign(12))));
+      const statuses = answers.map((r) => r.status).sort();
+      expect(statuses.filter((s) => s === 200).length).toBeGreaterThanOrEqual(10);
+      expect(statuses).toContain(429);
+      expect(statuses.every((s) => s === 200 || s === 429)).toBe(true);
+    },
+  );
 });

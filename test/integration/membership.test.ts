@@ -19,7 +19,10 @@ async function inviteLink(admin: Client, slug: string, email: string, role: stri
   const sent = await admin.fetch(`/w/${slug}/settings`, formBody({ intent: "invite", email, role }));
   expect(sent.status).toBe(200);
   for (let i = 0; i < 50; i++) {
-    const r = await db.query("SELECT text_body FROM mail_message WHERE recipients LIKE $1 AND text_body LIKE $2 AND received_at >= $3 ORDER BY received_at DESC LIMIT 1", [`%${email}%`, `%/invite/%`, since]);
+    const r = await db.query(
+      "SELECT text_body FROM mail_message WHERE recipients LIKE $1 AND text_body LIKE $2 AND received_at >= $3 ORDER BY received_at DESC LIMIT 1",
+      [`%${email}%`, `%/invite/%`, since],
+    );
     const link = (r.rows[0]?.text_body as string | undefined)?.match(/https?:\/\/\S+\/invite\/\S+/)?.[0];
     if (link) return new URL(link).pathname;
     await new Promise((res) => setTimeout(res, 100));
@@ -28,12 +31,18 @@ async function inviteLink(admin: Client, slug: string, email: string, role: stri
 }
 
 async function roleOf(email: string, slug: string): Promise<string | undefined> {
-  const r = await db.query(`SELECT m.role FROM member m JOIN "user" u ON u.id = m.user_id JOIN workspace w ON w.id = m.workspace_id WHERE u.email = $1 AND w.slug = $2`, [email, slug]);
+  const r = await db.query(
+    `SELECT m.role FROM member m JOIN "user" u ON u.id = m.user_id JOIN workspace w ON w.id = m.workspace_id WHERE u.email = $1 AND w.slug = $2`,
+    [email, slug],
+  );
   return r.rows[0]?.role;
 }
 
 async function memberId(email: string, slug: string): Promise<string> {
-  const r = await db.query(`SELECT m.id FROM member m JOIN "user" u ON u.id = m.user_id JOIN workspace w ON w.id = m.workspace_id WHERE u.email = $1 AND w.slug = $2`, [email, slug]);
+  const r = await db.query(
+    `SELECT m.id FROM member m JOIN "user" u ON u.id = m.user_id JOIN workspace w ON w.id = m.workspace_id WHERE u.email = $1 AND w.slug = $2`,
+    [email, slug],
+  );
   return r.rows[0].id;
 }
 
@@ -56,12 +65,16 @@ describe("membership", () => {
     const read = () => fetch(new URL("/api/v1/designs?workspace=larkspur", BASE_URL), { headers: { authorization: `Bearer ${key}` } });
     expect((await read()).status).toBe(200);
 
-    expect((await admin.fetch("/w/larkspur/settings", formBody({ intent: "remove", id: await memberId(person.email, "larkspur") }))).status).toBe(200);
+    expect(
+      (await admin.fetch("/w/larkspur/settings", formBody({ intent: "remove", id: await memberId(person.email, "larkspur") }))).status,
+    ).toBe(200);
     expect((await read()).status).toBe(401);
     expect((await person.client.fetch(await inviteLink(admin, "larkspur", person.email, "engineer"), { method: "POST" })).status).toBe(302);
     expect((await read()).status).toBe(401);
     // The demo workspace goes back to its four members for the tests after this one.
-    expect((await admin.fetch("/w/larkspur/settings", formBody({ intent: "remove", id: await memberId(person.email, "larkspur") }))).status).toBe(200);
+    expect(
+      (await admin.fetch("/w/larkspur/settings", formBody({ intent: "remove", id: await memberId(person.email, "larkspur") }))).status,
+    ).toBe(200);
   });
 
   it("two admins demoting each other at once: no 500, and the workspace keeps an admin", { timeout: 60_000 }, async () => {
@@ -76,7 +89,10 @@ describe("membership", () => {
         b.client.fetch(`/w/${a.slug}/settings`, formBody({ intent: "change-role", memberId: aId, role: "engineer" })),
       ]);
       for (const r of answers) expect([200, 400, 403, 409]).toContain(r.status);
-      const admins = await db.query(`SELECT count(*)::int AS n FROM member m JOIN workspace w ON w.id = m.workspace_id WHERE w.slug = $1 AND m.role = 'admin'`, [a.slug]);
+      const admins = await db.query(
+        `SELECT count(*)::int AS n FROM member m JOIN workspace w ON w.id = m.workspace_id WHERE w.slug = $1 AND m.role = 'admin'`,
+        [a.slug],
+      );
       expect(admins.rows[0].n).toBe(1);
       [admin, other] = (await roleOf(a.email, a.slug)) === "admin" ? [a, b] : [b, a];
     }
@@ -95,7 +111,10 @@ describe("membership", () => {
   it("withdrawing another workspace's invitation answers 404 and leaves it open", async () => {
     const other = await createOutsider();
     await inviteLink(other.client, other.slug, `guest-${Date.now()}@example.org`, "reviewer");
-    const inv = await db.query("SELECT i.id FROM invitation i JOIN workspace w ON w.id = i.workspace_id WHERE w.slug = $1 ORDER BY i.created_at DESC LIMIT 1", [other.slug]);
+    const inv = await db.query(
+      "SELECT i.id FROM invitation i JOIN workspace w ON w.id = i.workspace_id WHERE w.slug = $1 ORDER BY i.created_at DESC LIMIT 1",
+      [other.slug],
+    );
     const admin = await signIn(DEMO.admin);
     const res = await admin.fetch("/w/larkspur/settings", formBody({ intent: "revoke", id: inv.rows[0].id }));
     expect(res.status).toBe(404);

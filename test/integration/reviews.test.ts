@@ -6,10 +6,22 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import pg from "pg";
 import { client, DEMO, formBody, signIn, type Client } from "../support/http";
 import { createOutsider } from "../support/outsider";
-import { compileDesign, countRows, csvHeader, decodeRow, pageRows, prove, type CompiledDesign, type Design, type RowFilter } from "../../app/engine";
+import {
+  compileDesign,
+  countRows,
+  csvHeader,
+  decodeRow,
+  pageRows,
+  prove,
+  type CompiledDesign,
+  type Design,
+  type RowFilter,
+} from "../../app/engine";
 
 const WS = "larkspur";
-const PROVEN = JSON.parse(readFileSync(new URL("../../drizzle/demo-designs/haybarn-campus-hauler.json", import.meta.url), "utf8")) as Design;
+const PROVEN = JSON.parse(
+  readFileSync(new URL("../../drizzle/demo-designs/haybarn-campus-hauler.json", import.meta.url), "utf8"),
+) as Design;
 const ENGINE: CompiledDesign = compileDesign(PROVEN);
 
 type Json = Record<string, any>;
@@ -37,7 +49,11 @@ async function designWithRevision(name: string): Promise<string> {
   expect(made.status).toBe(201);
   const id = made.body.design.id as string;
   created.push(id);
-  const saved = await json(engineer, "POST", `/api/v1/designs/${id}/revisions`, { document: PROVEN, baseRevision: 0, message: "first wiring" });
+  const saved = await json(engineer, "POST", `/api/v1/designs/${id}/revisions`, {
+    document: PROVEN,
+    baseRevision: 0,
+    message: "first wiring",
+  });
   expect(saved.status).toBe(201);
   return id;
 }
@@ -65,10 +81,17 @@ async function statusOnPage(c: Client, id: string, n: number): Promise<string | 
 
 beforeAll(async () => {
   db = new pg.Pool({ connectionString: process.env.DATABASE_URL, max: 4 });
-  [engineer, technician, reviewer, admin] = await Promise.all([signIn(DEMO.engineer), signIn(DEMO.technician), signIn(DEMO.reviewer), signIn(DEMO.admin)]);
+  [engineer, technician, reviewer, admin] = await Promise.all([
+    signIn(DEMO.engineer),
+    signIn(DEMO.technician),
+    signIn(DEMO.reviewer),
+    signIn(DEMO.admin),
+  ]);
   outsider = (await createOutsider()).client;
   anonymous = client();
-  const users = await db.query<{ id: string; email: string }>('SELECT id, email FROM "user" WHERE email = ANY($1)', [[DEMO.engineer, DEMO.reviewer]]);
+  const users = await db.query<{ id: string; email: string }>('SELECT id, email FROM "user" WHERE email = ANY($1)', [
+    [DEMO.engineer, DEMO.reviewer],
+  ]);
   const by = (e: string) => users.rows.find((u) => u.email === e)!.id;
   ids = { engineer: by(DEMO.engineer), reviewer: by(DEMO.reviewer) };
 });
@@ -141,7 +164,10 @@ describe("truth-table API", () => {
     for (const [q, field] of cases) {
       const r = await json(reviewer, "GET", `/api/v1/designs/${id}/revisions/1/rows?${q}`);
       expect(r.status, q).toBe(400);
-      expect(r.body.error.fields.map((f: { path: string }) => f.path), q).toContain(field);
+      expect(
+        r.body.error.fields.map((f: { path: string }) => f.path),
+        q,
+      ).toContain(field);
     }
   });
 
@@ -197,13 +223,22 @@ describe("review and sign-off", () => {
   });
 
   it("comments pin to the revision, a row (index and states) or a component; bad anchors are 400", async () => {
-    expect((await act(reviewer, id, 1, { intent: "comment", anchor: "row", row: "157", body: "Why does this row drive?" })).status).toBe(200);
-    expect((await act(engineer, id, 1, { intent: "comment", anchor: "component", component: "SEAT", body: "Seat switch part number?" })).status).toBe(200);
+    expect((await act(reviewer, id, 1, { intent: "comment", anchor: "row", row: "157", body: "Why does this row drive?" })).status).toBe(
+      200,
+    );
+    expect(
+      (await act(engineer, id, 1, { intent: "comment", anchor: "component", component: "SEAT", body: "Seat switch part number?" })).status,
+    ).toBe(200);
     expect((await act(technician, id, 1, { intent: "comment", anchor: "revision", body: "Loom matches." })).status).toBe(200);
     expect((await act(reviewer, id, 1, { intent: "comment", anchor: "row", row: String(ENGINE.rows), body: "x" })).status).toBe(400);
     expect((await act(reviewer, id, 1, { intent: "comment", anchor: "component", component: "NOPE", body: "x" })).status).toBe(400);
     expect((await act(reviewer, id, 1, { intent: "comment", anchor: "revision", body: "   " })).status).toBe(400);
-    const rows = await db.query<{ anchor: string; row_index: number | null; row_states: Record<string, string> | null; component_id: string | null }>(
+    const rows = await db.query<{
+      anchor: string;
+      row_index: number | null;
+      row_states: Record<string, string> | null;
+      component_id: string | null;
+    }>(
       "SELECT c.anchor, c.row_index, c.row_states, c.component_id FROM review_comment c JOIN design_revision r ON r.id = c.revision_id WHERE r.design_id = $1 ORDER BY c.created_at",
       [id],
     );
@@ -232,14 +267,50 @@ describe("review and sign-off", () => {
     for (const f of faults) expect(text).toContain(`${f.component} ${f.mode.replace("-", " ")} (defeats ${f.defeats.join(", ")})`);
     // Technicians and admins record no dispositions; a fault the verdict does not list needs none; a justification is required.
     for (const c of [technician, admin]) {
-      expect((await act(c, id, 1, { intent: "dispose", component: faults[0]!.component, mode: faults[0]!.mode, disposition: "accepted", justification: "Monitored by the controller." })).status).toBe(403);
+      expect(
+        (
+          await act(c, id, 1, {
+            intent: "dispose",
+            component: faults[0]!.component,
+            mode: faults[0]!.mode,
+            disposition: "accepted",
+            justification: "Monitored by the controller.",
+          })
+        ).status,
+      ).toBe(403);
     }
-    expect((await act(engineer, id, 1, { intent: "dispose", component: "SEAT", mode: "stuck-open", disposition: "accepted", justification: "Not a defeating fault at all." })).status).toBe(400);
-    expect((await act(engineer, id, 1, { intent: "dispose", component: faults[0]!.component, mode: faults[0]!.mode, disposition: "accepted", justification: "" })).status).toBe(400);
+    expect(
+      (
+        await act(engineer, id, 1, {
+          intent: "dispose",
+          component: "SEAT",
+          mode: "stuck-open",
+          disposition: "accepted",
+          justification: "Not a defeating fault at all.",
+        })
+      ).status,
+    ).toBe(400);
+    expect(
+      (
+        await act(engineer, id, 1, {
+          intent: "dispose",
+          component: faults[0]!.component,
+          mode: faults[0]!.mode,
+          disposition: "accepted",
+          justification: "",
+        })
+      ).status,
+    ).toBe(400);
     // All but the last: still refused, naming only the last.
     for (const [k, f] of faults.slice(0, -1).entries()) {
       const who = k % 2 === 0 ? engineer : reviewer;
-      const res = await act(who, id, 1, { intent: "dispose", component: f.component, mode: f.mode, disposition: k % 3 === 0 ? "fix-next-revision" : "accepted", justification: `Two-channel part, monitored by the controller (${k}).` });
+      const res = await act(who, id, 1, {
+        intent: "dispose",
+        component: f.component,
+        mode: f.mode,
+        disposition: k % 3 === 0 ? "fix-next-revision" : "accepted",
+        justification: `Two-channel part, monitored by the controller (${k}).`,
+      });
       expect(res.status).toBe(200);
     }
     const last = faults.at(-1)!;
@@ -248,18 +319,33 @@ describe("review and sign-off", () => {
     const againText = (await again.text()).replace(/<!-- -->/g, "");
     expect(againText).toContain(`this single fault has no disposition yet: ${last.component} ${last.mode.replace("-", " ")}`);
     expect(await statusOnPage(reviewer, id, 1)).toBe("in-review");
-    expect((await act(reviewer, id, 1, { intent: "dispose", component: last.component, mode: last.mode, disposition: "ruled-out", justification: "Forced-guided contacts: cannot weld closed." })).status).toBe(200);
+    expect(
+      (
+        await act(reviewer, id, 1, {
+          intent: "dispose",
+          component: last.component,
+          mode: last.mode,
+          disposition: "ruled-out",
+          justification: "Forced-guided contacts: cannot weld closed.",
+        })
+      ).status,
+    ).toBe(200);
     // Recorded with author, content hash and audit.
     const rows = await db.query<{ component: string; mode: string; author_id: string; content_hash: string }>(
       "SELECT f.component, f.mode, f.author_id, f.content_hash FROM fault_disposition f JOIN design_revision r ON r.id = f.revision_id WHERE r.design_id = $1 ORDER BY f.created_at",
       [id],
     );
-    const hash = await db.query<{ content_hash: string }>("SELECT content_hash FROM design_revision WHERE design_id = $1 AND number = 1", [id]);
+    const hash = await db.query<{ content_hash: string }>("SELECT content_hash FROM design_revision WHERE design_id = $1 AND number = 1", [
+      id,
+    ]);
     expect(rows.rows.map((r) => `${r.component}/${r.mode}`)).toEqual(faults.map((f) => `${f.component}/${f.mode}`));
     expect(new Set(rows.rows.map((r) => r.content_hash))).toEqual(new Set([hash.rows[0]!.content_hash]));
     expect(rows.rows[0]!.author_id).toBe(ids.engineer);
     expect(rows.rows.at(-1)!.author_id).toBe(ids.reviewer);
-    const audit = await db.query<{ n: number }>("SELECT count(*)::int AS n FROM audit_event WHERE action = 'review.fault-disposed' AND detail->>'designId' = $1", [id]);
+    const audit = await db.query<{ n: number }>(
+      "SELECT count(*)::int AS n FROM audit_event WHERE action = 'review.fault-disposed' AND detail->>'designId' = $1",
+      [id],
+    );
     expect(audit.rows[0]!.n).toBe(faults.length);
     const page = await pageText(reviewer, reviewUrl(id, 1));
     expect(page).toContain("every fault has a disposition");
@@ -267,7 +353,9 @@ describe("review and sign-off", () => {
   });
 
   it("changes requested, then approval: the decision records reviewer, time and the content hash; the author is e-mailed", async () => {
-    expect((await act(reviewer, id, 1, { intent: "decide", verdict: "changes-requested", comment: "Label the inlet switch." })).status).toBe(200);
+    expect(
+      (await act(reviewer, id, 1, { intent: "decide", verdict: "changes-requested", comment: "Label the inlet switch." })).status,
+    ).toBe(200);
     expect(await statusOnPage(engineer, id, 1)).toBe("changes-requested");
     // The author's home page lists the request with the reviewer's words until it is settled.
     const home = await pageText(engineer, "/w/larkspur");
@@ -279,7 +367,9 @@ describe("review and sign-off", () => {
     expect((await act(reviewer, id, 1, { intent: "decide", verdict: "approved", comment: "Checked against the loom." })).status).toBe(200);
     expect(await statusOnPage(engineer, id, 1)).toBe("approved");
     expect(await pageText(engineer, "/w/larkspur")).not.toContain(`/w/larkspur/designs/${id}/revisions/1/review`);
-    const rev = await db.query<{ content_hash: string }>("SELECT content_hash FROM design_revision WHERE design_id = $1 AND number = 1", [id]);
+    const rev = await db.query<{ content_hash: string }>("SELECT content_hash FROM design_revision WHERE design_id = $1 AND number = 1", [
+      id,
+    ]);
     const dec = await db.query<{ reviewer_id: string; verdict: string; content_hash: string; decided_at: Date }>(
       "SELECT d.reviewer_id, d.verdict, d.content_hash, d.decided_at FROM review_decision d JOIN design_revision r ON r.id = d.revision_id WHERE r.design_id = $1 ORDER BY d.decided_at",
       [id],
@@ -296,7 +386,10 @@ describe("review and sign-off", () => {
 
   it("a decision is immutable in the database", async () => {
     await expect(
-      db.query("UPDATE review_decision SET verdict = 'approved' WHERE revision_id IN (SELECT id FROM design_revision WHERE design_id = $1)", [id]),
+      db.query(
+        "UPDATE review_decision SET verdict = 'approved' WHERE revision_id IN (SELECT id FROM design_revision WHERE design_id = $1)",
+        [id],
+      ),
     ).rejects.toThrow(/immutable/);
   });
 
@@ -304,7 +397,11 @@ describe("review and sign-off", () => {
     const changed = structuredClone(PROVEN) as Design & { components: Array<Record<string, unknown>> };
     const seat = changed.components.find((c) => c.id === "SEAT")!;
     seat.label = "Seat switch, sealed";
-    const saved = await json(engineer, "POST", `/api/v1/designs/${id}/revisions`, { document: changed, baseRevision: 1, message: "sealed seat switch" });
+    const saved = await json(engineer, "POST", `/api/v1/designs/${id}/revisions`, {
+      document: changed,
+      baseRevision: 1,
+      message: "sealed seat switch",
+    });
     expect(saved.status).toBe(201);
     expect(await statusOnPage(reviewer, id, 2)).toBe("not-requested");
     expect(await statusOnPage(reviewer, id, 1)).toBe("approved");
@@ -312,7 +409,11 @@ describe("review and sign-off", () => {
     expect(html).toContain("Compared with revision 1, the last approved one.");
     expect(html).toMatch(/changed<\/span> SEAT: label/);
     expect(html).toContain("No row changed its drive or the rules it violates");
-    const same = await json(engineer, "POST", `/api/v1/designs/${id}/revisions`, { document: PROVEN, baseRevision: 2, message: "back to the approved wiring" });
+    const same = await json(engineer, "POST", `/api/v1/designs/${id}/revisions`, {
+      document: PROVEN,
+      baseRevision: 2,
+      message: "back to the approved wiring",
+    });
     expect(same.status).toBe(201);
     // Same content hash as the approved revision 1, still a new revision without approval.
     expect(await statusOnPage(reviewer, id, 3)).toBe("not-requested");

@@ -9,7 +9,8 @@ import { DEMO, signIn, type Client } from "../support/http";
 
 const WS = "larkspur";
 type Json = Record<string, any>;
-const hauler = (): Json => JSON.parse(readFileSync(new URL("../../drizzle/demo-designs/haybarn-campus-hauler.json", import.meta.url), "utf8"));
+const hauler = (): Json =>
+  JSON.parse(readFileSync(new URL("../../drizzle/demo-designs/haybarn-campus-hauler.json", import.meta.url), "utf8"));
 /** Drives when keyed, seated, unplugged, park brake released, in gear, foot brake up and pedal down. */
 const DRIVES = {
   id: "drives",
@@ -79,7 +80,15 @@ describe("the revision save gate (spec 1.1)", () => {
   it.each([
     ["an empty state list", { cond: "plug", in: [] }],
     ['an "any" of nothing', { any: [] }],
-    ["a contradiction", { all: [{ cond: "key", in: ["on"] }, { cond: "key", in: ["off"] }] }],
+    [
+      "a contradiction",
+      {
+        all: [
+          { cond: "key", in: ["on"] },
+          { cond: "key", in: ["off"] },
+        ],
+      },
+    ],
   ])("answers 400 with rules[i].when for a rule matching no row (%s), and writes nothing", async (_, when) => {
     const id = await newDesign(`Gate: empty rule ${Date.now()}`);
     const d = hauler();
@@ -134,7 +143,12 @@ describe("the revision save gate (spec 1.1)", () => {
     expect(r.status).toBe(201);
     expect(r.body.revision.verdict).toMatchObject({ ok: true });
     expect(r.body.revision.verdict.driveRows).toBeGreaterThan(0);
-    expect(r.body.revision.verdict.rules.find((x: Json) => x.id === "drives")).toEqual({ id: "drives", holds: true, demandRows: 2, failingRows: 0 });
+    expect(r.body.revision.verdict.rules.find((x: Json) => x.id === "drives")).toEqual({
+      id: "drives",
+      holds: true,
+      demandRows: 2,
+      failingRows: 0,
+    });
     const after = await written(id);
     expect(after.revisions.map((x) => x.number)).toEqual([1]);
   });

@@ -65,7 +65,9 @@ describe("server processes", () => {
     const port = Number(new URL(BASE_URL).port) + 90;
     const server = serve(port);
     await until("the server to answer", () => healthy(port));
-    const before = await until("two server processes", () => (childrenOf(server.child.pid!).length === 2 ? childrenOf(server.child.pid!) : null));
+    const before = await until("two server processes", () =>
+      childrenOf(server.child.pid!).length === 2 ? childrenOf(server.child.pid!) : null,
+    );
     process.kill(before[0]!, "SIGKILL");
     // Once the primary has seen it go (a connection handed over in that instant can be lost), the
     // other process answers every request while the first is replaced.

@@ -18,7 +18,8 @@ let engineer: Client;
 let reviewer: Client;
 const created: string[] = [];
 const vehicles: string[] = [];
-const hauler = (): Json => JSON.parse(readFileSync(new URL("../../drizzle/demo-designs/haybarn-campus-hauler.json", import.meta.url), "utf8"));
+const hauler = (): Json =>
+  JSON.parse(readFileSync(new URL("../../drizzle/demo-designs/haybarn-campus-hauler.json", import.meta.url), "utf8"));
 
 async function send(c: Client, method: string, path: string, body?: unknown): Promise<{ status: number; body: Json }> {
   const res = await c.fetch(path, {
@@ -90,10 +91,20 @@ async function storeDirectly(designId: string, number: number, document: Json): 
   // The engine proves it without validating (1.1 validation would refuse it); compileDesign reads any shape it can.
   const verdict = prove(document as Design);
   const meta = await db.query<{ workspace_id: string }>("SELECT workspace_id FROM design WHERE id = $1", [designId]);
-  const author = await db.query<{ id: string }>("SELECT id FROM \"user\" WHERE email = $1", [DEMO.engineer]);
+  const author = await db.query<{ id: string }>('SELECT id FROM "user" WHERE email = $1', [DEMO.engineer]);
   await db.query(
     "INSERT INTO design_revision (id, design_id, workspace_id, number, document, verdict, content_hash, message, author_id) VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9)",
-    [id, designId, meta.rows[0]!.workspace_id, number, document, verdict, createHash("sha256").update(JSON.stringify(document)).digest("hex"), "saved before format 1.1", author.rows[0]!.id],
+    [
+      id,
+      designId,
+      meta.rows[0]!.workspace_id,
+      number,
+      document,
+      verdict,
+      createHash("sha256").update(JSON.stringify(document)).digest("hex"),
+      "saved before format 1.1",
+      author.rows[0]!.id,
+    ],
   );
   return id;
 }
@@ -120,7 +131,11 @@ describe("revisions stored before format 1.1 that 1.1 would refuse", () => {
 
     const ruleId = empty.rules[2].id as string;
     const cases = [
-      { design: emptyRuleDesign, revision: emptyRev, why: new RegExp(`rule ${ruleId} matches no row of its truth table \\(rules\\[2\\]\\.when\\)`, "i") },
+      {
+        design: emptyRuleDesign,
+        revision: emptyRev,
+        why: new RegExp(`rule ${ruleId} matches no row of its truth table \\(rules\\[2\\]\\.when\\)`, "i"),
+      },
       { design: neverDesign, revision: neverRev, why: /never drives/ },
     ];
     for (const c of cases) {
@@ -150,16 +165,13 @@ describe("revisions stored before format 1.1 that 1.1 would refuse", () => {
     const vehicleId = made.body.vehicle.id as string;
     vehicles.push(vehicleId);
     const ws = await db.query<{ workspace_id: string; id: string }>(
-      "SELECT d.workspace_id, u.id FROM design d, \"user\" u WHERE d.id = $1 AND u.email = $2",
+      'SELECT d.workspace_id, u.id FROM design d, "user" u WHERE d.id = $1 AND u.email = $2',
       [emptyRuleDesign, DEMO.engineer],
     );
-    await db.query("INSERT INTO vehicle_release (id, workspace_id, vehicle_id, revision_id, released_by, note) VALUES ($1, $2, $3, $4, $5, 'before 1.1')", [
-      randomUUID(),
-      ws.rows[0]!.workspace_id,
-      vehicleId,
-      emptyRev,
-      ws.rows[0]!.id,
-    ]);
+    await db.query(
+      "INSERT INTO vehicle_release (id, workspace_id, vehicle_id, revision_id, released_by, note) VALUES ($1, $2, $3, $4, $5, 'before 1.1')",
+      [randomUUID(), ws.rows[0]!.workspace_id, vehicleId, emptyRev, ws.rows[0]!.id],
+    );
     const vehiclePage = await text(engineer, `/w/${WS}/vehicles/${vehicleId}`);
     expect(vehiclePage.status).toBe(200);
     expect(vehiclePage.body).toMatch(/data-testid="current-release"[\s\S]*Refused by format 1\.1/);
@@ -177,7 +189,10 @@ describe("revisions stored before format 1.1 that 1.1 would refuse", () => {
       expect(body).toContain("Refused by format 1.1");
       expect(body).toMatch(c.why);
       // The API refuses it the same way: 409 release_refused, the reason in the message and at revisionId.
-      const viaApi = await send(engineer, "POST", `/api/v1/vehicles/${vehicleId}/releases`, { revisionId: c.revision, note: "via the API" });
+      const viaApi = await send(engineer, "POST", `/api/v1/vehicles/${vehicleId}/releases`, {
+        revisionId: c.revision,
+        note: "via the API",
+      });
       expect(viaApi.status).toBe(409);
       expect(viaApi.body.error.code).toBe("release_refused");
       expect(viaApi.body.error.message).toMatch(c.why);
@@ -205,22 +220,34 @@ describe("revisions stored before format 1.1 that 1.1 would refuse", () => {
       rules: [{ id: "D1", label: "Drives with the throttle applied", type: "require-drive", when: { cond: "throttle", in: ["applied"] } }],
       layout: {},
     };
-    const saved = await send(engineer, "POST", `/api/v1/designs/${emptyRuleDesign}/revisions`, { document: fixed, baseRevision: 1, message: "a design that passes format 1.1" });
+    const saved = await send(engineer, "POST", `/api/v1/designs/${emptyRuleDesign}/revisions`, {
+      document: fixed,
+      baseRevision: 1,
+      message: "a design that passes format 1.1",
+    });
     expect(saved.status).toBe(201);
     expect(saved.body.revision.number).toBe(2);
     expect((await send(engineer, "GET", `/api/v1/designs/${emptyRuleDesign}/revisions/2`)).body.revision.refusedByFormat11).toEqual([]);
     const review2 = await text(reviewer, `/w/${WS}/designs/${emptyRuleDesign}/revisions/2/review`);
     expect(review2.body).not.toContain("Refused by format 1.1");
-    const fixedId = (await db.query<{ id: string }>("SELECT id FROM design_revision WHERE design_id = $1 AND number = 2", [emptyRuleDesign])).rows[0]!.id;
+    const fixedId = (
+      await db.query<{ id: string }>("SELECT id FROM design_revision WHERE design_id = $1 AND number = 2", [emptyRuleDesign])
+    ).rows[0]!.id;
     const res = await engineer.fetch(`/w/${WS}/vehicles/${vehicleId}`, formBody({ intent: "release", revisionId: fixedId, note: "" }));
     const body = await res.text();
     expect(body).toMatch(/Revision 2 of .{0,120}has not been approved/);
     expect(body).not.toMatch(/Revision 2 of .{0,120}cannot be released/);
 
     // Approved by a reviewer, the replacement is released through the API, and the vehicle carries it unmarked.
-    const approve = await reviewer.fetch(`/w/${WS}/designs/${emptyRuleDesign}/revisions/2/review`, formBody({ intent: "decide", verdict: "approved", comment: "passes 1.1" }));
+    const approve = await reviewer.fetch(
+      `/w/${WS}/designs/${emptyRuleDesign}/revisions/2/review`,
+      formBody({ intent: "decide", verdict: "approved", comment: "passes 1.1" }),
+    );
     expect(approve.status).toBeLessThan(400);
-    const released = await send(engineer, "POST", `/api/v1/vehicles/${vehicleId}/releases`, { revisionId: fixedId, note: "replaces the pre-1.1 revision" });
+    const released = await send(engineer, "POST", `/api/v1/vehicles/${vehicleId}/releases`, {
+      revisionId: fixedId,
+      note: "replaces the pre-1.1 revision",
+    });
     expect(released.status).toBe(201);
     expect(released.body.vehicle.release).toMatchObject({ revisionId: fixedId, number: 2 });
     const after = await text(engineer, `/w/${WS}/vehicles/${vehicleId}`);

@@ -79,7 +79,9 @@ afterAll(async () => {
 
 describe("releases", () => {
   it("refuses to release a revision no reviewer approved, and keeps no release row", async () => {
-    const approved = await db.query("SELECT count(*)::int AS n FROM review_decision WHERE revision_id = $1 AND verdict = 'approved'", [mower.revisionId]);
+    const approved = await db.query("SELECT count(*)::int AS n FROM review_decision WHERE revision_id = $1 AND verdict = 'approved'", [
+      mower.revisionId,
+    ]);
     expect(approved.rows[0].n).toBe(0);
     const before = await db.query("SELECT count(*)::int AS n FROM vehicle_release WHERE vehicle_id = $1", [mower.id]);
     const res = await engineer.fetch(vehiclePath(mower.id), formBody({ intent: "release", revisionId: mower.revisionId, note: "" }));
@@ -92,7 +94,10 @@ describe("releases", () => {
   it("releases an approved revision and keeps the history of releases", async () => {
     const rev = await db.query("SELECT revision_id FROM vehicle_release WHERE vehicle_id = $1 ORDER BY at DESC LIMIT 1", [hauler.id]);
     const before = await db.query("SELECT count(*)::int AS n FROM vehicle_release WHERE vehicle_id = $1", [hauler.id]);
-    const res = await engineer.fetch(vehiclePath(hauler.id), formBody({ intent: "release", revisionId: rev.rows[0].revision_id, note: "re-released after loom check" }));
+    const res = await engineer.fetch(
+      vehiclePath(hauler.id),
+      formBody({ intent: "release", revisionId: rev.rows[0].revision_id, note: "re-released after loom check" }),
+    );
     expect(res.status).toBe(200);
     const rows = await db.query("SELECT note FROM vehicle_release WHERE vehicle_id = $1 ORDER BY at DESC", [hauler.id]);
     expect(rows.rows.length).toBe(before.rows[0].n + 1);
@@ -103,7 +108,9 @@ describe("releases", () => {
     const empty = await engineer.fetch(vehiclePath(hauler.id), formBody({ intent: "release", revisionId: "" }));
     expect(empty.status).toBe(400);
     expect(await empty.text()).toContain("Choose a revision to release.");
-    expect((await technician.fetch(vehiclePath(hauler.id), formBody({ intent: "release", revisionId: mower.revisionId }))).status).toBe(403);
+    expect((await technician.fetch(vehiclePath(hauler.id), formBody({ intent: "release", revisionId: mower.revisionId }))).status).toBe(
+      403,
+    );
     expect((await reviewer.fetch(vehiclePath(hauler.id), formBody({ intent: "release", revisionId: mower.revisionId }))).status).toBe(403);
   });
 
@@ -151,7 +158,9 @@ describe("bench runs", () => {
   it("each tap is saved at once: a reload shows the same outcomes and notes", async () => {
     expect((await record(technician, runId, { intent: "outcome", step: "1", outcome: "pass" })).status).toBe(200);
     expect((await record(technician, runId, { intent: "outcome", step: "3", outcome: "skip" })).status).toBe(200);
-    expect((await record(technician, runId, { intent: "note", step: "3", note: "Pedal switch not reachable with the seat fitted" })).status).toBe(200);
+    expect(
+      (await record(technician, runId, { intent: "note", step: "3", note: "Pedal switch not reachable with the seat fitted" })).status,
+    ).toBe(200);
     const steps = await stepsOf(runId);
     expect(steps[0]).toMatchObject({ n: 1, outcome: "pass" });
     expect(steps[2]).toMatchObject({ n: 3, outcome: "skip", note: "Pedal switch not reachable with the seat fitted" });
@@ -177,7 +186,9 @@ describe("bench runs", () => {
     const since = new Date(Date.now() - 1000);
     expect((await record(technician, runId, { intent: "outcome", step: "2", outcome: "fail" })).status).toBe(200);
     expect((await record(technician, runId, { intent: "outcome", step: "4", outcome: "pass" })).status).toBe(200);
-    const flags = await db.query("SELECT reason, step_number FROM vehicle_attention WHERE bench_run_id = $1 AND cleared_at IS NULL", [runId]);
+    const flags = await db.query("SELECT reason, step_number FROM vehicle_attention WHERE bench_run_id = $1 AND cleared_at IS NULL", [
+      runId,
+    ]);
     expect(flags.rows).toEqual([{ reason: "Bench step 2 failed", step_number: 2 }]);
     const author = await db.query(
       `SELECT u.email FROM bench_run b JOIN design_revision r ON r.id = b.revision_id JOIN "user" u ON u.id = r.author_id WHERE b.id = $1`,
@@ -190,7 +201,9 @@ describe("bench runs", () => {
     // The same step failing again does not raise a second flag.
     await record(technician, runId, { intent: "outcome", step: "2", outcome: "pass" });
     await record(technician, runId, { intent: "outcome", step: "2", outcome: "fail" });
-    const again = await db.query("SELECT count(*)::int AS n FROM vehicle_attention WHERE bench_run_id = $1 AND cleared_at IS NULL", [runId]);
+    const again = await db.query("SELECT count(*)::int AS n FROM vehicle_attention WHERE bench_run_id = $1 AND cleared_at IS NULL", [
+      runId,
+    ]);
     expect(again.rows[0].n).toBe(1);
   });
 
@@ -237,7 +250,9 @@ describe("bench runs", () => {
     // Frozen: the app refuses, and so does the database.
     const late = await record(technician, runId, { intent: "outcome", step: "1", outcome: "fail" });
     expect(late.status).toBe(409);
-    await expect(db.query("UPDATE bench_step_result SET note = 'edited' WHERE run_id = $1 AND n = 1", [runId])).rejects.toThrow(/completed/);
+    await expect(db.query("UPDATE bench_step_result SET note = 'edited' WHERE run_id = $1 AND n = 1", [runId])).rejects.toThrow(
+      /completed/,
+    );
     // The list shows it as completed, with its failure.
     const list = await (await engineer.fetch("/w/larkspur/bench-tests?status=failures")).text();
     expect(list).toContain(`/w/larkspur/bench-tests/${runId}`);
@@ -247,8 +262,12 @@ describe("bench runs", () => {
     const noNote = await technician.fetch(vehiclePath(hauler.id), formBody({ intent: "clear-attention", note: "" }));
     expect(noNote.status).toBe(400);
     expect(await noNote.text()).toContain("Say what was done about it.");
-    expect((await technician.fetch(vehiclePath(hauler.id), formBody({ intent: "clear-attention", note: "Brake switch replaced" }))).status).toBe(200);
-    const open = await db.query("SELECT count(*)::int AS n FROM vehicle_attention WHERE vehicle_id = $1 AND cleared_at IS NULL", [hauler.id]);
+    expect(
+      (await technician.fetch(vehiclePath(hauler.id), formBody({ intent: "clear-attention", note: "Brake switch replaced" }))).status,
+    ).toBe(200);
+    const open = await db.query("SELECT count(*)::int AS n FROM vehicle_attention WHERE vehicle_id = $1 AND cleared_at IS NULL", [
+      hauler.id,
+    ]);
     expect(open.rows[0].n).toBe(0);
   });
 });
@@ -260,15 +279,17 @@ describe("the failure e-mail", () => {
     const runId = await startRun();
     const since = new Date(Date.now() - 1000);
     const author = (
-      await db.query(`SELECT u.email FROM bench_run b JOIN design_revision r ON r.id = b.revision_id JOIN "user" u ON u.id = r.author_id WHERE b.id = $1`, [runId])
+      await db.query(
+        `SELECT u.email FROM bench_run b JOIN design_revision r ON r.id = b.revision_id JOIN "user" u ON u.id = r.author_id WHERE b.id = $1`,
+        [runId],
+      )
     ).rows[0].email as string;
     const mailsOfRun = async () =>
       (
-        await db.query("SELECT subject, text_body, attachments FROM mail_message WHERE recipients LIKE $1 AND received_at >= $2 AND text_body LIKE $3 ORDER BY received_at", [
-          `%${author}%`,
-          since,
-          `%${runId}%`,
-        ])
+        await db.query(
+          "SELECT subject, text_body, attachments FROM mail_message WHERE recipients LIKE $1 AND received_at >= $2 AND text_body LIKE $3 ORDER BY received_at",
+          [`%${author}%`, since, `%${runId}%`],
+        )
       ).rows as Array<{ subject: string; text_body: string; attachments: string }>;
     for (const outcome of ["fail", "pass", "fail", "pass", "fail"]) {
       expect((await record(technician, runId, { intent: "outcome", step: "2", outcome })).status).toBe(200);
@@ -298,7 +319,8 @@ describe("the failure e-mail", () => {
     // A step failed last goes in the digest at completion.
     const steps = await stepsOf(runId);
     const last = steps[steps.length - 1].n;
-    for (const st of steps) if (!st.outcome) await record(technician, runId, { intent: "outcome", step: String(st.n), outcome: st.n === last ? "fail" : "pass" });
+    for (const st of steps)
+      if (!st.outcome) await record(technician, runId, { intent: "outcome", step: String(st.n), outcome: st.n === last ? "fail" : "pass" });
     expect((await record(technician, runId, { intent: "complete" })).status).toBe(200);
     const digest = await mailTo(author, `Bench test of ${hauler.name} completed: 1 failed step not yet reported`, since);
     expect(digest.text_body).toContain(`Step ${last}`);
@@ -308,7 +330,9 @@ describe("the failure e-mail", () => {
     const all = await mailsOfRun();
     expect(all.filter((m) => m.subject.startsWith("Bench step 2 failed"))).toHaveLength(1);
     expect(all).toHaveLength(2);
-    const mailed = await db.query("SELECT n FROM bench_step_result WHERE run_id = $1 AND failure_mailed_at IS NOT NULL ORDER BY n", [runId]);
+    const mailed = await db.query("SELECT n FROM bench_step_result WHERE run_id = $1 AND failure_mailed_at IS NOT NULL ORDER BY n", [
+      runId,
+    ]);
     expect(mailed.rows.map((r) => r.n)).toEqual([2, last]);
   });
 
@@ -322,7 +346,9 @@ describe("the failure e-mail", () => {
     const text = await res.text();
     const lines = text.split("\n");
     expect(lines[0]).toMatch(/^Caution,"?Isolate the traction pack first/);
-    expect(lines[2]).toBe("step,kind,instruction,conditions,expected drive,expected live,expected dead,result,note,photos,recorded by,recorded at");
+    expect(lines[2]).toBe(
+      "step,kind,instruction,conditions,expected drive,expected live,expected dead,result,note,photos,recorded by,recorded at",
+    );
     expect(lines[3]).toMatch(/^1,/);
     expect(lines[3]).toContain(",fail,");
     // OWASP CSV Injection: a note that starts a formula is written as text.
@@ -341,7 +367,10 @@ describe("across workspaces", () => {
       expect((await outsider.client.fetch(path.replace("/w/larkspur/", `/w/${outsider.slug}/`))).status).toBe(404);
     }
     // The outsider is an admin of their own workspace: no bench-test role there, and the run is not theirs either way.
-    const post = await outsider.client.fetch(runPath(runId).replace("/w/larkspur/", `/w/${outsider.slug}/`), formBody({ intent: "outcome", step: "1", outcome: "fail" }));
+    const post = await outsider.client.fetch(
+      runPath(runId).replace("/w/larkspur/", `/w/${outsider.slug}/`),
+      formBody({ intent: "outcome", step: "1", outcome: "fail" }),
+    );
     expect([403, 404]).toContain(post.status);
     expect((await stepsOf(runId))[0].outcome).toBeNull();
   });

@@ -42,7 +42,9 @@ function upload(c: Client, bytes: Uint8Array, name: string, type: string) {
 beforeAll(async () => {
   db = new pg.Client({ connectionString: process.env.DATABASE_URL });
   await db.connect();
-  const r = await db.query("SELECT v.id, v.workspace_id FROM vehicle v JOIN workspace w ON w.id = v.workspace_id WHERE w.slug = 'larkspur' ORDER BY v.name LIMIT 1");
+  const r = await db.query(
+    "SELECT v.id, v.workspace_id FROM vehicle v JOIN workspace w ON w.id = v.workspace_id WHERE w.slug = 'larkspur' ORDER BY v.name LIMIT 1",
+  );
   vehicleId = r.rows[0].id;
   workspaceId = r.rows[0].workspace_id;
   technician = await signIn(DEMO.technician);
@@ -58,7 +60,11 @@ describe("uploads", () => {
     const res = await upload(technician, PNG, "stand-switch.png", "image/png");
     expect(res.status).toBe(200);
     expect(await countUploads()).toBe(before + 1);
-    const row = (await db.query("SELECT id, sha256, content_type, size FROM upload WHERE workspace_id = $1 ORDER BY created_at DESC LIMIT 1", [workspaceId])).rows[0];
+    const row = (
+      await db.query("SELECT id, sha256, content_type, size FROM upload WHERE workspace_id = $1 ORDER BY created_at DESC LIMIT 1", [
+        workspaceId,
+      ])
+    ).rows[0];
     expect(row.sha256).toBe(createHash("sha256").update(PNG).digest("hex"));
     expect(row.content_type).toBe("image/png");
     const reviewer = await signIn(DEMO.reviewer);
@@ -95,7 +101,8 @@ describe("uploads", () => {
 
   it("a bench step's photo picker takes photos only, and its refusal says so exactly", async () => {
     // The demo hauler has a released revision, so it has a bench procedure.
-    const hauler = (await db.query("SELECT id FROM vehicle WHERE workspace_id = $1 AND name = 'Haybarn campus hauler #3'", [workspaceId])).rows[0].id as string;
+    const hauler = (await db.query("SELECT id FROM vehicle WHERE workspace_id = $1 AND name = 'Haybarn campus hauler #3'", [workspaceId]))
+      .rows[0].id as string;
     const started = await technician.fetch(`/w/larkspur/vehicles/${hauler}`, formBody({ intent: "start-bench-run" }));
     const runPath = started.headers.get("location") ?? "";
     expect(runPath).toMatch(/\/bench-tests\//);
@@ -105,7 +112,12 @@ describe("uploads", () => {
     form.set("intent", "photo");
     form.set("step", "1");
     // A real PDF header: accepted for a vehicle, not for a step.
-    form.set("file", new File([Buffer.from("%PDF-1.4\n%\xE2\xE3\xCF\xD3\n1 0 obj\n<<>>\nendobj\ntrailer\n<<>>\n%%EOF\n", "latin1")], "wiring.pdf", { type: "application/pdf" }));
+    form.set(
+      "file",
+      new File([Buffer.from("%PDF-1.4\n%\xE2\xE3\xCF\xD3\n1 0 obj\n<<>>\nendobj\ntrailer\n<<>>\n%%EOF\n", "latin1")], "wiring.pdf", {
+        type: "application/pdf",
+      }),
+    );
     const res = await technician.fetch(runPath, { method: "POST", body: form });
     expect(res.status).toBe(415);
     const text = await res.text();

@@ -23,7 +23,16 @@ const saveUsers = quick ? 2 : 5;
 type Session = { cookie: string; ip: string };
 type MixName = "pagesAndReads" | "proofs" | "saves";
 type Recorder = { latencies: number[]; statuses: Record<string, number>; failures: number };
-type Figures = { requests: number; throughputPerSec: number; p50ms: number; p90ms: number; p99ms: number; maxMs: number; errors: number; statuses: Record<string, number> };
+type Figures = {
+  requests: number;
+  throughputPerSec: number;
+  p50ms: number;
+  p90ms: number;
+  p99ms: number;
+  maxMs: number;
+  errors: number;
+  statuses: Record<string, number>;
+};
 
 async function signIn(base: string, email: string, ip: string): Promise<Session> {
   const res = await fetch(`${base}/api/auth/sign-in/email`, {
@@ -32,7 +41,13 @@ async function signIn(base: string, email: string, ip: string): Promise<Session>
     body: JSON.stringify({ email, password: "chainproof-demo" }),
   });
   if (!res.ok) throw new Error(`sign-in of ${email} failed: ${res.status}`);
-  return { cookie: res.headers.getSetCookie().map((c) => c.split(";")[0]).join("; "), ip };
+  return {
+    cookie: res.headers
+      .getSetCookie()
+      .map((c) => c.split(";")[0])
+      .join("; "),
+    ip,
+  };
 }
 
 const recorder = (): Recorder => ({ latencies: [], statuses: {}, failures: 0 });
@@ -42,7 +57,15 @@ const recorder = (): Recorder => ({ latencies: [], statuses: {}, failures: 0 });
  * A late answer is also counted as the answers the user would have waited for meanwhile
  * (coordinated omission, as HdrHistogram's recordValueWithExpectedInterval corrects it).
  */
-function user(base: string, s: Session, requests: autocannon.Request[], rate: number, duration: number, rec: Recorder, startAfterMs: number) {
+function user(
+  base: string,
+  s: Session,
+  requests: autocannon.Request[],
+  rate: number,
+  duration: number,
+  rec: Recorder,
+  startAfterMs: number,
+) {
   const interval = rate > 0 ? 1000 / rate : 0;
   return new Promise<void>((resolve) => {
     setTimeout(() => {
@@ -53,7 +76,13 @@ function user(base: string, s: Session, requests: autocannon.Request[], rate: nu
           duration,
           ...(rate > 0 ? { connectionRate: rate } : {}),
           // As a browser sends them: compressed answers cost the server what they cost it for people.
-          headers: { cookie: s.cookie, "x-forwarded-for": s.ip, origin: base, "content-type": "application/json", "accept-encoding": "gzip, deflate, br" },
+          headers: {
+            cookie: s.cookie,
+            "x-forwarded-for": s.ip,
+            origin: base,
+            "content-type": "application/json",
+            "accept-encoding": "gzip, deflate, br",
+          },
           requests,
         },
         () => resolve(),
@@ -72,7 +101,9 @@ function figures(rec: Recorder, okStatuses: number[], duration: number): Figures
   const sorted = [...rec.latencies].sort((a, b) => a - b);
   const at = (q: number) => (sorted.length ? Math.round(sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))]!) : 0);
   const answered = Object.values(rec.statuses).reduce((n, c) => n + c, 0);
-  const bad = Object.entries(rec.statuses).filter(([code]) => !okStatuses.includes(Number(code))).reduce((n, [, c]) => n + c, 0);
+  const bad = Object.entries(rec.statuses)
+    .filter(([code]) => !okStatuses.includes(Number(code)))
+    .reduce((n, [, c]) => n + c, 0);
   return {
     requests: answered,
     throughputPerSec: Math.round((answered / duration) * 10) / 10,
@@ -92,8 +123,16 @@ async function main() {
   let pgPort = Number(process.env.CHAINPROOF_PG_PORT ?? 54339);
   if (!quick || !base) {
     stack = await bringUp({
-      name: "load", dataDir: ".data/load", pgPort: 54349, database: "chainproof_load", freshDatabase: true,
-      smtpPort: 2545, s3Port: 4589, appPort: 3200, demo: true, authSecret: randomBytes(48).toString("base64url"),
+      name: "load",
+      dataDir: ".data/load",
+      pgPort: 54349,
+      database: "chainproof_load",
+      freshDatabase: true,
+      smtpPort: 2545,
+      s3Port: 4589,
+      appPort: 3200,
+      demo: true,
+      authSecret: randomBytes(48).toString("base64url"),
       extraEnv: { TRUST_PROXY: "1", NODE_ENV: "production" },
     });
     if ((await run("npx", ["react-router", "build"], { NODE_ENV: "production" })) !== 0) throw new Error("the build failed");
@@ -110,11 +149,19 @@ async function main() {
     const get = async <T>(path: string) => (await (await fetch(`${base}${path}`, { headers: { cookie: engineer.cookie } })).json()) as T;
 
     const { designs } = await get<{ designs: Array<{ id: string }> }>("/api/v1/designs?workspace=larkspur");
-    const details = await Promise.all(designs.map((d) => get<{ design: { id: string }; document: unknown; latestRevision: number | null }>(`/api/v1/designs/${d.id}`)));
+    const details = await Promise.all(
+      designs.map((d) => get<{ design: { id: string }; document: unknown; latestRevision: number | null }>(`/api/v1/designs/${d.id}`)),
+    );
     const withDocument = details.filter((d) => d.document);
     const proven = details.find((d) => d.latestRevision) ?? details[0]!;
     const drafts = await Promise.all(
-      withDocument.map(async (d) => ({ id: d.design.id, ...((await get<{ draft: { version: number; document: unknown } | null }>(`/api/v1/designs/${d.design.id}/draft`)).draft ?? { version: 0, document: d.document }) })),
+      withDocument.map(async (d) => ({
+        id: d.design.id,
+        ...((await get<{ draft: { version: number; document: unknown } | null }>(`/api/v1/designs/${d.design.id}/draft`)).draft ?? {
+          version: 0,
+          document: d.document,
+        }),
+      })),
     );
 
     const reads: autocannon.Request[] = [
@@ -125,7 +172,11 @@ async function main() {
       { method: "GET", path: "/api/v1/designs?workspace=larkspur" },
       { method: "GET", path: `/api/v1/designs/${proven.design.id}` },
     ];
-    const proofs: autocannon.Request[] = withDocument.map((d) => ({ method: "POST", path: "/api/v1/proofs?workspace=larkspur", body: JSON.stringify({ document: d.document }) }));
+    const proofs: autocannon.Request[] = withDocument.map((d) => ({
+      method: "POST",
+      path: "/api/v1/proofs?workspace=larkspur",
+      body: JSON.stringify({ document: d.document }),
+    }));
     // A saving user keeps editing one working copy, shared with other saving users: each save
     // names the version it read; 409 (someone saved first) hands over the current version.
     const saving = (n: number): autocannon.Request[] => {
@@ -151,8 +202,14 @@ async function main() {
     };
     // Who does what: saving users are engineers (sessions 0, 4, 8, ...: they may edit), proving
     // users the first others; everyone else loads pages and reads the API.
-    const savers = sessions.map((_, n) => n).filter((n) => n % 4 === 0).slice(0, saveUsers);
-    const provers = sessions.map((_, n) => n).filter((n) => n % 4 !== 0).slice(0, proofUsers);
+    const savers = sessions
+      .map((_, n) => n)
+      .filter((n) => n % 4 === 0)
+      .slice(0, saveUsers);
+    const provers = sessions
+      .map((_, n) => n)
+      .filter((n) => n % 4 !== 0)
+      .slice(0, proofUsers);
     const mixOf = (n: number): MixName => (savers.includes(n) ? "saves" : provers.includes(n) ? "proofs" : "pagesAndReads");
     // The requests of user n, starting at a different place in the list for each user.
     const rotate = <T>(list: T[], n: number) => list.map((_, i) => list[(i + n) % list.length]!);
@@ -208,7 +265,8 @@ async function main() {
     console.log(JSON.stringify(report, null, 2));
     const failures: string[] = [];
     for (const p of [steady, ...capacity])
-      for (const mix of ["pagesAndReads", "proofs", "saves"] as const) if (p[mix].errors > 0) failures.push(`${mix} at ${p.actionsPerUserPerSec}/s: ${p[mix].errors} errors`);
+      for (const mix of ["pagesAndReads", "proofs", "saves"] as const)
+        if (p[mix].errors > 0) failures.push(`${mix} at ${p.actionsPerUserPerSec}/s: ${p[mix].errors} errors`);
     if (steady.saves.statuses["200"] === undefined) failures.push("no draft save succeeded");
     if (outage.errors > 0) failures.push(`outage: ${outage.errors} responses other than 200/503`);
     if (!outage.statuses["503"]) failures.push("the outage produced no 503: was the database stopped?");

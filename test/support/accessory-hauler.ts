@@ -3,7 +3,9 @@
 import { readFileSync } from "node:fs";
 import type { Design } from "../../app/engine";
 
-const HAULER = JSON.parse(readFileSync(new URL("../../drizzle/demo-designs/haybarn-campus-hauler.json", import.meta.url), "utf8")) as Design;
+const HAULER = JSON.parse(
+  readFileSync(new URL("../../drizzle/demo-designs/haybarn-campus-hauler.json", import.meta.url), "utf8"),
+) as Design;
 
 const ACCESSORIES: Array<[id: string, label: string, safe: string, other: string]> = [
   ["bed", "Cargo bed", "down", "raised"],
@@ -34,7 +36,13 @@ export function accessoryHauler(): Design {
   d.rules.splice(
     d.rules.length - 1,
     0,
-    { id: "bed-raised", label: "No drive with the cargo bed raised", type: "inhibit", when: { cond: "bed", in: ["raised"] }, forbid: "drive" },
+    {
+      id: "bed-raised",
+      label: "No drive with the cargo bed raised",
+      type: "inhibit",
+      when: { cond: "bed", in: ["raised"] },
+      forbid: "drive",
+    },
     { id: "service", label: "No drive in service mode", type: "inhibit", when: { cond: "service", in: ["service"] }, forbid: "drive" },
   );
   return d;

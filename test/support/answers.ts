@@ -26,14 +26,17 @@ export async function checkAnswer(method: string, pathname: string, res: Respons
   const endpoint = endpointOf(m, pathname);
   if (!endpoint) {
     if (!servesPath(pathname)) return "not-an-endpoint";
-    if (!UNSERVED_METHOD.has(res.status)) throw new AnswerMismatch(`${where}; no endpoint serves ${m} there, so only 405, 429 or 503 may come back`);
+    if (!UNSERVED_METHOD.has(res.status))
+      throw new AnswerMismatch(`${where}; no endpoint serves ${m} there, so only 405, 429 or 503 may come back`);
     await expectShape(where, res, errorSchema);
     return "checked";
   }
   const reply = endpoint.replies[res.status];
   if (!reply) {
     const declared = Object.keys(endpoint.replies).join(", ");
-    throw new AnswerMismatch(`${where}, which ${endpoint.method.toUpperCase()} ${endpoint.path} does not declare (it declares ${declared}): ${await res.text()}`);
+    throw new AnswerMismatch(
+      `${where}, which ${endpoint.method.toUpperCase()} ${endpoint.path} does not declare (it declares ${declared}): ${await res.text()}`,
+    );
   }
   if (reply.media === "text/csv") {
     const type = res.headers.get("content-type") ?? "";
@@ -56,6 +59,8 @@ async function expectShape(where: string, res: Response, schema: z.ZodType): Pro
   }
   const parsed = schema.safeParse(body);
   if (!parsed.success) {
-    throw new AnswerMismatch(`${where} with a body that does not match its schema:\n${z.prettifyError(parsed.error)}\nbody: ${text.slice(0, 500)}`);
+    throw new AnswerMismatch(
+      `${where} with a body that does not match its schema:\n${z.prettifyError(parsed.error)}\nbody: ${text.slice(0, 500)}`,
+    );
   }
 }

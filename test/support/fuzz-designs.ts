@@ -19,8 +19,8 @@ const readJson = (file: string) => JSON.parse(readFileSync(file, "utf8")) as Obj
 /** The valid starting points: every design the project ships (each passes validateDesign). */
 export const BASE_DESIGNS: Obj[] = [
   ...(EXAMPLES ? ["campus-hauler", "deck-mower", "trail-bike"].map((n) => readJson(`${EXAMPLES}/${n}.design.json`)) : []),
-  ...["haybarn-campus-hauler.json", "meadowline-deck-mower.r1.json", "meadowline-deck-mower.draft.json", "scree-trail-bike.draft.json"].map((f) =>
-    readJson(`${DEMO}/${f}`),
+  ...["haybarn-campus-hauler.json", "meadowline-deck-mower.r1.json", "meadowline-deck-mower.draft.json", "scree-trail-bike.draft.json"].map(
+    (f) => readJson(`${DEMO}/${f}`),
   ),
 ];
 
@@ -76,31 +76,117 @@ const typeOf = (v: Json) => (v === null ? "null" : Array.isArray(v) ? "array" : 
 
 /** Values of every JSON type, and edge cases of each. */
 const ODD_VALUES: Json[] = [
-  null, true, false, 0, -1, 1.5, 2 ** 31, 2 ** 53 + 2, -(2 ** 53), 1e308, -1e-308, "", " ", "x", "0", "true", "null",
-  [], [null], [[]], {}, { id: "x" }, { cond: "x", in: [] }, { all: [] }, { always: false }, ["a", "a"],
+  null,
+  true,
+  false,
+  0,
+  -1,
+  1.5,
+  2 ** 31,
+  2 ** 53 + 2,
+  -(2 ** 53),
+  1e308,
+  -1e-308,
+  "",
+  " ",
+  "x",
+  "0",
+  "true",
+  "null",
+  [],
+  [null],
+  [[]],
+  {},
+  { id: "x" },
+  { cond: "x", in: [] },
+  { all: [] },
+  { always: false },
+  ["a", "a"],
 ];
 
 const ODD_TEXT: string[] = [
-  "\u0000", "a\u0000b", "\ud800", "x\udc00", "\udc00\ud800", "e\u0301", "\u202eRTL", "\u200b", "\ufeffBOM", "🛞🔋", "𝔘𝔫𝔦",
-  "x".repeat(5000), "__proto__", "constructor", "toString", "<b>bold</b>", "' OR 1=1 --", "line\nbreak\ttab", "\\", "\"quoted\"",
-  "İı", "ß", "नमस्ते", "..", ".", "A.", ".1",
+  "\u0000",
+  "a\u0000b",
+  "\ud800",
+  "x\udc00",
+  "\udc00\ud800",
+  "e\u0301",
+  "\u202eRTL",
+  "\u200b",
+  "\ufeffBOM",
+  "🛞🔋",
+  "𝔘𝔫𝔦",
+  "x".repeat(5000),
+  "__proto__",
+  "constructor",
+  "toString",
+  "<b>bold</b>",
+  "' OR 1=1 --",
+  "line\nbreak\ttab",
+  "\\",
+  '"quoted"',
+  "İı",
+  "ß",
+  "नमस्ते",
+  "..",
+  ".",
+  "A.",
+  ".1",
 ];
 
 const ODD_KEYS = ["__proto__", "constructor", "prototype", "", "\u0000", "\ud800", "toString", "hasOwnProperty", "$ref", "format "];
 
 const BAD_REFS = ["NOPE", "NOPE.1", "BAT.9", "purple", "", ".", "X.", ".1", "a".repeat(65), "has space", "ünï", "S1.+.+"];
 
-const BAD_FORMATS = ["chainproof/design@2", "chainproof/design@0", "Chainproof/design@1", "", "chainproof/verdict@1", "chainproof/design@1 ", "design"];
+const BAD_FORMATS = [
+  "chainproof/design@2",
+  "chainproof/design@0",
+  "Chainproof/design@1",
+  "",
+  "chainproof/verdict@1",
+  "chainproof/design@1 ",
+  "design",
+];
 
 export type MutationKind =
-  | "delete" | "retype" | "number-text" | "collide-id" | "dangle" | "duplicate" | "format" | "resize"
-  | "nest" | "unicode" | "odd-key" | "rename-key" | "swap" | "relabel" | "reverse" | "rename-id" | "number-edge";
+  | "delete"
+  | "retype"
+  | "number-text"
+  | "collide-id"
+  | "dangle"
+  | "duplicate"
+  | "format"
+  | "resize"
+  | "nest"
+  | "unicode"
+  | "odd-key"
+  | "rename-key"
+  | "swap"
+  | "relabel"
+  | "reverse"
+  | "rename-id"
+  | "number-edge";
 
 export type Mutation = { kind: MutationKind; at: number; pick: number; size: number };
 
 const KINDS: MutationKind[] = [
-  "delete", "retype", "number-text", "collide-id", "dangle", "duplicate", "format", "resize",
-  "nest", "unicode", "odd-key", "rename-key", "swap", "relabel", "reverse", "rename-id", "number-edge",
+  "delete",
+  "retype",
+  "number-text",
+  "collide-id",
+  "dangle",
+  "duplicate",
+  "format",
+  "resize",
+  "nest",
+  "unicode",
+  "odd-key",
+  "rename-key",
+  "swap",
+  "relabel",
+  "reverse",
+  "rename-id",
+  "number-edge",
 ];
 
 /** Numbers at the edges: of PostgreSQL's integer, of exact doubles, signs, fractions. */
@@ -141,7 +227,12 @@ export function applyMutation(doc: Json, m: Mutation): Json {
       return put(doc, where, cloneJson(choose(others, m.pick)!));
     }
     case "number-text": {
-      const p = choose(of((v) => typeof v === "number" || typeof v === "boolean" || (typeof v === "string" && v.trim() !== "" && !Number.isNaN(Number(v)))), m.at);
+      const p = choose(
+        of(
+          (v) => typeof v === "number" || typeof v === "boolean" || (typeof v === "string" && v.trim() !== "" && !Number.isNaN(Number(v))),
+        ),
+        m.at,
+      );
       if (!p) return doc;
       const v = get(doc, p);
       return put(doc, p, typeof v === "string" ? Number(v) : String(v));
@@ -155,11 +246,17 @@ export function applyMutation(doc: Json, m: Mutation): Json {
       return doc;
     }
     case "dangle": {
-      const p = choose(of((v, at) => typeof v === "string" && at.length > 0), m.at);
+      const p = choose(
+        of((v, at) => typeof v === "string" && at.length > 0),
+        m.at,
+      );
       return p ? put(doc, p, choose(BAD_REFS, m.pick)!) : doc;
     }
     case "duplicate": {
-      const p = choose(of((v) => Array.isArray(v) && v.length > 0), m.at);
+      const p = choose(
+        of((v) => Array.isArray(v) && v.length > 0),
+        m.at,
+      );
       if (!p) return doc;
       const arr = get(doc, p) as Json[];
       const i = m.pick % arr.length;
@@ -169,28 +266,45 @@ export function applyMutation(doc: Json, m: Mutation): Json {
     case "format":
       return isObj(doc) ? (setOwn(doc, "format", choose(BAD_FORMATS, m.pick)!), doc) : doc;
     case "resize": {
-      const p = choose(of((v) => Array.isArray(v)), m.at);
+      const p = choose(
+        of((v) => Array.isArray(v)),
+        m.at,
+      );
       if (!p) return doc;
       const arr = get(doc, p) as Json[];
       if (m.pick % 3 === 0 || arr.length === 0) return put(doc, p, []);
       // Up to ~6,000 copies: some bodies pass 1 MB (413), most stay below.
       const n = m.size < 90 ? m.size * 2 + 2 : 600 * (m.size - 89);
-      return put(doc, p, Array.from({ length: n }, (_, k) => cloneJson(arr[k % arr.length]!)));
+      return put(
+        doc,
+        p,
+        Array.from({ length: n }, (_, k) => cloneJson(arr[k % arr.length]!)),
+      );
     }
     case "nest":
       return put(doc, where, nested(1 + ((m.size * 7 + m.pick) % 140), cloneJson(get(doc, where))));
     case "unicode": {
-      const p = choose(of((v) => typeof v === "string"), m.at) ?? where;
+      const p =
+        choose(
+          of((v) => typeof v === "string"),
+          m.at,
+        ) ?? where;
       return put(doc, p, choose(ODD_TEXT, m.pick)!);
     }
     case "odd-key": {
-      const p = choose(of((v) => isObj(v)), m.at);
+      const p = choose(
+        of((v) => isObj(v)),
+        m.at,
+      );
       if (!p) return doc;
       setOwn(get(doc, p) as Obj, choose(ODD_KEYS, m.pick)!, cloneJson(choose(ODD_VALUES, m.size)!));
       return doc;
     }
     case "rename-key": {
-      const p = choose(inner.filter((q) => typeof q[q.length - 1] === "string"), m.at);
+      const p = choose(
+        inner.filter((q) => typeof q[q.length - 1] === "string"),
+        m.at,
+      );
       if (!p) return doc;
       const key = p[p.length - 1] as string;
       const renamed = [key.toUpperCase(), `${key}s`, key.slice(1), `${key}_`, key.replace(/[a-z]/, (c) => c.toUpperCase())][m.pick % 5]!;
@@ -202,22 +316,36 @@ export function applyMutation(doc: Json, m: Mutation): Json {
     case "swap": {
       const p = choose(inner, m.at);
       const q = choose(all, m.pick);
-      if (!p || !q || q.length <= p.length && p.slice(0, q.length).every((s, i) => s === q[i])) return doc;
+      if (!p || !q || (q.length <= p.length && p.slice(0, q.length).every((s, i) => s === q[i]))) return doc;
       return put(doc, p, cloneJson(get(doc, q)));
     }
     case "relabel": {
       // Usually still valid: a label, a name or a layout position changes.
-      const p = choose(of((v, at) => (typeof v === "string" && (at.at(-1) === "label" || at.at(-1) === "name" || at.at(-1) === "part")) || (typeof v === "number" && at[0] === "layout")), m.at);
+      const p = choose(
+        of(
+          (v, at) =>
+            (typeof v === "string" && (at.at(-1) === "label" || at.at(-1) === "name" || at.at(-1) === "part")) ||
+            (typeof v === "number" && at[0] === "layout"),
+        ),
+        m.at,
+      );
       if (!p) return doc;
       return put(doc, p, typeof get(doc, p) === "number" ? (m.pick % 2000) - 1000 : `Relabelled ${m.pick % 97}`);
     }
     case "number-edge": {
-      const p = choose(of((v) => typeof v === "number"), m.at) ?? where;
+      const p =
+        choose(
+          of((v) => typeof v === "number"),
+          m.at,
+        ) ?? where;
       return put(doc, p, choose(EDGE_NUMBERS, m.pick)!);
     }
     case "rename-id": {
       // Still valid unless the new id collides: an id renamed everywhere it is referenced.
-      const p = choose(of((v) => isObj(v) && typeof v.id === "string"), m.at);
+      const p = choose(
+        of((v) => isObj(v) && typeof v.id === "string"),
+        m.at,
+      );
       if (!p) return doc;
       const old = (get(doc, p) as Obj).id as string;
       const next = choose(TRICKY_IDS, m.pick)!;
@@ -225,7 +353,10 @@ export function applyMutation(doc: Json, m: Mutation): Json {
     }
     case "reverse": {
       // Still valid: list order carries no meaning except for conditions (row order) and rules.
-      const p = choose(of((v) => Array.isArray(v)), m.at);
+      const p = choose(
+        of((v) => Array.isArray(v)),
+        m.at,
+      );
       if (!p) return doc;
       (get(doc, p) as Json[]).reverse();
       return doc;
@@ -234,7 +365,8 @@ export function applyMutation(doc: Json, m: Mutation): Json {
 }
 
 function renameEverywhere(v: Json, old: string, next: string): Json {
-  if (typeof v === "string") return v === old ? next : v.startsWith(`${old}.`) && !v.slice(old.length + 1).includes(".") ? `${next}${v.slice(old.length)}` : v;
+  if (typeof v === "string")
+    return v === old ? next : v.startsWith(`${old}.`) && !v.slice(old.length + 1).includes(".") ? `${next}${v.slice(old.length)}` : v;
   if (Array.isArray(v)) return v.map((x) => renameEverywhere(x, old, next));
   if (isObj(v)) {
     const out: Obj = {};
@@ -262,7 +394,14 @@ export function mutatedBody(wrap: (design: Obj) => Obj, max = 4): fc.Arbitrary<J
 
 export type RawBody = { text: string | Uint8Array; contentType: string };
 
-const CONTENT_TYPES = ["application/json", "application/json; charset=utf-8", "application/vnd.chainproof+json", "text/plain", "application/x-www-form-urlencoded", ""];
+const CONTENT_TYPES = [
+  "application/json",
+  "application/json; charset=utf-8",
+  "application/vnd.chainproof+json",
+  "text/plain",
+  "application/x-www-form-urlencoded",
+  "",
+];
 
 /** Bodies that are not a JSON object: any JSON, any text, any bytes, cut-off JSON, other content types. */
 export function rawBodyArb(validBody: Json): fc.Arbitrary<RawBody> {
@@ -274,7 +413,24 @@ export function rawBodyArb(validBody: Json): fc.Arbitrary<RawBody> {
     fc.uint8Array({ maxLength: 300 }).map((text) => ({ text, contentType: json })),
     fc.nat({ max: full.length }).map((n) => ({ text: full.slice(0, n), contentType: json })),
     fc.constantFrom(...CONTENT_TYPES).map((contentType) => ({ text: full, contentType })),
-    fc.constantFrom("", " ", "\n", "{", "}", "[", "null", "[]", "{}", '{"document":}', "\ufeff{}", "{\"document\": NaN}", "1e999", '{"a":1,"a":2}').map((text) => ({ text, contentType: json })),
+    fc
+      .constantFrom(
+        "",
+        " ",
+        "\n",
+        "{",
+        "}",
+        "[",
+        "null",
+        "[]",
+        "{}",
+        '{"document":}',
+        "\ufeff{}",
+        '{"document": NaN}',
+        "1e999",
+        '{"a":1,"a":2}',
+      )
+      .map((text) => ({ text, contentType: json })),
   );
 }
 
@@ -304,7 +460,9 @@ function walk(v: unknown, rest: string, first: boolean): boolean {
   else return false;
   if (!isObj(v)) return false;
   // Keys may hold dots or brackets themselves: try every key the text starts with, longest first.
-  const keys = Object.keys(v).filter((k) => body.startsWith(k) && [undefined, ".", "["].includes(body[k.length])).sort((a, b) => b.length - a.length);
+  const keys = Object.keys(v)
+    .filter((k) => body.startsWith(k) && [undefined, ".", "["].includes(body[k.length]))
+    .sort((a, b) => b.length - a.length);
   for (const k of keys) if (walk(v[k], body.slice(k.length), false)) return true;
   return /^[^.[]+$/.test(body) && !Object.hasOwn(v, body);
 }

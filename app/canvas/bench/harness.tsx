@@ -12,13 +12,18 @@ const which = params.get("design") ?? "empty";
 const examples = import.meta.glob("../../../../shared/spec/examples/*.design.json", { eager: true, import: "default" });
 
 function initial(): unknown {
-  if (which.startsWith("chain-")) return chainDesign(Number(which.slice(6)), Number(params.get("conds") ?? Math.min(20, Number(which.slice(6)))));
+  if (which.startsWith("chain-"))
+    return chainDesign(Number(which.slice(6)), Number(params.get("conds") ?? Math.min(20, Number(which.slice(6)))));
   const ex = Object.entries(examples).find(([path]) => path.endsWith(`/${which}.design.json`));
   return ex ? ex[1] : {};
 }
 
 // Worker round trips of the live proof, as the editor does them (same worker module, same message).
-(window as unknown as { __proofBench: (runs: number, contacts: number, conditions?: number) => Promise<number[]> }).__proofBench = async (runs, contacts, conditions) => {
+(window as unknown as { __proofBench: (runs: number, contacts: number, conditions?: number) => Promise<number[]> }).__proofBench = async (
+  runs,
+  contacts,
+  conditions,
+) => {
   const worker = new Worker(new URL("../proof.worker.ts", import.meta.url), { type: "module" });
   const times: number[] = [];
   for (let i = 0; i < runs; i++) {

@@ -35,7 +35,10 @@ function ContactView({ id, data, selected }: NodeProps<ContactNode>) {
       className={`cp-node relative w-44 rounded-md border-2 bg-white px-3 py-2 ${stuck ? "cp-stuck border-brick-600" : selected ? "border-copper-500" : "border-ink-700"}`}
     >
       {stuck ? (
-        <div className="absolute -top-3 left-2 rounded bg-brick-600 px-1.5 py-0.5 text-[10px] font-bold uppercase tracking-wide text-white" data-testid={`stuck-${id}`}>
+        <div
+          className="absolute -top-3 left-2 rounded bg-brick-600 px-1.5 py-0.5 text-[10px] font-bold uppercase tracking-wide text-white"
+          data-testid={`stuck-${id}`}
+        >
           Stuck {stuck === "stuck-closed" ? "closed" : "open"}
         </div>
       ) : null}
@@ -49,7 +52,9 @@ function ContactView({ id, data, selected }: NodeProps<ContactNode>) {
           {senseText}
         </span>
       </div>
-      <div className="truncate text-sm font-medium text-ink-900" title={data.label || undefined}>{data.label || "Contact"}</div>
+      <div className="truncate text-sm font-medium text-ink-900" title={data.label || undefined}>
+        {data.label || "Contact"}
+      </div>
       <div className="my-1 flex justify-center">
         <ContactSymbol sense={sense} conducting={conducting} />
       </div>

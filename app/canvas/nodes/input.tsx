@@ -23,8 +23,12 @@ function InputView({ id, data, selected }: NodeProps<InputNode>) {
       </span>
       <div className="min-w-0 leading-tight">
         <div className="truncate text-xs font-semibold text-ink-500">{id}</div>
-        <div className="truncate text-sm font-medium text-ink-900" title={data.label || undefined}>{data.label || "Controller input"}</div>
-        {lit !== null ? <div className={`text-xs font-semibold ${lit ? "text-moss-700" : "text-ink-500"}`}>{lit ? "energized" : "dead"}</div> : null}
+        <div className="truncate text-sm font-medium text-ink-900" title={data.label || undefined}>
+          {data.label || "Controller input"}
+        </div>
+        {lit !== null ? (
+          <div className={`text-xs font-semibold ${lit ? "text-moss-700" : "text-ink-500"}`}>{lit ? "energized" : "dead"}</div>
+        ) : null}
       </div>
     </div>
   );

@@ -8,7 +8,13 @@ import { Position, TerminalHandle } from "./terminal-handle";
 
 export function SupplyMark({ live }: { live: boolean }) {
   return (
-    <svg viewBox="0 0 24 24" className={`h-6 w-6 flex-none ${live ? "text-moss-600" : "text-ink-700"}`} data-symbol="supply" role="img" aria-label="Supply, always live">
+    <svg
+      viewBox="0 0 24 24"
+      className={`h-6 w-6 flex-none ${live ? "text-moss-600" : "text-ink-700"}`}
+      data-symbol="supply"
+      role="img"
+      aria-label="Supply, always live"
+    >
       <rect x="2" y="6" width="17" height="12" rx="2.5" fill="none" stroke="currentColor" strokeWidth="2" />
       <path d="M19 10h2.5v4H19" fill="currentColor" stroke="currentColor" strokeWidth="1.5" strokeLinejoin="round" />
       <path d="M6.5 12h8M10.5 8v8" stroke="currentColor" strokeWidth="2" strokeLinecap="round" />
@@ -27,7 +33,9 @@ function SupplyView({ id, data, selected }: NodeProps<SupplyNode>) {
       <SupplyMark live={simulating} />
       <div className="min-w-0 leading-tight">
         <div className="truncate text-xs font-semibold text-ink-500">{id}</div>
-        <div className="truncate text-sm font-medium text-ink-900" title={data.label || undefined}>{data.label || "Supply"}</div>
+        <div className="truncate text-sm font-medium text-ink-900" title={data.label || undefined}>
+          {data.label || "Supply"}
+        </div>
       </div>
       <TerminalHandle component={id} terminal="+" position={Position.Right} connectable={connectable} />
     </div>

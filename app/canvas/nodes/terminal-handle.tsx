@@ -31,7 +31,9 @@ export function TerminalHandle({
       aria-label={`Terminal ${component}.${terminal}`}
       aria-pressed={armed}
       role="button"
-      title={connectable ? `${component}.${terminal}: drag to another terminal, or click it and then the other` : `${component}.${terminal}`}
+      title={
+        connectable ? `${component}.${terminal}: drag to another terminal, or click it and then the other` : `${component}.${terminal}`
+      }
       className={`cp-handle ${armed ? "cp-handle-armed" : ""} ${className}`}
       onClick={(e) => {
         if (!connectable) return;

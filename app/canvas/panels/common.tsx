@@ -1,6 +1,17 @@
 // Small pieces shared by the side panels: compact labelled fields (text fields that commit on
 // Enter or when left), field problems, the document.
-import { useEffect, useId, useLayoutEffect, useMemo, useRef, useState, type ButtonHTMLAttributes, type InputHTMLAttributes, type KeyboardEvent, type ReactNode } from "react";
+import {
+  useEffect,
+  useId,
+  useLayoutEffect,
+  useMemo,
+  useRef,
+  useState,
+  type ButtonHTMLAttributes,
+  type InputHTMLAttributes,
+  type KeyboardEvent,
+  type ReactNode,
+} from "react";
 import type { Problem } from "../../engine";
 import { flowToDocument } from "../convert";
 import { useEditor } from "../store";
@@ -145,7 +156,12 @@ export function CommitText({
   );
 }
 
-export function Select({ label, children, invalid, ...rest }: { label: string; invalid?: boolean; children: ReactNode } & React.SelectHTMLAttributes<HTMLSelectElement>) {
+export function Select({
+  label,
+  children,
+  invalid,
+  ...rest
+}: { label: string; invalid?: boolean; children: ReactNode } & React.SelectHTMLAttributes<HTMLSelectElement>) {
   const id = useId();
   return (
     <div>
@@ -159,7 +175,11 @@ export function Select({ label, children, invalid, ...rest }: { label: string; i
   );
 }
 
-export function Small({ tone = "secondary", className = "", ...rest }: ButtonHTMLAttributes<HTMLButtonElement> & { tone?: "primary" | "secondary" | "danger" | "ghost" }) {
+export function Small({
+  tone = "secondary",
+  className = "",
+  ...rest
+}: ButtonHTMLAttributes<HTMLButtonElement> & { tone?: "primary" | "secondary" | "danger" | "ghost" }) {
   const variant = ({ primary: "action", secondary: "secondary", danger: "danger-quiet", ghost: "ghost" } as const)[tone];
   return <Button type="button" variant={variant} size="compact" className={className} {...rest} />;
 }

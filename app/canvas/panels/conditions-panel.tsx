@@ -15,11 +15,18 @@ export function ConditionsPanel() {
 
   return (
     <div>
-      <Section title="Conditions" actions={<Small tone="primary" disabled={!editable} onClick={addCondition}>+ Condition</Small>}>
+      <Section
+        title="Conditions"
+        actions={
+          <Small tone="primary" disabled={!editable} onClick={addCondition}>
+            + Condition
+          </Small>
+        }
+      >
         <FieldProblems problems={problems.filter((p) => p.path === "conditions")} />
         <p className="text-xs text-ink-500">
-          The first state of each condition is its rest state; contacts that conduct there are drawn normally closed. Ids and state
-          names change when you press Enter or leave the field.
+          The first state of each condition is its rest state; contacts that conduct there are drawn normally closed. Ids and state names
+          change when you press Enter or leave the field.
         </p>
         {conditions.map((c, i) => (
           <ConditionCard key={i} index={i} editable={editable} problems={problemsUnder(problems, `conditions[${i}]`)} />
@@ -29,14 +36,26 @@ export function ConditionsPanel() {
   );
 }
 
-function ConditionCard({ index: i, editable, problems: here }: { index: number; editable: boolean; problems: ReturnType<typeof problemsUnder> }) {
+function ConditionCard({
+  index: i,
+  editable,
+  problems: here,
+}: {
+  index: number;
+  editable: boolean;
+  problems: ReturnType<typeof problemsUnder>;
+}) {
   const c = useEditor((s) => s.rest.conditions[i]);
   const store = useEditorStore().getState;
   const [newState, setNewState] = useState("");
   const [error, setError] = useState<string | null>(null);
   if (!c) return null;
   return (
-    <fieldset className={cardVariants({ padding: "xs", className: "space-y-2" })} aria-label={`Condition ${c.id}`} data-testid={`condition-${c.id}`}>
+    <fieldset
+      className={cardVariants({ padding: "xs", className: "space-y-2" })}
+      aria-label={`Condition ${c.id}`}
+      data-testid={`condition-${c.id}`}
+    >
       <div className="grid grid-cols-[7rem_1fr] gap-2">
         <CommitText
           label="Id"

@@ -6,7 +6,6 @@ import { LOCKOUT_TEXT, lockoutTitle } from "../../lib/lockouts";
 import { useEditor } from "../store";
 import { FieldProblems, Section, Select, problemsUnder, useValidation } from "./common";
 
-
 const CLASSES = ["released", "applied", "fault"] as const;
 
 export function ControllerPanel() {

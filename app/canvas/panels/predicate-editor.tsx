@@ -12,8 +12,7 @@ const KIND_LABEL: Record<Kind, string> = {
   always: "always (every row)",
 };
 
-const kindOf = (p: Predicate): Kind =>
-  "cond" in p ? "cond" : "all" in p ? "all" : "any" in p ? "any" : "not" in p ? "not" : "always";
+const kindOf = (p: Predicate): Kind => ("cond" in p ? "cond" : "all" in p ? "all" : "any" in p ? "any" : "not" in p ? "not" : "always");
 
 function firstTest(conditions: readonly Condition[]): Predicate {
   return { cond: conditions[0]?.id ?? "", in: [] };
@@ -58,7 +57,12 @@ export function PredicateEditor({
   const kind = kindOf(value);
   return (
     <div className={`space-y-2 ${depth > 0 ? "rounded border border-ink-200 bg-ink-50 p-2" : ""}`} data-path={path}>
-      <Select label={depth === 0 ? heading : "Test"} value={kind} disabled={disabled} onChange={(e) => onChange(convert(value, e.target.value as Kind, conditions))}>
+      <Select
+        label={depth === 0 ? heading : "Test"}
+        value={kind}
+        disabled={disabled}
+        onChange={(e) => onChange(convert(value, e.target.value as Kind, conditions))}
+      >
         {(Object.keys(KIND_LABEL) as Kind[]).map((k) => (
           <option key={k} value={k}>
             {KIND_LABEL[k]}
@@ -71,7 +75,14 @@ export function PredicateEditor({
         <Group value={value} onChange={onChange} conditions={conditions} disabled={disabled} path={path} depth={depth} />
       ) : "not" in value ? (
         <div className="border-l-2 border-copper-500 pl-2">
-          <PredicateEditor value={value.not} onChange={(inner) => onChange({ not: inner })} conditions={conditions} disabled={disabled} path={`${path}.not`} depth={depth + 1} />
+          <PredicateEditor
+            value={value.not}
+            onChange={(inner) => onChange({ not: inner })}
+            conditions={conditions}
+            disabled={disabled}
+            path={`${path}.not`}
+            depth={depth + 1}
+          />
         </div>
       ) : null}
     </div>
@@ -145,7 +156,13 @@ function Group({
             path={`${path}.${key}[${i}]`}
             depth={depth + 1}
           />
-          <Small tone="ghost" disabled={disabled} className="mt-1" onClick={() => set(children.filter((_, k) => k !== i))} aria-label={`Remove test ${i + 1}`}>
+          <Small
+            tone="ghost"
+            disabled={disabled}
+            className="mt-1"
+            onClick={() => set(children.filter((_, k) => k !== i))}
+            aria-label={`Remove test ${i + 1}`}
+          >
             Remove
           </Small>
         </div>

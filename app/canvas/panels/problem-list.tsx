@@ -12,10 +12,17 @@ export function ProblemList({ problems }: { problems: readonly Problem[] }) {
         const m = /^components\[(\d+)\]/.exec(p.path);
         const node = m ? nodes[Number(m[1])] : undefined;
         return (
-          <li key={`${p.path}:${p.message}`} className="rounded border border-brick-100 bg-brick-50 px-2 py-1 text-sm text-brick-700 [overflow-wrap:anywhere]">
+          <li
+            key={`${p.path}:${p.message}`}
+            className="rounded border border-brick-100 bg-brick-50 px-2 py-1 text-sm text-brick-700 [overflow-wrap:anywhere]"
+          >
             <code className="font-mono text-xs font-semibold">{p.path || "(document)"}</code> {p.message}
             {node ? (
-              <Small tone="ghost" className="ml-1" onClick={() => (store.getState().select(node.id), store.getState().setPanel("properties"))}>
+              <Small
+                tone="ghost"
+                className="ml-1"
+                onClick={() => (store.getState().select(node.id), store.getState().setPanel("properties"))}
+              >
                 Select {node.id}
               </Small>
             ) : null}

@@ -32,14 +32,18 @@ export function VerdictList({ verdict }: { verdict: Verdict }) {
     <div className="space-y-2">
       {verdict.driveRows === 0 ? (
         <p className="rounded border border-brick-600/40 bg-white p-2 text-sm font-semibold text-brick-700" data-testid="never-drives">
-          The design never drives: no row of its truth table has the drive on, so its inhibit rules prove nothing. Revisions are refused until some
-          row drives.
+          The design never drives: no row of its truth table has the drive on, so its inhibit rules prove nothing. Revisions are refused
+          until some row drives.
         </p>
       ) : null}
       {failing.length === 0 ? <p className="text-sm text-moss-700">Every rule holds.</p> : null}
       <ul className="space-y-2">
         {failing.map((r) => (
-          <li key={r.id} className="rounded border border-brick-600/40 bg-white p-2 text-sm [overflow-wrap:anywhere]" data-testid={`failing-${r.id}`}>
+          <li
+            key={r.id}
+            className="rounded border border-brick-600/40 bg-white p-2 text-sm [overflow-wrap:anywhere]"
+            data-testid={`failing-${r.id}`}
+          >
             <div className="font-semibold text-brick-700">
               {label(r.id)} <span className="font-normal text-ink-500">({r.id}) fails</span>
             </div>
@@ -50,7 +54,8 @@ export function VerdictList({ verdict }: { verdict: Verdict }) {
             ) : null}
             {"failingRows" in r ? (
               <p className="text-xs text-ink-600">
-                {r.failingRows} of {r.demandRows} rows where it must drive have the drive off. For example: {r.example ? statesText(r.example) : "—"}
+                {r.failingRows} of {r.demandRows} rows where it must drive have the drive off. For example:{" "}
+                {r.example ? statesText(r.example) : "—"}
               </p>
             ) : null}
             {"trace" in r && r.trace ? (
@@ -76,7 +81,10 @@ export function VerdictList({ verdict }: { verdict: Verdict }) {
           <h4 className="text-xs font-bold uppercase tracking-wide text-ink-500">Single faults that defeat a rule</h4>
           <ul className="mt-1 space-y-1">
             {verdict.singleFaults.map((f) => (
-              <li key={`${f.component}:${f.mode}`} className="rounded border border-copper-500/40 bg-copper-50 px-2 py-1 text-sm text-copper-700">
+              <li
+                key={`${f.component}:${f.mode}`}
+                className="rounded border border-copper-500/40 bg-copper-50 px-2 py-1 text-sm text-copper-700"
+              >
                 <span className="font-semibold">{f.component}</span> {f.mode.replace("-", " ")} defeats {f.defeats.map(label).join(", ")}
                 <Small
                   tone="ghost"
@@ -85,7 +93,10 @@ export function VerdictList({ verdict }: { verdict: Verdict }) {
                     const c = compiledOf(doc);
                     const row = c ? faultRow(c, f.defeats[0], { component: f.component, mode: f.mode }) : null;
                     if (!row) return;
-                    store.getState().simulate({ states: row, source: { kind: "fault", ruleId: f.defeats[0], fault: { component: f.component, mode: f.mode } } });
+                    store.getState().simulate({
+                      states: row,
+                      source: { kind: "fault", ruleId: f.defeats[0], fault: { component: f.component, mode: f.mode } },
+                    });
                     store.getState().setPanel("simulate");
                   }}
                 >
@@ -109,7 +120,14 @@ export function ProblemsPanel() {
   return (
     <div>
       {refusal ? (
-        <Section title="Revision refused" actions={<Small tone="ghost" onClick={() => setRefusal(null)}>Dismiss</Small>}>
+        <Section
+          title="Revision refused"
+          actions={
+            <Small tone="ghost" onClick={() => setRefusal(null)}>
+              Dismiss
+            </Small>
+          }
+        >
           {refusal.kind === "problems" ? (
             <>
               <p className="text-sm text-brick-700">The server found problems in the design; nothing was saved.</p>
@@ -117,7 +135,9 @@ export function ProblemsPanel() {
             </>
           ) : (
             <>
-              <p className="text-sm text-brick-700">Not proven: only a design whose every rule holds is saved as a revision. Nothing was saved.</p>
+              <p className="text-sm text-brick-700">
+                Not proven: only a design whose every rule holds is saved as a revision. Nothing was saved.
+              </p>
               <VerdictList verdict={refusal.verdict} />
             </>
           )}

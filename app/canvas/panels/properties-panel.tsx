@@ -21,7 +21,10 @@ export function PropertiesPanel() {
   const editable = useEditor((s) => !s.readOnly && s.simulation === null);
   const formKey = useFollowingKey(selected?.id ?? null);
   if (selected) return <ComponentForm key={formKey} node={selected} editable={editable} />;
-  if (wire) return <WireDetails source={`${wire.source}.${wire.sourceHandle}`} target={`${wire.target}.${wire.targetHandle}`} editable={editable} />;
+  if (wire)
+    return (
+      <WireDetails source={`${wire.source}.${wire.sourceHandle}`} target={`${wire.target}.${wire.targetHandle}`} editable={editable} />
+    );
   return <DesignDetails count={count} editable={editable} />;
 }
 
@@ -46,7 +49,13 @@ function DesignDetails({ count, editable }: { count: number; editable: boolean }
   const store = useEditorStore();
   return (
     <Section title="Design">
-      <CommitText label="Design name" value={name} disabled={!editable} maxLength={200} onCommit={(v) => store.getState().setDesignName(v)} />
+      <CommitText
+        label="Design name"
+        value={name}
+        disabled={!editable}
+        maxLength={200}
+        onCommit={(v) => store.getState().setDesignName(v)}
+      />
       <p className="text-sm text-ink-500">
         {count > 1
           ? `${count} components selected.`
@@ -79,7 +88,12 @@ function ComponentForm({ node, editable }: { node: CanvasNode; editable: boolean
   const store = useEditorStore();
   const index = useEditor((s) => s.nodes.findIndex((n) => n.id === node.id));
   const conditions = useEditor((s) => s.rest.conditions);
-  const usedFunctions = useEditor((s) => s.nodes.filter((n) => n.type === "input" && n.id !== node.id).map((n) => (n.data as { function: string }).function).join(","));
+  const usedFunctions = useEditor((s) =>
+    s.nodes
+      .filter((n) => n.type === "input" && n.id !== node.id)
+      .map((n) => (n.data as { function: string }).function)
+      .join(","),
+  );
   const problems = problemsUnder(useValidation(), `components[${index}]`);
   const kindTitle = { supply: "Supply", contact: "Contact", junction: "Junction", input: "Controller input" }[node.type];
   const update = (data: Partial<CanvasNode["data"]>) => store.getState().updateComponent(node.id, data);
@@ -93,7 +107,12 @@ function ComponentForm({ node, editable }: { node: CanvasNode; editable: boolean
         <CommitText label="Label" value={node.data.label ?? ""} disabled={!editable} onCommit={(v) => (update({ label: v }), null)} />
         {node.type === "contact" ? <ContactFields node={node} editable={editable} conditions={conditions} update={update} /> : null}
         {node.type === "input" ? (
-          <Select label="Function" value={node.data.function} disabled={!editable} onChange={(e) => update({ function: e.target.value as InputFunction })}>
+          <Select
+            label="Function"
+            value={node.data.function}
+            disabled={!editable}
+            onChange={(e) => update({ function: e.target.value as InputFunction })}
+          >
             {INPUT_FUNCTIONS.map((f) => (
               <option key={f} value={f} disabled={usedFunctions.split(",").includes(f)}>
                 {FUNCTION_LABEL[f]}
@@ -165,11 +184,17 @@ function ContactFields({
         />
         {sense !== "unknown" ? (
           <p className="mt-1 text-xs text-ink-500">
-            {sense === "normally-closed" ? "Normally closed" : "Normally open"}: {sense === "normally-closed" ? "conducts" : "open"} in the rest state “{cond?.states[0]}”.
+            {sense === "normally-closed" ? "Normally closed" : "Normally open"}: {sense === "normally-closed" ? "conducts" : "open"} in the
+            rest state “{cond?.states[0]}”.
           </p>
         ) : null}
       </div>
-      <CommitText label="Part (optional)" value={node.data.part ?? ""} disabled={!editable} onCommit={(v) => (update({ part: v || undefined }), null)} />
+      <CommitText
+        label="Part (optional)"
+        value={node.data.part ?? ""}
+        disabled={!editable}
+        onCommit={(v) => (update({ part: v || undefined }), null)}
+      />
     </>
   );
 }

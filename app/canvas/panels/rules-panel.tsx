@@ -14,7 +14,12 @@ function freshRuleId(rules: readonly Rule[], base: string) {
 export function RulesPanel() {
   const rules = useEditor((s) => s.rest.rules);
   const conditions = useEditor((s) => s.rest.conditions);
-  const inputs = useEditor((s) => s.nodes.filter((n) => n.type === "input").map((n) => n.id).join("\u0000"));
+  const inputs = useEditor((s) =>
+    s.nodes
+      .filter((n) => n.type === "input")
+      .map((n) => n.id)
+      .join("\u0000"),
+  );
   const editable = useEditor((s) => !s.readOnly && s.simulation === null);
   const updateRest = useEditor((s) => s.updateRest);
   const store = useEditorStore();
@@ -35,7 +40,15 @@ export function RulesPanel() {
             onClick={() =>
               updateRest((rest) => ({
                 ...rest,
-                rules: [...rest.rules, { id: freshRuleId(rest.rules, "D"), label: "", type: "require-drive", when: { cond: rest.conditions[0]?.id ?? "", in: [] } }],
+                rules: [
+                  ...rest.rules,
+                  {
+                    id: freshRuleId(rest.rules, "D"),
+                    label: "",
+                    type: "require-drive",
+                    when: { cond: rest.conditions[0]?.id ?? "", in: [] },
+                  },
+                ],
               }))
             }
           >
@@ -45,8 +58,8 @@ export function RulesPanel() {
       >
         {rules.every((r) => r.type !== "require-drive") ? (
           <p className="text-sm text-ink-500">
-            No require-drive rule yet. Say when the vehicle must drive (seated, key on, in gear, throttle applied): without one, a design that never
-            drives would satisfy every inhibit rule.
+            No require-drive rule yet. Say when the vehicle must drive (seated, key on, in gear, throttle applied): without one, a design
+            that never drives would satisfy every inhibit rule.
           </p>
         ) : null}
         {rules.map((r, i) =>
@@ -76,7 +89,13 @@ export function RulesPanel() {
                 ...rest,
                 rules: [
                   ...rest.rules,
-                  { id: freshRuleId(rest.rules, "R"), label: "", type: "inhibit", when: { cond: rest.conditions[0]?.id ?? "", in: [] }, forbid: "drive" },
+                  {
+                    id: freshRuleId(rest.rules, "R"),
+                    label: "",
+                    type: "inhibit",
+                    when: { cond: rest.conditions[0]?.id ?? "", in: [] },
+                    forbid: "drive",
+                  },
                 ],
               }))
             }
@@ -85,7 +104,11 @@ export function RulesPanel() {
           </Small>
         }
       >
-        {rules.every((r) => r.type !== "inhibit") ? <p className="text-sm text-ink-500">No inhibit rules yet. An inhibit rule names the situations in which drive (or an input) must be off.</p> : null}
+        {rules.every((r) => r.type !== "inhibit") ? (
+          <p className="text-sm text-ink-500">
+            No inhibit rules yet. An inhibit rule names the situations in which drive (or an input) must be off.
+          </p>
+        ) : null}
         {rules.map((r, i) =>
           r.type === "inhibit" ? (
             <InhibitRuleForm
@@ -114,14 +137,17 @@ export function RulesPanel() {
               updateRest((rest) => ({
                 ...rest,
                 rules: e.target.checked
-                  ? [...rest.rules, { id: freshRuleId(rest.rules, "no-restart-"), label: "No start on a held throttle", type: "no-restart" }]
+                  ? [
+                      ...rest.rules,
+                      { id: freshRuleId(rest.rules, "no-restart-"), label: "No start on a held throttle", type: "no-restart" },
+                    ]
                   : rest.rules.filter((x) => x.type !== "no-restart"),
               }))
             }
           />
           <span>
-            Drive must never come on at a step where the throttle was not released just before: the controller&apos;s lockouts have to
-            catch every way of arriving with the throttle already applied.
+            Drive must never come on at a step where the throttle was not released just before: the controller&apos;s lockouts have to catch
+            every way of arriving with the throttle already applied.
           </span>
         </label>
         {noRestart >= 0 ? <FieldProblems problems={problemsUnder(problems, `rules[${noRestart}]`)} /> : null}
@@ -150,10 +176,25 @@ function RequireDriveRuleForm({
   problems: ReturnType<typeof problemsUnder>;
 }) {
   return (
-    <fieldset className="space-y-2 rounded border border-moss-600/40 bg-white p-2" aria-label={`Rule ${rule.id}`} data-testid={`rule-${rule.id}`}>
+    <fieldset
+      className="space-y-2 rounded border border-moss-600/40 bg-white p-2"
+      aria-label={`Rule ${rule.id}`}
+      data-testid={`rule-${rule.id}`}
+    >
       <div className="grid grid-cols-[6rem_1fr] gap-2">
-        <CommitText label="Id" value={rule.id} disabled={!editable} onCommit={onRename} invalid={problems.some((p) => p.path === `rules[${index}].id`)} />
-        <CommitText label="Label" value={rule.label ?? ""} disabled={!editable} onCommit={(label) => (onChange({ ...rule, label }), null)} />
+        <CommitText
+          label="Id"
+          value={rule.id}
+          disabled={!editable}
+          onCommit={onRename}
+          invalid={problems.some((p) => p.path === `rules[${index}].id`)}
+        />
+        <CommitText
+          label="Label"
+          value={rule.label ?? ""}
+          disabled={!editable}
+          onCommit={(label) => (onChange({ ...rule, label }), null)}
+        />
       </div>
       <PredicateEditor
         heading="Must drive when"
@@ -193,19 +234,43 @@ function InhibitRuleForm({
   onRemove: () => void;
   problems: ReturnType<typeof problemsUnder>;
 }) {
-  const forbid = rule.forbid === "drive" ? "drive" : typeof rule.forbid === "object" && rule.forbid ? `energized:${rule.forbid.energized}` : "drive";
+  const forbid =
+    rule.forbid === "drive" ? "drive" : typeof rule.forbid === "object" && rule.forbid ? `energized:${rule.forbid.energized}` : "drive";
   return (
-    <fieldset className={cardVariants({ padding: "xs", className: "space-y-2" })} aria-label={`Rule ${rule.id}`} data-testid={`rule-${rule.id}`}>
+    <fieldset
+      className={cardVariants({ padding: "xs", className: "space-y-2" })}
+      aria-label={`Rule ${rule.id}`}
+      data-testid={`rule-${rule.id}`}
+    >
       <div className="grid grid-cols-[6rem_1fr] gap-2">
-        <CommitText label="Id" value={rule.id} disabled={!editable} onCommit={onRename} invalid={problems.some((p) => p.path === `rules[${index}].id`)} />
-        <CommitText label="Label" value={rule.label ?? ""} disabled={!editable} onCommit={(label) => (onChange({ ...rule, label }), null)} />
+        <CommitText
+          label="Id"
+          value={rule.id}
+          disabled={!editable}
+          onCommit={onRename}
+          invalid={problems.some((p) => p.path === `rules[${index}].id`)}
+        />
+        <CommitText
+          label="Label"
+          value={rule.label ?? ""}
+          disabled={!editable}
+          onCommit={(label) => (onChange({ ...rule, label }), null)}
+        />
       </div>
-      <PredicateEditor value={rule.when ?? { always: true }} onChange={(when) => onChange({ ...rule, when })} conditions={conditions} disabled={!editable} path={`rules[${index}].when`} />
+      <PredicateEditor
+        value={rule.when ?? { always: true }}
+        onChange={(when) => onChange({ ...rule, when })}
+        conditions={conditions}
+        disabled={!editable}
+        path={`rules[${index}].when`}
+      />
       <Select
         label="Then forbid"
         value={forbid}
         disabled={!editable}
-        onChange={(e) => onChange({ ...rule, forbid: e.target.value === "drive" ? "drive" : { energized: e.target.value.slice("energized:".length) } })}
+        onChange={(e) =>
+          onChange({ ...rule, forbid: e.target.value === "drive" ? "drive" : { energized: e.target.value.slice("energized:".length) } })
+        }
       >
         <option value="drive">drive</option>
         {inputs.map((id) => (
@@ -213,7 +278,9 @@ function InhibitRuleForm({
             input {id} energized
           </option>
         ))}
-        {forbid !== "drive" && !inputs.includes(forbid.slice(10)) ? <option value={forbid}>{forbid.slice(10)} energized (missing)</option> : null}
+        {forbid !== "drive" && !inputs.includes(forbid.slice(10)) ? (
+          <option value={forbid}>{forbid.slice(10)} energized (missing)</option>
+        ) : null}
       </Select>
       <FieldProblems problems={problems} />
       <Small tone="danger" disabled={!editable} onClick={onRemove}>

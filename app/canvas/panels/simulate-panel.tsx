@@ -43,7 +43,10 @@ export function SimulatePanel() {
   if (!simulation) {
     return (
       <Section title="Simulate">
-        <p className="text-sm text-ink-600">Set each condition by hand and watch the wiring: contacts open and close, live wires light up, and the panel says what blocks drive.</p>
+        <p className="text-sm text-ink-600">
+          Set each condition by hand and watch the wiring: contacts open and close, live wires light up, and the panel says what blocks
+          drive.
+        </p>
         <Small tone="primary" onClick={() => simulate({ states: restRow(doc), source: { kind: "hand" } })}>
           Start simulating
         </Small>
@@ -78,18 +81,28 @@ export function SimulatePanel() {
               ? `“${ruleLabel(src.ruleId)}” says the vehicle must drive in this row, and the drive is off.`
               : `Counterexample of “${ruleLabel(src.ruleId)}”.`
             : null}
-          {src.kind === "fault" ? `${src.fault.component} ${src.fault.mode.replace("-", " ")} breaks “${ruleLabel(src.ruleId)}” in this row.` : null}
+          {src.kind === "fault"
+            ? `${src.fault.component} ${src.fault.mode.replace("-", " ")} breaks “${ruleLabel(src.ruleId)}” in this row.`
+            : null}
           {src.kind === "trace" ? `Steps that break “${ruleLabel(src.ruleId)}”.` : null}
         </p>
         {src.kind === "trace" ? (
           <div className="flex items-center gap-2" role="group" aria-label="Trace steps">
-            <Small aria-label="Previous step" disabled={src.step <= 1} onClick={() => simulate({ ...simulation, source: { ...src, step: src.step - 1 } })}>
+            <Small
+              aria-label="Previous step"
+              disabled={src.step <= 1}
+              onClick={() => simulate({ ...simulation, source: { ...src, step: src.step - 1 } })}
+            >
               ◀ Back
             </Small>
             <span className="text-sm font-semibold" data-testid="trace-step">
               Step {src.step} of {src.rows.length}
             </span>
-            <Small aria-label="Next step" disabled={src.step >= src.rows.length} onClick={() => simulate({ ...simulation, source: { ...src, step: src.step + 1 } })}>
+            <Small
+              aria-label="Next step"
+              disabled={src.step >= src.rows.length}
+              onClick={() => simulate({ ...simulation, source: { ...src, step: src.step + 1 } })}
+            >
               Forward ▶
             </Small>
           </div>
@@ -102,7 +115,10 @@ export function SimulatePanel() {
           Drive {simView?.drive ? "ON" : "OFF"}
           {violatingHere ? <span>: it started on a throttle that was already applied</span> : null}
           {simView?.latched !== undefined ? (
-            <span className="ml-2 font-normal">· lockout latch {simView.latched ? "set" : "clear"}{simView.armed?.length ? ` (armed: ${simView.armed.join(", ")})` : ""}</span>
+            <span className="ml-2 font-normal">
+              · lockout latch {simView.latched ? "set" : "clear"}
+              {simView.armed?.length ? ` (armed: ${simView.armed.join(", ")})` : ""}
+            </span>
           ) : null}
         </div>
         {simView?.error ? <p className="text-sm text-brick-700">{simView.error}</p> : null}
@@ -116,7 +132,11 @@ export function SimulatePanel() {
             <div className="text-xs font-medium text-ink-600">{c.label || c.id}</div>
             <div role="group" aria-label={`State of ${c.label || c.id}`} className="mt-0.5 flex flex-wrap gap-1">
               {c.states.map((st) => (
-                <Chip key={st} pressed={states[c.id] === st} onClick={() => simulate({ states: { ...states, [c.id]: st }, source: { kind: "hand" } })}>
+                <Chip
+                  key={st}
+                  pressed={states[c.id] === st}
+                  onClick={() => simulate({ states: { ...states, [c.id]: st }, source: { kind: "hand" } })}
+                >
                   {st}
                 </Chip>
               ))}
@@ -170,13 +190,17 @@ function TraceSteps({ explanation, current, go }: { explanation: TraceExplanatio
             >
               <div className="flex items-center justify-between gap-2">
                 <span className="font-semibold text-ink-800">Step {st.step}</span>
-                <span className={`rounded px-1.5 py-0.5 font-bold ${st.restart ? "bg-brick-600 text-white" : st.drive ? "bg-moss-600 text-white" : "bg-ink-200 text-ink-800"}`}>
+                <span
+                  className={`rounded px-1.5 py-0.5 font-bold ${st.restart ? "bg-brick-600 text-white" : st.drive ? "bg-moss-600 text-white" : "bg-ink-200 text-ink-800"}`}
+                >
                   drive {st.drive ? "on" : "off"}
                 </span>
               </div>
               <p className="mt-0.5 text-ink-700">
                 {st.step === 1 ? "From power-up: " : "Changed: "}
-                {st.changed.length === 0 ? "nothing" : st.changed.map((c) => (st.step === 1 ? `${c.cond} ${c.to}` : `${c.cond} ${c.from} → ${c.to}`)).join(", ")}
+                {st.changed.length === 0
+                  ? "nothing"
+                  : st.changed.map((c) => (st.step === 1 ? `${c.cond} ${c.to}` : `${c.cond} ${c.from} → ${c.to}`)).join(", ")}
                 {st.controllerChanges.length ? <span className="text-ink-500"> ({st.controllerChanges.join(", ")})</span> : null}
               </p>
               <p className="text-ink-600">
@@ -203,7 +227,9 @@ function TraceSteps({ explanation, current, go }: { explanation: TraceExplanatio
           </li>
         ))}
       </ol>
-      {violatingStep === 0 ? <p className="text-xs text-ink-500">These steps no longer start on a held throttle (the design changed since).</p> : null}
+      {violatingStep === 0 ? (
+        <p className="text-xs text-ink-500">These steps no longer start on a held throttle (the design changed since).</p>
+      ) : null}
     </Section>
   );
 }

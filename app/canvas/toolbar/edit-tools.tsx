@@ -39,20 +39,53 @@ export function EditTools({ readOnly }: { readOnly: boolean }) {
       <Button type="button" variant="ghost" size="sm" disabled={!canUndo} onClick={() => store.getState().undo()} title="Ctrl+Z">
         Undo
       </Button>
-      <Button type="button" variant="ghost" size="sm" disabled={!canRedo} onClick={() => store.getState().redo()} title="Ctrl+Shift+Z / Ctrl+Y">
+      <Button
+        type="button"
+        variant="ghost"
+        size="sm"
+        disabled={!canRedo}
+        onClick={() => store.getState().redo()}
+        title="Ctrl+Shift+Z / Ctrl+Y"
+      >
         Redo
       </Button>
       <span className="mx-1 h-5 w-px bg-ink-200" aria-hidden="true" />
-      <Button type="button" variant="ghost" size="sm" disabled={!editing || selectedCount === 0} onClick={() => store.getState().deleteSelected()} title="Delete">
+      <Button
+        type="button"
+        variant="ghost"
+        size="sm"
+        disabled={!editing || selectedCount === 0}
+        onClick={() => store.getState().deleteSelected()}
+        title="Delete"
+      >
         Delete
       </Button>
-      <Button type="button" variant="ghost" size="sm" disabled={!editing || selectedCount === 0} onClick={() => store.getState().duplicateSelected()} title="Ctrl+D">
+      <Button
+        type="button"
+        variant="ghost"
+        size="sm"
+        disabled={!editing || selectedCount === 0}
+        onClick={() => store.getState().duplicateSelected()}
+        title="Ctrl+D"
+      >
         Duplicate
       </Button>
-      <Button type="button" variant="ghost" size="sm" disabled={!editing || !oneContact} onClick={() => store.getState().addBeside("series")}>
+      <Button
+        type="button"
+        variant="ghost"
+        size="sm"
+        disabled={!editing || !oneContact}
+        onClick={() => store.getState().addBeside("series")}
+      >
         Add in series
       </Button>
-      <Button type="button" variant="ghost" size="sm" disabled={!editing || !oneContact} onClick={() => store.getState().addBeside("parallel")}>
+      <Button
+        type="button"
+        variant="ghost"
+        size="sm"
+        disabled={!editing || !oneContact}
+        onClick={() => store.getState().addBeside("parallel")}
+      >
         Add in parallel
       </Button>
       <Button type="button" variant="ghost" size="sm" disabled={!editing || laying} aria-busy={laying} onClick={layout}>

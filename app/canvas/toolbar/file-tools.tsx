@@ -25,7 +25,11 @@ export function FileTools({ readOnly }: { readOnly: boolean }) {
     try {
       parsed = JSON.parse(await file.text());
     } catch (e) {
-      setTrouble({ doc: null, problems: [{ path: "", message: `not JSON: ${e instanceof Error ? e.message : String(e)}` }], file: file.name });
+      setTrouble({
+        doc: null,
+        problems: [{ path: "", message: `not JSON: ${e instanceof Error ? e.message : String(e)}` }],
+        file: file.name,
+      });
       return;
     }
     // The validator is only needed here, so it is loaded here.

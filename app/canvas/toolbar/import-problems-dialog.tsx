@@ -7,7 +7,15 @@ import { Dialog } from "../../components/ui/dialog";
 /** A document that could not be imported as it is: its parsed value (null when not JSON) and its problems. */
 export type ImportTrouble = { doc: unknown; problems: Problem[]; file: string };
 
-export function ImportProblemsDialog({ trouble, onClose, onOpenAnyway }: { trouble: ImportTrouble | null; onClose: () => void; onOpenAnyway?: () => void }) {
+export function ImportProblemsDialog({
+  trouble,
+  onClose,
+  onOpenAnyway,
+}: {
+  trouble: ImportTrouble | null;
+  onClose: () => void;
+  onOpenAnyway?: () => void;
+}) {
   const n = trouble?.problems.length ?? 0;
   return (
     <Dialog

@@ -56,7 +56,10 @@ export function SaveRevision({
           text: `Revision ${res.latestRevision} was saved by someone else after you opened this design; yours was not saved.`,
           actions: [
             { label: "Reload to see it", run: () => window.location.reload() },
-            { label: "Keep editing (next save follows it)", run: () => (setBaseRevision(res.latestRevision), store.getState().setBanner(null)) },
+            {
+              label: "Keep editing (next save follows it)",
+              run: () => (setBaseRevision(res.latestRevision), store.getState().setBanner(null)),
+            },
           ],
         });
       }

@@ -11,8 +11,12 @@ function planText(p: BenchPlan): string {
   for (const s of p.steps) {
     lines.push("", `Step ${s.n}${s.kind === "sequence" ? " (lockout check)" : ""}: ${s.instruction}`);
     if (s.caution) lines.push(`  Caution: ${s.caution}`);
-    const live = Object.entries(s.expect.inputs).filter(([, on]) => on).map(([id]) => id);
-    lines.push(`  Expect: drive ${s.expect.drive ? "ON" : "off"}${s.expect.latched ? ", latched" : ""}; live: ${live.join(", ") || "none"}`);
+    const live = Object.entries(s.expect.inputs)
+      .filter(([, on]) => on)
+      .map(([id]) => id);
+    lines.push(
+      `  Expect: drive ${s.expect.drive ? "ON" : "off"}${s.expect.latched ? ", latched" : ""}; live: ${live.join(", ") || "none"}`,
+    );
     if (s.covers.length > 0) lines.push(`  Checks: ${s.covers.join(", ")}`);
     if ((s.reveals ?? []).length > 0) lines.push(`  Reveals: ${s.reveals!.map((f) => f.replace(/^fault:/, "")).join(", ")}`);
   }
@@ -25,7 +29,9 @@ function planText(p: BenchPlan): string {
     lines.push(
       "",
       `Rows observed: ${lb.planRows}; fewest rows that reveal every revealable fault and show each rule: ${lb.rows}${lb.exact ? "" : " or more"}` +
-        (lb.rowsWithDrive !== undefined ? `; with a row that shows drive (lockout checks need one): ${lb.rowsWithDrive}${lb.exactWithDrive ? "" : " or more"}` : ""),
+        (lb.rowsWithDrive !== undefined
+          ? `; with a row that shows drive (lockout checks need one): ${lb.rowsWithDrive}${lb.exactWithDrive ? "" : " or more"}`
+          : ""),
     );
   }
   return lines.join("\n") + "\n";

@@ -5,7 +5,11 @@ import { checkRow, fail, loadDesign, parseRow, write, type Command } from "../sh
 
 function diagnosisText(c: CompiledDesign, d: Diagnosis): string {
   const lines: string[] = [];
-  lines.push(`Row ${d.row}: ${Object.entries(d.states).map(([k, v]) => `${k}=${v}`).join(", ")}`);
+  lines.push(
+    `Row ${d.row}: ${Object.entries(d.states)
+      .map(([k, v]) => `${k}=${v}`)
+      .join(", ")}`,
+  );
   const ctl = d.controller;
   lines.push(
     `Controller: ${ctl.powered ? "powered" : "unpowered"}, ${ctl.enabled ? "enabled" : "not enabled"}, direction ${ctl.direction}, ` +

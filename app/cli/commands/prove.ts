@@ -24,8 +24,10 @@ contacts (one actuator, one connector) are not covered.
     const verdict = prove(c);
     await write(JSON.stringify(verdict, null, 2) + "\n");
     const failing = verdict.rules.filter((r) => !r.holds).map((r) => r.id);
-    if (failing.length > 0) process.stderr.write(`chainproof: ${failing.length} of ${verdict.rules.length} rules fail: ${failing.join(", ")}\n`);
-    if (verdict.driveRows === 0) process.stderr.write("chainproof: the design never drives (no row has steady drive), so it proves nothing\n");
+    if (failing.length > 0)
+      process.stderr.write(`chainproof: ${failing.length} of ${verdict.rules.length} rules fail: ${failing.join(", ")}\n`);
+    if (verdict.driveRows === 0)
+      process.stderr.write("chainproof: the design never drives (no row has steady drive), so it proves nothing\n");
     process.exitCode = verdict.ok ? 0 : 1;
   },
 };

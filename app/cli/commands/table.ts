@@ -5,7 +5,8 @@ import { fail, loadDesign, nonNegativeInt, parseRow, write, type Command } from 
 
 export const tableCommand: Command = {
   name: "table",
-  usage: "chainproof table <design.json> [--csv] [--from N] [--count M] [--only unsafe|violating|drive|demand|failing] [--rule ID] [--where COND=S1|S2,...]",
+  usage:
+    "chainproof table <design.json> [--csv] [--from N] [--count M] [--only unsafe|violating|drive|demand|failing] [--rule ID] [--where COND=S1|S2,...]",
   help: `chainproof table <design.json> [options]
 
 Prints the truth table, one row per line, streamed. Default output is an aligned
@@ -45,7 +46,9 @@ Options:
     const from = nonNegativeInt(values.from, "--from");
     const count = nonNegativeInt(values.count, "--count");
     if (values.only !== undefined && !(ROW_FILTERS as readonly string[]).includes(values.only)) {
-      fail(`--only must be ${ROW_FILTERS.slice(0, -1).join(", ")} or ${ROW_FILTERS[ROW_FILTERS.length - 1]}, got ${JSON.stringify(values.only)}`);
+      fail(
+        `--only must be ${ROW_FILTERS.slice(0, -1).join(", ")} or ${ROW_FILTERS[ROW_FILTERS.length - 1]}, got ${JSON.stringify(values.only)}`,
+      );
     }
     const c = loadDesign(positionals[0]);
     const filter: RowFilter = {};
@@ -55,7 +58,9 @@ Options:
       if (!rule) fail(`--rule: no rule with id ${JSON.stringify(values.rule)}`);
       const type = filterRuleType(filter.only);
       if (rule.type !== type) {
-        fail(`--rule: ${JSON.stringify(values.rule)} is not ${type === "inhibit" ? "an inhibit" : "a require-drive"} rule${type === "inhibit" ? " (use --only demand or failing for a require-drive rule)" : ""}`);
+        fail(
+          `--rule: ${JSON.stringify(values.rule)} is not ${type === "inhibit" ? "an inhibit" : "a require-drive"} rule${type === "inhibit" ? " (use --only demand or failing for a require-drive rule)" : ""}`,
+        );
       }
       filter.rule = values.rule;
     }
@@ -65,7 +70,8 @@ Options:
         const cond = c.conditions[c.conditionIndex[k]];
         if (!cond) fail(`--where: no condition with id ${JSON.stringify(k)}`);
         const states = v.split("|");
-        for (const s of states) if (!cond.states.includes(s)) fail(`--where: ${JSON.stringify(s)} is not a state of condition ${JSON.stringify(k)}`);
+        for (const s of states)
+          if (!cond.states.includes(s)) fail(`--where: ${JSON.stringify(s)} is not a state of condition ${JSON.stringify(k)}`);
         where[k] = states;
       }
       filter.where = where;

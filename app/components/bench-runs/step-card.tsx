@@ -21,11 +21,17 @@ const OUTCOME_STYLE: Record<StepOutcome, string> = {
 };
 
 function Expect({ step }: { step: Step }) {
-  const live = Object.entries(step.expect.inputs).filter(([, on]) => on).map(([id]) => id);
-  const dead = Object.entries(step.expect.inputs).filter(([, on]) => !on).map(([id]) => id);
+  const live = Object.entries(step.expect.inputs)
+    .filter(([, on]) => on)
+    .map(([id]) => id);
+  const dead = Object.entries(step.expect.inputs)
+    .filter(([, on]) => !on)
+    .map(([id]) => id);
   return (
     <div className="mt-3 rounded-md bg-ink-50 p-3 text-base">
-      <p className={`font-semibold ${step.expect.drive ? "text-moss-700" : "text-brick-700"}`}>{step.expect.drive ? "Drive must run" : "Drive must stay off"}</p>
+      <p className={`font-semibold ${step.expect.drive ? "text-moss-700" : "text-brick-700"}`}>
+        {step.expect.drive ? "Drive must run" : "Drive must stay off"}
+      </p>
       <p className="mt-1">
         {live.length ? (
           <>
@@ -74,7 +80,8 @@ export function StepCard({ step, result, slug, canRecord, putting, tapError, onO
     if (noteSaved) return;
     noteFetcher.submit({ intent: "note", step: String(step.n), note }, { method: "post" });
   };
-  const clearError = outcomeFetcher.state === "idle" && outcomeFetcher.data?.ok === false ? Object.values(outcomeFetcher.data.fields)[0] : null;
+  const clearError =
+    outcomeFetcher.state === "idle" && outcomeFetcher.data?.ok === false ? Object.values(outcomeFetcher.data.fields)[0] : null;
   const error = tapError ?? clearError;
   const noteError = noteFetcher.data?.ok === false ? Object.values(noteFetcher.data.fields)[0] : null;
   const photoError = photoFetcher.data?.ok === false ? Object.values(photoFetcher.data.fields)[0] : null;
@@ -176,12 +183,19 @@ export function StepCard({ step, result, slug, canRecord, putting, tapError, onO
         </ul>
       ) : null}
       {outcome === "fail" ? (
-        <div className="mt-3 rounded-md bg-brick-50 px-3 py-2 text-base text-brick-700" data-testid="failure-mail" data-mailed={result.failureMailedAt ? "yes" : "no"}>
+        <div
+          className="mt-3 rounded-md bg-brick-50 px-3 py-2 text-base text-brick-700"
+          data-testid="failure-mail"
+          data-mailed={result.failureMailedAt ? "yes" : "no"}
+        >
           {result.failureMailedAt ? (
             <p>The design's engineer was mailed about this failure, with its note and photos.</p>
           ) : (
             <>
-              <p>The design's engineer is mailed once about this failure, with its note and photos, when you move on to another step or complete the run.</p>
+              <p>
+                The design's engineer is mailed once about this failure, with its note and photos, when you move on to another step or
+                complete the run.
+              </p>
               {canRecord ? (
                 <mailFetcher.Form method="post" className="mt-2">
                   <input type="hidden" name="intent" value="mail-step" />
@@ -219,4 +233,3 @@ export function StepCard({ step, result, slug, canRecord, putting, tapError, onO
     </article>
   );
 }
-

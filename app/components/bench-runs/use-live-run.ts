@@ -64,6 +64,7 @@ export function useLiveRun(runId: string, fromLoader: LiveRun, status: LiveRun["
       .map((f) => Number(f.formData!.get("step"))),
   );
   const current = data ?? fromLoader;
-  const run: LiveRun = clearing.size === 0 ? current : { ...current, steps: current.steps.map((s) => (clearing.has(s.n) ? { ...s, outcome: null } : s)) };
+  const run: LiveRun =
+    clearing.size === 0 ? current : { ...current, steps: current.steps.map((s) => (clearing.has(s.n) ? { ...s, outcome: null } : s)) };
   return { run, record, putting, errors };
 }

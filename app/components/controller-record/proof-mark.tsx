@@ -5,7 +5,11 @@ import { PROOF_DOES_NOT_HOLD } from "~/vehicles/controller-status";
 
 export function ProofMark({ differences, to, compact = false }: { differences: string[]; to?: string; compact?: boolean }) {
   return (
-    <div role="alert" data-testid="proof-mark" className={`rounded-md border-2 border-brick-600 bg-brick-50 text-brick-700 ${compact ? "mt-2 p-2 text-xs" : "p-4 text-sm"}`}>
+    <div
+      role="alert"
+      data-testid="proof-mark"
+      className={`rounded-md border-2 border-brick-600 bg-brick-50 text-brick-700 ${compact ? "mt-2 p-2 text-xs" : "p-4 text-sm"}`}
+    >
       <p className="font-semibold">{PROOF_DOES_NOT_HOLD}.</p>
       <ul className={`${compact ? "mt-1" : "mt-2"} list-disc space-y-1 pl-5`}>
         {differences.map((d) => (

@@ -61,7 +61,17 @@ function describedBy(name: string, error?: string, hint?: string) {
 }
 
 /** A number with its unit beside it. */
-function NumberField({ name, values, errors, optional = false }: { name: RecordField; values: RecordForm; errors: FieldErrors; optional?: boolean }) {
+function NumberField({
+  name,
+  values,
+  errors,
+  optional = false,
+}: {
+  name: RecordField;
+  values: RecordForm;
+  errors: FieldErrors;
+  optional?: boolean;
+}) {
   const words = FIELD_WORDS[name] as { label: string; unit?: string; hint?: string };
   const error = errors[name];
   return (
@@ -79,7 +89,10 @@ function NumberField({ name, values, errors, optional = false }: { name: RecordF
           aria-describedby={describedBy(name, error, words.hint)}
           className={`${inputBase} ${error ? "border-brick-600" : "border-ink-300"}`}
         />
-        <span className="inline-flex min-w-14 items-center justify-center rounded-r-md border border-l-0 border-ink-300 bg-ink-100 px-2 text-sm text-ink-700" aria-hidden="true">
+        <span
+          className="inline-flex min-w-14 items-center justify-center rounded-r-md border border-l-0 border-ink-300 bg-ink-100 px-2 text-sm text-ink-700"
+          aria-hidden="true"
+        >
           {words.unit}
         </span>
       </div>
@@ -87,7 +100,17 @@ function NumberField({ name, values, errors, optional = false }: { name: RecordF
   );
 }
 
-function Choice({ name, values, errors, options }: { name: RecordField; values: RecordForm; errors: FieldErrors; options: [string, string][] }) {
+function Choice({
+  name,
+  values,
+  errors,
+  options,
+}: {
+  name: RecordField;
+  values: RecordForm;
+  errors: FieldErrors;
+  options: [string, string][];
+}) {
   const error = errors[name];
   return (
     <Frame name={name} error={error}>
@@ -162,7 +185,11 @@ export function RecordFormFields({
             maxLength={200}
             defaultValue={values["controller.description"] ?? ""}
             aria-invalid={errors["controller.description"] ? true : undefined}
-            aria-describedby={describedBy("controller.description", errors["controller.description"], FIELD_WORDS["controller.description"].hint)}
+            aria-describedby={describedBy(
+              "controller.description",
+              errors["controller.description"],
+              FIELD_WORDS["controller.description"].hint,
+            )}
             className={`mt-1 block w-full rounded-md border bg-white px-3 py-2 text-base shadow-sm ${errors["controller.description"] ? "border-brick-600" : "border-ink-300"}`}
           />
         </Frame>
@@ -196,7 +223,13 @@ export function RecordFormFields({
               ["no", "No, drive stays on while braking"],
             ].map(([value, label]) => (
               <label key={value} className="flex min-h-11 items-center gap-2 rounded-md border border-ink-300 px-3 text-sm">
-                <input type="radio" name="settings.brakeCutsDrive" value={value} defaultChecked={(values["settings.brakeCutsDrive"] ?? "yes") === value} className="h-5 w-5" />
+                <input
+                  type="radio"
+                  name="settings.brakeCutsDrive"
+                  value={value}
+                  defaultChecked={(values["settings.brakeCutsDrive"] ?? "yes") === value}
+                  className="h-5 w-5"
+                />
                 {label}
               </label>
             ))}
@@ -216,7 +249,13 @@ export function RecordFormFields({
             {LOCKOUTS.map((l) => (
               <li key={l}>
                 <label className="flex min-h-11 items-start gap-3 rounded-md border border-ink-300 px-3 py-2 text-sm">
-                  <input type="checkbox" name={lockoutField(l)} value="on" defaultChecked={values[lockoutField(l)] === "on"} className="mt-0.5 h-5 w-5 flex-none" />
+                  <input
+                    type="checkbox"
+                    name={lockoutField(l)}
+                    value="on"
+                    defaultChecked={values[lockoutField(l)] === "on"}
+                    className="mt-0.5 h-5 w-5 flex-none"
+                  />
                   <span>
                     <span className="font-medium">{lockoutTitle(l)}</span>: {LOCKOUT_WORDS[l]}
                   </span>

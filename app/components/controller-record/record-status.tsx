@@ -5,7 +5,10 @@ const fmt = (v: number, places: number) => v.toFixed(places);
 
 export function DerivedValuesTable({ derived }: { derived: DerivedValues }) {
   const rows: [string, string][] = [
-    ["Pack window (minimum, nominal, maximum)", `${fmt(derived.pack.minV, 2)} V, ${fmt(derived.pack.nominalV, 2)} V, ${fmt(derived.pack.maxV, 2)} V`],
+    [
+      "Pack window (minimum, nominal, maximum)",
+      `${fmt(derived.pack.minV, 2)} V, ${fmt(derived.pack.nominalV, 2)} V, ${fmt(derived.pack.maxV, 2)} V`,
+    ],
     ["Battery current limit", `${fmt(derived.batteryCurrentA, 1)} A`],
     ["Motor current limit", `${fmt(derived.motorCurrentA, 1)} A`],
   ];

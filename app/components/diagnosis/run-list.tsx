@@ -38,7 +38,10 @@ export function RunList({ slug, runs, showVehicle = true, empty }: { slug: strin
     <ul className="mt-3 divide-y divide-ink-200" data-testid="run-list">
       {runs.map((r) => (
         <li key={r.id}>
-          <Link to={`/w/${slug}/bench-tests/${r.id}`} className="flex min-h-14 flex-wrap items-center justify-between gap-2 py-3 hover:bg-ink-50">
+          <Link
+            to={`/w/${slug}/bench-tests/${r.id}`}
+            className="flex min-h-14 flex-wrap items-center justify-between gap-2 py-3 hover:bg-ink-50"
+          >
             <span>
               <span className="block font-medium">
                 {showVehicle ? `${r.vehicleName} · ` : ""}

@@ -3,7 +3,15 @@
 // controller inputs and see which stuck contact would explain them. Runs the engine in the browser.
 import { useMemo, useState } from "react";
 import { compileDesign, type CompiledDesign, type Design } from "~/engine";
-import { explainMeasured, restingStates, whyNot, type Blocker, type ChangeAdvice, type ContactCheck, type WireEnd } from "~/vehicles/why-not";
+import {
+  explainMeasured,
+  restingStates,
+  whyNot,
+  type Blocker,
+  type ChangeAdvice,
+  type ContactCheck,
+  type WireEnd,
+} from "~/vehicles/why-not";
 import { WiringDiagram } from "~/components/wiring-diagram";
 import { Button, Chip } from "~/components/ui/button";
 
@@ -33,7 +41,8 @@ function ContactLine({ k }: { k: ContactCheck }) {
         <span className="font-mono">{k.contact}</span> {k.label !== k.contact ? <span>· {k.label}</span> : null}
       </p>
       <p className="text-base text-ink-700">
-        {k.want === "close" ? "Open now; it closes" : "Closed now; it opens"} when {k.conditionLabel} is {k.targetStates.join(" or ")} (now {k.state}).
+        {k.want === "close" ? "Open now; it closes" : "Closed now; it opens"} when {k.conditionLabel} is {k.targetStates.join(" or ")} (now{" "}
+        {k.state}).
         {k.part ? <span className="text-ink-500"> Part: {k.part}.</span> : null}
       </p>
       <Terminals ends={k.terminals} />
@@ -46,12 +55,22 @@ type Apply = (steps: Array<Record<string, string>>) => void;
 const listWords = (xs: string[]) => (xs.length <= 1 ? xs.join("") : `${xs.slice(0, -1).join(", ")} and ${xs[xs.length - 1]}`);
 
 /** The smallest change of conditions (each way of making it, with a button that makes it), or why there is none. */
-export function ChangeAdviceView({ advice, what, throttleLabel, onApply }: { advice: ChangeAdvice; what: string; throttleLabel: string; onApply: Apply }) {
+export function ChangeAdviceView({
+  advice,
+  what,
+  throttleLabel,
+  onApply,
+}: {
+  advice: ChangeAdvice;
+  what: string;
+  throttleLabel: string;
+  onApply: Apply;
+}) {
   if (advice.kind === "none") {
     return (
       <p className="mt-2 rounded-md bg-brick-50 px-3 py-2 text-base text-brick-700" data-testid="change-none">
-        No setting of the conditions {what}: only a wiring fault explains it (the vehicle is not wired as the released drawing shows, or a part has failed). Isolate the traction pack before
-        you open the wiring.
+        No setting of the conditions {what}: only a wiring fault explains it (the vehicle is not wired as the released drawing shows, or a
+        part has failed). Isolate the traction pack before you open the wiring.
       </p>
     );
   }
@@ -60,7 +79,11 @@ export function ChangeAdviceView({ advice, what, throttleLabel, onApply }: { adv
   return (
     <div className="mt-2" data-testid="change" data-size={advice.size}>
       <p className="text-base font-medium text-ink-800">
-        {advice.size === 0 ? "No condition needs to change:" : advice.size === 1 ? "The smallest change: one condition" : `The smallest change: ${advice.size} conditions together`}
+        {advice.size === 0
+          ? "No condition needs to change:"
+          : advice.size === 1
+            ? "The smallest change: one condition"
+            : `The smallest change: ${advice.size} conditions together`}
         {shown.length > 1 ? ` (${advice.count} ways${advice.count > shown.length ? `, the first ${shown.length} shown` : ""})` : ""}
       </p>
       <ul className="mt-2 space-y-2">
@@ -68,11 +91,19 @@ export function ChangeAdviceView({ advice, what, throttleLabel, onApply }: { adv
           const words = o.changes.map((ch) => `set ${ch.conditionLabel} from ${ch.from} to ${ch.to}`);
           const sentence = words.length > 0 ? `${words[0][0].toUpperCase()}${listWords(words).slice(1)}.` : "";
           return (
-            <li key={i} className="flex flex-wrap items-center gap-x-3 gap-y-2 rounded-md border border-ink-200 bg-ink-50 p-3" data-testid="change-option">
+            <li
+              key={i}
+              className="flex flex-wrap items-center gap-x-3 gap-y-2 rounded-md border border-ink-200 bg-ink-50 p-3"
+              data-testid="change-option"
+            >
               <span className="min-w-0 flex-1 text-base">
                 {sentence}
-                {o.cycleThrottle ? ` ${sentence ? "Then a" : "A"} lockout holds the drive off: return ${throttleLabel} to rest and apply it again.` : ""}
-                {o.heldOff ? " Even so a lockout latches again each time the throttle is applied here: the design's lockouts hold the drive off in these conditions." : ""}
+                {o.cycleThrottle
+                  ? ` ${sentence ? "Then a" : "A"} lockout holds the drive off: return ${throttleLabel} to rest and apply it again.`
+                  : ""}
+                {o.heldOff
+                  ? " Even so a lockout latches again each time the throttle is applied here: the design's lockouts hold the drive off in these conditions."
+                  : ""}
               </span>
               <Button type="button" variant="secondary" size="touch-base" onClick={() => onApply(o.steps)}>
                 Make this change
@@ -103,14 +134,22 @@ function BlockerCard({ b, n, throttleLabel, onApply }: { b: Blocker; n: number; 
         {b.title}
       </h3>
       <p className="mt-1 text-base text-ink-700">{b.advice}</p>
-      {b.change ? <ChangeAdviceView advice={b.change} what={GOAL_WORDS[b.code] ?? "clears this"} throttleLabel={throttleLabel} onApply={onApply} /> : null}
+      {b.change ? (
+        <ChangeAdviceView advice={b.change} what={GOAL_WORDS[b.code] ?? "clears this"} throttleLabel={throttleLabel} onApply={onApply} />
+      ) : null}
       {b.contactSets.length > 0 ? <p className="mt-3 text-base font-medium text-ink-800">Where to measure:</p> : null}
-      {b.unreachable ? <p className="mt-2 text-base text-brick-700">No contact change can bring this input live: it is not wired towards a supply. Check the drawing against the vehicle.</p> : null}
+      {b.unreachable ? (
+        <p className="mt-2 text-base text-brick-700">
+          No contact change can bring this input live: it is not wired towards a supply. Check the drawing against the vehicle.
+        </p>
+      ) : null}
       {b.contactSets.length > 0 ? (
         <ul className="mt-3 space-y-3">
           {b.contactSets.map((set, i) => (
             <li key={i} className="rounded-md border border-ink-200 bg-ink-50 p-3">
-              {set.length > 1 ? <p className="mb-2 text-base font-semibold text-brick-700">These {set.length} contacts must all change together:</p> : null}
+              {set.length > 1 ? (
+                <p className="mb-2 text-base font-semibold text-brick-700">These {set.length} contacts must all change together:</p>
+              ) : null}
               <div className="space-y-3">
                 {set.map((k) => (
                   <ContactLine key={k.contact} k={k} />
@@ -196,7 +235,8 @@ function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
       </div>
       {faulty ? (
         <p className="text-base text-ink-700">
-          The design says drive {result.drive ? "should run" : "should not run"} in these conditions, but the meter readings below cannot happen in the design as drawn: see what explains them.
+          The design says drive {result.drive ? "should run" : "should not run"} in these conditions, but the meter readings below cannot
+          happen in the design as drawn: see what explains them.
         </p>
       ) : result.drive ? (
         <p className="text-base text-ink-700">With these conditions the design lets {vehicleName} drive.</p>
@@ -253,14 +293,22 @@ function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
         </section>
       ) : null}
 
-      <WiringDiagram design={c.design} row={result.row} highlight={highlight} suspects={suspects} title={`Wiring of ${vehicleName} in the present conditions`} phone />
+      <WiringDiagram
+        design={c.design}
+        row={result.row}
+        highlight={highlight}
+        suspects={suspects}
+        title={`Wiring of ${vehicleName} in the present conditions`}
+        phone
+      />
 
       <section aria-labelledby="measured-h" className="scroll-mt-16 rounded-lg border border-ink-200 bg-white p-4">
         <h2 id="measured-h" className="text-lg font-semibold">
           Measured mode
         </h2>
         <p className="mt-1 text-base text-ink-600">
-          With the conditions above set on the vehicle, enter what the meter reads at each controller input. Leave an input unmeasured if you have not checked it.
+          With the conditions above set on the vehicle, enter what the meter reads at each controller input. Leave an input unmeasured if
+          you have not checked it.
         </p>
         <div className="mt-3 space-y-3">
           {c.inputs.map((x) => {
@@ -290,29 +338,42 @@ function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
         </div>
         <div className="mt-4 scroll-mt-16" data-testid="readings-verdict" data-kind={readingsVerdict.kind}>
           {readingsVerdict.kind === "consistent" ? (
-            <p className="rounded-md bg-moss-50 px-3 py-2 text-base text-moss-700">The readings match the design in these conditions: the wiring behaves as drawn.</p>
+            <p className="rounded-md bg-moss-50 px-3 py-2 text-base text-moss-700">
+              The readings match the design in these conditions: the wiring behaves as drawn.
+            </p>
           ) : null}
           {readingsVerdict.kind === "unexplained" ? (
             <p className="rounded-md bg-brick-50 px-3 py-2 text-base text-brick-700">
-              {readingsVerdict.mismatched.map(inputLabel).join(", ")} {readingsVerdict.mismatched.length > 1 ? "do" : "does"} not read as the design says, and no single stuck contact explains it. Look for a
-              broken or misrouted wire, a short between lines, or more than one fault.
+              {readingsVerdict.mismatched.map(inputLabel).join(", ")} {readingsVerdict.mismatched.length > 1 ? "do" : "does"} not read as
+              the design says, and no single stuck contact explains it. Look for a broken or misrouted wire, a short between lines, or more
+              than one fault.
             </p>
           ) : null}
           {readingsVerdict.kind === "faults" ? (
             <div>
               <p className="rounded-md bg-brick-50 px-3 py-2 text-base text-brick-700">
-                {readingsVerdict.mismatched.map(inputLabel).join(", ")} cannot read like this in the fault-free design. Contacts that would explain it, most likely first:
+                {readingsVerdict.mismatched.map(inputLabel).join(", ")} cannot read like this in the fault-free design. Contacts that would
+                explain it, most likely first:
               </p>
               <ol className="mt-3 space-y-3">
                 {readingsVerdict.suspects.map((s) => (
-                  <li key={`${s.contact}-${s.mode}`} className="rounded-md border border-ink-200 p-3" data-testid="suspect" data-contact={s.contact} data-mode={s.mode}>
+                  <li
+                    key={`${s.contact}-${s.mode}`}
+                    className="rounded-md border border-ink-200 p-3"
+                    data-testid="suspect"
+                    data-contact={s.contact}
+                    data-mode={s.mode}
+                  >
                     <p className="font-medium">
                       <span className="font-mono">{s.contact}</span> {s.label !== s.contact ? <>· {s.label}</> : null} may be{" "}
                       <strong>{s.mode === "stuck-closed" ? "stuck closed" : "stuck open"}</strong>
                     </p>
                     <p className="text-base text-ink-700">{s.check}</p>
                     {s.otherInputsChanged.length > 0 ? (
-                      <p className="mt-1 text-base text-ink-600">It would also change {s.otherInputsChanged.map(inputLabel).join(", ")}: measure {s.otherInputsChanged.length > 1 ? "them" : "it"} to tell.</p>
+                      <p className="mt-1 text-base text-ink-600">
+                        It would also change {s.otherInputsChanged.map(inputLabel).join(", ")}: measure{" "}
+                        {s.otherInputsChanged.length > 1 ? "them" : "it"} to tell.
+                      </p>
                     ) : null}
                     <Terminals ends={s.terminals} />
                   </li>

@@ -16,7 +16,8 @@ function Values({ values }: { values: FieldChange[] }) {
     <ul className="ml-4 list-disc">
       {values.map((v) => (
         <li key={v.field}>
-          {v.field}: <code className="rounded bg-brick-50 px-1 text-brick-700">{v.before}</code> → <code className="rounded bg-moss-50 px-1 text-moss-700">{v.after}</code>
+          {v.field}: <code className="rounded bg-brick-50 px-1 text-brick-700">{v.before}</code> →{" "}
+          <code className="rounded bg-moss-50 px-1 text-moss-700">{v.after}</code>
         </li>
       ))}
     </ul>
@@ -108,7 +109,11 @@ export function ChangesView({
       <Form method="get" className="flex flex-wrap items-end gap-2 text-sm" aria-label="Compare with another revision">
         <label className="flex flex-col">
           <span className="text-ink-700">Compare with revision</span>
-          <select name="compare" defaultValue={comparison.baseline?.number ?? ""} className="min-h-10 rounded-md border border-ink-300 bg-white px-2">
+          <select
+            name="compare"
+            defaultValue={comparison.baseline?.number ?? ""}
+            className="min-h-10 rounded-md border border-ink-300 bg-white px-2"
+          >
             {others.map((x) => (
               <option key={x} value={x}>
                 {x}
@@ -124,7 +129,9 @@ export function ChangesView({
   if (comparison.baseline === null) {
     return (
       <div className="space-y-3">
-        <p className="text-sm text-ink-600">This is the design's first revision, so there is nothing to compare with: review the whole design.</p>
+        <p className="text-sm text-ink-600">
+          This is the design's first revision, so there is nothing to compare with: review the whole design.
+        </p>
         {chooser}
       </div>
     );
@@ -136,7 +143,11 @@ export function ChangesView({
       {chooser}
       <p>
         Compared with revision {comparison.baseline.number}
-        {comparison.baseline.chosen ? "." : comparison.baseline.approved ? ", the last approved one." : ", the previous one (no earlier revision is approved)."}
+        {comparison.baseline.chosen
+          ? "."
+          : comparison.baseline.approved
+            ? ", the last approved one."
+            : ", the previous one (no earlier revision is approved)."}
         {s.empty ? " The structure is the same." : ""}
       </p>
       {s.name ? (
@@ -172,7 +183,9 @@ export function ChangesView({
       ) : null}
       <div>
         <h3 className="font-semibold">Verdict</h3>
-        {verdict.length === 0 ? <p className="mt-1 text-ink-700">The verdict is the same.</p> : (
+        {verdict.length === 0 ? (
+          <p className="mt-1 text-ink-700">The verdict is the same.</p>
+        ) : (
           <ul className="mt-1 ml-4 list-disc" data-testid="verdict-changes">
             {verdict.map((v) => (
               <li key={v}>{v}</li>
@@ -189,7 +202,8 @@ export function ChangesView({
         ) : (
           <>
             <p className="mt-1">
-              {n(outcomes.changedRows)} of {n(outcomes.rows)} rows changed their drive or a rule's outcome (revision {number}'s rows, as groups):
+              {n(outcomes.changedRows)} of {n(outcomes.rows)} rows changed their drive or a rule's outcome (revision {number}'s rows, as
+              groups):
             </p>
             <ul className="mt-2 space-y-2" data-testid="row-changes">
               {outcomes.changes.map((ch) => (
@@ -199,7 +213,11 @@ export function ChangesView({
                     {ch.rule ? ` ${ch.rule}` : ""}: {n(ch.rows)} rows
                   </p>
                   <div className="ml-3">
-                    <GroupList conditions={conditions} doc={{ format: "chainproof/groups@1", set: ch.kind, rows: ch.rows, groups: ch.groups, groupCount: ch.groupCount }} table={table} />
+                    <GroupList
+                      conditions={conditions}
+                      doc={{ format: "chainproof/groups@1", set: ch.kind, rows: ch.rows, groups: ch.groups, groupCount: ch.groupCount }}
+                      table={table}
+                    />
                   </div>
                 </li>
               ))}

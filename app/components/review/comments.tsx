@@ -86,7 +86,15 @@ export function errorsOf(result: ActionResult | undefined, intent: string): Fiel
   return result && !result.ok && result.intent === intent ? (result.errors ?? {}) : {};
 }
 
-export function CommentForm({ result, components, rows }: { result?: ActionResult; components: Array<{ id: string; label: string; type: string }>; rows: number }) {
+export function CommentForm({
+  result,
+  components,
+  rows,
+}: {
+  result?: ActionResult;
+  components: Array<{ id: string; label: string; type: string }>;
+  rows: number;
+}) {
   const [params] = useSearchParams();
   const presetRow = params.get("row");
   const nav = useNavigation();
@@ -130,4 +138,3 @@ export function CommentForm({ result, components, rows }: { result?: ActionResul
     </Form>
   );
 }
-

@@ -6,7 +6,14 @@ import { HashPrefix, When } from "~/designs/design-bits";
 import { Button, TextArea } from "~/components/ui/form";
 import { errorsOf, type ActionResult } from "./comments";
 
-export type DecisionView = { id: string; verdict: ReviewVerdict; reviewerName: string; decidedAt: string; contentHash: string; comment: string };
+export type DecisionView = {
+  id: string;
+  verdict: ReviewVerdict;
+  reviewerName: string;
+  decidedAt: string;
+  contentHash: string;
+  comment: string;
+};
 
 export function DecisionsView({ decisions }: { decisions: DecisionView[] }) {
   if (decisions.length === 0) return <p className="text-sm text-ink-600">No decision yet.</p>;
@@ -48,17 +55,27 @@ export function DecisionForm({ result }: { result?: ActionResult }) {
           Request changes
         </Button>
       </div>
-      <p className="text-xs text-ink-500">Your decision records your name, the time and this revision's content hash. A later revision needs its own review.</p>
+      <p className="text-xs text-ink-500">
+        Your decision records your name, the time and this revision's content hash. A later revision needs its own review.
+      </p>
     </Form>
   );
 }
 
-export function RequestForm({ result, reviewers }: { result?: ActionResult; reviewers: Array<{ id: string; name: string; email: string }> }) {
+export function RequestForm({
+  result,
+  reviewers,
+}: {
+  result?: ActionResult;
+  reviewers: Array<{ id: string; name: string; email: string }>;
+}) {
   const nav = useNavigation();
   const errors = errorsOf(result, "request");
   const busy = nav.state !== "idle" && nav.formData?.get("intent") === "request";
   if (reviewers.length === 0) {
-    return <p className="mt-3 text-sm text-ink-600">This workspace has no member with the reviewer role; an admin can invite one in Settings.</p>;
+    return (
+      <p className="mt-3 text-sm text-ink-600">This workspace has no member with the reviewer role; an admin can invite one in Settings.</p>
+    );
   }
   return (
     <Form method="post" className="mt-4 space-y-3 border-t border-ink-200 pt-4" aria-label="Request review">

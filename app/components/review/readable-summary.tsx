@@ -31,14 +31,28 @@ export function GroupItem({ conditions, group, tableHref }: { conditions: Condit
           </span>
         ) : null}
       </span>
-      <Link to={tableHref} className="text-xs text-copper-700 underline" aria-label={`${plural(group.rows, "row")} of this group: open them`}>
+      <Link
+        to={tableHref}
+        className="text-xs text-copper-700 underline"
+        aria-label={`${plural(group.rows, "row")} of this group: open them`}
+      >
         {plural(group.rows, "row")}
       </Link>
     </li>
   );
 }
 
-export function GroupList({ conditions, doc, table, empty }: { conditions: ConditionWords[]; doc: GroupsDocument; table: string; empty?: string }) {
+export function GroupList({
+  conditions,
+  doc,
+  table,
+  empty,
+}: {
+  conditions: ConditionWords[];
+  doc: GroupsDocument;
+  table: string;
+  empty?: string;
+}) {
   if (doc.rows === 0) return <p className="text-sm text-ink-600">{empty ?? "No rows."}</p>;
   const more = doc.groupCount - doc.groups.length;
   return (
@@ -48,12 +62,24 @@ export function GroupList({ conditions, doc, table, empty }: { conditions: Condi
           <GroupItem key={i} conditions={conditions} group={g} tableHref={`${table}?${groupSearch(g)}`} />
         ))}
       </ul>
-      {more > 0 ? <p className="mt-1 text-xs text-ink-600">…and {plural(more, "more group")}: open the truth table to see every row.</p> : null}
+      {more > 0 ? (
+        <p className="mt-1 text-xs text-ink-600">…and {plural(more, "more group")}: open the truth table to see every row.</p>
+      ) : null}
     </>
   );
 }
 
-function RuleBlock({ rule, conditions, table, ruleLabels }: { rule: RuleReading; conditions: ConditionWords[]; table: string; ruleLabels: Record<string, string> }) {
+function RuleBlock({
+  rule,
+  conditions,
+  table,
+  ruleLabels,
+}: {
+  rule: RuleReading;
+  conditions: ConditionWords[];
+  table: string;
+  ruleLabels: Record<string, string>;
+}) {
   const head = (
     <h3 className="font-semibold">
       <span className={rule.holds ? "text-moss-700" : "text-brick-700"} aria-hidden="true">
@@ -111,15 +137,24 @@ function RuleBlock({ rule, conditions, table, ruleLabels }: { rule: RuleReading;
       ) : null}
       {rule.why && rule.why.reasons.length > 0 ? (
         <details className="mt-2" open={rule.why.reasons.length <= 3} data-testid="why">
-          <summary className="cursor-pointer text-sm font-medium text-ink-800">Why {rule.holds ? "it holds" : "the other unsafe rows have no drive"}</summary>
+          <summary className="cursor-pointer text-sm font-medium text-ink-800">
+            Why {rule.holds ? "it holds" : "the other unsafe rows have no drive"}
+          </summary>
           <ul className="mt-1 space-y-2">
             {rule.why.reasons.map((p) => (
               <li key={p.reason} data-testid="why-reason" data-reason={p.reason}>
                 <p className="text-sm">
-                  In {plural(p.rows, "row")} {REASON_WORDS[p.reason]} <span className="text-xs text-ink-500">({p.reason}, {plural(p.groupCount, "group")})</span>
+                  In {plural(p.rows, "row")} {REASON_WORDS[p.reason]}{" "}
+                  <span className="text-xs text-ink-500">
+                    ({p.reason}, {plural(p.groupCount, "group")})
+                  </span>
                 </p>
                 <div className="ml-3">
-                  <GroupList conditions={conditions} doc={{ format: "chainproof/groups@1", set: p.reason, rows: p.rows, groups: p.groups, groupCount: p.groupCount }} table={table} />
+                  <GroupList
+                    conditions={conditions}
+                    doc={{ format: "chainproof/groups@1", set: p.reason, rows: p.rows, groups: p.groups, groupCount: p.groupCount }}
+                    table={table}
+                  />
                 </div>
               </li>
             ))}
@@ -165,11 +200,20 @@ export function ReadableSummary({
   const open = readable.faults.filter((f) => !dispositions[faultKey(f)]).length;
   return (
     <>
-      <Block title={`Drive runs in exactly ${drive.groupCount === 1 ? "this group" : `these ${n(drive.groupCount)} groups`}`} testId="drive-groups">
+      <Block
+        title={`Drive runs in exactly ${drive.groupCount === 1 ? "this group" : `these ${n(drive.groupCount)} groups`}`}
+        testId="drive-groups"
+      >
         <p className="text-sm text-ink-700">
-          {plural(drive.rows, "row")} of {n(readable.rows)} drive. Each group names the states it needs; “any” conditions may be in any state.
+          {plural(drive.rows, "row")} of {n(readable.rows)} drive. Each group names the states it needs; “any” conditions may be in any
+          state.
         </p>
-        <GroupList conditions={conditions} doc={drive} table={table} empty="No row drives: this design can never drive, so its inhibit rules prove nothing." />
+        <GroupList
+          conditions={conditions}
+          doc={drive}
+          table={table}
+          empty="No row drives: this design can never drive, so its inhibit rules prove nothing."
+        />
       </Block>
       <Block title="Rules: why each holds, what each demands" testId="rule-readings">
         <ul className="divide-y divide-ink-100">
@@ -181,7 +225,13 @@ export function ReadableSummary({
       <Block
         title={`Single faults that defeat a rule (${readable.faults.length})`}
         testId="fault-readings"
-        aside={readable.faults.length > 0 ? <span className={open > 0 ? "text-brick-700" : "text-moss-700"}>{open > 0 ? `${open} without a disposition` : "every fault has a disposition"}</span> : null}
+        aside={
+          readable.faults.length > 0 ? (
+            <span className={open > 0 ? "text-brick-700" : "text-moss-700"}>
+              {open > 0 ? `${open} without a disposition` : "every fault has a disposition"}
+            </span>
+          ) : null
+        }
       >
         {readable.faults.length === 0 ? (
           <p className="text-sm text-moss-700">No single stuck contact defeats a rule.</p>
@@ -202,8 +252,8 @@ export function ReadableSummary({
           </ul>
         )}
         <p className="mt-3 text-xs text-ink-600">
-          Only single stuck contacts of the drawn wiring are checked. Causes that act on several contacts at once (one actuator, one connector, one cable) are
-          common-cause failures, treated apart (ISO 13849-1, Annex F).
+          Only single stuck contacts of the drawn wiring are checked. Causes that act on several contacts at once (one actuator, one
+          connector, one cable) are common-cause failures, treated apart (ISO 13849-1, Annex F).
         </p>
       </Block>
     </>
@@ -229,7 +279,10 @@ function FaultBlock({
 }) {
   const nav = useNavigation();
   const key = faultKey(fault);
-  const busy = nav.state !== "idle" && nav.formData?.get("intent") === "dispose" && `${nav.formData.get("component")}/${nav.formData.get("mode")}` === key;
+  const busy =
+    nav.state !== "idle" &&
+    nav.formData?.get("intent") === "dispose" &&
+    `${nav.formData.get("component")}/${nav.formData.get("mode")}` === key;
   const mode = fault.mode === "stuck-open" ? "stuck open" : "stuck closed";
   return (
     <li className="rounded-md border border-ink-200 p-3" data-testid="fault-reading" data-fault={key}>
@@ -237,8 +290,8 @@ function FaultBlock({
         {fault.label} <code className="text-xs font-normal text-ink-500">{fault.component}</code> {mode}
       </h3>
       <p className="text-sm text-ink-700">
-        Defeats {fault.defeats.map((r) => `${ruleLabels[r] ?? r} (${r})`).join(", ")}: with it, {plural(fault.broken.rows, "row")} would break{" "}
-        {fault.defeats.length === 1 ? "that rule" : "those rules"}:
+        Defeats {fault.defeats.map((r) => `${ruleLabels[r] ?? r} (${r})`).join(", ")}: with it, {plural(fault.broken.rows, "row")} would
+        break {fault.defeats.length === 1 ? "that rule" : "those rules"}:
       </p>
       <GroupList conditions={conditions} doc={fault.broken} table={table} />
       <div className="mt-2 border-t border-ink-100 pt-2" data-testid="disposition">
@@ -250,16 +303,30 @@ function FaultBlock({
             </span>
           </p>
         ) : (
-          <p className="text-sm font-semibold text-brick-700">No disposition yet: the revision cannot be approved until this fault has one.</p>
+          <p className="text-sm font-semibold text-brick-700">
+            No disposition yet: the revision cannot be approved until this fault has one.
+          </p>
         )}
         {canDispose ? (
           <details className="mt-1" open={!current || Object.keys(errors).length > 0}>
-            <summary className="cursor-pointer text-sm text-copper-700">{current ? "Record another disposition" : "Record a disposition"}</summary>
-            <Form method="post" className="mt-2 grid gap-2 sm:grid-cols-[14rem_1fr_auto] sm:items-end" aria-label={`Disposition of ${fault.component} ${mode}`}>
+            <summary className="cursor-pointer text-sm text-copper-700">
+              {current ? "Record another disposition" : "Record a disposition"}
+            </summary>
+            <Form
+              method="post"
+              className="mt-2 grid gap-2 sm:grid-cols-[14rem_1fr_auto] sm:items-end"
+              aria-label={`Disposition of ${fault.component} ${mode}`}
+            >
               <input type="hidden" name="intent" value="dispose" />
               <input type="hidden" name="component" value={fault.component} />
               <input type="hidden" name="mode" value={fault.mode} />
-              <SelectField id={`disposition-${key}`} label="Disposition" name="disposition" defaultValue={current?.disposition ?? ""} error={errors.disposition}>
+              <SelectField
+                id={`disposition-${key}`}
+                label="Disposition"
+                name="disposition"
+                defaultValue={current?.disposition ?? ""}
+                error={errors.disposition}
+              >
                 <option value="" disabled>
                   Choose…
                 </option>
@@ -269,7 +336,17 @@ function FaultBlock({
                   </option>
                 ))}
               </SelectField>
-              <TextArea id={`justification-${key}`} label="Justification" name="justification" rows={2} required minLength={10} maxLength={2000} error={errors.justification ?? errors.component} hint={DISPOSITION_HINTS.accepted} />
+              <TextArea
+                id={`justification-${key}`}
+                label="Justification"
+                name="justification"
+                rows={2}
+                required
+                minLength={10}
+                maxLength={2000}
+                error={errors.justification ?? errors.component}
+                hint={DISPOSITION_HINTS.accepted}
+              />
               <Button type="submit" tone="secondary" disabled={busy}>
                 {busy ? "Saving…" : "Save"}
               </Button>

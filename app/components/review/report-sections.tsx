@@ -35,11 +35,12 @@ export function ReportReading({ readable, dispositions }: { readable: Readable; 
     <section aria-label="Row groups" data-testid="report-groups">
       <h2 className={h2}>What the table says, in groups</h2>
       <p className="mt-2">
-        A group names the states some conditions must be in; every other condition may be in any state. Groups are disjoint and together are exactly the
-        rows described.
+        A group names the states some conditions must be in; every other condition may be in any state. Groups are disjoint and together are
+        exactly the rows described.
       </p>
       <h3 className="mt-3 font-semibold">
-        Drive runs in {n(readable.drive.rows)} of {n(readable.rows)} rows, in exactly {n(readable.drive.groupCount)} group{readable.drive.groupCount === 1 ? "" : "s"}
+        Drive runs in {n(readable.drive.rows)} of {n(readable.rows)} rows, in exactly {n(readable.drive.groupCount)} group
+        {readable.drive.groupCount === 1 ? "" : "s"}
       </h3>
       <Groups conditions={c} doc={readable.drive} />
       <h2 className={h2}>Rules with their reasons</h2>
@@ -59,7 +60,10 @@ export function ReportReading({ readable, dispositions }: { readable: Readable; 
                   <p>
                     In {n(p.rows)} rows {REASON_WORDS[p.reason]} ({p.reason}):
                   </p>
-                  <Groups conditions={c} doc={{ format: "chainproof/groups@1", set: p.reason, rows: p.rows, groups: p.groups, groupCount: p.groupCount }} />
+                  <Groups
+                    conditions={c}
+                    doc={{ format: "chainproof/groups@1", set: p.reason, rows: p.rows, groups: p.groups, groupCount: p.groupCount }}
+                  />
                 </div>
               ))}
             </>
@@ -71,7 +75,11 @@ export function ReportReading({ readable, dispositions }: { readable: Readable; 
               <Groups conditions={c} doc={r.demand} />
             </>
           ) : (
-            <p>{r.holds ? "No sequence of steps from power-up starts the drive on a throttle already held." : "A sequence of steps starts the drive on a held throttle (see the results)."}</p>
+            <p>
+              {r.holds
+                ? "No sequence of steps from power-up starts the drive on a throttle already held."
+                : "A sequence of steps starts the drive on a held throttle (see the results)."}
+            </p>
           )}
         </div>
       ))}
@@ -82,11 +90,10 @@ export function ReportReading({ readable, dispositions }: { readable: Readable; 
         return (
           <div key={faultKey(f)} className="mt-3 break-inside-avoid" data-testid="report-fault">
             <h3 className="font-semibold">
-              {f.label} <code className="text-xs">{f.component}</code> {f.mode === "stuck-open" ? "stuck open" : "stuck closed"} — defeats {f.defeats.join(", ")}
+              {f.label} <code className="text-xs">{f.component}</code> {f.mode === "stuck-open" ? "stuck open" : "stuck closed"} — defeats{" "}
+              {f.defeats.join(", ")}
             </h3>
-            <p>
-              Breaks {n(f.broken.rows)} rows:
-            </p>
+            <p>Breaks {n(f.broken.rows)} rows:</p>
             <Groups conditions={c} doc={f.broken} />
             <p className="mt-1" data-testid="report-disposition">
               {d ? (
@@ -101,14 +108,22 @@ export function ReportReading({ readable, dispositions }: { readable: Readable; 
         );
       })}
       <p className="mt-2 text-xs text-ink-600">
-        Only single stuck contacts of the drawn wiring are checked; common-cause failures (one actuator, connector or cable acting on several contacts) are
-        treated apart (ISO 13849-1, Annex F).
+        Only single stuck contacts of the drawn wiring are checked; common-cause failures (one actuator, connector or cable acting on
+        several contacts) are treated apart (ISO 13849-1, Annex F).
       </p>
     </section>
   );
 }
 
-export function ReportChanges({ comparison, conditions, number }: { comparison: Comparison; conditions: ConditionWords[]; number: number }) {
+export function ReportChanges({
+  comparison,
+  conditions,
+  number,
+}: {
+  comparison: Comparison;
+  conditions: ConditionWords[];
+  number: number;
+}) {
   if (comparison.baseline === null) {
     return (
       <section aria-label="Changes">
@@ -137,7 +152,9 @@ export function ReportChanges({ comparison, conditions, number }: { comparison: 
   return (
     <section aria-label="Changes" data-testid="report-changes">
       <h2 className={h2}>Changes since revision {comparison.baseline.number}</h2>
-      {items.length === 0 ? <p className="mt-2">The structure is the same.</p> : (
+      {items.length === 0 ? (
+        <p className="mt-2">The structure is the same.</p>
+      ) : (
         <ul className="mt-2 ml-4 list-disc break-words">
           {items.map((x, i) => (
             <li key={i}>{x}</li>
@@ -164,7 +181,10 @@ export function ReportChanges({ comparison, conditions, number }: { comparison: 
                 {ch.kind}
                 {ch.rule ? ` ${ch.rule}` : ""}: {n(ch.rows)} rows
               </p>
-              <Groups conditions={conditions} doc={{ format: "chainproof/groups@1", set: ch.kind, rows: ch.rows, groups: ch.groups, groupCount: ch.groupCount }} />
+              <Groups
+                conditions={conditions}
+                doc={{ format: "chainproof/groups@1", set: ch.kind, rows: ch.rows, groups: ch.groups, groupCount: ch.groupCount }}
+              />
             </div>
           ))}
         </>

@@ -49,7 +49,10 @@ export function RuleCellView({ cell }: { cell: RuleCell }) {
   }
   if (cell === "failing") {
     return (
-      <span className="inline-flex items-center gap-1 rounded bg-brick-100 px-1.5 font-semibold text-brick-700" title="the vehicle must drive in this row and does not">
+      <span
+        className="inline-flex items-center gap-1 rounded bg-brick-100 px-1.5 font-semibold text-brick-700"
+        title="the vehicle must drive in this row and does not"
+      >
         <span aria-hidden="true">✕</span>failing
       </span>
     );

@@ -6,9 +6,11 @@ import { ContactCell, DriveCell, LiveCell, RuleCellView } from "./cells";
 
 const thScreen = "whitespace-nowrap border-b border-ink-200 bg-ink-50 px-2 py-1 text-left text-xs font-medium text-ink-600";
 const thDense = "whitespace-nowrap border-b border-ink-200 bg-ink-50 px-1 py-0.5 text-left font-medium text-ink-600";
-const group = "whitespace-nowrap border-b border-l border-ink-200 bg-ink-100 px-2 py-1 text-left text-xs font-semibold uppercase tracking-wide text-ink-700";
+const group =
+  "whitespace-nowrap border-b border-l border-ink-200 bg-ink-100 px-2 py-1 text-left text-xs font-semibold uppercase tracking-wide text-ink-700";
 // On paper a group's name may wrap rather than widen a band beyond the page.
-const groupDense = "whitespace-normal border-b border-l border-ink-200 bg-ink-100 px-1 py-0.5 text-left font-semibold uppercase tracking-wide text-ink-700";
+const groupDense =
+  "whitespace-normal border-b border-l border-ink-200 bg-ink-100 px-1 py-0.5 text-left font-semibold uppercase tracking-wide text-ink-700";
 const tdScreen = "whitespace-nowrap px-2 py-1";
 const tdDense = "whitespace-nowrap px-1 py-0";
 
@@ -77,14 +79,21 @@ export function TruthTableGrid({
   const pinRules = pinRight && rules.length <= STICKY_RULES;
   const pinSummary = pinRight && rules.length > STICKY_RULES;
   const driveRight = pinRules ? rules.length * RULE_REM : pinSummary ? SUMMARY_REM : 0;
-  const driveStyle = pinRight ? { right: rem(driveRight), width: rem(DRIVE_REM), minWidth: rem(DRIVE_REM), maxWidth: rem(DRIVE_REM) } : undefined;
+  const driveStyle = pinRight
+    ? { right: rem(driveRight), width: rem(DRIVE_REM), minWidth: rem(DRIVE_REM), maxWidth: rem(DRIVE_REM) }
+    : undefined;
   const summaryStyle = { right: 0, width: rem(SUMMARY_REM), minWidth: rem(SUMMARY_REM), maxWidth: rem(SUMMARY_REM) };
   const ruleStyle = (i: number) =>
-    pinRules ? { right: rem((rules.length - 1 - i) * RULE_REM), width: rem(RULE_REM), minWidth: rem(RULE_REM), maxWidth: rem(RULE_REM) } : undefined;
+    pinRules
+      ? { right: rem((rules.length - 1 - i) * RULE_REM), width: rem(RULE_REM), minWidth: rem(RULE_REM), maxWidth: rem(RULE_REM) }
+      : undefined;
   const driveClass = pinRight ? `${stickyRight} ${stickyEdge}` : "";
   const ruleClass = (i: number) => (pinRules ? `${stickyRight} z-20 ${i === 0 && !showDrive ? stickyEdge : ""}` : "");
   return (
-    <table className={`border-separate border-spacing-0 font-mono tabular-nums ${dense ? "text-[9px] leading-tight" : "min-w-full text-xs"}`} data-testid="truth-table">
+    <table
+      className={`border-separate border-spacing-0 font-mono tabular-nums ${dense ? "text-[9px] leading-tight" : "min-w-full text-xs"}`}
+      data-testid="truth-table"
+    >
       {caption ? <caption className="sr-only">{caption}</caption> : null}
       <thead className={stickyHead}>
         <tr>
@@ -110,12 +119,24 @@ export function TruthTableGrid({
             </th>
           ) : null}
           {showDrive ? (
-            <th scope="col" rowSpan={2} className={`${groupClass} ${driveClass} ${pinRight ? "z-20" : ""}`} style={driveStyle} data-col="drive">
+            <th
+              scope="col"
+              rowSpan={2}
+              className={`${groupClass} ${driveClass} ${pinRight ? "z-20" : ""}`}
+              style={driveStyle}
+              data-col="drive"
+            >
               Drive
             </th>
           ) : null}
           {pinSummary && showDrive ? (
-            <th scope="col" rowSpan={2} className={`${groupClass} ${stickyRight} z-20 whitespace-normal`} style={summaryStyle} data-col="rules-summary">
+            <th
+              scope="col"
+              rowSpan={2}
+              className={`${groupClass} ${stickyRight} z-20 whitespace-normal`}
+              style={summaryStyle}
+              data-col="rules-summary"
+            >
               Rules in this row
             </th>
           ) : null}
@@ -137,12 +158,24 @@ export function TruthTableGrid({
             </th>
           ))}
           {contacts.map((c, i) => (
-            <th key={c.id} scope="col" className={`${th} ${i === 0 ? "border-l border-ink-200" : ""}`} title={`${c.label} (on ${c.condition})`} data-col={c.id}>
+            <th
+              key={c.id}
+              scope="col"
+              className={`${th} ${i === 0 ? "border-l border-ink-200" : ""}`}
+              title={`${c.label} (on ${c.condition})`}
+              data-col={c.id}
+            >
               {labelled ? <Heading label={c.label} id={c.id} /> : c.id}
             </th>
           ))}
           {inputs.map((x, i) => (
-            <th key={x.id} scope="col" className={`${th} ${i === 0 ? "border-l border-ink-200" : ""}`} title={`${x.label}: ${x.fn}`} data-col={x.id}>
+            <th
+              key={x.id}
+              scope="col"
+              className={`${th} ${i === 0 ? "border-l border-ink-200" : ""}`}
+              title={`${x.label}: ${x.fn}`}
+              data-col={x.id}
+            >
               {labelled ? (
                 <Heading label={x.label} id={x.id} extra={x.fn} />
               ) : (
@@ -154,11 +187,21 @@ export function TruthTableGrid({
           ))}
           {showController ? (
             <>
-              <th scope="col" className={`${th} border-l border-ink-200`} data-col="controller-powered">powered</th>
-              <th scope="col" className={th} data-col="controller-enabled">enabled</th>
-              <th scope="col" className={th} data-col="controller-direction">direction</th>
-              <th scope="col" className={th} data-col="controller-braking">braking</th>
-              <th scope="col" className={th} data-col="controller-throttle">throttle</th>
+              <th scope="col" className={`${th} border-l border-ink-200`} data-col="controller-powered">
+                powered
+              </th>
+              <th scope="col" className={th} data-col="controller-enabled">
+                enabled
+              </th>
+              <th scope="col" className={th} data-col="controller-direction">
+                direction
+              </th>
+              <th scope="col" className={th} data-col="controller-braking">
+                braking
+              </th>
+              <th scope="col" className={th} data-col="controller-throttle">
+                throttle
+              </th>
             </>
           ) : null}
           {rules.map((r, i) => (
@@ -191,11 +234,14 @@ export function TruthTableGrid({
               key={r.index}
               data-row={r.index}
               aria-selected={onSelect ? isSelected : undefined}
-                            // Opaque colours only: the sticky cells inherit them, and a see-through one shows the scrolled text.
+              // Opaque colours only: the sticky cells inherit them, and a see-through one shows the scrolled text.
               className={`${isSelected ? "bg-copper-50" : bad ? "bg-brick-50" : "odd:bg-white even:bg-ink-50"} ${onSelect ? "cursor-pointer hover:bg-copper-100" : ""}`}
               onClick={onSelect ? () => onSelect(r.index) : undefined}
             >
-              <th scope="row" className={`${td} border-r border-ink-100 text-right font-semibold text-ink-700 ${sticky ? "sticky left-0 bg-inherit" : ""}`}>
+              <th
+                scope="row"
+                className={`${td} border-r border-ink-100 text-right font-semibold text-ink-700 ${sticky ? "sticky left-0 bg-inherit" : ""}`}
+              >
                 {onSelect ? (
                   <button
                     type="button"
@@ -248,12 +294,20 @@ export function TruthTableGrid({
                 </td>
               ) : null}
               {pinSummary && showDrive ? (
-                <td className={`${dense ? "px-1 py-0" : "px-2 py-1"} ${stickyRight} bg-inherit text-[11px] leading-tight`} style={summaryStyle} data-testid="rules-summary">
+                <td
+                  className={`${dense ? "px-1 py-0" : "px-2 py-1"} ${stickyRight} bg-inherit text-[11px] leading-tight`}
+                  style={summaryStyle}
+                  data-testid="rules-summary"
+                >
                   <RulesInRow columns={rules} cells={r.rules} />
                 </td>
               ) : null}
               {pick(r.rules, band?.rules).map((c, i) => (
-                <td key={`r${i}`} className={`${td} ${pinRules ? `${ruleClass(i).replace("z-20", "")} bg-inherit` : ""}`} style={ruleStyle(i)}>
+                <td
+                  key={`r${i}`}
+                  className={`${td} ${pinRules ? `${ruleClass(i).replace("z-20", "")} bg-inherit` : ""}`}
+                  style={ruleStyle(i)}
+                >
                   <RuleCellView cell={c} />
                 </td>
               ))}

@@ -12,9 +12,7 @@ export function TruthTableBands({ columns, rows }: { columns: TableColumns; rows
   return (
     <>
       {bands.length > 1 ? (
-        <p className="mt-2 text-ink-600">
-          The table is printed in {bands.length} parts; each repeats the row number and the conditions.
-        </p>
+        <p className="mt-2 text-ink-600">The table is printed in {bands.length} parts; each repeats the row number and the conditions.</p>
       ) : null}
       {bands.map((band, i) => {
         const what = describeBand(band, columns);
@@ -26,7 +24,14 @@ export function TruthTableBands({ columns, rows }: { columns: TableColumns; rows
               </h3>
             ) : null}
             <div className="mt-1">
-              <TruthTableGrid columns={columns} rows={rows} band={band} dense sticky={false} caption={bands.length > 1 ? `Truth table, part ${i + 1}: ${what}` : "Full truth table"} />
+              <TruthTableGrid
+                columns={columns}
+                rows={rows}
+                band={band}
+                dense
+                sticky={false}
+                caption={bands.length > 1 ? `Truth table, part ${i + 1}: ${what}` : "Full truth table"}
+              />
             </div>
           </div>
         );

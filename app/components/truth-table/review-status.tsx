@@ -2,7 +2,12 @@
 import { REVIEW_STATUS_LABELS, type ReviewStatus } from "~/reviews/status";
 import { Badge } from "~/components/ui/badge";
 
-const TONES = { "not-requested": "plain", "in-review": "caution", "changes-requested": "failing", approved: "proven" } as const satisfies Record<ReviewStatus, string>;
+const TONES = {
+  "not-requested": "plain",
+  "in-review": "caution",
+  "changes-requested": "failing",
+  approved: "proven",
+} as const satisfies Record<ReviewStatus, string>;
 const MARKS: Record<ReviewStatus, string> = { "not-requested": "○", "in-review": "◔", "changes-requested": "✕", approved: "✓" };
 
 export function ReviewStatusBadge({ status, number }: { status: ReviewStatus; number?: number }) {

@@ -40,10 +40,16 @@ export function RowDrawer({
         </Button>
       </div>
       <div className="mt-2 flex flex-wrap gap-2">
-        <Link to={simulateHref} className="inline-flex min-h-10 items-center rounded-md bg-copper-600 px-3 text-sm font-semibold text-white hover:bg-copper-700">
+        <Link
+          to={simulateHref}
+          className="inline-flex min-h-10 items-center rounded-md bg-copper-600 px-3 text-sm font-semibold text-white hover:bg-copper-700"
+        >
           Simulate this row on the canvas
         </Link>
-        <Link to={commentHref} className="inline-flex min-h-10 items-center rounded-md border border-ink-300 px-3 text-sm font-semibold text-ink-800 hover:bg-ink-100">
+        <Link
+          to={commentHref}
+          className="inline-flex min-h-10 items-center rounded-md border border-ink-300 px-3 text-sm font-semibold text-ink-800 hover:bg-ink-100"
+        >
           Comment on this row
         </Link>
       </div>
@@ -107,15 +113,15 @@ function DiagnosisView({ columns, detail }: { columns: TableColumns; detail: Row
                 <span className="font-medium">{x.label}</span> <code className="text-xs text-ink-500">{x.input}</code> ({x.function}):{" "}
                 {x.energized ? <strong>energized</strong> : <span>dead</span>}
               </p>
-              {!x.energized && x.unreachable ? <p className="text-ink-600">No contact closing would energize it: it is not wired towards a supply.</p> : null}
+              {!x.energized && x.unreachable ? (
+                <p className="text-ink-600">No contact closing would energize it: it is not wired towards a supply.</p>
+              ) : null}
               {!x.energized && x.fixes.length > 0 ? (
                 <div className="mt-1 text-ink-700">
                   Closing any of these sets would energize it:
                   <ul className="mt-1 list-inside list-disc">
                     {x.fixes.slice(0, 5).map((set, i) => (
-                      <li key={i}>
-                        {set.map((k) => `${k.label} (${k.contact}: ${k.condition} ${k.closeIn.join(" or ")})`).join(" + ")}
-                      </li>
+                      <li key={i}>{set.map((k) => `${k.label} (${k.contact}: ${k.condition} ${k.closeIn.join(" or ")})`).join(" + ")}</li>
                     ))}
                   </ul>
                   {x.fixes.length > 5 || x.truncated ? <p className="text-xs text-ink-500">and more.</p> : null}

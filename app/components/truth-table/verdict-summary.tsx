@@ -32,16 +32,24 @@ export function VerdictSummary({
   return (
     <div className="space-y-4 text-sm" data-testid="verdict-summary">
       <p>
-        <strong>{verdict.ok ? "Every rule holds." : "Some rules fail."}</strong> {verdict.rows.toLocaleString("en-US")} truth-table rows; the drive is on in{" "}
-        {verdict.driveRows.toLocaleString("en-US")}.
+        <strong>{verdict.ok ? "Every rule holds." : "Some rules fail."}</strong> {verdict.rows.toLocaleString("en-US")} truth-table rows;
+        the drive is on in {verdict.driveRows.toLocaleString("en-US")}.
       </p>
       <table className="min-w-full text-left">
         <thead className="border-b border-ink-200 text-xs uppercase tracking-wide text-ink-500">
           <tr>
-            <th scope="col" className="py-1 pr-3 font-medium">Rule</th>
-            <th scope="col" className="py-1 pr-3 font-medium">Unsafe rows</th>
-            <th scope="col" className="py-1 pr-3 font-medium">Violating rows</th>
-            <th scope="col" className="py-1 font-medium">Result</th>
+            <th scope="col" className="py-1 pr-3 font-medium">
+              Rule
+            </th>
+            <th scope="col" className="py-1 pr-3 font-medium">
+              Unsafe rows
+            </th>
+            <th scope="col" className="py-1 pr-3 font-medium">
+              Violating rows
+            </th>
+            <th scope="col" className="py-1 font-medium">
+              Result
+            </th>
           </tr>
         </thead>
         <tbody className="divide-y divide-ink-100">

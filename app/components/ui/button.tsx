@@ -12,7 +12,8 @@ export const buttonVariants = cva(
     variants: {
       variant: {
         action: "bg-action text-white shadow-sm hover:bg-action-hover disabled:bg-ink-300",
-        secondary: "border border-line-strong bg-surface text-ink-800 shadow-sm hover:bg-subtle disabled:text-ink-400 disabled:hover:bg-surface",
+        secondary:
+          "border border-line-strong bg-surface text-ink-800 shadow-sm hover:bg-subtle disabled:text-ink-400 disabled:hover:bg-surface",
         danger: "bg-failing text-white shadow-sm hover:bg-failing-hover disabled:bg-ink-300",
         "danger-quiet": "border border-failing bg-surface text-failing-ink hover:bg-failing-soft disabled:text-ink-400",
         // In a coloured banner: takes the banner's text colour.
@@ -52,15 +53,22 @@ export function Button({ variant, size, className, ...rest }: ButtonProps) {
   return <button className={buttonVariants({ variant, size, className })} {...rest} />;
 }
 
-export const chipVariants = cva("inline-flex items-center justify-center border font-medium disabled:cursor-not-allowed aria-pressed:text-white", {
-  variants: {
-    pressed: { true: "", false: "border-line-strong bg-surface text-ink-700 hover:bg-subtle" },
-    // action: a choice that changes what is shown; ink: a reading the user records.
-    tone: { action: "aria-pressed:border-action aria-pressed:bg-action", ink: "aria-pressed:border-ink-800 aria-pressed:bg-ink-800" },
-    size: { sm: "rounded-full px-2 py-0.5 text-xs", touch: "min-h-12 min-w-20 rounded-md px-4 text-base", "touch-sm": "min-h-11 rounded-md px-2 text-base" },
+export const chipVariants = cva(
+  "inline-flex items-center justify-center border font-medium disabled:cursor-not-allowed aria-pressed:text-white",
+  {
+    variants: {
+      pressed: { true: "", false: "border-line-strong bg-surface text-ink-700 hover:bg-subtle" },
+      // action: a choice that changes what is shown; ink: a reading the user records.
+      tone: { action: "aria-pressed:border-action aria-pressed:bg-action", ink: "aria-pressed:border-ink-800 aria-pressed:bg-ink-800" },
+      size: {
+        sm: "rounded-full px-2 py-0.5 text-xs",
+        touch: "min-h-12 min-w-20 rounded-md px-4 text-base",
+        "touch-sm": "min-h-11 rounded-md px-2 text-base",
+      },
+    },
+    defaultVariants: { pressed: false, tone: "action", size: "sm" },
   },
-  defaultVariants: { pressed: false, tone: "action", size: "sm" },
-});
+);
 
 /** A toggle in a row of choices (aria-pressed): a state picked, a filter on. */
 export function Chip({
@@ -69,6 +77,7 @@ export function Chip({
   size,
   className,
   ...rest
-}: Omit<ButtonHTMLAttributes<HTMLButtonElement>, "aria-pressed"> & VariantProps<typeof chipVariants> & { pressed: boolean; ref?: Ref<HTMLButtonElement> }) {
+}: Omit<ButtonHTMLAttributes<HTMLButtonElement>, "aria-pressed"> &
+  VariantProps<typeof chipVariants> & { pressed: boolean; ref?: Ref<HTMLButtonElement> }) {
   return <button type="button" aria-pressed={pressed} className={chipVariants({ pressed, tone, size, className })} {...rest} />;
 }

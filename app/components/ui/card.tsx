@@ -22,7 +22,14 @@ export function Card({ as = "div", padding, interactive, className, ...rest }: C
 }
 
 /** A card with a heading row (title, and something beside it such as a link) above its content. */
-export function CardSection({ title, aside, children, className, padding = "lg", ...rest }: Omit<CardProps, "title"> & { title: string; aside?: ReactNode }) {
+export function CardSection({
+  title,
+  aside,
+  children,
+  className,
+  padding = "lg",
+  ...rest
+}: Omit<CardProps, "title"> & { title: string; aside?: ReactNode }) {
   return (
     <Card as="section" padding={padding} className={className} {...rest}>
       <div className="mb-3 flex flex-wrap items-center justify-between gap-2">

@@ -40,7 +40,10 @@ export function Dialog({ open, onClose, title, actions, children, className }: D
       onKeyDown={(e) => {
         if (e.key === "Escape" && typeof ref.current?.showModal !== "function") onClose();
       }}
-      className={cn("m-auto max-h-[80vh] w-full max-w-lg overflow-y-auto rounded-lg bg-surface p-4 text-ink-900 shadow-xl backdrop:bg-ink-900/40", className)}
+      className={cn(
+        "m-auto max-h-[80vh] w-full max-w-lg overflow-y-auto rounded-lg bg-surface p-4 text-ink-900 shadow-xl backdrop:bg-ink-900/40",
+        className,
+      )}
     >
       {open ? (
         <>

@@ -7,8 +7,12 @@ export const apiKey = pgTable(
   "api_key",
   {
     id: text("id").primaryKey(),
-    workspaceId: text("workspace_id").notNull().references(() => workspace.id, { onDelete: "cascade" }),
-    userId: text("user_id").notNull().references(() => user.id, { onDelete: "cascade" }),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspace.id, { onDelete: "cascade" }),
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
     name: text("name").notNull(),
     // The first characters of the key, shown so the owner can tell keys apart.
     prefix: text("prefix").notNull(),

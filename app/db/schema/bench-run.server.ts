@@ -12,14 +12,24 @@ export const benchRun = pgTable(
   "bench_run",
   {
     id: text("id").primaryKey(),
-    workspaceId: text("workspace_id").notNull().references(() => workspace.id, { onDelete: "cascade" }),
-    vehicleId: text("vehicle_id").notNull().references(() => vehicle.id, { onDelete: "cascade" }),
-    revisionId: text("revision_id").notNull().references(() => designRevision.id, { onDelete: "restrict" }),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspace.id, { onDelete: "cascade" }),
+    vehicleId: text("vehicle_id")
+      .notNull()
+      .references(() => vehicle.id, { onDelete: "cascade" }),
+    revisionId: text("revision_id")
+      .notNull()
+      .references(() => designRevision.id, { onDelete: "restrict" }),
     /** The revision's content hash when the run started (decision 032). */
     revisionHash: text("revision_hash").notNull(),
     plan: jsonb("plan").$type<BenchPlan>().notNull(),
-    status: text("status", { enum: ["in-progress", "completed"] }).notNull().default("in-progress"),
-    startedBy: text("started_by").notNull().references(() => user.id),
+    status: text("status", { enum: ["in-progress", "completed"] })
+      .notNull()
+      .default("in-progress"),
+    startedBy: text("started_by")
+      .notNull()
+      .references(() => user.id),
     startedAt: timestamp("started_at", { withTimezone: true }).notNull().defaultNow(),
     completedBy: text("completed_by").references(() => user.id),
     completedAt: timestamp("completed_at", { withTimezone: true }),
@@ -41,8 +51,12 @@ export const benchStepResult = pgTable(
   "bench_step_result",
   {
     id: text("id").primaryKey(),
-    workspaceId: text("workspace_id").notNull().references(() => workspace.id, { onDelete: "cascade" }),
-    runId: text("run_id").notNull().references(() => benchRun.id, { onDelete: "cascade" }),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspace.id, { onDelete: "cascade" }),
+    runId: text("run_id")
+      .notNull()
+      .references(() => benchRun.id, { onDelete: "cascade" }),
     /** The plan's step number, from 1. */
     n: integer("n").notNull(),
     outcome: text("outcome", { enum: ["pass", "fail", "skip"] }),

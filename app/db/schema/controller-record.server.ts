@@ -10,12 +10,18 @@ export const controllerRecord = pgTable(
   "controller_record",
   {
     id: text("id").primaryKey(),
-    workspaceId: text("workspace_id").notNull().references(() => workspace.id, { onDelete: "cascade" }),
-    vehicleId: text("vehicle_id").notNull().references(() => vehicle.id, { onDelete: "cascade" }),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspace.id, { onDelete: "cascade" }),
+    vehicleId: text("vehicle_id")
+      .notNull()
+      .references(() => vehicle.id, { onDelete: "cascade" }),
     version: integer("version").notNull(),
     /** The record as entered and validated, unknown keys included. */
     document: jsonb("document").$type<Record<string, unknown>>().notNull(),
-    recordedBy: text("recorded_by").notNull().references(() => user.id),
+    recordedBy: text("recorded_by")
+      .notNull()
+      .references(() => user.id),
     recordedAt: timestamp("recorded_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [

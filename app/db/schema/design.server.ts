@@ -11,10 +11,14 @@ export const design = pgTable(
   "design",
   {
     id: text("id").primaryKey(),
-    workspaceId: text("workspace_id").notNull().references(() => workspace.id, { onDelete: "cascade" }),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspace.id, { onDelete: "cascade" }),
     vehicleId: text("vehicle_id").references(() => vehicle.id, { onDelete: "set null" }),
     name: text("name").notNull(),
-    createdBy: text("created_by").notNull().references(() => user.id),
+    createdBy: text("created_by")
+      .notNull()
+      .references(() => user.id),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
@@ -36,15 +40,19 @@ export const designRevision = pgTable(
     verdict: jsonb("verdict").$type<Verdict>().notNull(),
     contentHash: text("content_hash").notNull(),
     message: text("message").notNull().default(""),
-    authorId: text("author_id").notNull().references(() => user.id),
+    authorId: text("author_id")
+      .notNull()
+      .references(() => user.id),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
     uniqueIndex("design_revision_number_idx").on(t.designId, t.number),
     index("design_revision_workspace_idx").on(t.workspaceId),
-    foreignKey({ columns: [t.designId, t.workspaceId], foreignColumns: [design.id, design.workspaceId], name: "design_revision_design_fk" }).onDelete(
-      "cascade",
-    ),
+    foreignKey({
+      columns: [t.designId, t.workspaceId],
+      foreignColumns: [design.id, design.workspaceId],
+      name: "design_revision_design_fk",
+    }).onDelete("cascade"),
     check("design_revision_number_positive", sql`${t.number} >= 1`),
   ],
 );
@@ -59,15 +67,19 @@ export const designDraft = pgTable(
     contentHash: text("content_hash").notNull(),
     check: jsonb("check").$type<DraftCheck>().notNull(),
     baseRevision: integer("base_revision").notNull().default(0),
-    updatedBy: text("updated_by").notNull().references(() => user.id),
+    updatedBy: text("updated_by")
+      .notNull()
+      .references(() => user.id),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
     primaryKey({ columns: [t.designId], name: "design_draft_pk" }),
     index("design_draft_workspace_idx").on(t.workspaceId),
-    foreignKey({ columns: [t.designId, t.workspaceId], foreignColumns: [design.id, design.workspaceId], name: "design_draft_design_fk" }).onDelete(
-      "cascade",
-    ),
+    foreignKey({
+      columns: [t.designId, t.workspaceId],
+      foreignColumns: [design.id, design.workspaceId],
+      name: "design_draft_design_fk",
+    }).onDelete("cascade"),
   ],
 );
 

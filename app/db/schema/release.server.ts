@@ -10,10 +10,18 @@ export const vehicleRelease = pgTable(
   "vehicle_release",
   {
     id: text("id").primaryKey(),
-    workspaceId: text("workspace_id").notNull().references(() => workspace.id, { onDelete: "cascade" }),
-    vehicleId: text("vehicle_id").notNull().references(() => vehicle.id, { onDelete: "cascade" }),
-    revisionId: text("revision_id").notNull().references(() => designRevision.id, { onDelete: "restrict" }),
-    releasedBy: text("released_by").notNull().references(() => user.id),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspace.id, { onDelete: "cascade" }),
+    vehicleId: text("vehicle_id")
+      .notNull()
+      .references(() => vehicle.id, { onDelete: "cascade" }),
+    revisionId: text("revision_id")
+      .notNull()
+      .references(() => designRevision.id, { onDelete: "restrict" }),
+    releasedBy: text("released_by")
+      .notNull()
+      .references(() => user.id),
     at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
     note: text("note").notNull().default(""),
   },
@@ -24,8 +32,12 @@ export const vehicleAttention = pgTable(
   "vehicle_attention",
   {
     id: text("id").primaryKey(),
-    workspaceId: text("workspace_id").notNull().references(() => workspace.id, { onDelete: "cascade" }),
-    vehicleId: text("vehicle_id").notNull().references(() => vehicle.id, { onDelete: "cascade" }),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspace.id, { onDelete: "cascade" }),
+    vehicleId: text("vehicle_id")
+      .notNull()
+      .references(() => vehicle.id, { onDelete: "cascade" }),
     reason: text("reason").notNull(),
     /** The bench run and step that raised it, when a failed step did. */
     benchRunId: text("bench_run_id"),

@@ -16,11 +16,21 @@ export const reviewRequest = pgTable(
   "review_request",
   {
     id: text("id").primaryKey(),
-    workspaceId: text("workspace_id").notNull().references(() => workspace.id, { onDelete: "cascade" }),
-    designId: text("design_id").notNull().references(() => design.id, { onDelete: "cascade" }),
-    revisionId: text("revision_id").notNull().references(() => designRevision.id, { onDelete: "cascade" }),
-    reviewerId: text("reviewer_id").notNull().references(() => user.id, { onDelete: "cascade" }),
-    requestedBy: text("requested_by").notNull().references(() => user.id),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspace.id, { onDelete: "cascade" }),
+    designId: text("design_id")
+      .notNull()
+      .references(() => design.id, { onDelete: "cascade" }),
+    revisionId: text("revision_id")
+      .notNull()
+      .references(() => designRevision.id, { onDelete: "cascade" }),
+    reviewerId: text("reviewer_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    requestedBy: text("requested_by")
+      .notNull()
+      .references(() => user.id),
     note: text("note").notNull().default(""),
     requestedAt: timestamp("requested_at", { withTimezone: true }).notNull().defaultNow(),
   },
@@ -37,9 +47,15 @@ export const reviewComment = pgTable(
   "review_comment",
   {
     id: text("id").primaryKey(),
-    workspaceId: text("workspace_id").notNull().references(() => workspace.id, { onDelete: "cascade" }),
-    revisionId: text("revision_id").notNull().references(() => designRevision.id, { onDelete: "cascade" }),
-    authorId: text("author_id").notNull().references(() => user.id),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspace.id, { onDelete: "cascade" }),
+    revisionId: text("revision_id")
+      .notNull()
+      .references(() => designRevision.id, { onDelete: "cascade" }),
+    authorId: text("author_id")
+      .notNull()
+      .references(() => user.id),
     anchor: reviewCommentAnchorEnum("anchor").notNull().default("revision"),
     /** Truth-table row index and its states, for anchor "row". */
     rowIndex: integer("row_index"),
@@ -65,20 +81,25 @@ export const reviewDecision = pgTable(
   "review_decision",
   {
     id: text("id").primaryKey(),
-    workspaceId: text("workspace_id").notNull().references(() => workspace.id, { onDelete: "cascade" }),
-    designId: text("design_id").notNull().references(() => design.id, { onDelete: "cascade" }),
-    revisionId: text("revision_id").notNull().references(() => designRevision.id, { onDelete: "cascade" }),
-    reviewerId: text("reviewer_id").notNull().references(() => user.id),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspace.id, { onDelete: "cascade" }),
+    designId: text("design_id")
+      .notNull()
+      .references(() => design.id, { onDelete: "cascade" }),
+    revisionId: text("revision_id")
+      .notNull()
+      .references(() => designRevision.id, { onDelete: "cascade" }),
+    reviewerId: text("reviewer_id")
+      .notNull()
+      .references(() => user.id),
     verdict: reviewVerdictEnum("verdict").notNull(),
     comment: text("comment").notNull().default(""),
     /** The revision's content hash at the time of the decision: what was signed. */
     contentHash: text("content_hash").notNull(),
     decidedAt: timestamp("decided_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [
-    index("review_decision_revision_idx").on(t.revisionId, t.decidedAt),
-    index("review_decision_workspace_idx").on(t.workspaceId),
-  ],
+  (t) => [index("review_decision_revision_idx").on(t.revisionId, t.decidedAt), index("review_decision_workspace_idx").on(t.workspaceId)],
 );
 
 /**
@@ -90,16 +111,24 @@ export const faultDisposition = pgTable(
   "fault_disposition",
   {
     id: text("id").primaryKey(),
-    workspaceId: text("workspace_id").notNull().references(() => workspace.id, { onDelete: "cascade" }),
-    designId: text("design_id").notNull().references(() => design.id, { onDelete: "cascade" }),
-    revisionId: text("revision_id").notNull().references(() => designRevision.id, { onDelete: "cascade" }),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspace.id, { onDelete: "cascade" }),
+    designId: text("design_id")
+      .notNull()
+      .references(() => design.id, { onDelete: "cascade" }),
+    revisionId: text("revision_id")
+      .notNull()
+      .references(() => designRevision.id, { onDelete: "cascade" }),
     contentHash: text("content_hash").notNull(),
     /** The contact's id and how it is stuck. */
     component: text("component").notNull(),
     mode: text("mode").notNull(),
     disposition: faultDispositionEnum("disposition").notNull(),
     justification: text("justification").notNull(),
-    authorId: text("author_id").notNull().references(() => user.id),
+    authorId: text("author_id")
+      .notNull()
+      .references(() => user.id),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [

@@ -7,7 +7,9 @@ export const upload = pgTable(
   "upload",
   {
     id: text("id").primaryKey(),
-    workspaceId: text("workspace_id").notNull().references(() => workspace.id, { onDelete: "cascade" }),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspace.id, { onDelete: "cascade" }),
     // What the file is attached to, e.g. "vehicle" + vehicle id, "bench-step" + step id.
     subjectKind: text("subject_kind").notNull(),
     subjectId: text("subject_id").notNull(),

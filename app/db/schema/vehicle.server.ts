@@ -6,7 +6,9 @@ export const vehicle = pgTable(
   "vehicle",
   {
     id: text("id").primaryKey(),
-    workspaceId: text("workspace_id").notNull().references(() => workspace.id, { onDelete: "cascade" }),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspace.id, { onDelete: "cascade" }),
     name: text("name").notNull(),
     serial: text("serial").notNull().default(""),
     model: text("model").notNull().default(""),

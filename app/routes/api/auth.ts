@@ -13,13 +13,16 @@ export async function action({ request }: Route.ActionArgs) {
   if (Number(request.headers.get("content-length") ?? 0) > AUTH_BODY_MAX_BYTES) {
     // Read on (and drop) what is still coming, up to 8 MB, so the client reads the 413 instead of a reset.
     const reader = request.body?.getReader();
-    for (let seen = 0; reader && seen < 8_000_000; ) {
+    for (let seen = 0; reader && seen < 8_000_000;) {
       const chunk = await reader.read().catch(() => ({ done: true as const, value: undefined }));
       if (chunk.done) break;
       seen += chunk.value.byteLength;
     }
     await reader?.cancel().catch(() => {});
-    return Response.json({ code: "TOO_LARGE", message: `The request body is larger than ${AUTH_BODY_MAX_BYTES.toLocaleString("en-US")} bytes.` }, { status: 413 });
+    return Response.json(
+      { code: "TOO_LARGE", message: `The request body is larger than ${AUTH_BODY_MAX_BYTES.toLocaleString("en-US")} bytes.` },
+      { status: 413 },
+    );
   }
   return auth.handler(request);
 }

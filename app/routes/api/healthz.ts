@@ -7,6 +7,9 @@ export async function loader() {
     await db.execute(sql`select 1`);
     return Response.json({ ok: true });
   } catch {
-    return Response.json({ ok: false, error: { code: "database_unavailable", message: "The database is not reachable." } }, { status: 503 });
+    return Response.json(
+      { ok: false, error: { code: "database_unavailable", message: "The database is not reachable." } },
+      { status: 503 },
+    );
   }
 }

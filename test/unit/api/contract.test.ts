@@ -6,7 +6,8 @@ import { api, ENDPOINTS, endpointOf } from "../../../app/api/endpoints";
 import { ApiError, apiUrl, readAnswer } from "../../../app/api/client";
 import { AnswerMismatch, checkAnswer } from "../../support/answers";
 
-const json = (status: number, body: unknown) => new Response(JSON.stringify(body), { status, headers: { "content-type": "application/json" } });
+const json = (status: number, body: unknown) =>
+  new Response(JSON.stringify(body), { status, headers: { "content-type": "application/json" } });
 const error = (code: string, message: string) => ({ error: { code, message, fields: [] } });
 
 describe("the endpoint table", () => {
@@ -27,7 +28,10 @@ describe("the endpoint table", () => {
       const statuses = Object.keys(e.replies).map(Number);
       expect(statuses, e.path).toEqual(expect.arrayContaining([429, 500, 503]));
       if (!e.public) expect(statuses, e.path).toEqual(expect.arrayContaining([401, 404]));
-      expect(statuses.filter((s) => s >= 200 && s < 300), `${e.path}: one success`).toHaveLength(1);
+      expect(
+        statuses.filter((s) => s >= 200 && s < 300),
+        `${e.path}: one success`,
+      ).toHaveLength(1);
       if (e.body) expect(statuses, `${e.method} ${e.path} takes a body`).toEqual(expect.arrayContaining([400, 413, 415]));
     }
   });
@@ -46,7 +50,9 @@ describe("the test-side check of answers", () => {
   const draft = { version: 3 };
   it("passes an answer of a declared status with its shape", async () => {
     expect(await checkAnswer("PUT", "/api/v1/designs/d1/draft", json(200, draft))).toBe("checked");
-    expect(await checkAnswer("PUT", "/api/v1/designs/d1/draft", json(409, { ...error("stale_draft", "x"), currentVersion: 4 }))).toBe("checked");
+    expect(await checkAnswer("PUT", "/api/v1/designs/d1/draft", json(409, { ...error("stale_draft", "x"), currentVersion: 4 }))).toBe(
+      "checked",
+    );
     expect(await checkAnswer("GET", "/api/v1/docs", new Response("<html>"))).toBe("not-an-endpoint");
   });
 
@@ -91,6 +97,9 @@ describe("the browser client", () => {
     const teapot = readAnswer(api.saveDraft, json(418, error("teapot", "No coffee here.")));
     await expect(teapot).rejects.toBeInstanceOf(ApiError);
     await expect(readAnswer(api.saveDraft, json(418, error("teapot", "No coffee here.")))).rejects.toThrow("No coffee here.");
-    await expect(readAnswer(api.saveDraft, json(200, { version: "seven" }))).rejects.toMatchObject({ status: 200, code: "unexpected_answer" });
+    await expect(readAnswer(api.saveDraft, json(200, { version: "seven" }))).rejects.toMatchObject({
+      status: 200,
+      code: "unexpected_answer",
+    });
   });
 });

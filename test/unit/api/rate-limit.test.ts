@@ -61,12 +61,20 @@ describe("clientKeyOf", () => {
   const headers = (h: Record<string, string>) => new Headers(h);
 
   it("counts an API key, else the session cookie, else the client address; secrets are hashed", () => {
-    const key = clientKeyOf(headers({ authorization: "Bearer cpk_secret-value", cookie: "better-auth.session_token=abc.def", "x-chainproof-client-ip": "198.51.100.4" }));
+    const key = clientKeyOf(
+      headers({
+        authorization: "Bearer cpk_secret-value",
+        cookie: "better-auth.session_token=abc.def",
+        "x-chainproof-client-ip": "198.51.100.4",
+      }),
+    );
     expect(key).toMatchObject({ anonymous: false, address: "addr:198.51.100.4" });
     expect(key.key).toMatch(/^key:[\w-]{22}$/);
     expect(key.key).not.toContain("secret");
 
-    const session = clientKeyOf(headers({ cookie: "theme=dark; better-auth.session_token=abc.def; other=1", "x-chainproof-client-ip": "198.51.100.4" }));
+    const session = clientKeyOf(
+      headers({ cookie: "theme=dark; better-auth.session_token=abc.def; other=1", "x-chainproof-client-ip": "198.51.100.4" }),
+    );
     expect(session.key).toMatch(/^session:[\w-]{22}$/);
     expect(session.key).not.toBe(key.key);
     // The secure-cookie name (https) is the same session.

@@ -86,13 +86,34 @@ export class Reference {
     const hasR = !!of("reverse");
     const f = on("forward", false);
     const r = on("reverse", false);
-    const dir: Dir = !hasF && !hasR ? "forward" : !hasR ? (f ? "forward" : "neutral") : !hasF ? (r ? "reverse" : "forward") : f && r ? "conflict" : f ? "forward" : r ? "reverse" : "neutral";
+    const dir: Dir =
+      !hasF && !hasR
+        ? "forward"
+        : !hasR
+          ? f
+            ? "forward"
+            : "neutral"
+          : !hasF
+            ? r
+              ? "reverse"
+              : "forward"
+            : f && r
+              ? "conflict"
+              : f
+                ? "forward"
+                : r
+                  ? "reverse"
+                  : "neutral";
     const t = this.d.controller.throttle;
     const ts = states[t.condition];
     const throttle = t.released.includes(ts) ? "released" : t.applied.includes(ts) ? "applied" : "fault";
     const view: View = { powered: on("power", true), enabled: on("enable", true), dir, braking: on("brake", false), throttle };
     const drive =
-      view.powered && view.enabled && (dir === "forward" || dir === "reverse") && !(view.braking && (this.d.controller.brakeCutsDrive ?? true)) && throttle === "applied";
+      view.powered &&
+      view.enabled &&
+      (dir === "forward" || dir === "reverse") &&
+      !(view.braking && (this.d.controller.brakeCutsDrive ?? true)) &&
+      throttle === "applied";
     const out = { inputs, view, drive };
     if (remember) this.cache.set(key, out);
     return out;
@@ -174,7 +195,8 @@ export class Reference {
       };
       walk(when);
       let variants: States[] = [s];
-      for (const id of conds) variants = variants.flatMap((v) => this.d.conditions.find((c) => c.id === id)!.states.map((x) => ({ ...v, [id]: x })));
+      for (const id of conds)
+        variants = variants.flatMap((v) => this.d.conditions.find((c) => c.id === id)!.states.map((x) => ({ ...v, [id]: x })));
       const forbidden = (v: States) => (rule.forbid === "drive" ? this.see(v).drive : this.see(v).inputs[rule.forbid.energized]);
       if (variants.some((v) => !this.holds(when, v) && forbidden(v))) out.push(i);
     }
@@ -182,7 +204,12 @@ export class Reference {
   }
 }
 
-const key = (s: States) => JSON.stringify(Object.keys(s).sort().map((k) => [k, s[k]]));
+const key = (s: States) =>
+  JSON.stringify(
+    Object.keys(s)
+      .sort()
+      .map((k) => [k, s[k]]),
+  );
 const faultTag = (f: NonNullable<Fault>) => `fault:${f.contact}:${f.mode}`;
 
 type Replayed = { drive: boolean; latched: boolean; inputs: Record<string, boolean>; memory: Memory; causes: string[] };
@@ -195,7 +222,8 @@ export function replayPlan(ref: Reference, plan: BenchPlan, fault: Fault = null,
   for (const s of plan.steps) {
     let causes: string[] = [];
     for (const m of s.moves ?? []) {
-      if (states[m.condition] !== m.from) problems.push(`step ${s.n}: move of ${m.condition} from ${m.from}, but it is ${states[m.condition]}`);
+      if (states[m.condition] !== m.from)
+        problems.push(`step ${s.n}: move of ${m.condition} from ${m.from}, but it is ${states[m.condition]}`);
       states = { ...states, [m.condition]: m.to };
       const wasLatched = memory.L;
       const r = ref.step(memory, ref.see(states, fault).view);
@@ -229,11 +257,20 @@ export function checkPlan(d: Design, plan: BenchPlan): string[] {
     const o = plain[k];
     if (s.n !== k + 1) problems.push(`step ${k + 1} is numbered ${s.n}`);
     if (s.expect.drive !== o.drive) problems.push(`step ${s.n}: expects drive ${s.expect.drive}, replay gives ${o.drive}`);
-    if ((s.expect.latched ?? false) !== o.latched) problems.push(`step ${s.n}: expects latched ${s.expect.latched}, replay gives ${o.latched}`);
-    for (const x of ref.inputs) if (s.expect.inputs[x.id] !== o.inputs[x.id]) problems.push(`step ${s.n}: input ${x.id} expected ${s.expect.inputs[x.id]}, replay gives ${o.inputs[x.id]}`);
-    if (Object.keys(s.expect.inputs).length !== ref.inputs.length) problems.push(`step ${s.n}: expects ${Object.keys(s.expect.inputs).length} inputs`);
-    const throttleHeld = (s.moves ?? []).some((m) => m.condition === d.controller.throttle.condition && !d.controller.throttle.released.includes(m.to));
-    if ((throttleHeld || !d.controller.throttle.released.includes(s.set[d.controller.throttle.condition])) && !/drive wheels/.test(s.caution ?? "")) {
+    if ((s.expect.latched ?? false) !== o.latched)
+      problems.push(`step ${s.n}: expects latched ${s.expect.latched}, replay gives ${o.latched}`);
+    for (const x of ref.inputs)
+      if (s.expect.inputs[x.id] !== o.inputs[x.id])
+        problems.push(`step ${s.n}: input ${x.id} expected ${s.expect.inputs[x.id]}, replay gives ${o.inputs[x.id]}`);
+    if (Object.keys(s.expect.inputs).length !== ref.inputs.length)
+      problems.push(`step ${s.n}: expects ${Object.keys(s.expect.inputs).length} inputs`);
+    const throttleHeld = (s.moves ?? []).some(
+      (m) => m.condition === d.controller.throttle.condition && !d.controller.throttle.released.includes(m.to),
+    );
+    if (
+      (throttleHeld || !d.controller.throttle.released.includes(s.set[d.controller.throttle.condition])) &&
+      !/drive wheels/.test(s.caution ?? "")
+    ) {
       problems.push(`step ${s.n}: the throttle is applied without the lift-the-wheels caution`);
     }
     // "In any order": every order of those moves leaves the controller in the same place.
@@ -268,7 +305,8 @@ export function checkPlan(d: Design, plan: BenchPlan): string[] {
       const b = faulty[k];
       const differs = a.drive !== b.drive || a.latched !== b.latched || ref.inputs.some((x) => a.inputs[x.id] !== b.inputs[x.id]);
       if (differs) revealed.add(tag);
-      if (differs !== (s.reveals ?? []).includes(tag)) problems.push(`step ${s.n}: ${tag} ${differs ? "shows here but is not listed" : "is listed but does not show here"}`);
+      if (differs !== (s.reveals ?? []).includes(tag))
+        problems.push(`step ${s.n}: ${tag} ${differs ? "shows here but is not listed" : "is listed but does not show here"}`);
     });
   }
 
@@ -278,7 +316,8 @@ export function checkPlan(d: Design, plan: BenchPlan): string[] {
     const tag = faultTag(f!);
     const revealable = ref.revealingRows(f, 1).length > 0;
     if (revealable && !revealed.has(tag)) problems.push(`${tag}: revealable but no step reveals it`);
-    if (!revealable && !/^No combination of conditions changes any controller input/.test(uncovered.get(tag) ?? "")) problems.push(`${tag}: unrevealable but not explained`);
+    if (!revealable && !/^No combination of conditions changes any controller input/.test(uncovered.get(tag) ?? ""))
+      problems.push(`${tag}: unrevealable but not explained`);
     if (revealable && uncovered.has(tag)) problems.push(`${tag}: revealable but listed as uncovered`);
   }
 
@@ -296,7 +335,8 @@ export function checkPlan(d: Design, plan: BenchPlan): string[] {
     }
     const s = plan.steps[k];
     if (!rows.has(key(s.set))) problems.push(`rule:${r.id}: step ${s.n} is not one of its test rows`);
-    if (plain[k].latched || plain[k].drive !== ref.see(s.set).drive) problems.push(`rule:${r.id}: step ${s.n} does not show the row's steady outcome`);
+    if (plain[k].latched || plain[k].drive !== ref.see(s.set).drive)
+      problems.push(`rule:${r.id}: step ${s.n} does not show the row's steady outcome`);
   }
 
   // Lockouts: held off after its event with the throttle held, where an earlier step showed drive.
@@ -308,7 +348,8 @@ export function checkPlan(d: Design, plan: BenchPlan): string[] {
     }
     const s = plan.steps[k];
     const o = plain[k];
-    if (!o.latched || o.drive || !ref.see(s.set).drive) problems.push(`lockout:${l}: step ${s.n} does not show drive held off by the latch`);
+    if (!o.latched || o.drive || !ref.see(s.set).drive)
+      problems.push(`lockout:${l}: step ${s.n} does not show drive held off by the latch`);
     if (!o.causes.includes(l)) problems.push(`lockout:${l}: step ${s.n} latches on ${o.causes.join(",") || "nothing"}`);
     const shown = plan.steps.slice(0, k).some((e, j) => key(e.set) === key(s.set) && plain[j].drive);
     if (!shown) problems.push(`lockout:${l}: no earlier step shows drive in the same conditions`);
@@ -341,7 +382,16 @@ export function fewestRows(d: Design, maxRows = 200, opts: { withDrive?: boolean
   }
   if (needs.length === 0) return 0;
   // Rows as the sets of needs they meet; equal sets are one choice.
-  const options = [...new Set(Array.from({ length: ref.rows }, (_, i) => needs.map((n, e) => (n.has(i) ? e : -1)).filter((e) => e >= 0).join(",")))]
+  const options = [
+    ...new Set(
+      Array.from({ length: ref.rows }, (_, i) =>
+        needs
+          .map((n, e) => (n.has(i) ? e : -1))
+          .filter((e) => e >= 0)
+          .join(","),
+      ),
+    ),
+  ]
     .filter((x) => x !== "")
     .map((x) => new Set(x.split(",").map(Number)));
   // Iterative deepening; any cover meets the first unmet need, so branch on the rows meeting it.

@@ -11,10 +11,11 @@ function bruteForce(needs: Need[], n: number, fixed: number[] = []): number {
   for (let mask = 0; mask < 1 << n; mask++) {
     const rows = new Set(fixed);
     let size = 0;
-    for (let i = 0; i < n; i++) if (mask & (1 << i)) {
-      rows.add(i);
-      if (!fixed.includes(i)) size++;
-    }
+    for (let i = 0; i < n; i++)
+      if (mask & (1 << i)) {
+        rows.add(i);
+        if (!fixed.includes(i)) size++;
+      }
     if (live.every((x) => x.rows.some((r) => rows.has(r)))) best = Math.min(best, size);
   }
   return best;

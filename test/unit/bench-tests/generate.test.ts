@@ -87,19 +87,21 @@ function dualSeat(): Design {
   });
 }
 
-const designs: Array<[string, Design]> = ([
-  ...readdirSync(EXAMPLES)
-    .filter((f) => f.endsWith(".design.json"))
-    .sort()
-    .map((f): [string, Design] => [f.replace(".design.json", ""), readJson(`${EXAMPLES}/${f}`)]),
-  ...readdirSync(FIXTURES)
-    .filter((f) => f.endsWith(".design.json"))
-    .sort()
-    .map((f): [string, Design] => [f.replace(".design.json", ""), readJson(new URL(f, FIXTURES))]),
-  ["idle-switch (built)", idleSwitch()],
-  ["dual-seat (built)", dualSeat()],
-  ["scree-long-chain (generated)", longChain()],
-] as Array<[string, Design]>).filter(([, d]) => validateDesign(d).ok);
+const designs: Array<[string, Design]> = (
+  [
+    ...readdirSync(EXAMPLES)
+      .filter((f) => f.endsWith(".design.json"))
+      .sort()
+      .map((f): [string, Design] => [f.replace(".design.json", ""), readJson(`${EXAMPLES}/${f}`)]),
+    ...readdirSync(FIXTURES)
+      .filter((f) => f.endsWith(".design.json"))
+      .sort()
+      .map((f): [string, Design] => [f.replace(".design.json", ""), readJson(new URL(f, FIXTURES))]),
+    ["idle-switch (built)", idleSwitch()],
+    ["dual-seat (built)", dualSeat()],
+    ["scree-long-chain (generated)", longChain()],
+  ] as Array<[string, Design]>
+).filter(([, d]) => validateDesign(d).ok);
 
 const table: Array<Record<string, string | number | boolean>> = [];
 afterAll(() => console.table(table));
@@ -168,7 +170,8 @@ describe("specific outcomes", () => {
     expect(reason("rule:reverse-line")).toMatch(/every row/);
     expect(reason("lockout:brake-release")).toMatch(/no brake input/);
     // Both sides of the rocker are checked in both modes now (they used to be "changeover" only).
-    for (const k of ["DF", "DR"]) for (const m of ["stuck-open", "stuck-closed"]) expect(p.steps.some((s) => s.reveals!.includes(`fault:${k}:${m}`))).toBe(true);
+    for (const k of ["DF", "DR"])
+      for (const m of ["stuck-open", "stuck-closed"]) expect(p.steps.some((s) => s.reveals!.includes(`fault:${k}:${m}`))).toBe(true);
     // A rule the design breaks is still tested, and the step says so.
     const lamp = p.steps.find((s) => s.covers.includes("rule:lamp"))!;
     expect(lamp.expect.drive).toBe(true);

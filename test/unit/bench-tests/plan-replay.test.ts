@@ -20,7 +20,7 @@ const SLOW = 240_000;
  */
 export function benchDesign(g: fc.GeneratorValue): Design {
   const int = (min: number, max: number) => g(fc.integer, { min, max });
-  const pick = <T,>(xs: T[]): T => xs[int(0, xs.length - 1)];
+  const pick = <T>(xs: T[]): T => xs[int(0, xs.length - 1)];
   const released = ["idle", "creep"].slice(0, int(1, 2));
   const applied = ["on", "full"].slice(0, int(1, 2));
   const fault = int(0, 1) === 1 ? ["bad"] : [];
@@ -34,10 +34,19 @@ export function benchDesign(g: fc.GeneratorValue): Design {
   let n = 0;
   const contact = (cond: { id: string; states: string[] }, closedIn?: string[]) => {
     const id = `K${n++}`;
-    components.push({ id, type: "contact", label: id, condition: cond.id, closedIn: closedIn ?? g(fc.subarray, cond.states, { minLength: 1, maxLength: cond.states.length - 1 }) });
+    components.push({
+      id,
+      type: "contact",
+      label: id,
+      condition: cond.id,
+      closedIn: closedIn ?? g(fc.subarray, cond.states, { minLength: 1, maxLength: cond.states.length - 1 }),
+    });
     return id;
   };
-  const fns: InputFunction[] = g(fc.shuffledSubarray, ["power", "enable", "forward", "reverse", "brake"] as InputFunction[], { minLength: 1, maxLength: 4 });
+  const fns: InputFunction[] = g(fc.shuffledSubarray, ["power", "enable", "forward", "reverse", "brake"] as InputFunction[], {
+    minLength: 1,
+    maxLength: 4,
+  });
   // A shared feed (a key switch feeding several lines) half of the time.
   let feed = "BAT.+";
   if (int(0, 1) === 1) {
@@ -83,7 +92,13 @@ export function benchDesign(g: fc.GeneratorValue): Design {
   for (let i = int(0, 2); i > 0; i--) {
     const cond = pick(order);
     const forbid = int(0, 2) === 0 ? { energized: `I_${pick(fns)}` } : ("drive" as const);
-    rules.push({ id: `R${rules.length}`, label: `R${rules.length}`, type: "inhibit", when: { cond: cond.id, in: g(fc.subarray, cond.states, { minLength: 1 }) }, forbid });
+    rules.push({
+      id: `R${rules.length}`,
+      label: `R${rules.length}`,
+      type: "inhibit",
+      when: { cond: cond.id, in: g(fc.subarray, cond.states, { minLength: 1 }) },
+      forbid,
+    });
   }
   if (int(0, 1) === 1) {
     const cond = pick(order);
@@ -91,7 +106,12 @@ export function benchDesign(g: fc.GeneratorValue): Design {
       id: `D${rules.length}`,
       label: "drives",
       type: "require-drive",
-      when: { all: [{ cond: "t", in: applied }, { cond: cond.id, in: g(fc.subarray, cond.states, { minLength: 1 }) }] },
+      when: {
+        all: [
+          { cond: "t", in: applied },
+          { cond: cond.id, in: g(fc.subarray, cond.states, { minLength: 1 }) },
+        ],
+      },
     });
   }
   if (int(0, 1) === 1) rules.push({ id: "NR", label: "NR", type: "no-restart" });
@@ -114,57 +134,91 @@ export function benchDesign(g: fc.GeneratorValue): Design {
 const designs = fc.gen().map((g) => benchDesign(g));
 
 describe("bench plans replayed from the spec's step semantics", () => {
-  it("hold every expectation, reveal every revealable fault and explain every other item (random designs)", () => {
-    const seen = { designs: 0, twoReleased: 0, dual: 0, alwaysClosed: 0, lockoutChecks: 0, unrevealable: 0, ruleSteps: 0, requireDrive: 0, anyOrder: 0 };
-    fc.assert(
-      fc.property(designs, (d) => {
-        const checked = validateDesign(d);
-        fc.pre(checked.ok);
-        const plan = generateBenchPlan(d);
-        expect(checkPlan(d, plan)).toEqual([]);
-        seen.designs++;
-        if (d.controller.throttle.released.length > 1) seen.twoReleased++;
-        const contacts = d.components.filter((k) => k.type === "contact");
-        if (contacts.some((k, i) => contacts.some((o, j) => j !== i && o.condition === k.condition && o.closedIn.join() === k.closedIn.join()))) seen.dual++;
-        if (contacts.some((k) => k.closedIn.length === d.conditions.find((c) => c.id === k.condition)!.states.length)) seen.alwaysClosed++;
-        seen.lockoutChecks += plan.steps.filter((s) => s.kind === "sequence").length;
-        seen.unrevealable += plan.uncovered.filter((u) => u.item.startsWith("fault:")).length;
-        seen.ruleSteps += plan.steps.filter((s) => s.covers.some((x) => x.startsWith("rule:"))).length;
-        seen.anyOrder += plan.steps.filter((s) => s.anyOrder).length;
-        seen.requireDrive += plan.steps.filter((s) => s.covers.some((x) => /^rule:D/.test(x))).length;
-      }),
-      { numRuns: 120, seed: 16 },
-    );
-    // The random designs exercise what the property is about.
-    expect(seen.designs).toBeGreaterThan(100);
-    for (const k of ["twoReleased", "dual", "alwaysClosed", "lockoutChecks", "unrevealable", "ruleSteps", "requireDrive", "anyOrder"] as const) expect(seen[k]).toBeGreaterThan(0);
-  }, SLOW);
+  it(
+    "hold every expectation, reveal every revealable fault and explain every other item (random designs)",
+    () => {
+      const seen = {
+        designs: 0,
+        twoReleased: 0,
+        dual: 0,
+        alwaysClosed: 0,
+        lockoutChecks: 0,
+        unrevealable: 0,
+        ruleSteps: 0,
+        requireDrive: 0,
+        anyOrder: 0,
+      };
+      fc.assert(
+        fc.property(designs, (d) => {
+          const checked = validateDesign(d);
+          fc.pre(checked.ok);
+          const plan = generateBenchPlan(d);
+          expect(checkPlan(d, plan)).toEqual([]);
+          seen.designs++;
+          if (d.controller.throttle.released.length > 1) seen.twoReleased++;
+          const contacts = d.components.filter((k) => k.type === "contact");
+          if (
+            contacts.some((k, i) =>
+              contacts.some((o, j) => j !== i && o.condition === k.condition && o.closedIn.join() === k.closedIn.join()),
+            )
+          )
+            seen.dual++;
+          if (contacts.some((k) => k.closedIn.length === d.conditions.find((c) => c.id === k.condition)!.states.length))
+            seen.alwaysClosed++;
+          seen.lockoutChecks += plan.steps.filter((s) => s.kind === "sequence").length;
+          seen.unrevealable += plan.uncovered.filter((u) => u.item.startsWith("fault:")).length;
+          seen.ruleSteps += plan.steps.filter((s) => s.covers.some((x) => x.startsWith("rule:"))).length;
+          seen.anyOrder += plan.steps.filter((s) => s.anyOrder).length;
+          seen.requireDrive += plan.steps.filter((s) => s.covers.some((x) => /^rule:D/.test(x))).length;
+        }),
+        { numRuns: 120, seed: 16 },
+      );
+      // The random designs exercise what the property is about.
+      expect(seen.designs).toBeGreaterThan(100);
+      for (const k of [
+        "twoReleased",
+        "dual",
+        "alwaysClosed",
+        "lockoutChecks",
+        "unrevealable",
+        "ruleSteps",
+        "requireDrive",
+        "anyOrder",
+      ] as const)
+        expect(seen[k]).toBeGreaterThan(0);
+    },
+    SLOW,
+  );
 
-  it("state a lower bound that a brute-force search confirms, and never plan fewer rows than it", () => {
-    let exact = 0;
-    fc.assert(
-      fc.property(designs, (d) => {
-        fc.pre(validateDesign(d).ok);
-        const plan = generateBenchPlan(d);
-        const lb = plan.stats.lowerBound!;
-        const brute = fewestRows(d);
-        if (brute === null) return;
-        if (lb.exact) {
-          expect(lb.rows).toBe(brute);
-          exact++;
-        } else expect(lb.rows).toBeLessThanOrEqual(brute);
-        expect(lb.planRows).toBeGreaterThanOrEqual(brute);
-        if (lb.rowsWithDrive !== undefined) {
-          const withDrive = fewestRows(d, 200, { withDrive: true })!;
-          if (lb.exactWithDrive) expect(lb.rowsWithDrive).toBe(withDrive);
-          else expect(lb.rowsWithDrive).toBeLessThanOrEqual(withDrive);
-          expect(lb.planRows).toBeGreaterThanOrEqual(withDrive);
-        }
-      }),
-      { numRuns: 60, seed: 1616 },
-    );
-    expect(exact).toBeGreaterThan(40);
-  }, SLOW);
+  it(
+    "state a lower bound that a brute-force search confirms, and never plan fewer rows than it",
+    () => {
+      let exact = 0;
+      fc.assert(
+        fc.property(designs, (d) => {
+          fc.pre(validateDesign(d).ok);
+          const plan = generateBenchPlan(d);
+          const lb = plan.stats.lowerBound!;
+          const brute = fewestRows(d);
+          if (brute === null) return;
+          if (lb.exact) {
+            expect(lb.rows).toBe(brute);
+            exact++;
+          } else expect(lb.rows).toBeLessThanOrEqual(brute);
+          expect(lb.planRows).toBeGreaterThanOrEqual(brute);
+          if (lb.rowsWithDrive !== undefined) {
+            const withDrive = fewestRows(d, 200, { withDrive: true })!;
+            if (lb.exactWithDrive) expect(lb.rowsWithDrive).toBe(withDrive);
+            else expect(lb.rowsWithDrive).toBeLessThanOrEqual(withDrive);
+            expect(lb.planRows).toBeGreaterThanOrEqual(withDrive);
+          }
+        }),
+        { numRuns: 60, seed: 1616 },
+      );
+      expect(exact).toBeGreaterThan(40);
+    },
+    SLOW,
+  );
 });
 
 describe("the independent checker itself", () => {

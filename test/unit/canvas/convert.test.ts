@@ -48,7 +48,11 @@ describe("design document <-> canvas", () => {
   it("opens an invalid document without throwing, dropping only what cannot be drawn", () => {
     const g = documentToFlow({
       conditions: [{ id: "seat", states: ["empty", "occupied"] }],
-      components: [{ id: "B1", type: "supply" }, { id: "Q", type: "lamp" }, { id: "K1", type: "contact", condition: "nope", closedIn: "x" }],
+      components: [
+        { id: "B1", type: "supply" },
+        { id: "Q", type: "lamp" },
+        { id: "K1", type: "contact", condition: "nope", closedIn: "x" },
+      ],
       wires: [{ from: "B1.+", to: "K1.1" }, { from: "B1.+", to: "ZZ.1" }, 7],
       controller: 3,
       rules: [{ id: "r", type: "inhibit" }],

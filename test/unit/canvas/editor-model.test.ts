@@ -29,9 +29,18 @@ function brokenReferences(d: Design): string[] {
   const out: string[] = [];
   const dup = (xs: string[], what: string) => xs.forEach((x, i) => xs.indexOf(x) !== i && out.push(`${what} ${x} twice`));
   const conditions = new Map(d.conditions.map((c) => [c.id, c.states]));
-  dup(d.conditions.map((c) => c.id), "condition");
-  dup(d.components.map((c) => c.id), "component");
-  dup(d.rules.map((r) => r.id), "rule");
+  dup(
+    d.conditions.map((c) => c.id),
+    "condition",
+  );
+  dup(
+    d.components.map((c) => c.id),
+    "component",
+  );
+  dup(
+    d.rules.map((r) => r.id),
+    "rule",
+  );
   for (const c of d.components) if (conditions.has(c.id)) out.push(`${c.id} is a condition and a component`);
   for (const c of d.conditions) {
     dup(c.states, `state of ${c.id}`);
@@ -82,7 +91,9 @@ function brokenReferences(d: Design): string[] {
  */
 function typedInvalid(d: Design): string[] {
   const contacts = d.components.flatMap((c, i) => (c.type === "contact" && c.closedIn.length === 0 ? [`components[${i}].closedIn`] : []));
-  const rules = d.rules.flatMap((r, i) => ((r.type === "inhibit" || r.type === "require-drive") && !refMatchesSomeRow(d, r.when) ? [`rules[${i}].when`] : []));
+  const rules = d.rules.flatMap((r, i) =>
+    (r.type === "inhibit" || r.type === "require-drive") && !refMatchesSomeRow(d, r.when) ? [`rules[${i}].when`] : [],
+  );
   return [...contacts, ...rules];
 }
 
@@ -91,8 +102,8 @@ function typedInvalid(d: Design): string[] {
 type Model = { past: Design[]; future: Design[] };
 type Real = { store: EditorStore };
 const doc = (r: Real) => r.store.getState().document();
-const clone = <T,>(x: T): T => JSON.parse(JSON.stringify(x)) as T;
-const pick = <T,>(xs: readonly T[], n: number): T | undefined => (xs.length ? xs[n % xs.length] : undefined);
+const clone = <T>(x: T): T => JSON.parse(JSON.stringify(x)) as T;
+const pick = <T>(xs: readonly T[], n: number): T | undefined => (xs.length ? xs[n % xs.length] : undefined);
 
 /** Applies an edit and checks it against the model: refused = unchanged, accepted = one undo step. */
 function edit(m: Model, r: Real, act: () => string | null | void) {
@@ -131,7 +142,26 @@ const cmd = (name: string, run: (m: Model, r: Real) => void): Cmd => ({ check: (
 
 // Names that pass through existing ones ("park" on the way to "park2"), collide, or are invalid.
 const typed = fc.oneof(
-  fc.constantFrom("park", "park2", "on", "on2", "off", "K1", "K2", "B1", "EN", "seat", "throttle", "key", "R1", "", " ", "has space", "x".repeat(65), "ok.1"),
+  fc.constantFrom(
+    "park",
+    "park2",
+    "on",
+    "on2",
+    "off",
+    "K1",
+    "K2",
+    "B1",
+    "EN",
+    "seat",
+    "throttle",
+    "key",
+    "R1",
+    "",
+    " ",
+    "has space",
+    "x".repeat(65),
+    "ok.1",
+  ),
   fc.stringMatching(/^[a-z][a-z0-9]{0,5}$/),
 );
 /** A typed name: one of the design's existing names (maybe with a character added or dropped), or anything. */
@@ -141,16 +171,28 @@ const typedFrom = (existing: (d: Design) => string[]) =>
     if (base === undefined || how === "free") return free;
     return how === "same" ? base : how === "extend" ? `${base}2` : base.slice(0, -1);
   });
-const allNames = (d: Design) => [...d.conditions.map((c) => c.id), ...d.components.map((c) => c.id), ...d.conditions.flatMap((c) => c.states), ...d.rules.map((r) => r.id)];
+const allNames = (d: Design) => [
+  ...d.conditions.map((c) => c.id),
+  ...d.components.map((c) => c.id),
+  ...d.conditions.flatMap((c) => c.states),
+  ...d.rules.map((r) => r.id),
+];
 
 const commands: Array<fc.Arbitrary<Cmd>> = [
-  fc.tuple(fc.constantFrom("supply", "contact", "junction", "input"), fc.constantFrom("power", "enable", "forward", "reverse", "brake"), fc.integer({ min: -400, max: 800 }), fc.integer({ min: -400, max: 800 })).map(([kind, fn, x, y]) =>
-    cmd(`add ${kind}`, (m, r) => {
-      const taken = r.store.getState().nodes.some((n) => n.type === "input" && n.data.function === fn);
-      if (kind === "input" && taken) return;
-      edit(m, r, () => void r.store.getState().addComponent(kind as "supply", { x, y }, fn as "enable"));
-    }),
-  ),
+  fc
+    .tuple(
+      fc.constantFrom("supply", "contact", "junction", "input"),
+      fc.constantFrom("power", "enable", "forward", "reverse", "brake"),
+      fc.integer({ min: -400, max: 800 }),
+      fc.integer({ min: -400, max: 800 }),
+    )
+    .map(([kind, fn, x, y]) =>
+      cmd(`add ${kind}`, (m, r) => {
+        const taken = r.store.getState().nodes.some((n) => n.type === "input" && n.data.function === fn);
+        if (kind === "input" && taken) return;
+        edit(m, r, () => void r.store.getState().addComponent(kind as "supply", { x, y }, fn as "enable"));
+      }),
+    ),
   fc.tuple(fc.nat(), fc.nat(), fc.nat(), fc.nat()).map(([a, ta, b, tb]) =>
     cmd("wire", (m, r) => {
       const nodes = r.store.getState().nodes;
@@ -158,7 +200,9 @@ const commands: Array<fc.Arbitrary<Cmd>> = [
       const y = pick(nodes, b);
       if (!x || !y) return;
       edit(m, r, () =>
-        r.store.getState().connect({ source: x.id, sourceHandle: pick(TERMINALS[x.type], ta)!, target: y.id, targetHandle: pick(TERMINALS[y.type], tb)! }),
+        r.store
+          .getState()
+          .connect({ source: x.id, sourceHandle: pick(TERMINALS[x.type], ta)!, target: y.id, targetHandle: pick(TERMINALS[y.type], tb)! }),
       );
     }),
   ),
@@ -177,23 +221,31 @@ const commands: Array<fc.Arbitrary<Cmd>> = [
   fc.constant(cmd("delete", (m, r) => edit(m, r, () => r.store.getState().deleteSelected()))),
   fc.tuple(fc.nat(), fc.constantFrom("power", "enable", "forward", "reverse", "brake")).map(([i, fn]) =>
     cmd(`input function ${fn}`, (m, r) => {
-      const n = pick(r.store.getState().nodes.filter((x) => x.type === "input"), i);
+      const n = pick(
+        r.store.getState().nodes.filter((x) => x.type === "input"),
+        i,
+      );
       if (n) edit(m, r, () => r.store.getState().updateComponent(n.id, { function: fn as "enable" }));
     }),
   ),
-  fc.constant(cmd("cut+paste", (m, r) => {
-    r.store.getState().cutSelected();
-    check(doc(r));
-    // Cut is a copy and a delete (one step); the model learns of it from the store's history.
-    m.past = r.store.getState().past.slice();
-    m.future = [];
-    edit(m, r, () => void r.store.getState().paste());
-  })),
+  fc.constant(
+    cmd("cut+paste", (m, r) => {
+      r.store.getState().cutSelected();
+      check(doc(r));
+      // Cut is a copy and a delete (one step); the model learns of it from the store's history.
+      m.past = r.store.getState().past.slice();
+      m.future = [];
+      edit(m, r, () => void r.store.getState().paste());
+    }),
+  ),
   fc.constant(cmd("duplicate", (m, r) => edit(m, r, () => r.store.getState().duplicateSelected()))),
   fc.constant(cmd("copy+paste", (m, r) => (r.store.getState().copySelected(), edit(m, r, () => void r.store.getState().paste())))),
   fc.tuple(fc.constantFrom("series", "parallel"), fc.nat()).map(([mode, i]) =>
     cmd(`add in ${mode}`, (m, r) => {
-      const c = pick(r.store.getState().nodes.filter((n) => n.type === "contact"), i);
+      const c = pick(
+        r.store.getState().nodes.filter((n) => n.type === "contact"),
+        i,
+      );
       if (c) edit(m, r, () => void r.store.getState().addBeside(mode as "series", c.id));
     }),
   ),
@@ -209,18 +261,32 @@ const commands: Array<fc.Arbitrary<Cmd>> = [
       if (k) edit(m, r, () => r.store.getState().renameCondition(i % k, name(doc(r))));
     }),
   ),
-  fc.tuple(fc.nat(), fc.nat(), typedFrom((d) => d.conditions.flatMap((c) => c.states))).map(([i, j, name]) =>
-    cmd("rename state", (m, r) => {
-      const c = pick(r.store.getState().rest.conditions, i);
-      if (c) edit(m, r, () => r.store.getState().renameState(i % r.store.getState().rest.conditions.length, j % c.states.length, name(doc(r))));
-    }),
-  ),
-  fc.tuple(fc.nat(), typedFrom((d) => d.conditions.flatMap((c) => c.states))).map(([i, name]) =>
-    cmd("add state", (m, r) => {
-      const k = r.store.getState().rest.conditions.length;
-      if (k) edit(m, r, () => r.store.getState().addState(i % k, name(doc(r))));
-    }),
-  ),
+  fc
+    .tuple(
+      fc.nat(),
+      fc.nat(),
+      typedFrom((d) => d.conditions.flatMap((c) => c.states)),
+    )
+    .map(([i, j, name]) =>
+      cmd("rename state", (m, r) => {
+        const c = pick(r.store.getState().rest.conditions, i);
+        if (c)
+          edit(m, r, () =>
+            r.store.getState().renameState(i % r.store.getState().rest.conditions.length, j % c.states.length, name(doc(r))),
+          );
+      }),
+    ),
+  fc
+    .tuple(
+      fc.nat(),
+      typedFrom((d) => d.conditions.flatMap((c) => c.states)),
+    )
+    .map(([i, name]) =>
+      cmd("add state", (m, r) => {
+        const k = r.store.getState().rest.conditions.length;
+        if (k) edit(m, r, () => r.store.getState().addState(i % k, name(doc(r))));
+      }),
+    ),
   fc.tuple(fc.nat(), fc.nat()).map(([i, j]) =>
     cmd("remove state", (m, r) => {
       const c = pick(r.store.getState().rest.conditions, i);
@@ -243,7 +309,10 @@ const commands: Array<fc.Arbitrary<Cmd>> = [
   fc.tuple(fc.nat(), fc.nat(), fc.nat()).map(([i, j, mask]) =>
     cmd("contact condition and states", (m, r) => {
       const s = r.store.getState();
-      const c = pick(s.nodes.filter((n) => n.type === "contact"), i);
+      const c = pick(
+        s.nodes.filter((n) => n.type === "contact"),
+        i,
+      );
       const cond = pick(s.rest.conditions, j);
       if (!c || !cond) return;
       // The states picked by a bit mask: possibly none (an invalid choice the field must show).
@@ -320,7 +389,12 @@ describe("editor store, model-based", () => {
     const starts = [...BASE_DESIGNS.map((d) => clone(d) as unknown), {}];
     fc.assert(
       fc.property(fc.nat({ max: starts.length - 1 }), fc.commands(commands, { maxCommands: 60 }), (start, cmds) => {
-        const store = createEditorStore({ initial: clone(starts[start]), readOnly: false, designName: "Haybarn campus hauler #3", baseRevision: 0 });
+        const store = createEditorStore({
+          initial: clone(starts[start]),
+          readOnly: false,
+          designName: "Haybarn campus hauler #3",
+          baseRevision: 0,
+        });
         check(store.getState().document());
         fc.modelRun(() => ({ model: { past: [], future: [] }, real: { store } }), cmds);
       }),

@@ -1,7 +1,17 @@
 // Reference-keeping edits of conditions, states, rules and the design name (app/canvas/edits.ts).
 import { describe, expect, it } from "vitest";
 import { documentToFlow, flowToDocument } from "../../../app/canvas/convert";
-import { addState, removeCondition, removeState, renameCondition, renameDesign, renameRule, renameState, type Graph, type Outcome } from "../../../app/canvas/edits";
+import {
+  addState,
+  removeCondition,
+  removeState,
+  renameCondition,
+  renameDesign,
+  renameRule,
+  renameState,
+  type Graph,
+  type Outcome,
+} from "../../../app/canvas/edits";
 
 function graph(extra: { states?: string[] } = {}) {
   const g = documentToFlow({
@@ -22,7 +32,17 @@ function graph(extra: { states?: string[] } = {}) {
     wires: [],
     controller: { throttle: { condition: "throttle", released: ["released"], applied: ["applied"] } },
     rules: [
-      { id: "R1", type: "inhibit", when: { all: [{ cond: "park", in: ["set"] }, { cond: "key", in: ["on", "start"] }] }, forbid: "drive" },
+      {
+        id: "R1",
+        type: "inhibit",
+        when: {
+          all: [
+            { cond: "park", in: ["set"] },
+            { cond: "key", in: ["on", "start"] },
+          ],
+        },
+        forbid: "drive",
+      },
       { id: "R2", type: "inhibit", when: { cond: "key", in: ["off"] }, forbid: { energized: "EN" } },
     ],
   });
@@ -100,7 +120,10 @@ describe("renaming and removing states", () => {
   it("refuses an empty, duplicate or ninth state", () => {
     expect(addState(graph(), 2, "  ")).toMatchObject({ ok: false, message: "a state needs a name" });
     expect(addState(graph(), 2, "on")).toMatchObject({ ok: false });
-    expect(addState(graph({ states: ["a", "b", "c", "d", "e", "f", "g", "h"] }), 2, "i")).toMatchObject({ ok: false, message: "a condition has at most 8 states" });
+    expect(addState(graph({ states: ["a", "b", "c", "d", "e", "f", "g", "h"] }), 2, "i")).toMatchObject({
+      ok: false,
+      message: "a condition has at most 8 states",
+    });
   });
 });
 

@@ -4,7 +4,8 @@ import { FIT_MARGIN, fitPadding, fitViewport, type FitPadding, type Size } from 
 
 const minimap = { width: 215, height: 165 };
 const controls = { width: 47, height: 105 };
-const n = (p: FitPadding) => Object.fromEntries(Object.entries(p).map(([k, v]) => [k, Number.parseFloat(v)])) as Record<keyof FitPadding, number>;
+const n = (p: FitPadding) =>
+  Object.fromEntries(Object.entries(p).map(([k, v]) => [k, Number.parseFloat(v)])) as Record<keyof FitPadding, number>;
 
 /** The drawing's screen rectangle after xyflow's fit (centred, then pushed off any padding it breaks). */
 function placed(pane: Size, drawing: Size, p: Record<keyof FitPadding, number>, maxZoom: number) {
@@ -31,13 +32,17 @@ describe("fitPadding", () => {
     it(`keeps ${name} off the minimap and the controls`, () => {
       const p = n(fitPadding(pane, drawing, { minimap, controls }, 1.2));
       const r = placed(pane, drawing, p, 1.2);
-      expect(overlaps(r, { x: pane.width - minimap.width, y: pane.height - minimap.height, ...{ w: minimap.width, h: minimap.height } })).toBe(false);
+      expect(
+        overlaps(r, { x: pane.width - minimap.width, y: pane.height - minimap.height, ...{ w: minimap.width, h: minimap.height } }),
+      ).toBe(false);
       expect(overlaps(r, { x: 0, y: pane.height - controls.height, w: controls.width, h: controls.height })).toBe(false);
     });
   }
 
   it("clears the bottom for a wide drawing and the right side for a tall one (the larger fit)", () => {
-    expect(n(fitPadding({ width: 900, height: 600 }, { width: 1200, height: 400 }, { minimap, controls }, 1.2)).bottom).toBe(minimap.height + FIT_MARGIN);
+    expect(n(fitPadding({ width: 900, height: 600 }, { width: 1200, height: 400 }, { minimap, controls }, 1.2)).bottom).toBe(
+      minimap.height + FIT_MARGIN,
+    );
     const tall = n(fitPadding({ width: 900, height: 600 }, { width: 300, height: 900 }, { minimap, controls }, 1.2));
     expect(tall.right).toBe(minimap.width + FIT_MARGIN);
     expect(tall.left).toBe(controls.width + FIT_MARGIN);

@@ -2,7 +2,6 @@ import { describe, expect, it } from "vitest";
 import { documentToFlow, flowToDocument } from "../../../app/canvas/convert";
 import { addInParallel, addInSeries, checkConnection, duplicateNodes, newNode } from "../../../app/canvas/graph-ops";
 
-
 function small() {
   const base = documentToFlow({
     format: "chainproof/design@1",
@@ -16,7 +15,10 @@ function small() {
       { id: "K1", type: "contact", condition: "seat", closedIn: ["occupied"] },
       { id: "EN", type: "input", function: "enable" },
     ],
-    wires: [{ from: "B1.+", to: "K1.1" }, { from: "K1.2", to: "EN.in" }],
+    wires: [
+      { from: "B1.+", to: "K1.1" },
+      { from: "K1.2", to: "EN.in" },
+    ],
     controller: { throttle: { condition: "throttle", released: ["released"], applied: ["applied"] } },
     rules: [],
   });
@@ -66,7 +68,8 @@ describe("isValidConnection rules", () => {
     expect(r.ok).toBe(true);
     if (r.ok) expect(r.edge).toMatchObject({ source: "B1", sourceHandle: "+", target: "EN", targetHandle: "in" });
   });
-  it("refuses a terminal to itself", () => expect(check("K1", "1", "K1", "1")).toMatchObject({ ok: false, reason: expect.stringContaining("itself") }));
+  it("refuses a terminal to itself", () =>
+    expect(check("K1", "1", "K1", "1")).toMatchObject({ ok: false, reason: expect.stringContaining("itself") }));
   it("refuses a wire across one contact", () => expect(check("K1", "1", "K1", "2").ok).toBe(false));
   it("refuses a duplicate wire in either direction", () => {
     expect(check("B1", "+", "K1", "1").ok).toBe(false);
@@ -76,9 +79,17 @@ describe("isValidConnection rules", () => {
   it("refuses an unknown component", () => expect(check("B1", "+", "ZZ", "1").ok).toBe(false));
   it("refuses a wire between terminals already joined through a junction", () => {
     const t = documentToFlow({
-      conditions: [], controller: {},
-      components: [{ id: "B1", type: "supply" }, { id: "J1", type: "junction" }, { id: "K1", type: "contact", condition: "c", closedIn: ["a"] }],
-      wires: [{ from: "B1.+", to: "J1.j" }, { from: "J1.j", to: "K1.1" }],
+      conditions: [],
+      controller: {},
+      components: [
+        { id: "B1", type: "supply" },
+        { id: "J1", type: "junction" },
+        { id: "K1", type: "contact", condition: "c", closedIn: ["a"] },
+      ],
+      wires: [
+        { from: "B1.+", to: "J1.j" },
+        { from: "J1.j", to: "K1.1" },
+      ],
     });
     expect(checkConnection({ source: "K1", sourceHandle: "1", target: "B1", targetHandle: "+" }, t.nodes, t.edges).ok).toBe(false);
     expect(checkConnection({ source: "K1", sourceHandle: "2", target: "B1", targetHandle: "+" }, t.nodes, t.edges).ok).toBe(true);

@@ -64,7 +64,10 @@ describe("importing a design into the editor under bad input", () => {
       fc.property(
         fc.oneof(
           fc.jsonValue({ maxDepth: 5 }),
-          fc.dictionary(fc.constantFrom("format", "name", "conditions", "components", "wires", "controller", "rules", "layout"), fc.jsonValue({ maxDepth: 4 })),
+          fc.dictionary(
+            fc.constantFrom("format", "name", "conditions", "components", "wires", "controller", "rules", "layout"),
+            fc.jsonValue({ maxDepth: 4 }),
+          ),
         ),
         checkImport,
       ),

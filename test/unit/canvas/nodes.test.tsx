@@ -13,7 +13,9 @@ afterEach(cleanup);
 
 /** Horizontal strokes of a path's "M x y h w" segments, as [y, width]. */
 const bars = (svg: Element) =>
-  [...svg.querySelectorAll("path")].flatMap((p) => [...(p.getAttribute("d") ?? "").matchAll(/M\s*[\d.]+\s+([\d.]+)\s*h\s*([\d.]+)/g)].map((m) => [Number(m[1]), Number(m[2])]));
+  [...svg.querySelectorAll("path")].flatMap((p) =>
+    [...(p.getAttribute("d") ?? "").matchAll(/M\s*[\d.]+\s+([\d.]+)\s*h\s*([\d.]+)/g)].map((m) => [Number(m[1]), Number(m[2])]),
+  );
 
 describe("node drawings", () => {
   it("draws a supply with its own mark, named for what it is, and not as an earth symbol", () => {
@@ -31,7 +33,10 @@ describe("node drawings", () => {
       initial: {
         format: "chainproof/design@1",
         name: "Meadowline deck mower M-11",
-        conditions: [{ id: "seat", states: ["empty", "occupied"] }, { id: "throttle", states: ["released", "applied"] }],
+        conditions: [
+          { id: "seat", states: ["empty", "occupied"] },
+          { id: "throttle", states: ["released", "applied"] },
+        ],
         components: [
           { id: "K1", type: "contact", condition: "seat", closedIn: ["occupied"] },
           { id: "K2", type: "contact", condition: "seat", closedIn: ["occupied"] },
@@ -44,8 +49,15 @@ describe("node drawings", () => {
       designName: "Meadowline deck mower M-11",
       baseRevision: 0,
     });
-    store.getState().setSimView({ contacts: { K1: true, K2: false }, inputs: {}, energized: new Set(), drive: false, fault: { component: "K1", mode: "stuck-closed" } });
-    const props = (id: string) => ({ id, type: "contact", data: { condition: "seat", closedIn: ["occupied"] }, selected: false }) as unknown as NodeProps<ContactNode>;
+    store.getState().setSimView({
+      contacts: { K1: true, K2: false },
+      inputs: {},
+      energized: new Set(),
+      drive: false,
+      fault: { component: "K1", mode: "stuck-closed" },
+    });
+    const props = (id: string) =>
+      ({ id, type: "contact", data: { condition: "seat", closedIn: ["occupied"] }, selected: false }) as unknown as NodeProps<ContactNode>;
     render(
       <EditorContext.Provider value={store}>
         <ReactFlowProvider>

@@ -9,17 +9,34 @@ import type { CanvasNode } from "../../../app/canvas/types";
 
 const overlap = (a: CanvasNode, b: CanvasNode) => {
   const [sa, sb] = [sizeOf(a), sizeOf(b)];
-  return a.position.x < b.position.x + sb.width && b.position.x < a.position.x + sa.width && a.position.y < b.position.y + sb.height && b.position.y < a.position.y + sa.height;
+  return (
+    a.position.x < b.position.x + sb.width &&
+    b.position.x < a.position.x + sa.width &&
+    a.position.y < b.position.y + sb.height &&
+    b.position.y < a.position.y + sa.height
+  );
 };
 
-const drawing = fc.array(fc.record({ kind: fc.constantFrom("contact", "junction", "supply"), x: fc.integer({ min: 0, max: 900 }), y: fc.integer({ min: 0, max: 600 }) }), { minLength: 1, maxLength: 25 });
+const drawing = fc.array(
+  fc.record({
+    kind: fc.constantFrom("contact", "junction", "supply"),
+    x: fc.integer({ min: 0, max: 900 }),
+    y: fc.integer({ min: 0, max: 600 }),
+  }),
+  { minLength: 1, maxLength: 25 },
+);
 
 function graphOf(parts: Array<{ kind: string; x: number; y: number }>) {
   const g = documentToFlow({
     format: "chainproof/design@1",
     name: "Scree trail bike prototype P2",
-    conditions: [{ id: "stand", states: ["down", "up"] }, { id: "throttle", states: ["released", "applied"] }],
-    components: parts.map((p, i) => (p.kind === "contact" ? { id: `P${i}`, type: "contact", condition: "stand", closedIn: ["up"] } : { id: `P${i}`, type: p.kind })),
+    conditions: [
+      { id: "stand", states: ["down", "up"] },
+      { id: "throttle", states: ["released", "applied"] },
+    ],
+    components: parts.map((p, i) =>
+      p.kind === "contact" ? { id: `P${i}`, type: "contact", condition: "stand", closedIn: ["up"] } : { id: `P${i}`, type: p.kind },
+    ),
     wires: [],
     controller: { throttle: { condition: "throttle", released: ["released"], applied: ["applied"] } },
     rules: [],

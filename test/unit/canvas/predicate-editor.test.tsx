@@ -43,7 +43,12 @@ describe("rule picker", () => {
     fireEvent.change(screen.getByLabelText("Forbidden when"), { target: { value: "any" } });
     expect(seen.at(-1)).toEqual({ any: [{ cond: "plug", in: ["inserted"] }] });
     fireEvent.click(screen.getByRole("button", { name: "+ Condition test" }));
-    expect(seen.at(-1)).toEqual({ any: [{ cond: "plug", in: ["inserted"] }, { cond: "plug", in: [] }] });
+    expect(seen.at(-1)).toEqual({
+      any: [
+        { cond: "plug", in: ["inserted"] },
+        { cond: "plug", in: [] },
+      ],
+    });
     // Second member: seat, then negate it.
     const second = document.querySelector('[data-path="when.any[1]"]') as HTMLElement;
     fireEvent.change(within(second).getByLabelText("Condition"), { target: { value: "seat" } });

@@ -93,7 +93,13 @@ describe("editor store opened with a row", () => {
 
 describe("editor store and the revision it opened", () => {
   it("calls a draft that differs from its base revision a draft, and one that equals it the revision", () => {
-    const changed = createEditorStore({ initial: hauler, readOnly: false, designName: "Haybarn", baseRevision: 1, initialIsRevision: false }).getState();
+    const changed = createEditorStore({
+      initial: hauler,
+      readOnly: false,
+      designName: "Haybarn",
+      baseRevision: 1,
+      initialIsRevision: false,
+    }).getState();
     expect(changed.revision).toEqual({ number: 1, key: null });
     const same = createEditorStore({ initial: hauler, readOnly: false, designName: "Haybarn", baseRevision: 1 }).getState();
     expect(same.revision.key).not.toBeNull();

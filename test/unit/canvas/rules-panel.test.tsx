@@ -30,8 +30,17 @@ function cart(closedIn: string[], wired = true): Design {
       { id: "S1", type: "contact", label: "Seat switch", condition: "seat", closedIn },
       { id: "EN", type: "input", label: "Enable", function: "enable" },
     ],
-    wires: wired ? [{ from: "BAT.+", to: "S1.1" }, { from: "S1.2", to: "EN.in" }] : [],
-    controller: { throttle: { condition: "throttle", released: ["released"], applied: ["applied"], fault: [] }, brakeCutsDrive: true, lockouts: [] },
+    wires: wired
+      ? [
+          { from: "BAT.+", to: "S1.1" },
+          { from: "S1.2", to: "EN.in" },
+        ]
+      : [],
+    controller: {
+      throttle: { condition: "throttle", released: ["released"], applied: ["applied"], fault: [] },
+      brakeCutsDrive: true,
+      lockouts: [],
+    },
     rules: [],
     layout: { BAT: { x: 0, y: 0 }, S1: { x: 200, y: 0 }, EN: { x: 400, y: 0 } },
   };
@@ -81,7 +90,12 @@ describe("Must drive when … in the rule picker", () => {
     const second = card.querySelector('[data-path="rules[0].when.all[1]"]') as HTMLElement;
     fireEvent.change(within(second).getByLabelText("Condition"), { target: { value: "throttle" } });
     fireEvent.click(within(second).getByRole("button", { name: "applied" }));
-    const when: Predicate = { all: [{ cond: "seat", in: ["occupied"] }, { cond: "throttle", in: ["applied"] }] };
+    const when: Predicate = {
+      all: [
+        { cond: "seat", in: ["occupied"] },
+        { cond: "throttle", in: ["applied"] },
+      ],
+    };
     expect((store.getState().rest.rules[0] as { when: Predicate }).when).toEqual(when);
 
     const failing = await screen.findByTestId("failing-D1");
@@ -116,8 +130,20 @@ describe("Must drive when … in the rule picker", () => {
 
   it("says a design that never drives proves nothing, even with every rule holding", async () => {
     // Nothing wired to the enable input: no row drives (spec 2: ok needs driveRows > 0).
-    const design = { ...cart(["occupied"], false), rules: [{ id: "R1", label: "No drive with the seat empty", type: "inhibit" as const, when: { cond: "seat", in: ["empty"] }, forbid: "drive" as const }] };
-    for (const seat of ["empty", "occupied"]) for (const throttle of ["released", "applied"]) expect(refRow(design, { seat, throttle }).drive).toBe(false);
+    const design = {
+      ...cart(["occupied"], false),
+      rules: [
+        {
+          id: "R1",
+          label: "No drive with the seat empty",
+          type: "inhibit" as const,
+          when: { cond: "seat", in: ["empty"] },
+          forbid: "drive" as const,
+        },
+      ],
+    };
+    for (const seat of ["empty", "occupied"])
+      for (const throttle of ["released", "applied"]) expect(refRow(design, { seat, throttle }).drive).toBe(false);
     open(design);
     await waitFor(() => expect(proofText()).toMatch(/Never drives: proves nothing/));
     expect(screen.getByTestId("never-drives").textContent).toMatch(/never drives/);
@@ -125,7 +151,10 @@ describe("Must drive when … in the rule picker", () => {
   });
 
   it("removes a require-drive rule with its button, and renames it as one step", async () => {
-    const store = open({ ...cart(["occupied"]), rules: [{ id: "D1", label: "Drives seated", type: "require-drive", when: { cond: "seat", in: ["occupied"] } }] });
+    const store = open({
+      ...cart(["occupied"]),
+      rules: [{ id: "D1", label: "Drives seated", type: "require-drive", when: { cond: "seat", in: ["occupied"] } }],
+    });
     expect(screen.getByTestId("rule-D1")).toBeTruthy();
     fireEvent.click(screen.getByRole("button", { name: "Remove rule D1" }));
     expect(store.getState().rest.rules).toEqual([]);

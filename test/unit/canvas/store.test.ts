@@ -11,7 +11,11 @@ describe("editor store", () => {
     const k = s().addComponent("contact", { x: 200, y: 0 });
     expect(s().connect({ source: b, sourceHandle: "+", target: k, targetHandle: "1" })).toBeNull();
     s().updateComponent(k, { label: "Seat switch" });
-    expect(s().document().components.map((c) => c.id)).toEqual(["B1", "K1"]);
+    expect(
+      s()
+        .document()
+        .components.map((c) => c.id),
+    ).toEqual(["B1", "K1"]);
     expect(s().document().wires).toEqual([{ from: "B1.+", to: "K1.1" }]);
 
     s().undo();
@@ -19,7 +23,11 @@ describe("editor store", () => {
     s().undo();
     expect(s().document().wires).toEqual([]);
     s().undo();
-    expect(s().document().components.map((c) => c.id)).toEqual(["B1"]);
+    expect(
+      s()
+        .document()
+        .components.map((c) => c.id),
+    ).toEqual(["B1"]);
     s().redo();
     s().redo();
     s().redo();
@@ -48,7 +56,11 @@ describe("editor store", () => {
     s().connect({ source: b, sourceHandle: "+", target: k, targetHandle: "1" });
     s().select(k);
     s().deleteSelected();
-    expect(s().document().components.map((c) => c.id)).toEqual(["B1"]);
+    expect(
+      s()
+        .document()
+        .components.map((c) => c.id),
+    ).toEqual(["B1"]);
     expect(s().document().wires).toEqual([]);
     s().undo();
     expect(s().document().wires).toHaveLength(1);
@@ -84,14 +96,20 @@ describe("editor store messages and shortcuts", () => {
       initial: {
         format: "chainproof/design@1",
         name: "Haybarn campus hauler #3",
-        conditions: [{ id: "seat", states: ["empty", "occupied"] }, { id: "throttle", states: ["released", "applied"] }],
+        conditions: [
+          { id: "seat", states: ["empty", "occupied"] },
+          { id: "throttle", states: ["released", "applied"] },
+        ],
         components: [
           { id: "B1", type: "supply" },
           { id: "K1", type: "contact", condition: "seat", closedIn: ["occupied"] },
           { id: "EN", type: "input", function: "enable" },
           { id: "X1", type: "mystery" },
         ],
-        wires: [{ from: "B1.+", to: "K1.1" }, { from: "K1.2", to: "EN.in" }],
+        wires: [
+          { from: "B1.+", to: "K1.1" },
+          { from: "K1.2", to: "EN.in" },
+        ],
         controller: { throttle: { condition: "throttle", released: ["released"], applied: ["applied"] } },
         rules: [{ id: "R1", type: "inhibit", when: { cond: "seat", in: ["empty"] }, forbid: { energized: "EN" } }],
         layout: { B1: { x: 0, y: 0 }, K1: { x: 240, y: 0 }, EN: { x: 480, y: 0 } },
@@ -133,9 +151,17 @@ describe("editor store messages and shortcuts", () => {
     s().select("K1");
     expect(s().copySelected()).toBe(1);
     expect(s().paste()).toEqual(["K2"]);
-    expect(s().nodes.filter((n) => n.selected).map((n) => n.id)).toEqual(["K2"]);
+    expect(
+      s()
+        .nodes.filter((n) => n.selected)
+        .map((n) => n.id),
+    ).toEqual(["K2"]);
     s().undo();
-    expect(s().document().components.map((c) => c.id)).toEqual(["B1", "K1", "EN"]);
+    expect(
+      s()
+        .document()
+        .components.map((c) => c.id),
+    ).toEqual(["B1", "K1", "EN"]);
     s().selectAll();
     expect(s().nodes.every((n) => n.selected) && s().edges.every((e) => e.selected)).toBe(true);
     s().copySelected();
@@ -150,7 +176,12 @@ describe("editor store messages and shortcuts", () => {
     const store = hauler();
     store.getState().select("EN");
     expect(store.getState().deleteSelected()).toBe("rule R1 names EN: change the rule first");
-    expect(store.getState().document().components.map((c) => c.id)).toContain("EN");
+    expect(
+      store
+        .getState()
+        .document()
+        .components.map((c) => c.id),
+    ).toContain("EN");
     expect(store.getState().canvasNote?.text).toBe("Not deleted: rule R1 names EN: change the rule first.");
   });
 
@@ -161,7 +192,10 @@ describe("editor store messages and shortcuts", () => {
     expect(s().pendingWire).toEqual({ component: "K1", terminal: "1" });
     s().clickTerminal({ component: "K1", terminal: "2" });
     expect(s().pendingWire).toBeNull();
-    expect(s().canvasNote).toEqual({ tone: "error", text: "No wire from K1.1 to K1.2: a wire across one component's own terminals is not allowed." });
+    expect(s().canvasNote).toEqual({
+      tone: "error",
+      text: "No wire from K1.1 to K1.2: a wire across one component's own terminals is not allowed.",
+    });
     s().clickTerminal({ component: "K1", terminal: "1" });
     s().clickTerminal({ component: "B1", terminal: "+" });
     expect(s().canvasNote?.text).toBe("No wire from K1.1 to B1.+: these terminals are already joined by wires.");

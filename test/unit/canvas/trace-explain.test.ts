@@ -4,7 +4,16 @@
 // alone, keeps drive off at the violating step) are recomputed here and must agree.
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { compileDesign, encodeRow, evaluateRow, LOCKOUTS, prove, type ControllerState, type Design, type Lockout } from "../../../app/engine";
+import {
+  compileDesign,
+  encodeRow,
+  evaluateRow,
+  LOCKOUTS,
+  prove,
+  type ControllerState,
+  type Design,
+  type Lockout,
+} from "../../../app/engine";
 import { explainTrace } from "../../../app/canvas/trace-explain";
 
 const CONDITIONS = [
@@ -39,7 +48,11 @@ function design(fns: Fn[], lockouts: Lockout[], brakeCutsDrive: boolean): Design
       { from: "B1.+", to: `K_${f}.1` },
       { from: `K_${f}.2`, to: `IN_${f}.in` },
     ]),
-    controller: { throttle: { condition: "throttle", released: ["released"], applied: ["applied"], fault: ["fault"] }, brakeCutsDrive, lockouts },
+    controller: {
+      throttle: { condition: "throttle", released: ["released"], applied: ["applied"], fault: ["fault"] },
+      brakeCutsDrive,
+      lockouts,
+    },
     rules: [{ id: "NR", type: "no-restart" }],
   };
 }
@@ -52,11 +65,15 @@ function reference(views: ControllerState[], lockouts: readonly Lockout[], brake
   let prevDrive = false;
   return views.map((v) => {
     const armed = lockouts.filter((l) =>
-      l === "power-on" ? v.powered && !p.powered
-      : l === "enable-restore" ? v.enabled && !p.enabled
-      : l === "direction-engage" ? moving(v) && !moving(p)
-      : l === "brake-release" ? !v.braking && p.braking
-      : v.throttle === "fault",
+      l === "power-on"
+        ? v.powered && !p.powered
+        : l === "enable-restore"
+          ? v.enabled && !p.enabled
+          : l === "direction-engage"
+            ? moving(v) && !moving(p)
+            : l === "brake-release"
+              ? !v.braking && p.braking
+              : v.throttle === "fault",
     );
     L = v.powered ? (L || armed.length > 0) && v.throttle !== "released" : false;
     const steady = v.powered && v.enabled && moving(v) && !(v.braking && brakeCutsDrive) && v.throttle === "applied";

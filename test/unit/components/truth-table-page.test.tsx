@@ -25,26 +25,33 @@ const columns: TableColumns = {
     { id: "R2", label: "No drive with the stand down", type: "inhibit" },
   ],
 };
-const row = (index: number, states: string[], drive: boolean): TableRow => ({
-  index,
-  states,
-  contacts: [states[0] === "occupied"],
-  inputs: [drive],
-  powered: true,
-  enabled: drive,
-  direction: "neutral",
-  braking: false,
-  throttle: "released",
-  drive,
-  rules: ["-", "-"],
-} as unknown as TableRow);
+const row = (index: number, states: string[], drive: boolean): TableRow =>
+  ({
+    index,
+    states,
+    contacts: [states[0] === "occupied"],
+    inputs: [drive],
+    powered: true,
+    enabled: drive,
+    direction: "neutral",
+    braking: false,
+    throttle: "released",
+    drive,
+    rules: ["-", "-"],
+  }) as unknown as TableRow;
 const rows = [row(0, ["empty", "up", "closed"], false), row(1, ["occupied", "up", "closed"], true)];
 
 describe("truth-table grid", () => {
   it("heads each column with its label first and its id second on screen", () => {
     render(<TruthTableGrid columns={columns} rows={rows} />);
     const head = screen.getByTestId("truth-table").querySelector("thead")!;
-    for (const [id, label] of [["seat", "Operator seat"], ["stand", "Side stand"], ["S1", "Seat switch"], ["KSI", "Key switch input"], ["R1", "No drive while charging"]]) {
+    for (const [id, label] of [
+      ["seat", "Operator seat"],
+      ["stand", "Side stand"],
+      ["S1", "Seat switch"],
+      ["KSI", "Key switch input"],
+      ["R1", "No drive while charging"],
+    ]) {
       const th = head.querySelector(`th[data-col="${id}"]`)!;
       const parts = [...th.querySelectorAll("span")].map((s) => s.textContent);
       expect(parts[0]).toBe(label);
@@ -76,7 +83,14 @@ describe("truth-table grid", () => {
   });
 
   it("past four rules pins the drive and a column naming the row's rules, and lets the rule columns scroll", () => {
-    const many: TableColumns = { ...columns, rules: ["R1", "R2", "R3", "R4", "R5"].map((id) => ({ id, label: `Rule ${id}`, type: id === "R4" ? ("require-drive" as const) : ("inhibit" as const) })) };
+    const many: TableColumns = {
+      ...columns,
+      rules: ["R1", "R2", "R3", "R4", "R5"].map((id) => ({
+        id,
+        label: `Rule ${id}`,
+        type: id === "R4" ? ("require-drive" as const) : ("inhibit" as const),
+      })),
+    };
     const cells = (drive: boolean, rs: string[]) => ({ ...row(0, ["empty", "up", "closed"], drive), rules: rs }) as unknown as TableRow;
     const rs = [
       { ...cells(true, ["-", "violating", "-", "demand", "violating"]), index: 0 },
@@ -89,7 +103,12 @@ describe("truth-table grid", () => {
     expect(table.querySelector<HTMLElement>('th[data-col="rules-summary"]')!.style.right).toBe("0px");
     expect(table.querySelector<HTMLElement>('th[data-col="drive"]')!.style.right).toBe("10rem");
     expect(table.querySelector<HTMLElement>('th[data-col="R5"]')!.className).not.toContain("sticky");
-    expect(screen.getAllByTestId("rules-summary").map((c) => c.textContent)).toEqual(["✕ breaks R2, R5", "✕ breaks R4", "▲ unsafe for R1▷ must drive for R4", "none applies"]);
+    expect(screen.getAllByTestId("rules-summary").map((c) => c.textContent)).toEqual([
+      "✕ breaks R2, R5",
+      "✕ breaks R4",
+      "▲ unsafe for R1▷ must drive for R4",
+      "none applies",
+    ]);
   });
 
   it("gives rows only opaque backgrounds, so the pinned cells hide what scrolls under them", () => {
@@ -117,7 +136,18 @@ describe("row comments", () => {
     render(
       <MemoryRouter>
         <CommentsView
-          comments={[{ id: "c1", authorName: "Rhea", anchor: "row", rowIndex: 5, rowStates: fromDb, componentId: null, body: "Check this one", createdAt: "2026-01-02T03:04:05Z" }]}
+          comments={[
+            {
+              id: "c1",
+              authorName: "Rhea",
+              anchor: "row",
+              rowIndex: 5,
+              rowStates: fromDb,
+              componentId: null,
+              body: "Check this one",
+              createdAt: "2026-01-02T03:04:05Z",
+            },
+          ]}
           slug="ws"
           designId="d1"
           number={3}

@@ -103,7 +103,11 @@ describe("currents (check-values.md 'Currents', arithmetic)", () => {
   it("7 % of 300 A is 21.0 A: not above a 21 A fuse", () => {
     // spec section 2: 0.07 * 300 is 21.000000000000004 in floating point; the finding compares 21.0
     const r = check(
-      withValue(withValue(withValue(exampleRecord(), "controller.ratedCurrentA", 300), "settings.batteryCurrentPercent", 7), "pack.fuseA", 21),
+      withValue(
+        withValue(withValue(exampleRecord(), "controller.ratedCurrentA", 300), "settings.batteryCurrentPercent", 7),
+        "pack.fuseA",
+        21,
+      ),
     );
     expect(r.derived.batteryCurrentA).toBe(21);
     expect(codes(r.findings)).not.toContain("battery-current-above-fuse");
@@ -142,7 +146,9 @@ describe("pack voltage settings against the pack (check-values.md 'Traction pack
   it("a pack window outside the controller's range is one error at controller, naming the end", () => {
     const r = check(withValue(exampleRecord(), "controller.maxVoltageV", 58));
     expect(r.findings).toContainEqual(expect.objectContaining({ code: "outside-controller-range", severity: "error", path: "controller" }));
-    expect(r.findings.find((f) => f.code === "outside-controller-range")?.message).toMatch(/maximum is above the controller's highest \(58 V\)/);
+    expect(r.findings.find((f) => f.code === "outside-controller-range")?.message).toMatch(
+      /maximum is above the controller's highest \(58 V\)/,
+    );
   });
 });
 
@@ -151,7 +157,12 @@ describe("throttle (check-values.md 'Throttle signals': common practice, from me
 
   it("a Hall throttle at 0.8 V rest and 4.2 V full, with faults below 0.5 V and above 4.5 V, classes as the design assumes", () => {
     // common practice, from memory: ~0.8 V at rest, ~4.2 V full; fault below ~0.5 V or above ~4.5 V
-    expect(check(throttle({ restV: 0.8 })).derived.throttle).toEqual({ rest: "released", full: "applied", openSignal: "fault", openGround: "fault" });
+    expect(check(throttle({ restV: 0.8 })).derived.throttle).toEqual({
+      rest: "released",
+      full: "applied",
+      openSignal: "fault",
+      openGround: "fault",
+    });
   });
   it("a 0-5 V signal from another device has no open-ground reading", () => {
     // check-values.md: an open signal wire reads near 0 V; an open ground reads near the supply on a three-wire sensor only
@@ -162,7 +173,9 @@ describe("throttle (check-values.md 'Throttle signals': common practice, from me
   it("a Hall sensor with no high fault threshold (5 V) does not see an open ground: an error at settings.throttle", () => {
     const r = check(throttle({ faultAboveV: 5 }));
     expect(r.derived.throttle.openGround).toBe("applied");
-    expect(r.findings).toContainEqual(expect.objectContaining({ code: "throttle-open-wire-not-fault", severity: "error", path: "settings.throttle" }));
+    expect(r.findings).toContainEqual(
+      expect.objectContaining({ code: "throttle-open-wire-not-fault", severity: "error", path: "settings.throttle" }),
+    );
   });
   it("an open signal at exactly the low fault threshold (0 V) is not below it: released, not fault", () => {
     const r = check(throttle({ faultBelowV: 0 }));
@@ -202,7 +215,10 @@ describe("against a design (spec section 4)", () => {
     expect(codes(r.findings)).toEqual(["battery-current-above-pack"]);
   });
   it("no lockouts in the record (the default) against a design assuming two: two findings", () => {
-    const r = check(withValue(exampleRecord(), "settings.lockouts", undefined), designController({ lockouts: ["power-on", "enable-restore"] }));
+    const r = check(
+      withValue(exampleRecord(), "settings.lockouts", undefined),
+      designController({ lockouts: ["power-on", "enable-restore"] }),
+    );
     expect(codes(r.findings)).toEqual(["lockout-missing", "lockout-missing", "battery-current-above-pack"]);
   });
   it("brake behaviour: both default to cutting drive; a difference either way is an error", () => {

@@ -84,7 +84,13 @@ describe("comparing two versions", () => {
     expect(compareRecords(exampleRecord(), after)).toEqual([
       { path: "pack.fuseA", label: "Main fuse rating", unit: "A", before: "250", after: "—" },
       { path: "settings.throttle.restV", label: "Reading at rest", unit: "V", before: "0.85", after: "0.8" },
-      { path: "settings.lockouts", label: "Lockouts", unit: undefined, before: "power-on, enable-restore, direction-engage", after: "power-on, direction-engage" },
+      {
+        path: "settings.lockouts",
+        label: "Lockouts",
+        unit: undefined,
+        before: "power-on, enable-restore, direction-engage",
+        after: "power-on, direction-engage",
+      },
       { path: "settings.extra", label: "settings.extra", unit: undefined, before: "—", after: "kept" },
     ]);
   });
@@ -100,11 +106,17 @@ describe("comparing two versions", () => {
   });
 
   it("every changed leaf shows up once (random single changes)", () => {
-    const paths = ["pack.capacityAh", "controller.ratedCurrentA", "settings.motorCurrentPercent", "settings.throttle.faultAboveV", "settings.precharge.delayMs"];
+    const paths = [
+      "pack.capacityAh",
+      "controller.ratedCurrentA",
+      "settings.motorCurrentPercent",
+      "settings.throttle.faultAboveV",
+      "settings.precharge.delayMs",
+    ];
     fc.assert(
       fc.property(fc.constantFrom(...paths), fc.integer({ min: 1, max: 99 }), (path, value) => {
         // a value equal to the example's own is no change at all (the example's throttle fault level is 4.5)
-        fc.pre(path.split(".").reduce((at: Json, k) => at?.[k], exampleRecord()) as unknown !== value + 0.5);
+        fc.pre((path.split(".").reduce((at: Json, k) => at?.[k], exampleRecord()) as unknown) !== value + 0.5);
         const after = withValue(exampleRecord(), path, value + 0.5);
         const changes = compareRecords(exampleRecord(), after);
         expect(changes.map((c) => c.path)).toEqual([path]);

@@ -100,7 +100,12 @@ const gen: fc.Arbitrary<Gen> = fc
     capacityAh: fc.integer({ min: 1, max: 400 }),
     cTenths: fc.option(fc.integer({ min: 1, max: 50 })),
     // a fuse anywhere, or at the battery current limit give or take 1 A (the edge)
-    fuseA: fc.option(fc.oneof(fc.integer({ min: 1, max: 800 }).map((a) => ({ a })), fc.integer({ min: -1, max: 1 }).map((off) => ({ off })))),
+    fuseA: fc.option(
+      fc.oneof(
+        fc.integer({ min: 1, max: 800 }).map((a) => ({ a })),
+        fc.integer({ min: -1, max: 1 }).map((off) => ({ off })),
+      ),
+    ),
     ratedA: fc.integer({ min: 1, max: 800 }),
     range: fc.tuple(packVolts, packVolts),
     volts: fc.tuple(packVolts, packVolts),
@@ -113,7 +118,11 @@ const gen: fc.Arbitrary<Gen> = fc
     lockouts: lockoutList,
     brake: fc.option(fc.boolean()),
     precharge: fc.option(
-      fc.record({ ohm: fc.integer({ min: 1, max: 500 }), uf: fc.integer({ min: 10, max: 5000 }), delayMs: fc.integer({ min: 1, max: 5000 }) }),
+      fc.record({
+        ohm: fc.integer({ min: 1, max: 500 }),
+        uf: fc.integer({ min: 10, max: 5000 }),
+        delayMs: fc.integer({ min: 1, max: 5000 }),
+      }),
     ),
     design: fc.record({ lockouts: lockoutList, brake: fc.option(fc.boolean()), fault: fc.boolean() }),
   })
@@ -229,7 +238,11 @@ const clearOfPrechargeEdge = (g: Gen) => {
 };
 
 const designOf = (g: Gen) =>
-  designController({ lockouts: g.design.lockouts, fault: g.design.fault ? ["fault"] : [], ...(g.design.brake === null ? {} : { brakeCutsDrive: g.design.brake }) });
+  designController({
+    lockouts: g.design.lockouts,
+    fault: g.design.fault ? ["fault"] : [],
+    ...(g.design.brake === null ? {} : { brakeCutsDrive: g.design.brake }),
+  });
 
 describe("findings of random records", () => {
   it("are exactly the reference's, with the spec's severity and path", () => {

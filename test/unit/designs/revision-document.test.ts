@@ -5,7 +5,9 @@ import { describe, expect, it } from "vitest";
 import { validateDesign } from "~/engine";
 import { DamagedRevisionError, readRevisionDesign } from "~/designs/revision-document";
 
-const stored = JSON.parse(readFileSync(new URL("../../../drizzle/demo-designs/haybarn-campus-hauler.json", import.meta.url), "utf8")) as unknown;
+const stored = JSON.parse(
+  readFileSync(new URL("../../../drizzle/demo-designs/haybarn-campus-hauler.json", import.meta.url), "utf8"),
+) as unknown;
 
 describe("readRevisionDesign", () => {
   it("gives the design the engine's own validation gives for a stored document", () => {

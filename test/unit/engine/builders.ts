@@ -63,7 +63,14 @@ export const is = (cond: string, ...states: string[]): Predicate => ({ cond, in:
  */
 export function randomDesign(
   g: fc.GeneratorValue,
-  opts: { maxContacts?: number; meshed?: boolean; cutRules?: boolean; maxConditions?: number; maxStates?: number; emptyRules?: boolean } = {},
+  opts: {
+    maxContacts?: number;
+    meshed?: boolean;
+    cutRules?: boolean;
+    maxConditions?: number;
+    maxStates?: number;
+    emptyRules?: boolean;
+  } = {},
 ): Design {
   const int = (min: number, max: number) => g(fc.integer, { min, max });
   const conditions = Array.from({ length: int(1, opts.maxConditions ?? 4) }, (_, i) => ({
@@ -143,7 +150,11 @@ export function randomDesign(
     const pinned = (): Predicate => ({
       all: conditions.map((c) => ({
         cond: c.id,
-        in: [c.id === t.id && throttle.applied.length > 0 ? throttle.applied[int(0, throttle.applied.length - 1)] : c.states[int(0, c.states.length - 1)]],
+        in: [
+          c.id === t.id && throttle.applied.length > 0
+            ? throttle.applied[int(0, throttle.applied.length - 1)]
+            : c.states[int(0, c.states.length - 1)],
+        ],
       })),
     });
     rules.push(requireDrive(`D${k}`, g(fc.boolean) ? pinned() : predicate(0)));
@@ -154,7 +165,12 @@ export function randomDesign(
       const empties: Predicate[] = [
         { cond: c.id, in: [] },
         { any: [] },
-        { all: [{ cond: c.id, in: [c.states[0]] }, { cond: c.id, in: [c.states[1]] }] },
+        {
+          all: [
+            { cond: c.id, in: [c.states[0]] },
+            { cond: c.id, in: [c.states[1]] },
+          ],
+        },
         { not: { always: true } },
         { all: [predicate(1), { not: { cond: c.id, in: c.states } }] },
       ];

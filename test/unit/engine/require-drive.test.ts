@@ -98,7 +98,15 @@ describe("a rule whose when matches no row makes the design invalid", () => {
   const empties: Array<[string, Predicate]> = [
     ["an empty state list", { cond: "plug", in: [] }],
     ['an "any" of nothing', { any: [] }],
-    ["a contradiction", { all: [{ cond: "key", in: ["on"] }, { cond: "key", in: ["off"] }] }],
+    [
+      "a contradiction",
+      {
+        all: [
+          { cond: "key", in: ["on"] },
+          { cond: "key", in: ["off"] },
+        ],
+      },
+    ],
     ["not always", { not: { always: true } }],
     ["every state excluded", { not: { cond: "dir", in: ["forward", "neutral", "reverse"] } }],
   ];
@@ -114,7 +122,16 @@ describe("a rule whose when matches no row makes the design invalid", () => {
   });
 
   it("an empty state list is legal inside an any or a not that can hold", () => {
-    expect(validateDesign(withWhen({ any: [{ cond: "plug", in: [] }, { cond: "plug", in: ["inserted"] }] }).d).ok).toBe(true);
+    expect(
+      validateDesign(
+        withWhen({
+          any: [
+            { cond: "plug", in: [] },
+            { cond: "plug", in: ["inserted"] },
+          ],
+        }).d,
+      ).ok,
+    ).toBe(true);
     expect(validateDesign(withWhen({ not: { cond: "plug", in: [] } }).d).ok).toBe(true);
   });
 

@@ -142,7 +142,9 @@ describe("why won't it drive: a reverse line wired behind the forward contact", 
     expect(w.drive).toBe(false);
     expect(w.restore).toMatchObject({ kind: "change", size: 1, count: 1 });
     if (w.restore.kind !== "change") return;
-    expect(w.restore.options.map((o) => o.changes)).toEqual([[{ condition: "selector", conditionLabel: "selector", from: "neutral", to: "fwd" }]]);
+    expect(w.restore.options.map((o) => o.changes)).toEqual([
+      [{ condition: "selector", conditionLabel: "selector", from: "neutral", to: "fwd" }],
+    ]);
     const neutral = w.blockers.find((b) => b.code === "neutral")!;
     expect(neutral.change).toMatchObject({ kind: "change", size: 1 });
     const sets = neutral.contactSets.map((s) => s.map((k) => k.contact).sort());
@@ -152,7 +154,9 @@ describe("why won't it drive: a reverse line wired behind the forward contact", 
 
   it("in rev (the reverse input dead) also suggests fwd", () => {
     const w = whyNot(behind, { key: "on", selector: "rev", pedal: "down" });
-    expect(w.restore.kind === "change" && w.restore.options.map((o) => o.changes.map((ch) => `${ch.condition}=${ch.to}`))).toEqual([["selector=fwd"]]);
+    expect(w.restore.kind === "change" && w.restore.options.map((o) => o.changes.map((ch) => `${ch.condition}=${ch.to}`))).toEqual([
+      ["selector=fwd"],
+    ]);
   });
 
   it("with the key off and the pedal up, the smallest change is key, selector and pedal together", () => {
@@ -216,7 +220,15 @@ describe("why won't it drive: a latched lockout", () => {
     expect(w.steadyDrive).toBe(true);
     expect(w.restore).toMatchObject({ kind: "change", size: 0 });
     if (w.restore.kind !== "change") return;
-    expect(w.restore.options[0]).toMatchObject({ changes: [], cycleThrottle: true, heldOff: false, steps: [{ key: "on", pedal: "up" }, { key: "on", pedal: "down" }] });
+    expect(w.restore.options[0]).toMatchObject({
+      changes: [],
+      cycleThrottle: true,
+      heldOff: false,
+      steps: [
+        { key: "on", pedal: "up" },
+        { key: "on", pedal: "down" },
+      ],
+    });
     expect(w.blockers.find((b) => b.code === "lockout-latched")!.title).toContain("power-on lockout");
   });
 });

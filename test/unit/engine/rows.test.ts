@@ -17,8 +17,7 @@ import {
 } from "../../../app/engine";
 import { inhibit, is, makeDesign } from "./builders";
 
-const example = (name: string) =>
-  compileDesign(JSON.parse(readFileSync(`/work/shared/spec/examples/${name}.design.json`, "utf8")));
+const example = (name: string) => compileDesign(JSON.parse(readFileSync(`/work/shared/spec/examples/${name}.design.json`, "utf8")));
 const hauler = example("campus-hauler");
 const mower = example("deck-mower");
 const bike = example("trail-bike");
@@ -28,7 +27,10 @@ describe("row order", () => {
   // Spec 1.1: conditions A (2 states), B (3 states): row 1 = (A0,B1), row 3 = (A1,B0).
   const c = compileDesign(
     makeDesign({
-      conditions: [["A", ["a0", "a1"]], ["B", ["b0", "b1", "b2"]]],
+      conditions: [
+        ["A", ["a0", "a1"]],
+        ["B", ["b0", "b1", "b2"]],
+      ],
       inputs: [["P", "power"]],
       wires: [["BAT.+", "P.in"]],
       throttle: { condition: "B", released: ["b0"], applied: ["b1", "b2"] },
@@ -125,16 +127,34 @@ describe("diagnose", () => {
   it("lists every smallest set, across parallel branches", () => {
     const c = compileDesign(
       makeDesign({
-        conditions: [["a", ["off", "on"]], ["b", ["off", "on"]], ["c", ["off", "on"]], ["t", ["rel", "app"]]],
-        contacts: [["A", "a", ["on"]], ["B", "b", ["on"]], ["C", "c", ["on"]]],
+        conditions: [
+          ["a", ["off", "on"]],
+          ["b", ["off", "on"]],
+          ["c", ["off", "on"]],
+          ["t", ["rel", "app"]],
+        ],
+        contacts: [
+          ["A", "a", ["on"]],
+          ["B", "b", ["on"]],
+          ["C", "c", ["on"]],
+        ],
         inputs: [["EN", "enable"]],
         // A in series with (B parallel C)
-        wires: [["BAT.+", "A.1"], ["A.2", "B.1"], ["A.2", "C.1"], ["B.2", "EN.in"], ["C.2", "EN.in"]],
+        wires: [
+          ["BAT.+", "A.1"],
+          ["A.2", "B.1"],
+          ["A.2", "C.1"],
+          ["B.2", "EN.in"],
+          ["C.2", "EN.in"],
+        ],
         throttle: { condition: "t", released: ["rel"], applied: ["app"] },
       }),
     );
     const d = diagnose(c, { a: "off", b: "off", c: "off", t: "app" });
-    expect(d.inputs[0].fixes.map((s) => s.map((k) => k.contact))).toEqual([["A", "B"], ["A", "C"]]);
+    expect(d.inputs[0].fixes.map((s) => s.map((k) => k.contact))).toEqual([
+      ["A", "B"],
+      ["A", "C"],
+    ]);
     expect(d.reasons.map((r) => r.code)).toEqual(["not-enabled"]);
   });
 
@@ -173,10 +193,16 @@ describe("replayTrace", () => {
   it("reports the latch, armed lockouts and drive per step", () => {
     const c = compileDesign(
       makeDesign({
-        conditions: [["key", ["off", "on"]], ["t", ["rel", "app"]]],
+        conditions: [
+          ["key", ["off", "on"]],
+          ["t", ["rel", "app"]],
+        ],
         contacts: [["KS", "key", ["on"]]],
         inputs: [["PWR", "power"]],
-        wires: [["BAT.+", "KS.1"], ["KS.2", "PWR.in"]],
+        wires: [
+          ["BAT.+", "KS.1"],
+          ["KS.2", "PWR.in"],
+        ],
         throttle: { condition: "t", released: ["rel"], applied: ["app"] },
         lockouts: ["power-on"],
         rules: [inhibit("never", is("key", "off"))],

@@ -18,8 +18,21 @@ const CONDITIONS: Spec["conditions"] = [
 function chargeInlet(arrangement: "series" | "parallel"): Design {
   const wires: Spec["wires"] =
     arrangement === "series"
-      ? [["BAT.+", "KS.1"], ["KS.2", "PWR.in"], ["KS.2", "SS.1"], ["SS.2", "CI.1"], ["CI.2", "EN.in"]]
-      : [["BAT.+", "KS.1"], ["KS.2", "PWR.in"], ["KS.2", "SS.1"], ["KS.2", "CI.1"], ["SS.2", "EN.in"], ["CI.2", "EN.in"]];
+      ? [
+          ["BAT.+", "KS.1"],
+          ["KS.2", "PWR.in"],
+          ["KS.2", "SS.1"],
+          ["SS.2", "CI.1"],
+          ["CI.2", "EN.in"],
+        ]
+      : [
+          ["BAT.+", "KS.1"],
+          ["KS.2", "PWR.in"],
+          ["KS.2", "SS.1"],
+          ["KS.2", "CI.1"],
+          ["SS.2", "EN.in"],
+          ["CI.2", "EN.in"],
+        ];
   return makeDesign({
     conditions: CONDITIONS,
     contacts: [
@@ -77,7 +90,12 @@ function seatInterlock(lockouts: Spec["lockouts"]): Design {
       ["PWR", "power"],
       ["EN", "enable"],
     ],
-    wires: [["BAT.+", "KS.1"], ["KS.2", "PWR.in"], ["KS.2", "SS.1"], ["SS.2", "EN.in"]],
+    wires: [
+      ["BAT.+", "KS.1"],
+      ["KS.2", "PWR.in"],
+      ["KS.2", "SS.1"],
+      ["SS.2", "EN.in"],
+    ],
     throttle: { condition: "throttle", released: ["released"], applied: ["applied"] },
     lockouts,
     rules: [noRestart("no-surprise")],
@@ -159,7 +177,15 @@ describe("single faults", () => {
   // ISO 13849-1:2006 (superseded), 7.2 (single-fault criterion: one fault at a time; faults of a
   // common cause count as one, which a contact-by-contact check does not cover).
   it("a stuck-closed contact in a single chain defeats its rule", () => {
-    const v = prove(chain([["CI", "plug", ["free"]]], [["BAT.+", "CI.1"], ["CI.2", "EN.in"]]));
+    const v = prove(
+      chain(
+        [["CI", "plug", ["free"]]],
+        [
+          ["BAT.+", "CI.1"],
+          ["CI.2", "EN.in"],
+        ],
+      ),
+    );
     expect(v.ok).toBe(true);
     expect(v.singleFaults).toEqual([{ component: "CI", mode: "stuck-closed", defeats: ["charging"] }]);
   });
@@ -172,7 +198,11 @@ describe("single faults", () => {
           ["CI1", "plug", ["free"]],
           ["CI2", "plug", ["free"]],
         ],
-        [["BAT.+", "CI1.1"], ["CI1.2", "CI2.1"], ["CI2.2", "EN.in"]],
+        [
+          ["BAT.+", "CI1.1"],
+          ["CI1.2", "CI2.1"],
+          ["CI2.2", "EN.in"],
+        ],
       ),
     );
     expect(v.ok).toBe(true);
@@ -189,7 +219,10 @@ describe("single faults", () => {
       ],
       contacts: [["BS", "brake", ["pressed"]]],
       inputs: [["BRK", "brake"]],
-      wires: [["BAT.+", "BS.1"], ["BS.2", "BRK.in"]],
+      wires: [
+        ["BAT.+", "BS.1"],
+        ["BS.2", "BRK.in"],
+      ],
       throttle: { condition: "throttle", released: ["released"], applied: ["applied"] },
       rules: [inhibit("brake", is("brake", "pressed"))],
     });

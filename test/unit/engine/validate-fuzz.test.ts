@@ -20,7 +20,8 @@ function checkDocument(doc: unknown): boolean {
       expect(typeof p.path).toBe("string");
       expect(typeof p.message).toBe("string");
       expect(p.message.trim()).not.toBe("");
-      if (!pathNamesPlaceIn(doc, p.path)) throw new Error(`problem path ${JSON.stringify(p.path)} names no place in the document (${p.message})`);
+      if (!pathNamesPlaceIn(doc, p.path))
+        throw new Error(`problem path ${JSON.stringify(p.path)} names no place in the document (${p.message})`);
     }
     return false;
   }
@@ -64,8 +65,20 @@ describe("validateDesign under bad input", () => {
       fc.property(
         fc.oneof(
           fc.jsonValue({ maxDepth: 6 }),
-          fc.dictionary(fc.constantFrom("format", "name", "conditions", "components", "wires", "controller", "rules", "layout"), fc.jsonValue({ maxDepth: 4 })),
-          fc.anything({ maxDepth: 3, withBigInt: true, withDate: true, withMap: true, withSet: true, withTypedArray: true, withSparseArray: true, withNullPrototype: true }),
+          fc.dictionary(
+            fc.constantFrom("format", "name", "conditions", "components", "wires", "controller", "rules", "layout"),
+            fc.jsonValue({ maxDepth: 4 }),
+          ),
+          fc.anything({
+            maxDepth: 3,
+            withBigInt: true,
+            withDate: true,
+            withMap: true,
+            withSet: true,
+            withTypedArray: true,
+            withSparseArray: true,
+            withNullPrototype: true,
+          }),
         ),
         (doc) => {
           expect(checkDocument(doc)).toBe(false);

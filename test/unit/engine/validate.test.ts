@@ -34,32 +34,105 @@ describe("validateDesign", () => {
     ["a condition with one state", (d) => (d.conditions[1].states = ["run"]), "conditions[1].states", "2 to 8"],
     ["a condition with nine states", (d) => (d.conditions[1].states = "abcdefghi".split("")), "conditions[1].states", "2 to 8"],
     ["a repeated state", (d) => d.conditions[0].states.push("off"), "conditions[0].states[2]", 'state "off" is listed twice'],
-    ["an unknown contact condition", (d) => (d.components[1].condition = "ignition"), "components[1].condition", 'no condition with id "ignition"'],
-    ["a closedIn state not in its condition", (d) => (d.components[2].closedIn = ["running"]), "components[2].closedIn[0]", 'state "running" is not a state of condition "kill"'],
+    [
+      "an unknown contact condition",
+      (d) => (d.components[1].condition = "ignition"),
+      "components[1].condition",
+      'no condition with id "ignition"',
+    ],
+    [
+      "a closedIn state not in its condition",
+      (d) => (d.components[2].closedIn = ["running"]),
+      "components[2].closedIn[0]",
+      'state "running" is not a state of condition "kill"',
+    ],
     ["an empty closedIn", (d) => (d.components[2].closedIn = []), "components[2].closedIn", "at least one state"],
     ["an unknown component type", (d) => (d.components[1].type = "relay"), "components[1].type", "discriminator"],
     ["an unknown input function", (d) => (d.components[5].function = "horn"), "components[5].function", "Invalid option"],
-    ["a second input with the same function", (d) => (d.components[5].function = "power"), "components[5].function", 'second input with function "power"'],
+    [
+      "a second input with the same function",
+      (d) => (d.components[5].function = "power"),
+      "components[5].function",
+      'second input with function "power"',
+    ],
     ["no supply", (d) => (d.components[0].type = "junction"), "components", "no supply"],
     ["a wire to a missing component", (d) => (d.wires[0].from = "BATT.+"), "wires[0].from", 'no component with id "BATT"'],
     ["a wire to a missing terminal", (d) => (d.wires[1].to = "PWR.out"), "wires[1].to", 'has no terminal "out"'],
     ["a wire end without a terminal", (d) => (d.wires[2].to = "KL"), "wires[2].to", "COMPONENT.TERMINAL"],
-    ["an unknown throttle condition", (d) => (d.controller.throttle.condition = "twist"), "controller.throttle.condition", 'no condition with id "twist"'],
-    ["a throttle state in no class", (d) => (d.controller.throttle.fault = []), "controller.throttle", 'state "fault" of condition "grip" is in no throttle class'],
-    ["a throttle state in two classes", (d) => d.controller.throttle.applied.push("closed"), "controller.throttle.applied[1]", 'already in throttle class "released"'],
-    ["a throttle class state not in its condition", (d) => d.controller.throttle.fault.push("stuck"), "controller.throttle.fault[1]", 'state "stuck" is not a state of condition "grip"'],
-    ["an empty applied class", (d) => { d.controller.throttle.applied = []; d.controller.throttle.released.push("open"); }, "controller.throttle.applied", "at least one applied state"],
+    [
+      "an unknown throttle condition",
+      (d) => (d.controller.throttle.condition = "twist"),
+      "controller.throttle.condition",
+      'no condition with id "twist"',
+    ],
+    [
+      "a throttle state in no class",
+      (d) => (d.controller.throttle.fault = []),
+      "controller.throttle",
+      'state "fault" of condition "grip" is in no throttle class',
+    ],
+    [
+      "a throttle state in two classes",
+      (d) => d.controller.throttle.applied.push("closed"),
+      "controller.throttle.applied[1]",
+      'already in throttle class "released"',
+    ],
+    [
+      "a throttle class state not in its condition",
+      (d) => d.controller.throttle.fault.push("stuck"),
+      "controller.throttle.fault[1]",
+      'state "stuck" is not a state of condition "grip"',
+    ],
+    [
+      "an empty applied class",
+      (d) => {
+        d.controller.throttle.applied = [];
+        d.controller.throttle.released.push("open");
+      },
+      "controller.throttle.applied",
+      "at least one applied state",
+    ],
     ["a missing throttle", (d) => delete d.controller.throttle, "controller.throttle", "expected object"],
     ["an unknown lockout", (d) => d.controller.lockouts.push("seat-return"), "controller.lockouts[2]", "Invalid option"],
     ["an unknown rule type", (d) => (d.rules[0].type = "require"), "rules[0].type", "discriminator"],
-    ["a rule on an unknown condition", (d) => (d.rules[0].when = { cond: "door", in: ["open"] }), "rules[0].when.cond", 'no condition with id "door"'],
-    ["a nested rule on an unknown condition", (d) => (d.rules[0].when = { all: [{ always: true }, { not: { cond: "door", in: ["x"] } }] }), "rules[0].when.all[1].not.cond", 'no condition with id "door"'],
-    ["a rule on an unknown state", (d) => (d.rules[1].when = { any: [{ cond: "kill", in: ["run", "halt"] }] }), "rules[1].when.any[0].in[1]", 'state "halt" is not a state of condition "kill"'],
-    ["a predicate mixing forms", (d) => (d.rules[0].when = { cond: "stand", in: ["down"], not: { always: true } }), "rules[0].when", "exactly one form"],
+    [
+      "a rule on an unknown condition",
+      (d) => (d.rules[0].when = { cond: "door", in: ["open"] }),
+      "rules[0].when.cond",
+      'no condition with id "door"',
+    ],
+    [
+      "a nested rule on an unknown condition",
+      (d) => (d.rules[0].when = { all: [{ always: true }, { not: { cond: "door", in: ["x"] } }] }),
+      "rules[0].when.all[1].not.cond",
+      'no condition with id "door"',
+    ],
+    [
+      "a rule on an unknown state",
+      (d) => (d.rules[1].when = { any: [{ cond: "kill", in: ["run", "halt"] }] }),
+      "rules[1].when.any[0].in[1]",
+      'state "halt" is not a state of condition "kill"',
+    ],
+    [
+      "a predicate mixing forms",
+      (d) => (d.rules[0].when = { cond: "stand", in: ["down"], not: { always: true } }),
+      "rules[0].when",
+      "exactly one form",
+    ],
     ["a predicate with no form", (d) => (d.rules[0].when = {}), "rules[0].when", "a predicate is one of"],
     ["a condition test without states", (d) => (d.rules[0].when = { cond: "stand" }), "rules[0].when.in", '"in"'],
-    ["forbid energized an unknown id", (d) => (d.rules[0].forbid = { energized: "ENABLE" }), "rules[0].forbid.energized", 'no component with id "ENABLE"'],
-    ["forbid energized a non-input", (d) => (d.rules[0].forbid = { energized: "KL" }), "rules[0].forbid.energized", 'component "KL" is a contact, not an input'],
+    [
+      "forbid energized an unknown id",
+      (d) => (d.rules[0].forbid = { energized: "ENABLE" }),
+      "rules[0].forbid.energized",
+      'no component with id "ENABLE"',
+    ],
+    [
+      "forbid energized a non-input",
+      (d) => (d.rules[0].forbid = { energized: "KL" }),
+      "rules[0].forbid.energized",
+      'component "KL" is a contact, not an input',
+    ],
     ["a bad forbid", (d) => (d.rules[0].forbid = "motion"), "rules[0].forbid", 'forbid is "drive"'],
   ])("reports %s", (_, mutate, path, message) => {
     // Consequences may be listed too (a renamed condition leaves its references dangling).
@@ -84,7 +157,10 @@ describe("validateDesign", () => {
 
   it("accepts exactly the row limit", () => {
     const ps = problems((d) => {
-      d.conditions = [{ id: "grip", states: ["closed", "open", "fault", "x"] }, ...Array.from({ length: 22 }, (_, i) => ({ id: `c${i}`, states: ["a", "b"] }))];
+      d.conditions = [
+        { id: "grip", states: ["closed", "open", "fault", "x"] },
+        ...Array.from({ length: 22 }, (_, i) => ({ id: `c${i}`, states: ["a", "b"] })),
+      ];
       d.controller.throttle.fault = ["fault", "x"];
       d.components = d.components.filter((c: any) => c.type !== "contact");
       d.wires = [{ from: "BAT.+", to: "PWR.in" }];

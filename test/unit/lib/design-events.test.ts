@@ -7,30 +7,50 @@ import { DESIGN_EVENT_ACTIONS, describeDesignEvent, type DesignEvent } from "../
 const D = "4f1c2a9e-0000-4000-8000-00000000d351";
 const V = "4f1c2a9e-0000-4000-8000-00000000a001";
 const examples: Record<(typeof DESIGN_EVENT_ACTIONS)[number], { e: Omit<DesignEvent, "actorName">; text: string; href: string | null }> = {
-  "design.created": { e: { action: "design.created", subject: "Haybarn hauler", detail: { designId: D, start: "blank" } }, text: "Rhea created the design “Haybarn hauler”.", href: `/w/ws/designs/${D}` },
+  "design.created": {
+    e: { action: "design.created", subject: "Haybarn hauler", detail: { designId: D, start: "blank" } },
+    text: "Rhea created the design “Haybarn hauler”.",
+    href: `/w/ws/designs/${D}`,
+  },
   "design.revision-saved": {
     e: { action: "design.revision-saved", subject: "Haybarn hauler", detail: { designId: D, number: 3, contentHash: "ab".repeat(32) } },
     text: "Rhea saved revision 3 of “Haybarn hauler”.",
     href: `/w/ws/designs/${D}/revisions/3/review`,
   },
   "review.requested": {
-    e: { action: "review.requested", subject: "Haybarn hauler revision 3", detail: { designId: D, number: 3, reviewers: ["a@example.test", "b@example.test"] } },
+    e: {
+      action: "review.requested",
+      subject: "Haybarn hauler revision 3",
+      detail: { designId: D, number: 3, reviewers: ["a@example.test", "b@example.test"] },
+    },
     text: "Rhea asked 2 reviewers to review “Haybarn hauler revision 3”.",
     href: `/w/ws/designs/${D}/revisions/3/review`,
   },
   "review.commented": {
-    e: { action: "review.commented", subject: "Haybarn hauler revision 3", detail: { designId: D, anchor: "row", row: 12, component: null } },
+    e: {
+      action: "review.commented",
+      subject: "Haybarn hauler revision 3",
+      detail: { designId: D, anchor: "row", row: 12, component: null },
+    },
     text: "Rhea commented on “Haybarn hauler revision 3” (on truth-table row 12).",
     href: `/w/ws/designs/${D}/revisions/3/review`,
   },
-  "review.approved": { e: { action: "review.approved", subject: "Haybarn hauler revision 3", detail: { designId: D, number: 3 } }, text: "Rhea approved “Haybarn hauler revision 3”.", href: `/w/ws/designs/${D}/revisions/3/review` },
+  "review.approved": {
+    e: { action: "review.approved", subject: "Haybarn hauler revision 3", detail: { designId: D, number: 3 } },
+    text: "Rhea approved “Haybarn hauler revision 3”.",
+    href: `/w/ws/designs/${D}/revisions/3/review`,
+  },
   "review.changes-requested": {
     e: { action: "review.changes-requested", subject: "Haybarn hauler revision 3", detail: { designId: D, number: 3 } },
     text: "Rhea asked for changes to “Haybarn hauler revision 3”.",
     href: `/w/ws/designs/${D}/revisions/3/review`,
   },
   "review.fault-disposed": {
-    e: { action: "review.fault-disposed", subject: "Haybarn hauler revision 3", detail: { designId: D, number: 3, fault: "SEAT_SW/stuck-closed", disposition: "fix-next-revision", justification: "x" } },
+    e: {
+      action: "review.fault-disposed",
+      subject: "Haybarn hauler revision 3",
+      detail: { designId: D, number: 3, fault: "SEAT_SW/stuck-closed", disposition: "fix-next-revision", justification: "x" },
+    },
     text: "Rhea recorded how SEAT_SW stuck closed in “Haybarn hauler revision 3” is dealt with: to be fixed in the next revision.",
     href: `/w/ws/designs/${D}/revisions/3/review`,
   },

@@ -7,7 +7,13 @@ import { askPrimary, serveWorker } from "../../../app/lib/instances.server";
 function fakeWorker(id: number) {
   const events = new EventEmitter();
   const sent: unknown[] = [];
-  return { id, sent, send: (m: unknown) => sent.push(m), on: (e: "message", fn: (m: unknown) => void) => events.on(e, fn), receive: (m: unknown) => events.emit("message", m) };
+  return {
+    id,
+    sent,
+    send: (m: unknown) => sent.push(m),
+    on: (e: "message", fn: (m: unknown) => void) => events.on(e, fn),
+    receive: (m: unknown) => events.emit("message", m),
+  };
 }
 
 describe("serveWorker", () => {

@@ -50,7 +50,10 @@ describe("lockout names", () => {
 
   it("no other module of the app spells a lockout's name its own way", () => {
     const names = LOCKOUTS.map((l: Lockout) => l.replace("-", "[- ]?"));
-    const other = new RegExp(`((start-up|startup|enable-return|direction-select) lockout|lockout (${names.join("|")})|(${names.join("|")}) lockout)`, "i");
+    const other = new RegExp(
+      `((start-up|startup|enable-return|direction-select) lockout|lockout (${names.join("|")})|(${names.join("|")}) lockout)`,
+      "i",
+    );
     const files: string[] = [];
     const walk = (dir: string) => {
       for (const f of readdirSync(dir)) {

@@ -50,16 +50,46 @@ describe("safeNext", () => {
   });
 
   it("never leaves our origin and always fits an HTTP header, whatever it is given", { timeout: 60_000 }, () => {
-    const pieces = fc.constantFrom("/", "//", "\\", ".", "..", "%2e", "%2f", "%5c", "\t", "\n", "\r", " ", "evil.example", "@", ":", "?", "#", "é", "📷", "\u0000", "\u2028", "http:", "w");
+    const pieces = fc.constantFrom(
+      "/",
+      "//",
+      "\\",
+      ".",
+      "..",
+      "%2e",
+      "%2f",
+      "%5c",
+      "\t",
+      "\n",
+      "\r",
+      " ",
+      "evil.example",
+      "@",
+      ":",
+      "?",
+      "#",
+      "é",
+      "📷",
+      "\u0000",
+      "\u2028",
+      "http:",
+      "w",
+    );
     fc.assert(
-      fc.property(fc.oneof(fc.string(), fc.array(pieces, { maxLength: 8 }).map((a) => a.join(""))), (next) => {
-        const out = safeNext(next);
-        expect(out.startsWith("/")).toBe(true);
-        expect(landsOn(out).origin).toBe(ORIGIN);
-        // Printable ASCII only: a Headers object accepts it, and no browser strips or rewrites any of it.
-        expect(out).toMatch(/^[\x21-\x7e]+$/);
-        expect(() => new Headers({ location: out })).not.toThrow();
-      }),
+      fc.property(
+        fc.oneof(
+          fc.string(),
+          fc.array(pieces, { maxLength: 8 }).map((a) => a.join("")),
+        ),
+        (next) => {
+          const out = safeNext(next);
+          expect(out.startsWith("/")).toBe(true);
+          expect(landsOn(out).origin).toBe(ORIGIN);
+          // Printable ASCII only: a Headers object accepts it, and no browser strips or rewrites any of it.
+          expect(out).toMatch(/^[\x21-\x7e]+$/);
+          expect(() => new Headers({ location: out })).not.toThrow();
+        },
+      ),
       { numRuns: 1000 },
     );
   });

@@ -4,12 +4,22 @@ import { describe, expect, it } from "vitest";
 import { describeBand, PAGE_CHARS, printBands, wholeTable } from "../../../app/reviews/print-bands";
 import type { TableColumns } from "../../../app/reviews/truth-table";
 
-function columnsOf(n: { conditions: number; contacts: number; inputs: number; rules: number; ruleId?: (i: number) => string }): TableColumns {
+function columnsOf(n: {
+  conditions: number;
+  contacts: number;
+  inputs: number;
+  rules: number;
+  ruleId?: (i: number) => string;
+}): TableColumns {
   return {
     conditions: Array.from({ length: n.conditions }, (_, i) => ({ id: `c${i}`, label: `C${i}`, states: ["released", "pressed"] })),
     contacts: Array.from({ length: n.contacts }, (_, i) => ({ id: `K${i}`, label: `K${i}`, condition: `c${i % n.conditions}` })),
     inputs: Array.from({ length: n.inputs }, (_, i) => ({ id: `IN${i}`, label: `In ${i}`, fn: "enable" })),
-    rules: Array.from({ length: n.rules }, (_, i) => ({ id: n.ruleId?.(i) ?? `rule-${i}`, label: `Rule ${i}`, type: i % 2 ? ("require-drive" as const) : ("inhibit" as const) })),
+    rules: Array.from({ length: n.rules }, (_, i) => ({
+      id: n.ruleId?.(i) ?? `rule-${i}`,
+      label: `Rule ${i}`,
+      type: i % 2 ? ("require-drive" as const) : ("inhibit" as const),
+    })),
   };
 }
 
@@ -31,7 +41,13 @@ describe("printBands", () => {
     const cols = columnsOf({ conditions: 7, contacts: 12, inputs: 6, rules: 9, ruleId: (i) => `no-drive-when-${i}` });
     const bands = printBands(cols, 192);
     expect(bands.length).toBeGreaterThan(1);
-    expect(flatten(bands)).toEqual({ drive: 1, controller: 1, rules: [...Array(9).keys()], contacts: [...Array(12).keys()], inputs: [...Array(6).keys()] });
+    expect(flatten(bands)).toEqual({
+      drive: 1,
+      controller: 1,
+      rules: [...Array(9).keys()],
+      contacts: [...Array(12).keys()],
+      inputs: [...Array(6).keys()],
+    });
     expect(bands[0]!.drive).toBe(true);
     expect(bands.at(-1)!.controller).toBe(true);
   });
@@ -62,8 +78,12 @@ describe("printBands", () => {
 
   it("names what each band holds", () => {
     const cols = columnsOf({ conditions: 3, contacts: 8, inputs: 3, rules: 8 });
-    expect(describeBand({ drive: true, rules: [0, 1, 2, 3, 4, 5, 6, 7], contacts: [], inputs: [], controller: false }, cols)).toBe("drive, rules");
-    expect(describeBand({ drive: false, rules: [], contacts: [4, 5, 6, 7], inputs: [0, 1, 2], controller: false }, cols)).toBe("contacts 5–8, inputs");
+    expect(describeBand({ drive: true, rules: [0, 1, 2, 3, 4, 5, 6, 7], contacts: [], inputs: [], controller: false }, cols)).toBe(
+      "drive, rules",
+    );
+    expect(describeBand({ drive: false, rules: [], contacts: [4, 5, 6, 7], inputs: [0, 1, 2], controller: false }, cols)).toBe(
+      "contacts 5–8, inputs",
+    );
     expect(describeBand({ drive: false, rules: [7], contacts: [], inputs: [], controller: true }, cols)).toBe("rules 8, controller view");
   });
 });

@@ -82,7 +82,16 @@ describe("Chip", () => {
 
 describe("ButtonLink", () => {
   it("is a link to its URL that looks like a button", () => {
-    const router = createMemoryRouter([{ path: "/", element: <ButtonLink to="/w/demo/designs/new" variant="secondary">New design</ButtonLink> }]);
+    const router = createMemoryRouter([
+      {
+        path: "/",
+        element: (
+          <ButtonLink to="/w/demo/designs/new" variant="secondary">
+            New design
+          </ButtonLink>
+        ),
+      },
+    ]);
     render(<RouterProvider router={router} />);
     const a = screen.getByRole("link", { name: "New design" });
     expect(a.getAttribute("href")).toBe("/w/demo/designs/new");
@@ -103,7 +112,11 @@ describe("Card and Badge", () => {
   });
 
   it("CardSection titles its content with a heading", () => {
-    render(<CardSection title="Revision history" aside={<a href="#x">All</a>}>rows</CardSection>);
+    render(
+      <CardSection title="Revision history" aside={<a href="#x">All</a>}>
+        rows
+      </CardSection>,
+    );
     const h = screen.getByRole("heading", { level: 2, name: "Revision history" });
     expect(h.closest("section")?.textContent).toContain("rows");
     expect(screen.getByRole("link", { name: "All" })).toBeTruthy();

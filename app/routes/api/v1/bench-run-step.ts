@@ -27,7 +27,8 @@ export async function action({ request, params, context }: Route.ActionArgs) {
       mailed = (await setStepOutcome(ws, params.runId, n, body.status, member.user.id)).mailed;
     } catch (err) {
       if (err instanceof BenchRunError) {
-        const code = err.status === 404 ? "not_found" : err.status === 409 ? "run_completed" : err.field === "step" ? "not_found" : "invalid_body";
+        const code =
+          err.status === 404 ? "not_found" : err.status === 409 ? "run_completed" : err.field === "step" ? "not_found" : "invalid_body";
         const status = err.field === "step" ? 404 : err.status;
         return apiError(status, code, err.message, [{ path: err.field, message: err.message }]);
       }

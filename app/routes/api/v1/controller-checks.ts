@@ -30,14 +30,21 @@ export async function action({ request, context }: Route.ActionArgs) {
     const body = controllerCheckBodySchema.safeParse(raw.data);
     // The design's cross-references are the engine's validation (every problem, shape included).
     const design = raw.data.design === undefined ? null : validateDesign(raw.data.design);
-    const designProblems: Problem[] = design && !design.ok ? design.problems.map((p) => ({ path: p.path ? `design.${p.path}` : "design", message: p.message })) : [];
+    const designProblems: Problem[] =
+      design && !design.ok ? design.problems.map((p) => ({ path: p.path ? `design.${p.path}` : "design", message: p.message })) : [];
     if (!body.success || designProblems.length > 0) {
       const fields = [...(body.success ? [] : zodFields(body.error).filter((f) => !f.path.startsWith("design"))), ...designProblems];
-      const code = fields.some((f) => f.path.startsWith("record")) ? "invalid_record" : designProblems.length > 0 ? "invalid_design" : "invalid_body";
+      const code = fields.some((f) => f.path.startsWith("record"))
+        ? "invalid_record"
+        : designProblems.length > 0
+          ? "invalid_design"
+          : "invalid_body";
       const n = fields.length;
       return apiError(400, code, `The request has ${n} ${n === 1 ? "problem" : "problems"}.`, fields);
     }
     const record = body.data.record;
-    return reply(api.checkControllerRecord, 200, { check: checkRecord(record, design?.ok ? design.design : undefined, deriveValues(record)) });
+    return reply(api.checkControllerRecord, 200, {
+      check: checkRecord(record, design?.ok ? design.design : undefined, deriveValues(record)),
+    });
   });
 }

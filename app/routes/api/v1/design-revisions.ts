@@ -48,13 +48,20 @@ export async function action({ request, params, context }: Route.ActionArgs) {
     if (!body.success) return apiError(400, "invalid_body", "The revision request is incomplete.", zodFields(body.error));
     const { document, baseRevision, message } = body.data;
 
-    const saved = await saveProvenRevision(member.workspace.id, design.id, member.user.id, { document, baseRevision, message }).catch(proofLimitAnswer);
+    const saved = await saveProvenRevision(member.workspace.id, design.id, member.user.id, { document, baseRevision, message }).catch(
+      proofLimitAnswer,
+    );
     if (saved.kind === "unstorable") {
       return apiError(400, "invalid_design", "The design holds something that cannot be stored; nothing was saved.", [saved.problem]);
     }
     if (saved.kind === "invalid") {
       const n = saved.problems.length;
-      return apiError(400, "invalid_design", `The design breaks the format in ${n} ${n === 1 ? "place" : "places"}; nothing was saved.`, saved.problems);
+      return apiError(
+        400,
+        "invalid_design",
+        `The design breaks the format in ${n} ${n === 1 ? "place" : "places"}; nothing was saved.`,
+        saved.problems,
+      );
     }
     if (saved.kind === "refused") return apiError(422, saved.code, saved.message, [], { verdict: saved.verdict });
     if (saved.kind === "missing") return apiError(404, "not_found", "No such design.");

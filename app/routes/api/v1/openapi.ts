@@ -7,7 +7,12 @@ import { openApiDocument } from "~/api/openapi.server";
 export async function loader({ request }: Route.LoaderArgs) {
   return handleApi(request, async () => {
     const doc = openApiDocument();
-    return reply(api.openapi, 200, { ...doc, paths: doc.paths ?? {} }, { headers: { "cache-control": "public, max-age=300", "access-control-allow-origin": "*" } });
+    return reply(
+      api.openapi,
+      200,
+      { ...doc, paths: doc.paths ?? {} },
+      { headers: { "cache-control": "public, max-age=300", "access-control-allow-origin": "*" } },
+    );
   });
 }
 

@@ -22,7 +22,7 @@ export async function action({ request, context }: Route.ActionArgs) {
     const raw = jsonObjectSchema.safeParse(await readJsonBody(request, DESIGN_BODY_MAX_BYTES));
     if (!raw.success) return apiError(400, "invalid_body", "The request body is a JSON object.", zodFields(raw.error));
     const body = proofBodySchema.safeParse(raw.data);
-    if (!body.success) return apiError(400, "invalid_body", "Send { \"document\": ... }.", zodFields(body.error));
+    if (!body.success) return apiError(400, "invalid_body", 'Send { "document": ... }.', zodFields(body.error));
     const unstorable = storableJsonProblem(body.data.document, "");
     if (unstorable) return apiError(400, "invalid_design", "The design holds something the server does not read.", [unstorable]);
     const proof = await proveOffThread(body.data.document, { userId: member.user.id }).catch(proofLimitAnswer);

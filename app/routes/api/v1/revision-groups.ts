@@ -14,7 +14,9 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
     const query = groupsQuerySchema.safeParse(Object.fromEntries(new URL(request.url).searchParams));
     if (!query.success) return apiError(400, "invalid_query", "The query is not valid.", zodFields(query.error));
     try {
-      return reply(api.revisionGroups, 200, groupRows(compiled, query.data.set, { limit: query.data.limit }), { headers: { "cache-control": "private, max-age=300" } });
+      return reply(api.revisionGroups, 200, groupRows(compiled, query.data.set, { limit: query.data.limit }), {
+        headers: { "cache-control": "private, max-age=300" },
+      });
     } catch (e) {
       if (e instanceof RowSetError) return apiError(400, "invalid_query", e.message, [{ path: "set", message: e.message }]);
       throw e;

@@ -8,7 +8,12 @@ import { create as contentDisposition } from "content-disposition";
 
 /** A file name of safe characters: "haybarn-campus-hauler-3-r2-unsafe.csv". */
 function fileName(designName: string, number: number, params: URLSearchParams): string {
-  const base = designName.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "").slice(0, 60) || "design";
+  const base =
+    designName
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, "-")
+      .replace(/^-|-$/g, "")
+      .slice(0, 60) || "design";
   const only = params.get("only");
   return `${base}-r${number}${only ? `-${only}` : ""}${params.getAll("where").length > 0 ? "-filtered" : ""}.csv`;
 }

@@ -15,7 +15,9 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
     const query = whyQuerySchema.safeParse(Object.fromEntries(new URL(request.url).searchParams));
     if (!query.success) return apiError(400, "invalid_query", "The query is not valid.", zodFields(query.error));
     try {
-      return reply(api.revisionWhy, 200, whyRuleHolds(compiled, query.data.rule, { limit: query.data.limit }), { headers: { "cache-control": "private, max-age=300" } });
+      return reply(api.revisionWhy, 200, whyRuleHolds(compiled, query.data.rule, { limit: query.data.limit }), {
+        headers: { "cache-control": "private, max-age=300" },
+      });
     } catch (e) {
       if (e instanceof RowSetError) return apiError(400, "invalid_query", e.message, [{ path: "rule", message: e.message }]);
       throw e;

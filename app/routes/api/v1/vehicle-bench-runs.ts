@@ -28,7 +28,9 @@ export async function action({ request, params, context }: Route.ActionArgs) {
       return reply(api.startRun, 201, { run: runJson(run, member.workspace.slug) });
     } catch (err) {
       if (err instanceof BenchRunError) {
-        return apiError(err.status, err.status === 409 ? "cannot_start" : "invalid_body", err.message, [{ path: err.field, message: err.message }]);
+        return apiError(err.status, err.status === 409 ? "cannot_start" : "invalid_body", err.message, [
+          { path: err.field, message: err.message },
+        ]);
       }
       throw err;
     }

@@ -16,7 +16,8 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
     const { member, vehicle } = await requireVehicleApi(context, request, params.vehicleId, "workspace.view");
     const query = parseQuery(request, controllerRecordQuerySchema);
     const found = await recordWithStatus(member.workspace.id, vehicle.id, query.version);
-    if (query.version !== undefined && !found.chosen) throw apiError(404, "not_found", `This vehicle's record has no version ${query.version}.`);
+    if (query.version !== undefined && !found.chosen)
+      throw apiError(404, "not_found", `This vehicle's record has no version ${query.version}.`);
     return reply(api.getControllerRecord, 200, controllerRecordJson(found));
   });
 }
@@ -36,11 +37,19 @@ export async function action({ request, params, context }: Route.ActionArgs) {
       const n = fields.length;
       return apiError(400, code, `The request has ${n} ${n === 1 ? "problem" : "problems"}; nothing was saved.`, fields);
     }
-    const saved = await saveRecord(member.workspace.id, vehicle.id, member.user.id, { baseVersion: body.data.version, document: body.data.record });
+    const saved = await saveRecord(member.workspace.id, vehicle.id, member.user.id, {
+      baseVersion: body.data.version,
+      document: body.data.record,
+    });
     if (!saved.ok) {
       if (saved.reason === "not-found") throw apiError(404, "not_found", "No such vehicle.");
       if (saved.reason === "invalid") {
-        return apiError(400, "invalid_record", "The record has a problem; nothing was saved.", saved.problems.map((p) => ({ path: p.path ? `record.${p.path}` : "record", message: p.message })));
+        return apiError(
+          400,
+          "invalid_record",
+          "The record has a problem; nothing was saved.",
+          saved.problems.map((p) => ({ path: p.path ? `record.${p.path}` : "record", message: p.message })),
+        );
       }
       return apiError(
         409,
