@@ -62,8 +62,8 @@ test("a technician on a phone records settings without the brake-release lockout
   await fill("Wiring fault above", "4.6");
   await page.getByLabel("Yes, braking cuts drive").check();
   for (const l of ["power-on", "enable-restore", "direction-engage"])
-    await page.getByRole("checkbox", { name: new RegExp(`^${l}:`) }).check();
-  await expect(page.getByRole("checkbox", { name: /^brake-release:/ })).not.toBeChecked();
+    await page.getByRole("checkbox", { name: new RegExp(`^${l} lockout:`, "i") }).check();
+  await expect(page.getByRole("checkbox", { name: /^brake-release lockout:/i })).not.toBeChecked();
   await fill("Precharge resistor", "100");
   await fill("Controller input capacitance", "2200");
   await fill("Precharge time before the main contactor closes", "800");

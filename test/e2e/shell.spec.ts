@@ -16,7 +16,7 @@ for (const role of Object.keys(DEMO) as DemoRole[]) {
     await expect(page.getByRole("note")).toContainText("Demo data");
     await nav.getByRole("link", { name: "Vehicles" }).click();
     await expect(page.getByRole("heading", { name: "Vehicles" })).toBeVisible();
-    await expect(page.getByText("Haybarn campus hauler #3")).toBeVisible();
+    await expect(page.getByRole("main").getByText("Haybarn campus hauler #3", { exact: true })).toBeVisible();
   });
 }
 

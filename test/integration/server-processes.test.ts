@@ -52,7 +52,7 @@ async function until<T>(what: string, probe: () => Promise<T | null> | T | null,
 /** 200 from /healthz on a new connection (a pooled one may belong to the process just killed). */
 const healthy = (port: number) =>
   new Promise<true | null>((resolve) => {
-    const req = http.get({ host: "127.0.0.1", port, path: "/healthz", agent: false, timeout: 5_000 }, (res) => {
+    const req = http.get({ host: "127.0.0.1", port, path: "/healthz", agent: false, timeout: 15_000 }, (res) => {
       res.resume();
       resolve(res.statusCode === 200 ? true : null);
     });
@@ -61,7 +61,7 @@ const healthy = (port: number) =>
   });
 
 describe("server processes", () => {
-  it("replaces a server process that died; the other keeps answering meanwhile", { timeout: 60_000 }, async () => {
+  it("replaces a server process that died; the other keeps answering meanwhile", { timeout: 120_000 }, async () => {
     const port = Number(new URL(BASE_URL).port) + 90;
     const server = serve(port);
     await until("the server to answer", () => healthy(port));
