@@ -85,6 +85,16 @@ function wideBoxes(d: Design): Box[] {
   });
 }
 
+/** Width of the plain wide drawing in its own units (the report's diagram; decision 165). */
+export function wideDrawingWidth(d: Design): number {
+  const list = wideBoxes(d);
+  if (list.length === 0) return 0;
+  return Math.max(...list.map((b) => b.x + b.w)) - Math.min(...list.map((b) => b.x)) + 2 * 34;
+}
+
+/** The plain drawing's smallest type, in its own units. */
+export const SMALLEST_TYPE = 10;
+
 const COLUMN_W = 230;
 const LANE = 9;
 

@@ -21,7 +21,7 @@ import { pageRows, type Design, type Predicate } from "~/engine";
 import { SAFETY_TEXT } from "~/components/safety-note";
 import { VerdictSummary } from "~/components/truth-table/verdict-summary";
 import { TruthTableBands } from "~/components/truth-table/print-bands";
-import { WiringDiagram } from "~/components/wiring-diagram";
+import { SMALLEST_TYPE, WiringDiagram, wideDrawingWidth } from "~/components/wiring-diagram";
 import { Logo } from "~/components/logo";
 import { SectionError } from "~/components/error-boundary";
 
@@ -30,6 +30,10 @@ const TABLE_PAGE_LIMIT = 24;
 /** Rows of the dense printed table on one A4 page (9 px type, 14 mm margins). */
 const ROWS_PER_PAGE = 80;
 const SIZES = { a4: "A4", letter: "Letter" } as const;
+/** The diagram's box on paper: A4's printable width (210 mm less 2 × 12 mm) at 96 CSS px per inch, less its frame. */
+const DIAGRAM_PX = Math.floor(((210 - 24) / 25.4) * 96) - 18;
+/** Smallest type printed in the diagram: 6 pt = 8 CSS px (common practice for legible print); else the wiring list alone (decision 165). */
+const MIN_TYPE_PX = 8;
 type Size = keyof typeof SIZES;
 
 export async function loader({ request, params, context }: Route.LoaderArgs) {
@@ -55,6 +59,7 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
       createdAt: x.createdAt.toISOString(),
     };
   }
+  const diagramScale = DIAGRAM_PX / Math.max(1, wideDrawingWidth(loaded.design));
   const wiring = loaded.design.wires.map((w) => ({ from: w.from, to: w.to, net: c.terminalNet[w.from] ?? -1 }));
   return {
     size,
@@ -83,6 +88,7 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
       decidedAt: d.decidedAt.toISOString(),
     })),
     wiring,
+    diagramFits: SMALLEST_TYPE * diagramScale >= MIN_TYPE_PX,
     nets: c.nets,
     columns,
     table: tablePages <= TABLE_PAGE_LIMIT ? pageRows(c, { from: 0, count: c.rows }).rows.map((v) => tableRow(columns, v)) : null,
@@ -229,9 +235,21 @@ export default function Report({ loaderData }: Route.ComponentProps) {
 
         <section className="break-before" aria-label="Wiring">
           <h2 className={h2}>Wiring diagram</h2>
-          <div className="mt-3 rounded border border-ink-200 p-2">
-            <WiringDiagram design={doc} />
-          </div>
+          {d.diagramFits ? (
+            <>
+              <div className="mt-3 break-inside-avoid rounded border border-ink-200 p-2">
+                <WiringDiagram design={doc} />
+              </div>
+              <p className="mt-1 text-xs text-ink-600">
+                Labels longer than 22 characters are shortened here; the tables below give them in full.
+              </p>
+            </>
+          ) : (
+            <p className="mt-2" data-testid="diagram-left-out">
+              The diagram is left out: at the page&apos;s width its labels would print smaller than 6 pt. The wiring list below gives every
+              wire, terminal to terminal, with its net.
+            </p>
+          )}
           <h2 className={h2}>Wiring list</h2>
           <table className="mt-2 w-full text-left" data-testid="wiring-list">
             <thead className="text-xs uppercase text-ink-500">

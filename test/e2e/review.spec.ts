@@ -141,7 +141,9 @@ test("request review, comment on a row, request changes, revise, approve, and re
   const signoff = reviewer.getByTestId("signoff").first();
   await expect(signoff).toContainText("Odile Ferrand");
   await expect(signoff).toContainText("Approved");
-  await expect(reviewer.getByTestId("wiring-diagram")).toBeVisible();
+  // Too wide for readable labels on paper: the report prints the wiring list instead (decision 165).
+  await expect(reviewer.getByTestId("diagram-left-out")).toBeVisible();
+  await expect(reviewer.getByTestId("wiring-list")).toBeVisible();
 
   // Revision 1 keeps its own outcome; the engineer was told of both decisions.
   await page.goto("/outbox");
