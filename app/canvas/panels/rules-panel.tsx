@@ -181,21 +181,13 @@ function RequireDriveRuleForm({
       aria-label={`Rule ${rule.id}`}
       data-testid={`rule-${rule.id}`}
     >
-      <div className="grid grid-cols-[6rem_1fr] gap-2">
-        <CommitText
-          label="Id"
-          value={rule.id}
-          disabled={!editable}
-          onCommit={onRename}
-          invalid={problems.some((p) => p.path === `rules[${index}].id`)}
-        />
-        <CommitText
-          label="Label"
-          value={rule.label ?? ""}
-          disabled={!editable}
-          onCommit={(label) => (onChange({ ...rule, label }), null)}
-        />
-      </div>
+      <RuleIdAndLabel
+        rule={rule}
+        editable={editable}
+        idInvalid={problems.some((p) => p.path === `rules[${index}].id`)}
+        onRename={onRename}
+        onLabel={(label) => onChange({ ...rule, label })}
+      />
       <PredicateEditor
         heading="Must drive when"
         value={rule.when ?? { always: true }}
@@ -210,6 +202,36 @@ function RequireDriveRuleForm({
         Remove rule {rule.id}
       </Small>
     </fieldset>
+  );
+}
+
+/** The id and label every rule has, committed like the other ids of the editor. */
+function RuleIdAndLabel({
+  rule,
+  editable,
+  idInvalid,
+  onRename,
+  onLabel,
+}: {
+  rule: { id: string; label?: string };
+  editable: boolean;
+  idInvalid: boolean;
+  onRename: (id: string) => string | null;
+  onLabel: (label: string) => void;
+}) {
+  return (
+    <div className="grid grid-cols-[6rem_1fr] gap-2">
+      <CommitText label="Id" value={rule.id} disabled={!editable} onCommit={onRename} invalid={idInvalid} />
+      <CommitText
+        label="Label"
+        value={rule.label ?? ""}
+        disabled={!editable}
+        onCommit={(label) => {
+          onLabel(label);
+          return null;
+        }}
+      />
+    </div>
   );
 }
 
@@ -242,21 +264,13 @@ function InhibitRuleForm({
       aria-label={`Rule ${rule.id}`}
       data-testid={`rule-${rule.id}`}
     >
-      <div className="grid grid-cols-[6rem_1fr] gap-2">
-        <CommitText
-          label="Id"
-          value={rule.id}
-          disabled={!editable}
-          onCommit={onRename}
-          invalid={problems.some((p) => p.path === `rules[${index}].id`)}
-        />
-        <CommitText
-          label="Label"
-          value={rule.label ?? ""}
-          disabled={!editable}
-          onCommit={(label) => (onChange({ ...rule, label }), null)}
-        />
-      </div>
+      <RuleIdAndLabel
+        rule={rule}
+        editable={editable}
+        idInvalid={problems.some((p) => p.path === `rules[${index}].id`)}
+        onRename={onRename}
+        onLabel={(label) => onChange({ ...rule, label })}
+      />
       <PredicateEditor
         value={rule.when ?? { always: true }}
         onChange={(when) => onChange({ ...rule, when })}
