@@ -2,32 +2,12 @@
 // no row (with its path), 422 for a design that never drives or whose require-drive rule fails,
 // 201 otherwise; and on every refusal nothing is written (no revision, no audit event, the
 // working copy untouched).
-import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import pg from "pg";
 import { DEMO, signIn, type Client } from "../support/http";
+import { HAULER_DRIVES as DRIVES, hauler, type Json } from "../support/hauler";
 
 const WS = "larkspur";
-type Json = Record<string, any>;
-const hauler = (): Json =>
-  JSON.parse(readFileSync(new URL("../../drizzle/demo-designs/haybarn-campus-hauler.json", import.meta.url), "utf8"));
-/** Drives when keyed, seated, unplugged, park brake released, in gear, foot brake up and pedal down. */
-const DRIVES = {
-  id: "drives",
-  label: "Drives when seated, keyed, unplugged, in gear, pedal down",
-  type: "require-drive",
-  when: {
-    all: [
-      { cond: "key", in: ["on"] },
-      { cond: "seat", in: ["occupied"] },
-      { cond: "plug", in: ["free"] },
-      { cond: "park", in: ["released"] },
-      { cond: "lever", in: ["forward", "reverse"] },
-      { cond: "brake", in: ["up"] },
-      { cond: "pedal", in: ["down"] },
-    ],
-  },
-};
 
 let db: pg.Pool;
 let engineer: Client;

@@ -3,23 +3,20 @@
 // refuse stay readable, are marked on every page that shows them, and cannot be released
 // (decision 111).
 import { createHash, randomUUID } from "node:crypto";
-import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import pg from "pg";
 import { DEMO, formBody, signIn, type Client } from "../support/http";
+import { HAULER_DRIVES, hauler, type Json } from "../support/hauler";
 import { refHolds, refMatchesSomeRow, refRow, refVerdict } from "../unit/engine/reference";
 import { compileDesign, prove, type Design } from "../../app/engine";
 
 const WS = "larkspur";
-type Json = Record<string, any>;
 
 let db: pg.Pool;
 let engineer: Client;
 let reviewer: Client;
 const created: string[] = [];
 const vehicles: string[] = [];
-const hauler = (): Json =>
-  JSON.parse(readFileSync(new URL("../../drizzle/demo-designs/haybarn-campus-hauler.json", import.meta.url), "utf8"));
 
 async function send(c: Client, method: string, path: string, body?: unknown): Promise<{ status: number; body: Json }> {
   const res = await c.fetch(path, {
@@ -261,22 +258,7 @@ describe("the truth table of a revision with a require-drive rule", () => {
   it("has a column per inhibit and require-drive rule, in the CSV header's order, with the same cells", async () => {
     const { id } = await newDesign(`Table with must drive ${Date.now()}`);
     const d = hauler();
-    d.rules.push({
-      id: "drives",
-      label: "Drives when seated, keyed, unplugged, in gear, pedal down",
-      type: "require-drive",
-      when: {
-        all: [
-          { cond: "key", in: ["on"] },
-          { cond: "seat", in: ["occupied"] },
-          { cond: "plug", in: ["free"] },
-          { cond: "park", in: ["released"] },
-          { cond: "lever", in: ["forward", "reverse"] },
-          { cond: "brake", in: ["up"] },
-          { cond: "pedal", in: ["down"] },
-        ],
-      },
-    });
+    d.rules.push(HAULER_DRIVES);
     const saved = await send(engineer, "POST", `/api/v1/designs/${id}/revisions`, { document: d, baseRevision: 0 });
     expect(saved.status).toBe(201);
     const csv = await (await engineer.fetch(`/api/v1/designs/${id}/revisions/1/table.csv`)).text();
