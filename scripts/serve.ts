@@ -58,10 +58,19 @@ async function runPrimary() {
     serveWorker(worker, () => Object.values(cluster.workers ?? {}).filter((w) => w !== undefined), answers);
   };
   for (let i = 0; i < processes; i++) fork();
+  // `announced`: some process has served, so later ends are replaced rather than fatal. The
+  // "serving" line waits for every process: until then the port rests on fewer, and if those end
+  // before the others listen, it is closed for that moment (node:cluster's shared handle).
   let announced = false;
-  cluster.on("listening", () => {
-    if (!announced) console.log(`chainproof: serving on http://${host}:${port} (${processes} processes)`);
+  let allServed = false;
+  const listening = new Set<number>();
+  cluster.on("listening", (worker) => {
     announced = true;
+    listening.add(worker.id);
+    if (!allServed && listening.size === processes) {
+      allServed = true;
+      console.log(`chainproof: serving on http://${host}:${port} (${processes} processes)`);
+    }
   });
   // A process that ends is replaced; one that keeps ending at once waits longer each time (1 s,
   // 2 s, ... 30 s), and a process that ends before any could serve (the port is taken, the build
@@ -70,6 +79,7 @@ async function runPrimary() {
   cluster.on("exit", (worker, code, signal) => {
     const lived = Date.now() - (bornAt.get(worker.id) ?? 0);
     bornAt.delete(worker.id);
+    listening.delete(worker.id);
     if (stopping) {
       if (bornAt.size === 0) process.exit(exitCode);
       return;

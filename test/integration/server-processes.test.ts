@@ -64,10 +64,14 @@ describe("server processes", () => {
   it("replaces a server process that died; the other keeps answering meanwhile", { timeout: 120_000 }, async () => {
     const port = Number(new URL(BASE_URL).port) + 90;
     const server = serve(port);
-    await until("the server to answer", () => healthy(port));
-    const before = await until("two server processes", () =>
-      childrenOf(server.child.pid!).length === 2 ? childrenOf(server.child.pid!) : null,
+    // Both processes listening (the first to listen can answer while the second is still loading;
+    // killing it then would leave the port without any process for a moment).
+    await until("both processes to serve", () =>
+      server.output().includes(`serving on http://127.0.0.1:${port} (2 processes)`) ? true : null,
     );
+    expect(await healthy(port)).toBe(true);
+    const before = childrenOf(server.child.pid!);
+    expect(before).toHaveLength(2);
     process.kill(before[0]!, "SIGKILL");
     // Once the primary has seen it go (a connection handed over in that instant can be lost), the
     // other process answers every request while the first is replaced.
