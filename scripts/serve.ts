@@ -13,6 +13,7 @@ import { createRequestHandler } from "@react-router/express";
 import { RouterContextProvider } from "react-router";
 import { cspNonceContext } from "../app/load-context";
 import { authSecretProblem } from "../app/lib/auth-secret";
+import { pageBodyRefusal } from "../app/lib/body-limits";
 
 // This is the production server: without NODE_ENV it serves as production, and then never on a
 // secret anyone could know (issue 11): it says why and stops before forking or listening.
@@ -149,6 +150,31 @@ async function runServer() {
     if (req.path.startsWith("/api/"))
       res.status(404).json({ error: { code: "not_found", message: "Nothing is at this address.", fields: [] } });
     else res.status(404).type("text/plain").send("Not found");
+  });
+  // A page form too large (or sent without its length) is refused before any of it is read.
+  app.use((req, res, next) => {
+    const refusal = pageBodyRefusal({
+      method: req.method,
+      path: req.path,
+      contentType: req.headers["content-type"],
+      contentLength: req.headers["content-length"],
+      transferEncoding: req.headers["transfer-encoding"],
+    });
+    if (!refusal) return next();
+    const answer = () => {
+      if (!res.headersSent) res.status(refusal.status).type("text/plain").send(refusal.message);
+    };
+    // Read on (and drop) what is still coming, up to 32 MB, so the client reads the refusal instead of a reset.
+    let seen = 0;
+    req.on("data", (chunk: Buffer) => {
+      seen += chunk.length;
+      if (seen > 32 * 1024 * 1024) {
+        answer();
+        req.destroy();
+      }
+    });
+    req.on("end", answer);
+    req.on("error", () => {});
   });
   app.use("/assets", express.static(path.join(buildDir, "client/assets"), { immutable: true, maxAge: "1y" }));
   app.use(express.static(path.join(buildDir, "client"), { maxAge: "1h" }));

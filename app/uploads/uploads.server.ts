@@ -6,8 +6,7 @@ import { db, schema } from "~/db/client.server";
 import { recordAudit } from "~/audit/audit.server";
 import { deleteObject, getObject, putObject } from "./storage.server";
 import { create as contentDisposition } from "content-disposition";
-
-export const MAX_UPLOAD_BYTES = 20 * 1024 * 1024;
+import { MAX_UPLOAD_BYTES } from "~/lib/body-limits";
 import { EMPTY_FILE, refusalOf, type FileType } from "./kinds";
 
 export class UploadError extends Error {

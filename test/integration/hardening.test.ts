@@ -207,6 +207,57 @@ describe("a chunked body over the limit", () => {
   });
 });
 
+describe("page forms over the size limit", () => {
+  const vehicles = async () => Number((await query<{ n: string }>("select count(*) as n from vehicle"))[0]!.n);
+
+  it("a form over 2 MB is refused (413) before it is read, and nothing is saved", { timeout: 60_000 }, async () => {
+    const engineer = await signIn(DEMO.engineer);
+    const before = await vehicles();
+    const res = await engineer.fetch("/w/larkspur/vehicles", formBody({ name: "x".repeat(3_000_000), serial: "S-1", model: "M" }));
+    expect(res.status).toBe(413);
+    expect(await res.text()).toContain("A form is at most 2 MB; nothing was saved.");
+    expect(await vehicles()).toBe(before);
+  });
+
+  it("a long paste under the limit still reaches the form's own check, which names the field", async () => {
+    const engineer = await signIn(DEMO.engineer);
+    const before = await vehicles();
+    const res = await engineer.fetch("/w/larkspur/vehicles", formBody({ name: "x".repeat(1_500_000), serial: "S-1", model: "M" }));
+    expect(res.status).toBe(400);
+    expect(await res.text()).toContain("Use at most 120 characters.");
+    expect(await vehicles()).toBe(before);
+  });
+
+  it("a form sent without its length (chunked) gets 411, not a read of any size", { timeout: 60_000 }, async () => {
+    const engineer = await signIn(DEMO.engineer);
+    const url = new URL("/w/larkspur/vehicles", BASE_URL);
+    const status = await new Promise<number>((resolve, reject) => {
+      const req = http.request(
+        {
+          host: url.hostname,
+          port: url.port,
+          path: url.pathname,
+          method: "POST",
+          headers: {
+            "content-type": "application/x-www-form-urlencoded",
+            cookie: engineer.cookie,
+            origin: BASE_URL,
+            "x-forwarded-for": engineer.ip,
+          },
+        },
+        (res) => {
+          res.resume();
+          resolve(res.statusCode ?? 0);
+        },
+      );
+      req.on("error", reject);
+      req.write("name=x&serial=S-1&model=M");
+      req.end();
+    });
+    expect(status).toBe(411);
+  });
+});
+
 describe("the report PDF", () => {
   async function pdfPath(c: Client): Promise<string> {
     const list = await c.fetch("/api/v1/designs?workspace=larkspur");
