@@ -3,6 +3,8 @@
 import { lazy, Suspense } from "react";
 import { PropertiesPanel } from "./panels/properties-panel";
 import { useEditor, type Panel } from "./store";
+import { Tab, TabList } from "~/components/ui/tabs";
+import { Badge } from "~/components/ui/badge";
 
 const ConditionsPanel = lazy(() => import("./panels/conditions-panel").then((m) => ({ default: m.ConditionsPanel })));
 const ControllerPanel = lazy(() => import("./panels/controller-panel").then((m) => ({ default: m.ControllerPanel })));
@@ -34,25 +36,18 @@ export function SidePanel() {
       className="flex min-w-0 flex-none flex-col border-t border-ink-200 bg-ink-50 md:w-80 md:border-t-0 md:border-l"
       aria-label="Design details"
     >
-      <div role="tablist" aria-label="Panels" className="flex flex-wrap gap-0.5 border-b border-ink-200 bg-white px-1 pt-1">
+      <TabList aria-label="Panels">
         {TABS.map((t) => (
-          <button
-            key={t.id}
-            role="tab"
-            type="button"
-            id={`cp-tab-${t.id}`}
-            aria-selected={panel === t.id}
-            aria-controls="cp-panel"
-            onClick={() => setPanel(t.id)}
-            className={`rounded-t px-2 py-1 text-xs font-semibold ${panel === t.id ? "border-b-2 border-copper-600 text-copper-700" : "text-ink-600 hover:text-ink-900"}`}
-          >
+          <Tab key={t.id} id={`cp-tab-${t.id}`} selected={panel === t.id} aria-controls="cp-panel" onClick={() => setPanel(t.id)}>
             {t.label}
             {t.id === "problems" && failing > 0 ? (
-              <span className="ml-1 rounded-full bg-brick-600 px-1.5 text-[10px] text-white">{failing}</span>
+              <Badge tone="failing-solid" size="xs" className="ml-1">
+                {failing}
+              </Badge>
             ) : null}
-          </button>
+          </Tab>
         ))}
-      </div>
+      </TabList>
       <div id="cp-panel" role="tabpanel" aria-labelledby={`cp-tab-${panel}`} className="min-w-0 md:min-h-0 md:flex-1 md:overflow-y-auto">
         <Suspense fallback={<p className="p-3 text-sm text-ink-500">Opening…</p>}>
           {panel === "properties" ? <PropertiesPanel /> : null}

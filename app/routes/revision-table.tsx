@@ -23,7 +23,9 @@ import { designPath } from "~/designs/paths";
 import { pageRows } from "~/engine";
 import { PageHeader } from "~/components/page-header";
 import { SafetyNote } from "~/components/safety-note";
-import { buttonClass, Notice } from "~/components/ui/form";
+import { Notice } from "~/components/ui/form";
+import { Button, buttonVariants } from "~/components/ui/button";
+import { ButtonLink } from "~/components/ui/link";
 import { TruthTableGrid } from "~/components/truth-table/grid";
 import { RowDrawer } from "~/components/truth-table/row-drawer";
 import { api as endpoints } from "~/api/endpoints";
@@ -203,10 +205,10 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
         }
         actions={
           <>
-            <Link to={reviewPath(slug, design.id, revision.number)} className={buttonClass("secondary")}>
+            <ButtonLink to={reviewPath(slug, design.id, revision.number)} variant="secondary">
               Review
-            </Link>
-            <a href={reportPath(slug, design.id, revision.number)} className={buttonClass("secondary")}>
+            </ButtonLink>
+            <a href={reportPath(slug, design.id, revision.number)} className={buttonVariants({ variant: "secondary" })}>
               Report
             </a>
           </>
@@ -286,9 +288,9 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
               ))}
             </select>
           </div>
-          <button type="submit" className={buttonClass("secondary", "px-3")}>
+          <Button type="submit" variant="secondary">
             Add
-          </button>
+          </Button>
         </form>
         <form onSubmit={onJump} className="flex items-end gap-2" aria-label="Jump to row">
           <div className="min-w-0 flex-1">
@@ -306,9 +308,9 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
               className={`${selectClass} ${jumpInvalid ? "border-brick-600" : ""}`}
             />
           </div>
-          <button type="submit" className={buttonClass("secondary", "px-3")}>
+          <Button type="submit" variant="secondary">
             Go
-          </button>
+          </Button>
         </form>
         {jumpInvalid ? (
           <p id="tt-jump-error" className="text-sm text-brick-700 md:col-span-2" role="alert">
@@ -324,23 +326,25 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
             {isLoading ? <span className="text-ink-500"> · loading…</span> : null}
           </p>
           {query.where.map((w) => (
-            <button
+            <Button
               key={`${w.cond}:${w.state}`}
               type="button"
+              layout="tight"
+              variant="token"
+              size="pill"
               onClick={() => setQuery({ ...query, where: query.where.filter((x) => x !== w) })}
-              className="inline-flex min-h-8 items-center gap-1 rounded-full border border-ink-300 bg-white px-2 text-xs"
               aria-label={`Remove filter ${w.cond} = ${w.state}`}
             >
               {w.cond} = {w.state} <span aria-hidden="true">✕</span>
-            </button>
+            </Button>
           ))}
           {query.only || query.rule || query.where.length > 0 ? (
-            <button type="button" className="text-sm font-semibold text-copper-700 underline" onClick={() => setQuery({ where: [] })}>
+            <Button type="button" variant="link" size="inline-strong" onClick={() => setQuery({ where: [] })}>
               Clear filters
-            </button>
+            </Button>
           ) : null}
         </div>
-        <a href={csvHref} className={buttonClass("secondary", "min-h-9 px-3 py-1.5")} download>
+        <a href={csvHref} className={buttonVariants({ variant: "secondary" })} download>
           Download CSV{query.only || query.where.length > 0 ? " (filtered)" : ""}
         </a>
       </div>
@@ -366,22 +370,22 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
           <PageLabel rows={page.rows} total={page.total} totalRows={totalRows} from={page.from} last={last} filtered={filtered} />
         </p>
         <div className="flex gap-2">
-          <button
+          <Button
             type="button"
-            className={buttonClass("secondary")}
+            variant="secondary"
             disabled={from === 0}
             onClick={() => update((p) => p.set("from", String(Math.max(0, from - PAGE))))}
           >
             Previous
-          </button>
-          <button
+          </Button>
+          <Button
             type="button"
-            className={buttonClass("secondary")}
+            variant="secondary"
             disabled={from + PAGE >= page.total}
             onClick={() => update((p) => p.set("from", String(from + PAGE)))}
           >
             Next
-          </button>
+          </Button>
         </div>
       </nav>
 

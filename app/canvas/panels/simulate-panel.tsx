@@ -8,7 +8,7 @@ import { compiledOf, restRow } from "../simulation";
 import { useEditor } from "../store";
 import { explainTrace, LOCKOUT_NAME, type TraceExplanation } from "../trace-explain";
 import { Section, Small, useDocument } from "./common";
-import { Chip } from "../../components/ui/button";
+import { Button, Chip } from "../../components/ui/button";
 
 export function SimulatePanel() {
   const simulation = useEditor((s) => s.simulation);
@@ -182,11 +182,13 @@ function TraceSteps({ explanation, current, go }: { explanation: TraceExplanatio
       <ol className="space-y-1.5" aria-label="Steps of the counterexample">
         {steps.map((st) => (
           <li key={st.step} data-testid={`trace-step-${st.step}`}>
-            <button
+            <Button
               type="button"
+              layout="block"
+              variant={st.step === current ? "option-current" : "option"}
+              size="option"
               onClick={() => go(st.step)}
               aria-current={st.step === current ? "step" : undefined}
-              className={`w-full rounded border px-2 py-1.5 text-left text-xs ${st.step === current ? "border-copper-600 bg-white" : "border-ink-200 bg-white hover:border-ink-400"}`}
             >
               <div className="flex items-center justify-between gap-2">
                 <span className="font-semibold text-ink-800">Step {st.step}</span>
@@ -223,7 +225,7 @@ function TraceSteps({ explanation, current, go }: { explanation: TraceExplanatio
                     : "No single lockout would have kept it off here: change the wiring or the rule's situation."}
                 </p>
               ) : null}
-            </button>
+            </Button>
           </li>
         ))}
       </ol>

@@ -6,7 +6,7 @@ import type { BenchPlan } from "~/bench-tests/generate";
 import { OUTCOME_LABELS, STEP_OUTCOMES, type StepOutcome } from "~/bench-runs/outcomes";
 import type { LiveStep } from "~/bench-runs/live";
 import type { FieldErrors } from "~/lib/forms";
-import { Button } from "~/components/ui/button";
+import { Button, Chip } from "~/components/ui/button";
 import { acceptedWords, acceptOf, STEP_PHOTOS } from "~/uploads/kinds";
 
 /** What the run page's action answers. */
@@ -14,11 +14,7 @@ export type ActionResult = { ok: boolean; fields: FieldErrors; step?: number };
 
 type Step = BenchPlan["steps"][number];
 
-const OUTCOME_STYLE: Record<StepOutcome, string> = {
-  pass: "border-moss-600 bg-moss-600 text-white",
-  fail: "border-brick-600 bg-brick-600 text-white",
-  skip: "border-ink-700 bg-ink-700 text-white",
-};
+const OUTCOME_TONE = { pass: "proven", fail: "failing", skip: "skipped" } as const satisfies Record<StepOutcome, string>;
 
 function Expect({ step }: { step: Step }) {
   const live = Object.entries(step.expect.inputs)
@@ -119,19 +115,19 @@ export function StepCard({ step, result, slug, canRecord, putting, tapError, onO
       {canRecord ? (
         <div className="mt-4 grid grid-cols-3 gap-2 print:hidden" role="group" aria-label={`Result of step ${step.n}`}>
           {STEP_OUTCOMES.map((o) => (
-            <button
+            <Chip
               key={o}
-              type="button"
-              aria-pressed={outcome === o}
+              pressed={outcome === o}
+              tone={OUTCOME_TONE[o]}
+              size="bench"
               onClick={() =>
                 outcome === o
                   ? outcomeFetcher.submit({ intent: "outcome", step: String(step.n), outcome: "" }, { method: "post" })
                   : onOutcome(step.n, o)
               }
-              className={`min-h-12 rounded-md border text-base font-semibold ${outcome === o ? OUTCOME_STYLE[o] : "border-ink-300 bg-white text-ink-800 hover:bg-ink-100"}`}
             >
               {OUTCOME_LABELS[o]}
-            </button>
+            </Chip>
           ))}
         </div>
       ) : (

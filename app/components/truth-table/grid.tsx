@@ -3,6 +3,7 @@
 import type { RuleCell, TableColumns, TableRow } from "~/reviews/truth-table";
 import type { Band } from "~/reviews/print-bands";
 import { ContactCell, DriveCell, LiveCell, RuleCellView } from "./cells";
+import { Button } from "~/components/ui/button";
 
 const thScreen = "whitespace-nowrap border-b border-ink-200 bg-ink-50 px-2 py-1 text-left text-xs font-medium text-ink-600";
 const thDense = "whitespace-nowrap border-b border-ink-200 bg-ink-50 px-1 py-0.5 text-left font-medium text-ink-600";
@@ -243,9 +244,10 @@ export function TruthTableGrid({
                 className={`${td} border-r border-ink-100 text-right font-semibold text-ink-700 ${sticky ? "sticky left-0 bg-inherit" : ""}`}
               >
                 {onSelect ? (
-                  <button
+                  <Button
                     type="button"
-                    className="underline decoration-ink-300 underline-offset-2 hover:text-copper-700"
+                    variant="quiet-link"
+                    size="text"
                     onClick={(e) => {
                       e.stopPropagation();
                       onSelect(r.index);
@@ -253,7 +255,7 @@ export function TruthTableGrid({
                     aria-label={`Row ${r.index}: open its diagnosis`}
                   >
                     {r.index}
-                  </button>
+                  </Button>
                 ) : (
                   r.index
                 )}

@@ -2,8 +2,8 @@
 import { Link, type LinkProps } from "react-router";
 import { buttonVariants, type ButtonVariants } from "./button";
 
-export function ButtonLink({ variant, size, className, ...rest }: LinkProps & ButtonVariants) {
-  return <Link className={buttonVariants({ variant, size, className })} {...rest} />;
+export function ButtonLink({ layout, variant, size, className, ...rest }: LinkProps & ButtonVariants) {
+  return <Link className={buttonVariants({ layout, variant, size, className })} {...rest} />;
 }
 
 /** A link in running text or a table: the action colour, underlined. */

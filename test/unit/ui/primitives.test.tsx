@@ -12,6 +12,7 @@ import { Badge } from "../../../app/components/ui/badge";
 import { Dialog } from "../../../app/components/ui/dialog";
 import { Table, TBody, Td, Th, THead } from "../../../app/components/ui/table";
 import { buttonClass } from "../../../app/components/ui/form";
+import { Tab, TabList } from "../../../app/components/ui/tabs";
 
 afterEach(cleanup);
 
@@ -52,6 +53,30 @@ describe("Button", () => {
     expect(buttonVariants({ variant: "link" })).toContain("text-action-ink");
   });
 
+  it("lays its content in a row by default, or as a block of lines, without the row's classes", () => {
+    expect(classes(render(<Button>Row</Button>).getByRole("button"))).toEqual(expect.arrayContaining(["inline-flex", "gap-2"]));
+    cleanup();
+    const block = classes(
+      render(
+        <Button layout="block" variant="option" size="option">
+          Step 1
+        </Button>,
+      ).getByRole("button"),
+    );
+    expect(block).toEqual(expect.arrayContaining(["block", "w-full", "text-left", "border-line"]));
+    expect(block).not.toContain("inline-flex");
+    cleanup();
+    const token = classes(
+      render(
+        <Button layout="tight" variant="token" size="pill">
+          key = off
+        </Button>,
+      ).getByRole("button"),
+    );
+    // One gap only: two gap classes would leave the wider one winning.
+    expect(token.filter((c) => c.startsWith("gap-"))).toEqual(["gap-1"]);
+  });
+
   it("keeps the older buttonClass tones on the same looks", () => {
     expect(buttonClass()).toBe(buttonVariants({ variant: "action", className: "" }));
     expect(buttonClass("secondary", "px-3")).toBe(buttonVariants({ variant: "secondary", className: "px-3" }));
@@ -76,6 +101,50 @@ describe("Chip", () => {
     expect(classes(on)).not.toContain("bg-surface");
     expect(classes(off)).toContain("bg-surface");
     fireEvent.click(on);
+    expect(onClick).toHaveBeenCalledTimes(1);
+  });
+});
+
+describe("Chip tones", () => {
+  it("draws a recorded outcome in its role colour when pressed", () => {
+    render(
+      <div>
+        <Chip pressed tone="proven" size="bench">
+          Pass
+        </Chip>
+        <Chip pressed={false} tone="failing" size="bench">
+          Fail
+        </Chip>
+      </div>,
+    );
+    expect(classes(screen.getByRole("button", { name: "Pass", pressed: true }))).toEqual(
+      expect.arrayContaining(["aria-pressed:bg-proven", "min-h-12"]),
+    );
+    const fail = classes(screen.getByRole("button", { name: "Fail", pressed: false }));
+    expect(fail).toEqual(expect.arrayContaining(["aria-pressed:bg-failing", "bg-surface"]));
+  });
+});
+
+describe("Tabs", () => {
+  it("are tabs in a tab list; the selected one is announced and drawn in the action colour", () => {
+    const onClick = vi.fn();
+    render(
+      <TabList aria-label="Panels">
+        <Tab selected aria-controls="p">
+          Properties
+        </Tab>
+        <Tab selected={false} aria-controls="p" onClick={onClick}>
+          Rules
+        </Tab>
+      </TabList>,
+    );
+    const list = screen.getByRole("tablist", { name: "Panels" });
+    const on = within(list).getByRole("tab", { name: "Properties", selected: true });
+    const off = within(list).getByRole("tab", { name: "Rules", selected: false });
+    expect(on.getAttribute("type")).toBe("button");
+    expect(classes(on)).toEqual(expect.arrayContaining(["border-action", "text-action-ink"]));
+    expect(classes(off)).not.toContain("border-action");
+    fireEvent.click(off);
     expect(onClick).toHaveBeenCalledTimes(1);
   });
 });
