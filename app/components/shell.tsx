@@ -6,6 +6,7 @@ import { Form, Link, NavLink, useMatches, useNavigate } from "react-router";
 import { Logo, LogoMark } from "./logo";
 import { can, ROLE_LABELS, type Action, type Role } from "~/lib/roles";
 import { Button } from "./ui/button";
+import { cardVariants } from "./ui/card";
 
 export type ShellProps = {
   workspace: { slug: string; name: string };
@@ -131,7 +132,10 @@ function UserMenu({ user, role, side = "below" }: { user: ShellProps["user"]; ro
         </span>
       </summary>
       <div
-        className={`absolute z-30 w-64 rounded-lg border border-ink-200 bg-white p-3 shadow-lg ${side === "right" ? "bottom-0 left-full ml-2" : "right-0 mt-2"}`}
+        className={cardVariants({
+          padding: "sm",
+          className: `absolute z-30 w-64 shadow-lg ${side === "right" ? "bottom-0 left-full ml-2" : "right-0 mt-2"}`,
+        })}
       >
         <p className="text-sm font-medium">{user.name}</p>
         <p className="text-xs text-ink-600">{user.email}</p>

@@ -8,6 +8,7 @@ import { describeDesignEvent } from "~/audit/design-events";
 import { PageHeader } from "~/components/page-header";
 import { EmptyState } from "~/components/empty-state";
 import { When } from "~/designs/design-bits";
+import { cardVariants } from "~/components/ui/card";
 
 export const meta: Route.MetaFunction = () => [{ title: "Design activity · Chainproof" }];
 
@@ -33,7 +34,7 @@ export default function Activity({ loaderData }: Route.ComponentProps) {
       {events.length === 0 ? (
         <EmptyState title="No design activity yet">Saving a revision, asking for a review and every decision on it appear here.</EmptyState>
       ) : (
-        <ol className="divide-y divide-ink-100 rounded-lg border border-ink-200 bg-white" aria-label="Design activity">
+        <ol className={cardVariants({ padding: "none", className: "divide-y divide-ink-100" })} aria-label="Design activity">
           {events.map((e) => (
             <li
               key={e.id}

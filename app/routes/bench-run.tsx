@@ -30,6 +30,7 @@ import { readCappedFormData, UploadError } from "~/uploads/uploads.server";
 import { PageHeader } from "~/components/page-header";
 import { SafetyNote } from "~/components/safety-note";
 import { Button, Notice } from "~/components/ui/form";
+import { Card, cardVariants } from "~/components/ui/card";
 import { HashPrefix, When } from "~/designs/design-bits";
 import { RunBadge } from "~/components/diagnosis/run-list";
 
@@ -206,10 +207,10 @@ export default function BenchRun({ loaderData, actionData }: Route.ComponentProp
         </div>
       )}
 
-      <section className="mb-4 rounded-lg border border-ink-200 bg-white p-4">
+      <Card as="section" className="mb-4">
         <h2 className="font-semibold">Before step 1</h2>
         <p className="mt-1">{plan.start.instruction}</p>
-      </section>
+      </Card>
 
       <div className="space-y-4">
         {steps.map((s) => (
@@ -227,7 +228,7 @@ export default function BenchRun({ loaderData, actionData }: Route.ComponentProp
       </div>
 
       {plan.uncovered.length > 0 ? (
-        <details className="mt-6 rounded-lg border border-ink-200 bg-white p-4 text-base">
+        <details className={cardVariants({ className: "mt-6 text-base" })}>
           <summary className="flex min-h-11 cursor-pointer items-center font-semibold">
             Not checked by this procedure ({plan.uncovered.length})
           </summary>
@@ -252,7 +253,7 @@ export default function BenchRun({ loaderData, actionData }: Route.ComponentProp
       </p>
 
       {canRecord ? (
-        <Form method="post" className="mt-6 rounded-lg border border-ink-200 bg-white p-4 print:hidden">
+        <Form method="post" className={cardVariants({ className: "mt-6 print:hidden" })}>
           <input type="hidden" name="intent" value="complete" />
           <p className="text-base text-ink-700">
             Completing signs the run with your name and the time, and fixes its results: they can no longer change.

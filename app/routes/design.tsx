@@ -17,6 +17,7 @@ import { reviewPath, truthTablePath } from "~/reviews/paths";
 import { labelsOf } from "~/reviews/revision-view.server";
 import { ReviewStatusBadge } from "~/components/truth-table/review-status";
 import { ButtonLink } from "~/components/ui/link";
+import { cardVariants } from "~/components/ui/card";
 
 export async function loader({ params, context }: Route.LoaderArgs) {
   const m = requireCan(context, "workspace.view");
@@ -284,7 +285,7 @@ function VerdictSummary({
       {verdict.rules.length === 0 ? (
         <p className="text-sm text-ink-600">This design has no rules yet.</p>
       ) : (
-        <ul className="divide-y divide-ink-100 rounded-md border border-ink-200" aria-label="Rules">
+        <ul className={cardVariants({ padding: "none", className: "divide-y divide-ink-100" })} aria-label="Rules">
           {verdict.rules.map((r) => (
             <li key={r.id} className="flex flex-wrap items-center justify-between gap-2 px-3 py-2 text-sm">
               <span>

@@ -16,6 +16,7 @@ import { HashPrefix, Section, When } from "~/designs/design-bits";
 import { PageHeader } from "~/components/page-header";
 import { SafetyNote } from "~/components/safety-note";
 import { buttonClass, Notice } from "~/components/ui/form";
+import { cardVariants } from "~/components/ui/card";
 import { VerdictSummary } from "~/components/truth-table/verdict-summary";
 import { RefusedNotice } from "~/components/refused-mark";
 import { ReviewStatusBadge } from "~/components/truth-table/review-status";
@@ -208,7 +209,7 @@ export default function Review({ loaderData }: Route.ComponentProps) {
       <div className="grid grid-cols-1 gap-5 lg:grid-cols-3">
         <div className="min-w-0 space-y-5 lg:col-span-2">
           {revision.message ? (
-            <p className="rounded-md border border-ink-200 bg-white px-4 py-3 text-sm [overflow-wrap:anywhere]">
+            <p className={cardVariants({ padding: "snug", className: "text-sm [overflow-wrap:anywhere]" })}>
               <span className="text-ink-500">Revision message:</span> “{revision.message}”
             </p>
           ) : null}

@@ -26,6 +26,7 @@ import { SafetyNote } from "~/components/safety-note";
 import { Notice } from "~/components/ui/form";
 import { Button, buttonVariants } from "~/components/ui/button";
 import { ButtonLink } from "~/components/ui/link";
+import { Card, cardVariants } from "~/components/ui/card";
 import { TruthTableGrid } from "~/components/truth-table/grid";
 import { RowDrawer } from "~/components/truth-table/row-drawer";
 import { api as endpoints } from "~/api/endpoints";
@@ -218,7 +219,7 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
       {revision.refused ? <RefusedNotice reasons={revision.refused} className="mb-4" /> : null}
       {filterError ? <Notice tone="error">The filter in the address was ignored: {filterError}</Notice> : null}
 
-      <div className="mb-4 grid gap-3 rounded-lg border border-ink-200 bg-white p-4 md:grid-cols-2" role="group" aria-label="Row filters">
+      <Card className="mb-4 grid gap-3 md:grid-cols-2" role="group" aria-label="Row filters">
         <div>
           <label htmlFor="tt-only" className="block text-sm font-medium text-ink-700">
             Rows
@@ -317,7 +318,7 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
             Enter a row number from 0 to {(totalRows - 1).toLocaleString("en-US")}.
           </p>
         ) : null}
-      </div>
+      </Card>
 
       <div className="mb-2 flex flex-wrap items-center justify-between gap-3">
         <div className="flex flex-wrap items-center gap-2 text-sm">
@@ -351,7 +352,11 @@ export default function RevisionTable({ loaderData }: Route.ComponentProps) {
 
       {error ? <Notice tone="error">{error instanceof ApiError ? error.detail : "The rows could not be loaded."}</Notice> : null}
 
-      <div ref={tableBox} className="max-h-[70vh] overflow-auto rounded-lg border border-ink-200 bg-white" data-testid="table-scroller">
+      <div
+        ref={tableBox}
+        className={cardVariants({ padding: "none", className: "max-h-[70vh] overflow-auto" })}
+        data-testid="table-scroller"
+      >
         {page.rows.length === 0 ? (
           <p className="p-6 text-center text-sm text-ink-600">No row matches these filters.</p>
         ) : (

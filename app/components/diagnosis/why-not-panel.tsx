@@ -14,6 +14,7 @@ import {
 } from "~/vehicles/why-not";
 import { WiringDiagram } from "~/components/wiring-diagram";
 import { Button, Chip } from "~/components/ui/button";
+import { Card } from "~/components/ui/card";
 
 const MAX_HISTORY = 1000;
 
@@ -128,7 +129,7 @@ const GOAL_WORDS: Partial<Record<Blocker["code"], string>> = {
 
 function BlockerCard({ b, n, throttleLabel, onApply }: { b: Blocker; n: number; throttleLabel: string; onApply: Apply }) {
   return (
-    <li className="rounded-lg border border-ink-200 bg-white p-4" data-testid="blocker" data-code={b.code}>
+    <Card as="li" data-testid="blocker" data-code={b.code}>
       <h3 className="font-semibold">
         <span className="mr-2 inline-flex h-7 w-7 items-center justify-center rounded-full bg-brick-600 text-base text-white">{n}</span>
         {b.title}
@@ -161,7 +162,7 @@ function BlockerCard({ b, n, throttleLabel, onApply }: { b: Blocker; n: number; 
         </ul>
       ) : null}
       {b.truncated ? <p className="mt-2 text-base text-ink-500">Only the first of many ways are listed.</p> : null}
-    </li>
+    </Card>
   );
 }
 
@@ -302,7 +303,7 @@ function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
         phone
       />
 
-      <section aria-labelledby="measured-h" className="scroll-mt-16 rounded-lg border border-ink-200 bg-white p-4">
+      <Card as="section" aria-labelledby="measured-h" className="scroll-mt-16">
         <h2 id="measured-h" className="text-lg font-semibold">
           Measured mode
         </h2>
@@ -382,7 +383,7 @@ function Panel({ c, vehicleName }: { c: CompiledDesign; vehicleName: string }) {
             </div>
           ) : null}
         </div>
-      </section>
+      </Card>
     </div>
   );
 }

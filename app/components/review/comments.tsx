@@ -4,6 +4,7 @@ import { Form, Link, useNavigation, useSearchParams } from "react-router";
 import { truthTablePath } from "~/reviews/paths";
 import { When } from "~/designs/design-bits";
 import { Button, SelectField, TextArea, TextField } from "~/components/ui/form";
+import { Card } from "~/components/ui/card";
 import type { FieldErrors } from "~/lib/forms";
 
 /** What a review page's action answers: which form it was for, and its field errors. */
@@ -53,7 +54,7 @@ export function CommentsView({
   return (
     <ul className="space-y-3" aria-label="Comments">
       {comments.map((c) => (
-        <li key={c.id} className="rounded-md border border-ink-200 p-3 text-sm" data-testid="comment">
+        <Card as="li" key={c.id} padding="sm" className="text-sm" data-testid="comment">
           <p className="text-xs text-ink-500">
             <span className="font-semibold text-ink-700">{c.authorName}</span>, <When iso={c.createdAt} />
             {c.anchor === "row" && c.rowIndex !== null ? (
@@ -76,7 +77,7 @@ export function CommentsView({
             ) : null}
           </p>
           <p className="mt-1 whitespace-pre-wrap text-ink-900">{c.body}</p>
-        </li>
+        </Card>
       ))}
     </ul>
   );

@@ -4,6 +4,7 @@ import { Form, useNavigation } from "react-router";
 import { VERDICT_LABELS, type ReviewVerdict } from "~/reviews/status";
 import { HashPrefix, When } from "~/designs/design-bits";
 import { Button, TextArea } from "~/components/ui/form";
+import { Card } from "~/components/ui/card";
 import { errorsOf, type ActionResult } from "./comments";
 
 export type DecisionView = {
@@ -20,7 +21,7 @@ export function DecisionsView({ decisions }: { decisions: DecisionView[] }) {
   return (
     <ul className="space-y-2 text-sm" aria-label="Decisions">
       {decisions.map((d) => (
-        <li key={d.id} className="rounded-md border border-ink-200 p-2" data-testid="decision">
+        <Card as="li" key={d.id} padding="xs" data-testid="decision">
           <p>
             <strong className={d.verdict === "approved" ? "text-moss-700" : "text-brick-700"}>
               <span aria-hidden="true">{d.verdict === "approved" ? "✓ " : "✕ "}</span>
@@ -32,7 +33,7 @@ export function DecisionsView({ decisions }: { decisions: DecisionView[] }) {
             Signed content hash <HashPrefix hash={d.contentHash} />
           </p>
           <p className="mt-1 whitespace-pre-wrap">{d.comment}</p>
-        </li>
+        </Card>
       ))}
     </ul>
   );

@@ -9,7 +9,7 @@ import { groupSearch, groupWords, REASON_WORDS, type ConditionWords } from "~/re
 import { DISPOSITION_HINTS, DISPOSITION_LABELS, DISPOSITIONS, faultKey, type Disposition } from "~/reviews/dispositions";
 import { Button, SelectField, TextArea } from "~/components/ui/form";
 import { When } from "~/designs/design-bits";
-import { cardVariants } from "~/components/ui/card";
+import { Card, cardVariants } from "~/components/ui/card";
 
 const n = (x: number) => x.toLocaleString("en-US");
 const plural = (x: number, one: string, many = `${one}s`) => `${n(x)} ${x === 1 ? one : many}`;
@@ -285,7 +285,7 @@ function FaultBlock({
     `${nav.formData.get("component")}/${nav.formData.get("mode")}` === key;
   const mode = fault.mode === "stuck-open" ? "stuck open" : "stuck closed";
   return (
-    <li className="rounded-md border border-ink-200 p-3" data-testid="fault-reading" data-fault={key}>
+    <Card as="li" padding="sm" data-testid="fault-reading" data-fault={key}>
       <h3 className="font-semibold">
         {fault.label} <code className="text-xs font-normal text-ink-500">{fault.component}</code> {mode}
       </h3>
@@ -354,7 +354,7 @@ function FaultBlock({
           </details>
         ) : null}
       </div>
-    </li>
+    </Card>
   );
 }
 

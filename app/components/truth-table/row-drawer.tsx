@@ -8,6 +8,7 @@ import { ApiError, apiFetcher } from "~/api/client";
 import type { RowDetail } from "~/api/answers";
 import { DriveCell, RuleCellView } from "./cells";
 import { Button } from "~/components/ui/button";
+import { Card } from "~/components/ui/card";
 
 const fetchRow = apiFetcher(api.revisionRow);
 
@@ -108,7 +109,7 @@ function DiagnosisView({ columns, detail }: { columns: TableColumns; detail: Row
         <h3 className="font-semibold">Controller inputs</h3>
         <ul className="mt-1 space-y-2">
           {diagnosis.inputs.map((x) => (
-            <li key={x.input} className="rounded-md border border-ink-200 p-2">
+            <Card as="li" key={x.input} padding="xs">
               <p>
                 <span className="font-medium">{x.label}</span> <code className="text-xs text-ink-500">{x.input}</code> ({x.function}):{" "}
                 {x.energized ? <strong>energized</strong> : <span>dead</span>}
@@ -127,7 +128,7 @@ function DiagnosisView({ columns, detail }: { columns: TableColumns; detail: Row
                   {x.fixes.length > 5 || x.truncated ? <p className="text-xs text-ink-500">and more.</p> : null}
                 </div>
               ) : null}
-            </li>
+            </Card>
           ))}
         </ul>
       </div>

@@ -6,7 +6,7 @@ import { cva, type VariantProps } from "class-variance-authority";
 export const cardVariants = cva("rounded-lg border border-line bg-surface", {
   variants: {
     // Padding is a variant: a className adds classes, it does not override (no class merging).
-    padding: { none: "", xs: "p-2", sm: "p-3", md: "p-4", lg: "p-5" },
+    padding: { none: "", xs: "p-2", sm: "p-3", md: "p-4", lg: "p-5", snug: "px-4 py-3" },
     interactive: { true: "hover:border-caution", false: "" },
   },
   defaultVariants: { padding: "md", interactive: false },
