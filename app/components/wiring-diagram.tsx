@@ -3,6 +3,7 @@
 // row it shows that row: live wires in copper, dead ones grey, contacts open or closed, and the
 // contacts to check (dashed ring) or suspected stuck (solid ring). On a phone (`phone`) a second
 // drawing stacks the parts in one column at the screen's width, labels at reading size (decision 138).
+// The report prints the plain drawing, wide or stacked, whichever fits its page at 6 pt (decision 166).
 import type { Design, RowView } from "~/engine";
 import { kindColours } from "~/lib/kind-colours";
 
@@ -85,31 +86,29 @@ function wideBoxes(d: Design): Box[] {
   });
 }
 
-/** Width of the plain wide drawing in its own units (the report's diagram; decision 165). */
-export function wideDrawingWidth(d: Design): number {
-  const list = wideBoxes(d);
-  if (list.length === 0) return 0;
-  return Math.max(...list.map((b) => b.x + b.w)) - Math.min(...list.map((b) => b.x)) + 2 * 34;
-}
-
-/** The plain drawing's smallest type, in its own units. */
+/** The plain drawing's smallest type, in its own units (the contact's states line). */
 export const SMALLEST_TYPE = 10;
 
 const COLUMN_W = 230;
 const LANE = 9;
+/** Room between two parts of the plain stacked drawing: a wire's jog out of one (7), into the next (7), and space between. */
+const PLAIN_GAP = 22;
 
 /** One column, in order of wire hops from the supplies: for a phone's width. */
-function stackedBoxes(d: Design): Box[] {
+function stackedBoxes(d: Design, plain: boolean): Box[] {
   const cols = columnsByDistance(d);
   const order = describe(d)
     .map((c, i) => ({ c, i }))
     .sort((a, b) => cols.get(a.c.id)! - cols.get(b.c.id)! || a.i - b.i);
+  // The plain drawing (paper) has no ring above a contact and three lines of type in every box: it packs tighter.
+  const ring = plain ? 0 : 26;
+  const gap = plain ? PLAIN_GAP : 44;
   let y = 0;
   return order.map(({ c }) => {
-    const h = c.type === "junction" ? 16 : c.type === "contact" ? 92 : 64;
+    const h = c.type === "junction" ? 16 : plain ? (c.type === "contact" ? 58 : 42) : c.type === "contact" ? 92 : 64;
     const w = c.type === "junction" ? 16 : COLUMN_W;
-    const box = { ...c, x: c.type === "junction" ? COLUMN_W / 2 - 8 : 0, y: y + (c.type === "contact" ? 26 : 0), w, h };
-    y += h + (c.type === "contact" ? 26 : 0) + 44;
+    const box = { ...c, x: c.type === "junction" ? COLUMN_W / 2 - 8 : 0, y: y + (c.type === "contact" ? ring : 0), w, h };
+    y += h + (c.type === "contact" ? ring : 0) + gap;
     return box;
   });
 }
@@ -126,6 +125,55 @@ function stackedTerminal(b: Box, terminal: string): Point {
   return { x: b.x + b.w / 2, y: top ? b.y : b.y + b.h, side: top ? "top" : "bottom" };
 }
 
+/** Where every part and wire goes, and the drawing's box, in the drawing's own units. */
+function geometry(design: Design, stacked: boolean, plain: boolean) {
+  const list = stacked ? stackedBoxes(design, plain) : wideBoxes(design);
+  const byId = new Map(list.map((b) => [b.id, b]));
+  const terminal = stacked ? stackedTerminal : wideTerminal;
+  // Wires that cannot run straight down the column go round on the right, each in its own lane.
+  let lanes = 0;
+  const paths = design.wires.flatMap((w, i) => {
+    const [fa, ft] = w.from.split(".") as [string, string];
+    const [ta, tt] = w.to.split(".") as [string, string];
+    const a = byId.get(fa);
+    const b = byId.get(ta);
+    if (!a || !b) return [];
+    let p = terminal(a, ft);
+    let q = terminal(b, tt);
+    let d: string;
+    if (!stacked) {
+      const mid = (p.x + q.x) / 2;
+      d = `M${p.x} ${p.y} H${mid} V${q.y} H${q.x}`;
+    } else {
+      if (p.y > q.y) [p, q] = [q, p];
+      // Straight down only to the next part in the column: a line through another part would read as a series chain.
+      const between = list.some((o) => o !== a && o !== b && o.y + o.h > p.y + 1 && o.y < q.y - 1);
+      const straight = p.x === q.x && p.side !== "top" && q.side !== "bottom" && !between;
+      if (straight) d = `M${p.x} ${p.y} V${q.y}`;
+      else {
+        const lane = COLUMN_W + 18 + LANE * lanes++;
+        const jog = plain ? 7 : 10;
+        const out = (t: Point) => (t.side === "top" ? t.y - jog : t.side === "bottom" ? t.y + jog : t.y);
+        d = `M${p.x} ${p.y} V${out(p)} H${lane} V${out(q)} H${q.x} V${q.y}`;
+      }
+    }
+    return [{ key: i, d, from: w.from }];
+  });
+  const pad = 34;
+  const minX = Math.min(...list.map((b) => b.x)) - pad;
+  const minY = Math.min(...list.map((b) => b.y)) - pad - 10;
+  const maxX = Math.max(...list.map((b) => b.x + b.w), stacked ? COLUMN_W + 18 + LANE * lanes : -Infinity) + pad;
+  const maxY = Math.max(...list.map((b) => b.y + b.h)) + pad;
+  return { list, paths, minX, minY, width: maxX - minX, height: maxY - minY };
+}
+
+/** The plain drawing's size in its own units, wide (canvas positions or columns) or stacked (one column): the report's diagram. */
+export function plainDrawingSize(d: Design, layout: "wide" | "stacked"): { width: number; height: number } {
+  if (d.components.length === 0) return { width: 0, height: 0 };
+  const { width, height } = geometry(d, layout === "stacked", true);
+  return { width, height };
+}
+
 type Props = {
   design: Design;
   /** The row to show; without it the drawing is the plain wiring (the report). */
@@ -137,11 +185,15 @@ type Props = {
   title?: string;
   /** Also draw the one-column version, shown instead on narrow screens. */
   phone?: boolean;
+  /** The plain drawing's layout (no row): wide, or stacked in one column (paper, when the wide one would print too small). */
+  layout?: "wide" | "stacked";
 };
 
-export function WiringDiagram({ design, row, highlight = [], suspects = [], title, phone = false }: Props) {
+export function WiringDiagram({ design, row, highlight = [], suspects = [], title, phone = false, layout = "wide" }: Props) {
   const label = title ?? `Wiring diagram of ${design.name}`;
-  const wide = <Drawing design={design} row={row} highlight={highlight} suspects={suspects} title={label} stacked={false} />;
+  const wide = (
+    <Drawing design={design} row={row} highlight={highlight} suspects={suspects} title={label} stacked={!row && layout === "stacked"} />
+  );
   if (!row) return wide;
   return (
     <figure className="rounded-lg border border-ink-200 bg-white p-2">
@@ -169,48 +221,13 @@ function Drawing({
   suspects,
   title,
   stacked,
-}: Required<Omit<Props, "row" | "phone" | "title">> & { row?: RowView; title: string; stacked: boolean }) {
-  const list = stacked ? stackedBoxes(design) : wideBoxes(design);
-  const byId = new Map(list.map((b) => [b.id, b]));
-  const terminal = stacked ? stackedTerminal : wideTerminal;
-  const live = new Set(row?.nets.energizedTerminals ?? []);
-  // Wires that cannot run straight down the column go round on the right, each in its own lane.
-  let lanes = 0;
-  const paths = design.wires.flatMap((w, i) => {
-    const [fa, ft] = w.from.split(".") as [string, string];
-    const [ta, tt] = w.to.split(".") as [string, string];
-    const a = byId.get(fa);
-    const b = byId.get(ta);
-    if (!a || !b) return [];
-    let p = terminal(a, ft);
-    let q = terminal(b, tt);
-    let d: string;
-    if (!stacked) {
-      const mid = (p.x + q.x) / 2;
-      d = `M${p.x} ${p.y} H${mid} V${q.y} H${q.x}`;
-    } else {
-      if (p.y > q.y) [p, q] = [q, p];
-      // Straight down only to the next part in the column: a line through another part would read as a series chain.
-      const between = list.some((o) => o !== a && o !== b && o.y + o.h > p.y + 1 && o.y < q.y - 1);
-      const straight = p.x === q.x && p.side !== "top" && q.side !== "bottom" && !between;
-      if (straight) d = `M${p.x} ${p.y} V${q.y}`;
-      else {
-        const lane = COLUMN_W + 18 + LANE * lanes++;
-        const out = (t: Point) => (t.side === "top" ? t.y - 10 : t.side === "bottom" ? t.y + 10 : t.y);
-        d = `M${p.x} ${p.y} V${out(p)} H${lane} V${out(q)} H${q.x} V${q.y}`;
-      }
-    }
-    return [{ key: i, d, on: live.has(w.from) }];
-  });
-  const pad = 34;
-  const minX = Math.min(...list.map((b) => b.x)) - pad;
-  const minY = Math.min(...list.map((b) => b.y)) - pad - 10;
-  const maxX = Math.max(...list.map((b) => b.x + b.w), stacked ? COLUMN_W + 18 + LANE * lanes : -Infinity) + pad;
-  const maxY = Math.max(...list.map((b) => b.y + b.h)) + pad;
+}: Required<Omit<Props, "row" | "phone" | "title" | "layout">> & { row?: RowView; title: string; stacked: boolean }) {
   const plain = !row;
+  const { list, paths, minX, minY, width, height } = geometry(design, stacked, plain);
+  const live = new Set(row?.nets.energizedTerminals ?? []);
   return (
     <svg
-      viewBox={`${minX} ${minY} ${maxX - minX} ${maxY - minY}`}
+      viewBox={`${minX} ${minY} ${width} ${height}`}
       className={stacked ? "h-auto w-full" : row ? "h-auto w-full min-w-[40rem]" : "h-auto w-full"}
       role="img"
       aria-label={title}
@@ -224,8 +241,8 @@ function Drawing({
           key={p.key}
           d={p.d}
           fill="none"
-          stroke={plain ? "#3b414d" : p.on ? "var(--color-copper-500)" : "var(--color-ink-300)"}
-          strokeWidth={plain ? 2 : p.on ? 5 : 3}
+          stroke={plain ? "#3b414d" : live.has(p.from) ? "var(--color-copper-500)" : "var(--color-ink-300)"}
+          strokeWidth={plain ? 2 : live.has(p.from) ? 5 : 3}
         />
       ))}
       {list.map((b) => {
@@ -240,7 +257,14 @@ function Drawing({
                 fill={plain ? kindColours("junction").fill : on ? "var(--color-copper-500)" : "var(--color-ink-400)"}
               />
               {plain ? (
-                <text x={b.x + b.w / 2} y={b.y - 4} fontSize={11} textAnchor="middle" fill="#5f6878">
+                // Stacked, wires run through the dot from above and below and out to the lanes on the right: the name goes on its left.
+                <text
+                  x={stacked ? b.x - 6 : b.x + b.w / 2}
+                  y={stacked ? b.y + b.h / 2 + 4 : b.y - 4}
+                  fontSize={11}
+                  textAnchor={stacked ? "end" : "middle"}
+                  fill="#5f6878"
+                >
                   {b.id}
                 </text>
               ) : null}

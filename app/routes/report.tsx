@@ -21,7 +21,8 @@ import { pageRows, type Design, type Predicate } from "~/engine";
 import { SAFETY_TEXT } from "~/components/safety-note";
 import { VerdictSummary } from "~/components/truth-table/verdict-summary";
 import { TruthTableBands } from "~/components/truth-table/print-bands";
-import { SMALLEST_TYPE, WiringDiagram, wideDrawingWidth } from "~/components/wiring-diagram";
+import { WiringDiagram } from "~/components/wiring-diagram";
+import { paperDiagram } from "~/reviews/paper-diagram";
 import { Logo } from "~/components/logo";
 import { SectionError } from "~/components/error-boundary";
 
@@ -30,10 +31,6 @@ const TABLE_PAGE_LIMIT = 24;
 /** Rows of the dense printed table on one A4 page (9 px type, 14 mm margins). */
 const ROWS_PER_PAGE = 80;
 const SIZES = { a4: "A4", letter: "Letter" } as const;
-/** The diagram's box on paper: A4's printable width (210 mm less 2 × 12 mm) at 96 CSS px per inch, less its frame. */
-const DIAGRAM_PX = Math.floor(((210 - 24) / 25.4) * 96) - 18;
-/** Smallest type printed in the diagram: 6 pt = 8 CSS px (common practice for legible print); else the wiring list alone (decision 165). */
-const MIN_TYPE_PX = 8;
 type Size = keyof typeof SIZES;
 
 export async function loader({ request, params, context }: Route.LoaderArgs) {
@@ -59,7 +56,6 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
       createdAt: x.createdAt.toISOString(),
     };
   }
-  const diagramScale = DIAGRAM_PX / Math.max(1, wideDrawingWidth(loaded.design));
   const wiring = loaded.design.wires.map((w) => ({ from: w.from, to: w.to, net: c.terminalNet[w.from] ?? -1 }));
   return {
     size,
@@ -88,7 +84,7 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
       decidedAt: d.decidedAt.toISOString(),
     })),
     wiring,
-    diagramFits: SMALLEST_TYPE * diagramScale >= MIN_TYPE_PX,
+    diagram: paperDiagram(loaded.design, size),
     nets: c.nets,
     columns,
     table: tablePages <= TABLE_PAGE_LIMIT ? pageRows(c, { from: 0, count: c.rows }).rows.map((v) => tableRow(columns, v)) : null,
@@ -235,19 +231,23 @@ export default function Report({ loaderData }: Route.ComponentProps) {
 
         <section className="break-before" aria-label="Wiring">
           <h2 className={h2}>Wiring diagram</h2>
-          {d.diagramFits ? (
-            <>
-              <div className="mt-3 break-inside-avoid rounded border border-ink-200 p-2">
-                <WiringDiagram design={doc} />
+          {d.diagram ? (
+            <div className="break-inside-avoid" data-testid="report-diagram" data-layout={d.diagram.layout}>
+              <div className="mx-auto mt-3 w-fit rounded border border-ink-200 p-2">
+                <div style={{ width: d.diagram.widthPx }}>
+                  <WiringDiagram design={doc} layout={d.diagram.layout} />
+                </div>
               </div>
               <p className="mt-1 text-xs text-ink-600">
+                Smallest type {d.diagram.smallestPt.toFixed(1)} pt
+                {d.diagram.layout === "stacked" ? "; drawn in one column, in order of wire hops from the supply, to fit the page" : ""}.
                 Labels longer than 22 characters are shortened here; the tables below give them in full.
               </p>
-            </>
+            </div>
           ) : (
             <p className="mt-2" data-testid="diagram-left-out">
-              The diagram is left out: at the page&apos;s width its labels would print smaller than 6 pt. The wiring list below gives every
-              wire, terminal to terminal, with its net.
+              The diagram is left out: fitted to one page, wide or in one column, its labels would print smaller than 6 pt. The wiring list
+              below gives every wire, terminal to terminal, with its net.
             </p>
           )}
           <h2 className={h2}>Wiring list</h2>
