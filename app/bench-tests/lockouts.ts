@@ -2,9 +2,13 @@
 // throttle, set the conditions of a row B, apply the throttle and keep holding it, then change
 // conditions one at a time back to D. The lockout's event happens with the throttle held, so the
 // latch must keep drive off in D although D's inputs let it run. Every outcome is replayed with the
-// engine's step of spec 1.5 (stepInto); nothing here decides what the controller does.
+// engine's step of spec 1.5 (stepInto); nothing here decides what the controller does. Also here:
+// which check each listed lockout gets in a plan, and the moves of a check's step.
 import { stepInto, type CompiledDesign, type InputFunction, type Lockout } from "../engine";
-import type { RowBook } from "./book";
+import type { RowBook, SearchPool } from "./book";
+import { minimumCover, type Cover, type Need } from "./cover";
+import type { BenchPlan } from "./types";
+import type { Phases } from "./words";
 
 export type LockoutCheck = {
   lockout: Lockout;
@@ -145,4 +149,106 @@ export function lockoutReason(
   return (
     missing[l] || "no change of at most two conditions from a drive row sets it off with the throttle held and drive otherwise able to run"
   );
+}
+
+/** Drive rows beyond those already in the plan that a lockout check may end in. */
+const EXTRA_LOCKOUT_ROWS = 8;
+/** Drive rows tried as the one row every lockout check ends in. */
+const SHARED_LOCKOUT_ROWS = 32;
+
+/** What the lockout checks of a plan are planned from: the rows to cover and their bound (decision 133). */
+export type LockoutPlanInput = {
+  rest: number;
+  pool: SearchPool;
+  /** Appended to a reason when the search looked at only part of a large table. */
+  poolNote: string;
+  needs: Need[];
+  /** Among equal choices, the lower row is taken. */
+  prefer: (row: number) => number;
+  /** The fewest rows meeting `needs`, without lockout checks. */
+  bound: Cover;
+};
+
+export type LockoutPlan = {
+  /** Drive rows of the pool whose approach latches nothing: rows a check may end in. */
+  drives: number[];
+  /** One check per distinct set of moves; lockouts sharing a check are in its `also`. */
+  checks: LockoutCheck[];
+  /** The drive row every check ends in, when the cover could take one. */
+  sharedRow: number | undefined;
+  /** The cover with that shared drive row as one more need (`bound` itself when there is none). */
+  cover: Cover;
+  /** Listed lockouts no check was found for, with the reason. */
+  uncovered: BenchPlan["uncovered"];
+};
+
+/**
+ * The check of each listed lockout (decision 132): its best check over drive rows in or near the
+ * plan, then, when one drive row gives every lockout a check as good as its best, that row as one
+ * more need of the cover, so that the checks share the row step that shows drive.
+ */
+export function planLockoutChecks(c: CompiledDesign, book: RowBook, at: LockoutPlanInput, input: (id: string) => string): LockoutPlan {
+  const { rest, pool, needs, prefer, bound } = at;
+  const drives = pool.rows.filter((i) => book.view(i).drive && book.approach(i).steady);
+  const isDrive = new Set(drives);
+  const near = (i: number) => Math.min(book.hamming(i, rest), ...bound.rows.map((r) => book.hamming(i, r)));
+  const byNearness = drives.slice().sort((x, y) => near(x) - near(y) || prefer(x) - prefer(y) || x - y);
+  const planned = bound.rows.filter((r) => isDrive.has(r));
+  const extra = byNearness.filter((r) => !planned.includes(r)).slice(0, EXTRA_LOCKOUT_ROWS);
+  const why = (l: Lockout) => lockoutReason(c, book, l, pool.rows, drives, input) + at.poolNote;
+  const { best, uncovered } = bestChecks(c, book, [...planned, ...extra], why);
+  const shared = sharedDriveRows(c, book, best, [...planned, ...byNearness.slice(0, SHARED_LOCKOUT_ROWS)]);
+  const cover = shared.length > 0 ? minimumCover([...needs, { id: "lockout-drive-row", rows: shared }], { prefer }) : bound;
+  const sharedRow = cover.rows.find((r) => shared.includes(r));
+  const checks: LockoutCheck[] = [];
+  for (const [l, k] of best) {
+    const check = sharedRow === undefined ? k : findCheck(c, book, l, [sharedRow])!;
+    const twin = checks.find((x) => sameCheck(x, check));
+    if (twin) twin.also.push(l);
+    else checks.push(check);
+  }
+  return { drives, checks, sharedRow, cover, uncovered };
+}
+
+/** Each listed lockout's best check ending in one of `drives` (in order of preference); those without one, with the reason `why`. */
+function bestChecks(
+  c: CompiledDesign,
+  book: RowBook,
+  drives: number[],
+  why: (l: Lockout) => string,
+): { best: Map<Lockout, LockoutCheck>; uncovered: BenchPlan["uncovered"] } {
+  const best = new Map<Lockout, LockoutCheck>();
+  const uncovered: BenchPlan["uncovered"] = [];
+  for (const l of c.lockouts) {
+    const check = findCheck(c, book, l, drives);
+    if (check) best.set(l, check);
+    else uncovered.push({ item: `lockout:${l}`, reason: why(l) });
+  }
+  return { best, uncovered };
+}
+
+/** The candidate drive rows in which every lockout has a check as good as its best (shared checks cost one drive row). */
+function sharedDriveRows(c: CompiledDesign, book: RowBook, best: Map<Lockout, LockoutCheck>, candidates: number[]): number[] {
+  if (best.size === 0) return [];
+  return [...new Set(candidates)].filter((d) => [...best].every(([l, k]) => findCheck(c, book, l, [d])?.others.length === k.others.length));
+}
+
+/** A lockout check's moves (decision 132): release, set B, apply and hold, then back to D one condition at a time. */
+export function checkPhases(book: RowBook, cur: number, check: LockoutCheck): Phases {
+  const T = book.throttle;
+  const c = book.c;
+  const ct = book.digit(cur, T);
+  const p: Phases = { first: [], free: [], hold: [], then: [], last: [] };
+  if (ct !== check.via) p.first = [{ cond: T, from: ct, to: check.via }];
+  c.conditions.forEach((_, ci) => {
+    if (ci !== T && book.digit(cur, ci) !== book.digit(check.b, ci))
+      p.free.push({ cond: ci, from: book.digit(cur, ci), to: book.digit(check.b, ci) });
+  });
+  p.hold = [{ cond: T, from: check.via, to: book.digit(check.b, T) }];
+  let row = check.b;
+  for (const ci of check.order) {
+    p.then.push({ cond: ci, from: book.digit(row, ci), to: book.digit(check.d, ci) });
+    row = book.withState(row, ci, book.digit(check.d, ci));
+  }
+  return p;
 }

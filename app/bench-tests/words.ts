@@ -2,6 +2,7 @@
 // replaying the moves with the engine elsewhere, and the words say the moves in the order replayed.
 import type { Lockout } from "../engine";
 import { LOCKOUT_TEXT, lockoutName } from "../lib/lockouts";
+import type { RuleItem } from "./rules";
 import type { BenchExpect } from "./types";
 
 export type Naming = {
@@ -72,6 +73,32 @@ export function describeExpect(n: Naming, e: BenchExpect): string {
 
 export const latchedBy = (armed: Lockout[]) =>
   armed.length === 0 ? "A lockout latches" : `The ${list(armed.map(lockoutName))} latch${armed.length > 1 ? "" : "es"}`;
+
+/** The note of a row step whose throttle sets off a lockout; `steady`: the row drives when nothing is latched. */
+export const latchNote = (armed: Lockout[], steady: boolean) =>
+  steady
+    ? `${latchedBy(armed)} as the throttle is applied here, so drive stays off although the wiring alone would let it run.`
+    : `${latchedBy(armed)} as the throttle is applied here.`;
+
+/** The caution of a row step that applies the throttle. */
+export const WHEELS_ROW = "Lift the drive wheels clear of the ground (or otherwise stop the vehicle moving) before applying the throttle.";
+/** The caution of every lockout check's step. */
+export const WHEELS_CHECK =
+  "Lift the drive wheels clear of the ground (or otherwise stop the vehicle moving): this step applies and holds the throttle.";
+
+/** The note of the step showing a rule's test row: the rule at work there, or broken when `isBroken`. */
+export function ruleNote(r: Pick<RuleItem, "type" | "label" | "forbid">, isBroken: boolean, n: Naming): string {
+  if (r.type === "require-drive") {
+    return isBroken
+      ? `Rule "${r.label}" is BROKEN here: the design keeps drive off although the rule demands drive.`
+      : `Checks rule "${r.label}": drive must run here, as the rule demands.`;
+  }
+  const forbidden = r.forbid === null ? "drive running" : `${n.input(r.forbid)} live`;
+  const kept = r.forbid === null ? "drive off" : `${n.input(r.forbid)} dead`;
+  return isBroken
+    ? `Rule "${r.label}" is BROKEN here: the design gives ${forbidden} although the rule forbids it.`
+    : `Checks rule "${r.label}": only its own conditions keep ${kept} here.`;
+}
 
 /**
  * What a lockout check's step says (decision 132). `checked`: the lockouts the step checks (more than
