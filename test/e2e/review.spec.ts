@@ -141,8 +141,10 @@ test("request review, comment on a row, request changes, revise, approve, and re
   const signoff = reviewer.getByTestId("signoff").first();
   await expect(signoff).toContainText("Odile Ferrand");
   await expect(signoff).toContainText("Approved");
-  // Too wide for readable labels on paper: the report prints the wiring list instead (decision 165).
-  await expect(reviewer.getByTestId("diagram-left-out")).toBeVisible();
+  // Too wide for readable labels on A4 as drawn on screen: the report prints the one-column drawing,
+  // and the wiring list as always (decisions 165 and 166).
+  await expect(reviewer.getByTestId("report-diagram")).toHaveAttribute("data-layout", "stacked");
+  await expect(reviewer.getByTestId("diagram-left-out")).toHaveCount(0);
   await expect(reviewer.getByTestId("wiring-list")).toBeVisible();
 
   // Revision 1 keeps its own outcome; the engineer was told of both decisions.
