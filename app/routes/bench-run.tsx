@@ -6,7 +6,7 @@
 // notes and photos go through this route's action. A completed run is a signed, printable record.
 import "~/components/diagnosis/bench-print.css";
 import { useEffect } from "react";
-import { data, Form, Link, useNavigation, useRevalidator } from "react-router";
+import { data, Link, useNavigation, useRevalidator } from "react-router";
 import type { Route } from "./+types/bench-run";
 import { requireCan } from "~/auth/context.server";
 import { can } from "~/lib/roles";
@@ -25,12 +25,12 @@ import { runFormSchema } from "~/bench-runs/outcomes";
 import { liveFromApi, progressOf, type LiveStep } from "~/bench-runs/live";
 import { StepCard, type ActionResult } from "~/components/bench-runs/step-card";
 import { useLiveRun } from "~/components/bench-runs/use-live-run";
+import { CompleteRunForm, NotChecked, RunBanner, SignedRecord } from "~/components/bench-runs/run-sections";
 import { runJson } from "~/api/views.server";
 import { readCappedFormData, UploadError } from "~/uploads/uploads.server";
 import { PageHeader } from "~/components/page-header";
 import { SafetyNote } from "~/components/safety-note";
-import { Button, Notice } from "~/components/ui/form";
-import { Card, cardVariants } from "~/components/ui/card";
+import { Card } from "~/components/ui/card";
 import { HashPrefix, When } from "~/designs/design-bits";
 import { RunBadge } from "~/components/diagnosis/run-list";
 
@@ -157,55 +157,7 @@ export default function BenchRun({ loaderData, actionData }: Route.ComponentProp
       />
       <SafetyNote className="mb-4" />
 
-      {run.status === "completed" ? (
-        <section className="mb-6 rounded-lg border-2 border-moss-600 bg-white p-5" data-testid="signed-record" aria-labelledby="record-h">
-          <h2 id="record-h" className="font-semibold">
-            Signed record
-          </h2>
-          <dl className="mt-2 grid gap-2 text-sm sm:grid-cols-2">
-            <div>
-              <dt className="text-ink-500">Completed by</dt>
-              <dd>
-                {run.completedBy?.name} ({run.completedBy?.email})
-              </dd>
-            </div>
-            <div>
-              <dt className="text-ink-500">Completed</dt>
-              <dd>{run.completedAt ? <When iso={run.completedAt} /> : null}</dd>
-            </div>
-            <div className="sm:col-span-2">
-              <dt className="text-ink-500">Revision content hash (SHA-256)</dt>
-              <dd className="break-all font-mono text-xs">{run.revisionHash}</dd>
-            </div>
-            <div className="sm:col-span-2">
-              <dt className="text-ink-500">Results hash (SHA-256)</dt>
-              <dd className="break-all font-mono text-xs" data-testid="results-hash">
-                {run.resultsHash}
-              </dd>
-            </div>
-          </dl>
-          <p className={`mt-3 text-sm font-medium ${run.intact ? "text-moss-700" : "text-brick-700"}`}>
-            {run.intact
-              ? "Recomputed from the stored results: the record is intact."
-              : "Recomputed from the stored results: the hash does NOT match. The record was altered."}
-          </p>
-          <Button type="button" tone="secondary" className="mt-3 print:hidden" onClick={() => window.print()}>
-            Print the record
-          </Button>
-        </section>
-      ) : (
-        <div
-          className="sticky top-0 z-10 mb-4 rounded-lg border border-ink-200 bg-white/95 px-3 py-2 shadow-sm backdrop-blur md:top-2 print:static"
-          data-testid="run-banner"
-        >
-          <p className="text-base font-medium" data-testid="progress">
-            {done} of {steps.length} steps recorded{failed ? ` · ${failed} failed` : ""}
-          </p>
-          <div className="mt-1 h-2 rounded-full bg-ink-100" aria-hidden="true">
-            <div className="h-2 rounded-full bg-copper-500" style={{ width: `${(100 * done) / Math.max(1, steps.length)}%` }} />
-          </div>
-        </div>
-      )}
+      {run.status === "completed" ? <SignedRecord run={run} /> : <RunBanner done={done} total={steps.length} failed={failed} />}
 
       <Card as="section" className="mb-4">
         <h2 className="font-semibold">Before step 1</h2>
@@ -227,20 +179,7 @@ export default function BenchRun({ loaderData, actionData }: Route.ComponentProp
         ))}
       </div>
 
-      {plan.uncovered.length > 0 ? (
-        <details className={cardVariants({ className: "mt-6 text-base" })}>
-          <summary className="flex min-h-11 cursor-pointer items-center font-semibold">
-            Not checked by this procedure ({plan.uncovered.length})
-          </summary>
-          <ul className="mt-2 list-disc space-y-1 pl-5">
-            {plan.uncovered.map((u) => (
-              <li key={u.item}>
-                <span className="font-mono">{u.item}</span>: {u.reason}
-              </li>
-            ))}
-          </ul>
-        </details>
-      ) : null}
+      <NotChecked uncovered={plan.uncovered} />
 
       <p className="mt-6 print:hidden">
         <a
@@ -252,23 +191,7 @@ export default function BenchRun({ loaderData, actionData }: Route.ComponentProp
         </a>
       </p>
 
-      {canRecord ? (
-        <Form method="post" className={cardVariants({ className: "mt-6 print:hidden" })}>
-          <input type="hidden" name="intent" value="complete" />
-          <p className="text-base text-ink-700">
-            Completing signs the run with your name and the time, and fixes its results: they can no longer change.
-            {done < steps.length ? ` ${steps.length - done} step${steps.length - done > 1 ? "s have" : " has"} no result yet.` : ""}
-          </p>
-          {completeError ? (
-            <div className="mt-2">
-              <Notice tone="error">{completeError}</Notice>
-            </div>
-          ) : null}
-          <Button type="submit" className="mt-3 min-h-12 w-full text-base" disabled={busy || done < steps.length}>
-            Complete and sign
-          </Button>
-        </Form>
-      ) : null}
+      {canRecord ? <CompleteRunForm done={done} total={steps.length} busy={busy} error={completeError ?? null} /> : null}
     </div>
   );
 }

@@ -15,7 +15,9 @@ import { designPath, editorPath } from "~/designs/paths";
 import { HashPrefix, Section, When } from "~/designs/design-bits";
 import { PageHeader } from "~/components/page-header";
 import { SafetyNote } from "~/components/safety-note";
-import { buttonClass, Notice } from "~/components/ui/form";
+import { Notice } from "~/components/ui/form";
+import { buttonVariants } from "~/components/ui/button";
+import { ButtonLink } from "~/components/ui/link";
 import { cardVariants } from "~/components/ui/card";
 import { VerdictSummary } from "~/components/truth-table/verdict-summary";
 import { RefusedNotice } from "~/components/refused-mark";
@@ -26,7 +28,7 @@ import { dispositionSchema } from "~/reviews/dispositions";
 import { ReadableSummary, type DispositionView } from "~/components/review/readable-summary";
 import { ChangesView } from "~/components/review/changes-view";
 import { CommentForm, CommentsView, type ActionResult } from "~/components/review/comments";
-import { DecisionForm, DecisionsView, RequestForm } from "~/components/review/decisions";
+import { DecisionForm, DecisionsView, RequestForm, RequestsView } from "~/components/review/decisions";
 
 const compareParam = (request: Request) => {
   const raw = new URL(request.url).searchParams.get("compare");
@@ -171,15 +173,15 @@ export default function Review({ loaderData }: Route.ComponentProps) {
         }
         actions={
           <>
-            <Link to={truthTablePath(slug, design.id, revision.number)} className={buttonClass("secondary")}>
+            <ButtonLink to={truthTablePath(slug, design.id, revision.number)} variant="secondary">
               Truth table
-            </Link>
-            <a href={reportPath(slug, design.id, revision.number)} className={buttonClass("secondary")}>
+            </ButtonLink>
+            <a href={reportPath(slug, design.id, revision.number)} className={buttonVariants({ variant: "secondary" })}>
               Report
             </a>
-            <Link to={editorPath(slug, design.id, revision.number)} className={buttonClass("secondary")}>
+            <ButtonLink to={editorPath(slug, design.id, revision.number)} variant="secondary">
               Canvas
-            </Link>
+            </ButtonLink>
           </>
         }
       />
@@ -263,18 +265,7 @@ export default function Review({ loaderData }: Route.ComponentProps) {
             )}
           </Section>
           <Section title="Reviewers asked">
-            {requests.length === 0 ? (
-              <p className="text-sm text-ink-600">Nobody has been asked to review this revision yet.</p>
-            ) : (
-              <ul className="space-y-1 text-sm" aria-label="Reviewers asked">
-                {requests.map((r) => (
-                  <li key={r.id}>
-                    <span className="font-medium">{r.reviewerName}</span>, <When iso={r.requestedAt} />
-                    {r.note ? <span className="block text-ink-600">“{r.note}”</span> : null}
-                  </li>
-                ))}
-              </ul>
-            )}
+            <RequestsView requests={requests} />
             {can.request ? <RequestForm result={result} reviewers={loaderData.reviewers} /> : null}
           </Section>
           <SafetyNote />

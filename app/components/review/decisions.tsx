@@ -1,5 +1,5 @@
 // The review's decision side: the decisions taken (with the content hash each signed), the form
-// that approves or requests changes, and the form that asks reviewers for a review.
+// that approves or requests changes, the reviewers asked and the form that asks them for a review.
 import { Form, useNavigation } from "react-router";
 import { VERDICT_LABELS, type ReviewVerdict } from "~/reviews/status";
 import { HashPrefix, When } from "~/designs/design-bits";
@@ -104,5 +104,24 @@ export function RequestForm({
         {busy ? "Sending…" : "Request review"}
       </Button>
     </Form>
+  );
+}
+
+/** The reviewers asked for a review of this revision, when, and the note that asked. */
+export function RequestsView({
+  requests,
+}: {
+  requests: Array<{ id: string; reviewerName: string; requestedAt: string; note: string | null }>;
+}) {
+  if (requests.length === 0) return <p className="text-sm text-ink-600">Nobody has been asked to review this revision yet.</p>;
+  return (
+    <ul className="space-y-1 text-sm" aria-label="Reviewers asked">
+      {requests.map((r) => (
+        <li key={r.id}>
+          <span className="font-medium">{r.reviewerName}</span>, <When iso={r.requestedAt} />
+          {r.note ? <span className="block text-ink-600">“{r.note}”</span> : null}
+        </li>
+      ))}
+    </ul>
   );
 }
