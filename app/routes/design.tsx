@@ -17,6 +17,7 @@ import { reviewPath, truthTablePath } from "~/reviews/paths";
 import { labelsOf } from "~/reviews/revision-view.server";
 import { ReviewStatusBadge } from "~/components/truth-table/review-status";
 import { ButtonLink } from "~/components/ui/link";
+import { Table, TableScroll, TBody, Td, Th, THead } from "~/components/ui/table";
 import { cardVariants } from "~/components/ui/card";
 
 export async function loader({ params, context }: Route.LoaderArgs) {
@@ -202,65 +203,53 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
           {history.length === 0 ? (
             <p className="text-sm text-ink-600">No revisions yet.</p>
           ) : (
-            <div className="relative -mx-5 overflow-x-auto">
-              <table className="min-w-full text-left text-sm">
-                <thead className="border-b border-ink-200 text-xs uppercase tracking-wide text-ink-500">
+            <TableScroll className="-mx-5">
+              <Table>
+                <THead>
                   <tr>
-                    <th scope="col" className="px-5 py-2 font-medium">
-                      Revision
-                    </th>
-                    <th scope="col" className="px-3 py-2 font-medium">
-                      Author
-                    </th>
-                    <th scope="col" className="px-3 py-2 font-medium">
-                      Saved
-                    </th>
-                    <th scope="col" className="px-3 py-2 font-medium">
-                      Message
-                    </th>
-                    <th scope="col" className="px-3 py-2 font-medium">
-                      Hash
-                    </th>
-                    <th scope="col" className="px-3 py-2 font-medium">
-                      Review
-                    </th>
-                    <th scope="col" className="px-5 py-2 font-medium">
+                    <Th pad="edge">Revision</Th>
+                    <Th>Author</Th>
+                    <Th>Saved</Th>
+                    <Th>Message</Th>
+                    <Th>Hash</Th>
+                    <Th>Review</Th>
+                    <Th pad="edge">
                       <span className="sr-only">Open</span>
-                    </th>
+                    </Th>
                   </tr>
-                </thead>
-                <tbody className="divide-y divide-ink-100">
+                </THead>
+                <TBody>
                   {history.map((h) => (
                     <tr key={h.number}>
-                      <td className="px-5 py-2 font-semibold">
+                      <Td pad="edge" className="font-semibold">
                         {h.number}
                         {h.refused ? <RefusedBadge reasons={h.refused} className="ml-2" /> : null}
-                      </td>
-                      <td className="px-3 py-2">{h.authorName}</td>
-                      <td className="whitespace-nowrap px-3 py-2">
+                      </Td>
+                      <Td>{h.authorName}</Td>
+                      <Td className="whitespace-nowrap">
                         <When iso={h.createdAt} />
-                      </td>
-                      <td className="min-w-48 px-3 py-2 text-ink-700 [overflow-wrap:anywhere]">
+                      </Td>
+                      <Td className="min-w-48 text-ink-700 [overflow-wrap:anywhere]">
                         {h.message || <span className="text-ink-400">—</span>}
-                      </td>
-                      <td className="px-3 py-2">
+                      </Td>
+                      <Td>
                         <HashPrefix hash={h.contentHash} />
-                      </td>
-                      <td className="whitespace-nowrap px-3 py-2">
+                      </Td>
+                      <Td className="whitespace-nowrap">
                         <Link to={reviewPath(slug, design.id, h.number)} aria-label={`Review of revision ${h.number}`}>
                           <ReviewStatusBadge status={h.review} />
                         </Link>
-                      </td>
-                      <td className="whitespace-nowrap px-5 py-2">
+                      </Td>
+                      <Td pad="edge" className="whitespace-nowrap">
                         <Link to={editorPath(slug, design.id, h.number)} className="text-copper-700 underline">
                           View<span className="sr-only"> revision {h.number}</span>
                         </Link>
-                      </td>
+                      </Td>
                     </tr>
                   ))}
-                </tbody>
-              </table>
-            </div>
+                </TBody>
+              </Table>
+            </TableScroll>
           )}
         </Section>
       </div>

@@ -21,6 +21,7 @@ import { RecordFormFields } from "~/components/controller-record/record-form";
 import { DerivedValuesTable, FindingList } from "~/components/controller-record/record-status";
 import { cardVariants } from "~/components/ui/card";
 import { Button } from "~/components/ui/button";
+import { Table, TBody, Td, Th, THead } from "~/components/ui/table";
 
 const compareQuery = z.object({
   from: z.coerce.number().int().min(1).optional(),
@@ -233,27 +234,31 @@ export default function VehicleController({ loaderData, actionData }: Route.Comp
               {comparison.changes.length === 0 ? (
                 <p className="mt-2 text-sm text-ink-600">No setting differs.</p>
               ) : (
-                <table className="mt-2 w-full text-left text-sm">
-                  <thead>
-                    <tr className="border-b border-ink-200 text-ink-600">
-                      <th className="py-1 pr-3 font-medium">Setting</th>
-                      <th className="py-1 pr-3 font-medium">Version {comparison.from}</th>
-                      <th className="py-1 font-medium">Version {comparison.to}</th>
+                <Table className="mt-2">
+                  <THead>
+                    <tr>
+                      <Th pad="list">Setting</Th>
+                      <Th pad="list">Version {comparison.from}</Th>
+                      <Th pad="list">Version {comparison.to}</Th>
                     </tr>
-                  </thead>
-                  <tbody>
+                  </THead>
+                  <TBody>
                     {comparison.changes.map((c) => (
-                      <tr key={c.path} className="border-b border-ink-100 align-top">
-                        <th scope="row" className="py-1 pr-3 font-medium">
+                      <tr key={c.path} className="align-top">
+                        <Th scope="row" pad="list">
                           {c.label}
                           {c.unit ? <span className="font-normal text-ink-500"> ({c.unit})</span> : null}
-                        </th>
-                        <td className="py-1 pr-3 tabular-nums">{c.before}</td>
-                        <td className="py-1 tabular-nums">{c.after}</td>
+                        </Th>
+                        <Td pad="list" className="tabular-nums">
+                          {c.before}
+                        </Td>
+                        <Td pad="list" className="tabular-nums">
+                          {c.after}
+                        </Td>
                       </tr>
                     ))}
-                  </tbody>
-                </table>
+                  </TBody>
+                </Table>
               )}
             </div>
           ) : null}

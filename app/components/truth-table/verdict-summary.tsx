@@ -2,6 +2,7 @@
 // result with its counterexample, and the single contact faults that defeat a rule.
 import type { Verdict } from "~/engine";
 import { CommonCauseNote } from "~/components/common-cause-note";
+import { Table, TBody, Td, Th, THead } from "~/components/ui/table";
 
 export type TraceStepView = { step: number; states: Record<string, string>; drive: boolean; restart: boolean; armed: string[] };
 
@@ -35,44 +36,42 @@ export function VerdictSummary({
         <strong>{verdict.ok ? "Every rule holds." : "Some rules fail."}</strong> {verdict.rows.toLocaleString("en-US")} truth-table rows;
         the drive is on in {verdict.driveRows.toLocaleString("en-US")}.
       </p>
-      <table className="min-w-full text-left">
-        <thead className="border-b border-ink-200 text-xs uppercase tracking-wide text-ink-500">
+      <Table>
+        <THead>
           <tr>
-            <th scope="col" className="py-1 pr-3 font-medium">
-              Rule
-            </th>
-            <th scope="col" className="py-1 pr-3 font-medium">
-              Unsafe rows
-            </th>
-            <th scope="col" className="py-1 pr-3 font-medium">
-              Violating rows
-            </th>
-            <th scope="col" className="py-1 font-medium">
-              Result
-            </th>
+            <Th pad="list">Rule</Th>
+            <Th pad="list">Unsafe rows</Th>
+            <Th pad="list">Violating rows</Th>
+            <Th pad="list">Result</Th>
           </tr>
-        </thead>
-        <tbody className="divide-y divide-ink-100">
+        </THead>
+        <TBody>
           {verdict.rules.map((r) => (
             <tr key={r.id}>
-              <td className="py-1 pr-3">
+              <Td pad="list">
                 {ruleLabels[r.id] ?? r.id} <code className="text-xs text-ink-500">{r.id}</code>
-              </td>
+              </Td>
               {"unsafeRows" in r ? (
                 <>
-                  <td className="py-1 pr-3 tabular-nums">{r.unsafeRows.toLocaleString("en-US")}</td>
-                  <td className="py-1 pr-3 tabular-nums">{r.violatingRows.toLocaleString("en-US")}</td>
+                  <Td pad="list" className="tabular-nums">
+                    {r.unsafeRows.toLocaleString("en-US")}
+                  </Td>
+                  <Td pad="list" className="tabular-nums">
+                    {r.violatingRows.toLocaleString("en-US")}
+                  </Td>
                 </>
               ) : (
-                <td className="py-1 pr-3 text-ink-600" colSpan={2}>
+                <Td pad="list" className="text-ink-600" colSpan={2}>
                   no-restart: every sequence of steps
-                </td>
+                </Td>
               )}
-              <td className="whitespace-nowrap py-1">{ok(r.holds)}</td>
+              <Td pad="list" className="whitespace-nowrap">
+                {ok(r.holds)}
+              </Td>
             </tr>
           ))}
-        </tbody>
-      </table>
+        </TBody>
+      </Table>
       {noRestart.length === 0 ? <p className="text-ink-600">No no-restart rule in this design.</p> : null}
       {noRestart.map((r) =>
         r.holds ? (
