@@ -5,8 +5,16 @@ import type { HTMLAttributes, TdHTMLAttributes, ThHTMLAttributes } from "react";
 import { cva, type VariantProps } from "class-variance-authority";
 import { cn } from "./cn";
 
-export function Table({ className, ...rest }: HTMLAttributes<HTMLTableElement>) {
-  return <table className={cn("min-w-full text-left text-sm", className)} {...rest} />;
+export const tableVariants = cva("min-w-full text-left", {
+  variants: {
+    // paper: the report's type and leading, as set around the table.
+    look: { screen: "text-sm", paper: "" },
+  },
+  defaultVariants: { look: "screen" },
+});
+
+export function Table({ look, className, ...rest }: HTMLAttributes<HTMLTableElement> & VariantProps<typeof tableVariants>) {
+  return <table className={tableVariants({ look, className })} {...rest} />;
 }
 
 /** Lets a wide table scroll sideways inside its card instead of widening the page. */

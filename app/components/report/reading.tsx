@@ -1,16 +1,15 @@
 // The printed report's reading of a revision of any size: the drive rows and each rule with its
 // reasons as groups in words, each defeating single fault with the rows it breaks and its
-// disposition, the changes since the compared revision, and the review comments.
+// disposition, and the changes since the compared revision.
 import type { GroupsDocument } from "~/engine";
 import type { Readable } from "~/reviews/readable";
 import { groupLine, REASON_WORDS, type ConditionWords } from "~/reviews/group-words";
 import { DISPOSITION_LABELS, faultKey, type Disposition } from "~/reviews/dispositions";
 import type { Comparison } from "~/reviews/revision-view.server";
-import { verdictChanges } from "./changes-view";
+import { verdictChanges } from "~/components/review/changes-view";
+import { h2, iso } from "./paper";
 
 const n = (x: number) => x.toLocaleString("en-US");
-const h2 = "mt-8 break-after-avoid border-b-2 border-ink-800 pb-1 text-lg font-semibold";
-const iso = (s: string) => `${s.slice(0, 10)} ${s.slice(11, 16)} UTC`;
 
 function Groups({ conditions, doc }: { conditions: ConditionWords[]; doc: GroupsDocument }) {
   if (doc.rows === 0) return <p className="text-ink-600">No rows.</p>;
