@@ -6,6 +6,7 @@
 // The report prints the plain drawing, wide or stacked, whichever fits its page at 6 pt (decision 166).
 import type { Design, RowView } from "~/engine";
 import { kindColours } from "~/lib/kind-colours";
+import { cardVariants } from "~/components/ui/card";
 
 type Kind = "supply" | "contact" | "junction" | "input";
 type Box = { id: string; type: Kind; label: string; x: number; y: number; w: number; h: number; detail: string };
@@ -196,7 +197,7 @@ export function WiringDiagram({ design, row, highlight = [], suspects = [], titl
   );
   if (!row) return wide;
   return (
-    <figure className="rounded-lg border border-ink-200 bg-white p-2">
+    <figure className={cardVariants({ padding: "xs" })}>
       {phone ? (
         <>
           <div className="hidden overflow-x-auto sm:block">{wide}</div>
