@@ -1,6 +1,7 @@
 // Safety rules: require-drive rules ("must drive when", a visual predicate), inhibit rules (a visual
 // predicate and what it forbids) and the no-restart rule. A rule whose situation matches no row is
 // shown at the rule by the live check (the engine reports it at rules[i].when).
+import type { ReactNode } from "react";
 import type { InhibitRule, RequireDriveRule, Rule } from "../../engine";
 import { useEditor, useEditorStore } from "../store";
 import { CommitText, FieldProblems, Section, Select, Small, problemsUnder, useValidation } from "./common";
@@ -156,7 +157,22 @@ export function RulesPanel() {
   );
 }
 
-function RequireDriveRuleForm({
+type RuleFormProps<R> = {
+  index: number;
+  rule: R;
+  editable: boolean;
+  conditions: Parameters<typeof PredicateEditor>[0]["conditions"];
+  onChange: (r: R) => void;
+  onRename: (id: string) => string | null;
+  onRemove: () => void;
+  problems: ReturnType<typeof problemsUnder>;
+};
+
+/**
+ * What every rule form has: its box, the id and label, the situation it speaks of, its problems and
+ * its remove button; `children` is what the rule type adds after the situation.
+ */
+function RuleForm<R extends RequireDriveRule | InhibitRule>({
   index,
   rule,
   editable,
@@ -165,19 +181,13 @@ function RequireDriveRuleForm({
   onRename,
   onRemove,
   problems,
-}: {
-  index: number;
-  rule: RequireDriveRule;
-  editable: boolean;
-  conditions: Parameters<typeof PredicateEditor>[0]["conditions"];
-  onChange: (r: RequireDriveRule) => void;
-  onRename: (id: string) => string | null;
-  onRemove: () => void;
-  problems: ReturnType<typeof problemsUnder>;
-}) {
+  heading,
+  edge,
+  children,
+}: RuleFormProps<R> & { heading?: string; edge: "line" | "proven"; children: ReactNode }) {
   return (
     <fieldset
-      className="space-y-2 rounded border border-moss-600/40 bg-white p-2"
+      className={cardVariants({ padding: "xs", edge, className: "space-y-2" })}
       aria-label={`Rule ${rule.id}`}
       data-testid={`rule-${rule.id}`}
     >
@@ -189,19 +199,27 @@ function RequireDriveRuleForm({
         onLabel={(label) => onChange({ ...rule, label })}
       />
       <PredicateEditor
-        heading="Must drive when"
+        heading={heading}
         value={rule.when ?? { always: true }}
         onChange={(when) => onChange({ ...rule, when })}
         conditions={conditions}
         disabled={!editable}
         path={`rules[${index}].when`}
       />
-      <p className="text-xs text-ink-600">In every row where this holds, the drive must be on.</p>
+      {children}
       <FieldProblems problems={problems} />
       <Small tone="danger" disabled={!editable} onClick={onRemove}>
         Remove rule {rule.id}
       </Small>
     </fieldset>
+  );
+}
+
+function RequireDriveRuleForm(props: RuleFormProps<RequireDriveRule>) {
+  return (
+    <RuleForm {...props} heading="Must drive when" edge="proven">
+      <p className="text-xs text-ink-600">In every row where this holds, the drive must be on.</p>
+    </RuleForm>
   );
 }
 
@@ -235,49 +253,12 @@ function RuleIdAndLabel({
   );
 }
 
-function InhibitRuleForm({
-  index,
-  rule,
-  editable,
-  conditions,
-  inputs,
-  onChange,
-  onRename,
-  onRemove,
-  problems,
-}: {
-  index: number;
-  rule: InhibitRule;
-  editable: boolean;
-  conditions: Parameters<typeof PredicateEditor>[0]["conditions"];
-  inputs: string[];
-  onChange: (r: InhibitRule) => void;
-  onRename: (id: string) => string | null;
-  onRemove: () => void;
-  problems: ReturnType<typeof problemsUnder>;
-}) {
+function InhibitRuleForm({ inputs, ...props }: RuleFormProps<InhibitRule> & { inputs: string[] }) {
+  const { rule, editable, onChange } = props;
   const forbid =
     rule.forbid === "drive" ? "drive" : typeof rule.forbid === "object" && rule.forbid ? `energized:${rule.forbid.energized}` : "drive";
   return (
-    <fieldset
-      className={cardVariants({ padding: "xs", className: "space-y-2" })}
-      aria-label={`Rule ${rule.id}`}
-      data-testid={`rule-${rule.id}`}
-    >
-      <RuleIdAndLabel
-        rule={rule}
-        editable={editable}
-        idInvalid={problems.some((p) => p.path === `rules[${index}].id`)}
-        onRename={onRename}
-        onLabel={(label) => onChange({ ...rule, label })}
-      />
-      <PredicateEditor
-        value={rule.when ?? { always: true }}
-        onChange={(when) => onChange({ ...rule, when })}
-        conditions={conditions}
-        disabled={!editable}
-        path={`rules[${index}].when`}
-      />
+    <RuleForm {...props} edge="line">
       <Select
         label="Then forbid"
         value={forbid}
@@ -296,10 +277,6 @@ function InhibitRuleForm({
           <option value={forbid}>{forbid.slice(10)} energized (missing)</option>
         ) : null}
       </Select>
-      <FieldProblems problems={problems} />
-      <Small tone="danger" disabled={!editable} onClick={onRemove}>
-        Remove rule {rule.id}
-      </Small>
-    </fieldset>
+    </RuleForm>
   );
 }
