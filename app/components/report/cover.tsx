@@ -4,7 +4,8 @@ import { RefusedNotice } from "~/components/refused-mark";
 import { Logo } from "~/components/logo";
 import { REFUSED_MARK } from "~/designs/standing-words";
 import { REVIEW_STATUS_LABELS, VERDICT_LABELS, type ReviewStatus, type ReviewVerdict } from "~/reviews/status";
-import { Table, TBody, Td, Th, THead } from "~/components/ui/table";
+import { Table, TBody, Td } from "~/components/ui/table";
+import { PaperHead } from "./paper-head";
 import { ReportCaution } from "./caution";
 import { h2, iso } from "./paper";
 
@@ -71,25 +72,7 @@ export function ReportCover({
         <p className="mt-2 text-ink-600">No reviewer has decided on this revision.</p>
       ) : (
         <Table look="paper" className="mt-2 w-full" data-testid="signoffs">
-          <THead look="paper">
-            <tr>
-              <Th pad="paper" weight="bold">
-                Reviewer
-              </Th>
-              <Th pad="paper" weight="bold">
-                Decision
-              </Th>
-              <Th pad="paper" weight="bold">
-                When
-              </Th>
-              <Th pad="paper" weight="bold">
-                Content hash signed
-              </Th>
-              <Th pad="paper" weight="bold">
-                Comment
-              </Th>
-            </tr>
-          </THead>
+          <PaperHead columns={["Reviewer", "Decision", "When", "Content hash signed", "Comment"]} />
           <TBody divided={false}>
             {decisions.map((x) => (
               <tr key={x.id} className="border-t border-ink-200" data-testid="signoff">

@@ -2,7 +2,8 @@
 // controller's settings, then its rules in words with the engine's results.
 import type { Design, Verdict } from "~/engine";
 import { VerdictSummary, type TraceStepView } from "~/components/truth-table/verdict-summary";
-import { Table, TBody, Td, Th, THead } from "~/components/ui/table";
+import { Table, TBody, Td } from "~/components/ui/table";
+import { PaperHead } from "./paper-head";
 import { h2 } from "./paper";
 import { ruleText } from "./rule-text";
 
@@ -11,19 +12,7 @@ export function ReportConditions({ doc }: { doc: Design }) {
     <section aria-label="Conditions and contacts">
       <h2 className={h2}>Conditions and contacts</h2>
       <Table look="paper" className="mt-2 w-full">
-        <THead look="paper">
-          <tr>
-            <Th pad="paper" weight="bold">
-              Condition
-            </Th>
-            <Th pad="paper" weight="bold">
-              States
-            </Th>
-            <Th pad="paper" weight="bold">
-              Contacts (closed in; part)
-            </Th>
-          </tr>
-        </THead>
+        <PaperHead columns={["Condition", "States", "Contacts (closed in; part)"]} />
         <TBody divided={false}>
           {doc.conditions.map((cond) => (
             <tr key={cond.id} className="border-t border-ink-200">

@@ -3,7 +3,8 @@
 import type { Design } from "~/engine";
 import type { PaperDiagram } from "~/reviews/paper-diagram";
 import { WiringDiagram } from "~/components/wiring-diagram";
-import { Table, TBody, Td, Th, THead } from "~/components/ui/table";
+import { Table, TBody, Td } from "~/components/ui/table";
+import { PaperHead } from "./paper-head";
 import { h2 } from "./paper";
 
 export function ReportWiring({
@@ -42,22 +43,7 @@ export function ReportWiring({
       )}
       <h2 className={h2}>Wiring list</h2>
       <Table look="paper" className="mt-2 w-full" data-testid="wiring-list">
-        <THead look="paper">
-          <tr>
-            <Th pad="paper" weight="bold">
-              #
-            </Th>
-            <Th pad="paper" weight="bold">
-              From terminal
-            </Th>
-            <Th pad="paper" weight="bold">
-              To terminal
-            </Th>
-            <Th pad="paper" weight="bold">
-              Net
-            </Th>
-          </tr>
-        </THead>
+        <PaperHead columns={["#", "From terminal", "To terminal", "Net"]} />
         <TBody divided={false} className="font-mono text-xs">
           {wiring.map((w, i) => (
             <tr key={i} className="border-t border-ink-100">
