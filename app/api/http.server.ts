@@ -8,6 +8,7 @@ import { withRateLimit } from "~/api/api-rate-limit.server";
 import type { ErrorAnswer } from "./answers";
 import type { Endpoint, ReplyAt, StatusOf } from "./endpoints";
 import type { FieldProblem } from "~/designs/types";
+import { readCapped } from "~/lib/read-body.server";
 
 /** The body an endpoint's answer of a status carries (before JSON). */
 export type BodyOf<E extends Endpoint, S extends StatusOf<E>> = z.input<ReplyAt<E, S>["schema"]>;
@@ -88,7 +89,7 @@ export async function readJsonBody(request: Request, maxBytes: number): Promise<
   const tooLarge = () => apiError(413, "too_large", `The request body is larger than ${maxBytes.toLocaleString("en-US")} bytes.`);
   const declared = Number(request.headers.get("content-length"));
   if (Number.isFinite(declared) && declared > maxBytes) throw tooLarge();
-  const bytes = new Uint8Array(await readLimited(request, maxBytes, tooLarge));
+  const bytes = request.body ? await readCapped(request.body.getReader(), maxBytes, tooLarge) : new Uint8Array(0);
   let text: string;
   try {
     text = new TextDecoder("utf-8", { fatal: true }).decode(bytes);
@@ -102,40 +103,4 @@ export async function readJsonBody(request: Request, maxBytes: number): Promise<
     const detail = e instanceof Error ? e.message : "parse error";
     throw apiError(400, "invalid_json", `The request body is not valid JSON (${detail}).`);
   }
-}
-
-async function readLimited(request: Request, maxBytes: number, tooLarge: () => Response): Promise<ArrayBuffer> {
-  if (!request.body) return new ArrayBuffer(0);
-  const reader = request.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    total += value.byteLength;
-    if (total > maxBytes) {
-      // Read on (and drop) what the client is still sending, up to a budget, so that it reads the 413
-      // instead of a reset; a client that sends more than that is cut off.
-      let seen = total;
-      try {
-        while (seen < 4 * maxBytes) {
-          const more = await reader.read();
-          if (more.done) break;
-          seen += more.value.byteLength;
-        }
-      } catch {
-        // The client went away.
-      }
-      await reader.cancel().catch(() => {});
-      throw tooLarge();
-    }
-    chunks.push(value);
-  }
-  const out = new Uint8Array(total);
-  let at = 0;
-  for (const c of chunks) {
-    out.set(c, at);
-    at += c.byteLength;
-  }
-  return out.buffer;
 }

@@ -7,6 +7,7 @@ import { recordAudit } from "~/audit/audit.server";
 import { deleteObject, getObject, putObject } from "./storage.server";
 import { create as contentDisposition } from "content-disposition";
 import { MAX_UPLOAD_BYTES } from "~/lib/body-limits";
+import { drainBody, readCapped } from "~/lib/read-body.server";
 import { EMPTY_FILE, refusalOf, type FileType } from "./kinds";
 
 export class UploadError extends Error {
@@ -19,27 +20,8 @@ export class UploadError extends Error {
   }
 }
 
-/**
- * Reads a multipart body with a hard size cap, so a huge upload is refused before it is buffered.
- * The cap covers the whole request (file plus a little form overhead).
- */
+/** The refusal of an upload over the limit. */
 const tooLarge = () => new UploadError("file", `The file is too large: the limit is ${MAX_UPLOAD_BYTES / 1024 / 1024} MB.`, 413);
-
-/** Reads and throws away what is left of a refused body (up to a bound), so the client can read our answer. */
-async function drain(reader: ReadableStreamDefaultReader<Uint8Array>, budget: number) {
-  let seen = 0;
-  try {
-    for (;;) {
-      const { done, value } = await reader.read();
-      if (done) return;
-      seen += value.byteLength;
-      if (seen > budget) break;
-    }
-  } catch {
-    // The client went away: nothing to answer.
-  }
-  await reader.cancel().catch(() => {});
-}
 
 /**
  * Reads a multipart body with a hard size cap, so a huge upload is refused without being kept.
@@ -50,32 +32,15 @@ export async function readCappedFormData(request: Request, cap = MAX_UPLOAD_BYTE
   const reader = request.body.getReader();
   const declared = Number(request.headers.get("content-length") ?? "0");
   if (declared > cap) {
-    await drain(reader, 4 * cap);
+    await drainBody(reader, 4 * cap);
     throw tooLarge();
   }
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  for (;;) {
-    let result: ReadableStreamReadResult<Uint8Array>;
-    try {
-      result = await reader.read();
-    } catch {
-      throw new UploadError("file", "The upload was interrupted. Nothing was saved; try again.");
-    }
-    if (result.done) break;
-    total += result.value.byteLength;
-    if (total > cap) {
-      await drain(reader, 4 * cap);
-      throw tooLarge();
-    }
-    chunks.push(result.value);
-  }
-  const body = new Uint8Array(total);
-  let at = 0;
-  for (const c of chunks) {
-    body.set(c, at);
-    at += c.byteLength;
-  }
+  const body = await readCapped(
+    reader,
+    cap,
+    tooLarge,
+    () => new UploadError("file", "The upload was interrupted. Nothing was saved; try again."),
+  );
   try {
     return await new Request(request.url, { method: "POST", headers: request.headers, body }).formData();
   } catch {
