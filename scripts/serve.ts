@@ -59,17 +59,17 @@ async function runPrimary() {
     serveWorker(worker, () => Object.values(cluster.workers ?? {}).filter((w) => w !== undefined), answers);
   };
   for (let i = 0; i < processes; i++) fork();
-  // `announced`: some process has served, so later ends are replaced rather than fatal. The
+  // `someServed`: a process has listened, so later ends are replaced rather than fatal. The
   // "serving" line waits for every process: until then the port rests on fewer, and if those end
   // before the others listen, it is closed for that moment (node:cluster's shared handle).
-  let announced = false;
-  let allServed = false;
+  let someServed = false;
+  let allListening = false;
   const listening = new Set<number>();
   cluster.on("listening", (worker) => {
-    announced = true;
+    someServed = true;
     listening.add(worker.id);
-    if (!allServed && listening.size === processes) {
-      allServed = true;
+    if (!allListening && listening.size === processes) {
+      allListening = true;
       console.log(`chainproof: serving on http://${host}:${port} (${processes} processes)`);
     }
   });
@@ -85,7 +85,7 @@ async function runPrimary() {
       if (bornAt.size === 0) process.exit(exitCode);
       return;
     }
-    if (!announced) {
+    if (!someServed) {
       console.error(`chainproof: a server process ended before serving (${signal ?? code}); stopping`);
       exitCode = 1;
       stop();
