@@ -2,6 +2,7 @@
 // and end-to-end tests in Debian's Chromium. Prints one closing line "N passed, N failed".
 import { randomBytes } from "node:crypto";
 import { existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";
+import { stripVTControlCharacters } from "node:util";
 import { bringUp, run, say } from "./stack";
 
 const results = ".data/test-results";
@@ -11,6 +12,14 @@ mkdirSync(results, { recursive: true });
 type Tally = { passed: number; failed: number; skipped: number };
 const tally: Tally = { passed: 0, failed: 0, skipped: 0 };
 const failures: string[] = [];
+// Each failed test with the head of its message, printed again at the very end: CI keeps only the tail of the output.
+const failedTests: string[] = [];
+const head = (message: string) =>
+  stripVTControlCharacters(message)
+    .split("\n")
+    .filter((line) => !/^\s*at .*(node_modules|node:internal|<anonymous>)/.test(line))
+    .slice(0, 20)
+    .join("\n    ");
 
 function addVitest(file: string, label: string, exit: number) {
   if (!existsSync(file)) {
@@ -24,7 +33,14 @@ function addVitest(file: string, label: string, exit: number) {
     numPendingTests: number;
     numTodoTests: number;
     numFailedTestSuites: number;
+    testResults: { name: string; message?: string; assertionResults: { fullName: string; status: string; failureMessages: string[] }[] }[];
   };
+  for (const suite of r.testResults) {
+    const where = suite.name.replace(`${process.cwd()}/`, "");
+    const failed = suite.assertionResults.filter((t) => t.status === "failed");
+    for (const t of failed) failedTests.push(`${label} · ${where} › ${t.fullName}\n    ${head(t.failureMessages.join("\n"))}`);
+    if (failed.length === 0 && suite.message) failedTests.push(`${label} · ${where}\n    ${head(suite.message)}`);
+  }
   tally.passed += r.numPassedTests;
   tally.failed += r.numFailedTests + (r.numFailedTests === 0 && exit !== 0 ? 1 : 0);
   tally.skipped += r.numPendingTests + r.numTodoTests;
@@ -37,7 +53,24 @@ function addPlaywright(file: string, exit: number) {
     failures.push(`e2e: no report (exit ${exit})`);
     return;
   }
-  const r = JSON.parse(readFileSync(file, "utf8")) as { stats: { expected: number; unexpected: number; skipped: number; flaky: number } };
+  type Spec = { title: string; file: string; line: number; tests: { status: string; results: { error?: { message?: string } }[] }[] };
+  type Suite = { specs?: Spec[]; suites?: Suite[] };
+  const r = JSON.parse(readFileSync(file, "utf8")) as {
+    stats: { expected: number; unexpected: number; skipped: number; flaky: number };
+    suites: Suite[];
+  };
+  const walk = (suites: Suite[]) => {
+    for (const suite of suites) {
+      for (const spec of suite.specs ?? []) {
+        for (const t of spec.tests.filter((x) => x.status === "unexpected")) {
+          const message = t.results.map((x) => x.error?.message ?? "").join("\n");
+          failedTests.push(`e2e · ${spec.file}:${spec.line} › ${spec.title}\n    ${head(message)}`);
+        }
+      }
+      walk(suite.suites ?? []);
+    }
+  };
+  walk(r.suites ?? []);
   tally.passed += r.stats.expected + r.stats.flaky;
   tally.failed += r.stats.unexpected + (r.stats.unexpected === 0 && exit !== 0 ? 1 : 0);
   tally.skipped += r.stats.skipped;
@@ -170,6 +203,7 @@ async function withStack() {
 }
 
 const seconds = Math.round((Date.now() - started) / 1000);
+if (failedTests.length) console.log(`\nFailed tests:\n${failedTests.map((t) => `  ${t}`).join("\n")}`);
 if (failures.length) console.log(`\nFailed: ${failures.join("; ")}`);
 console.log(`\nAll suites finished in ${seconds} s.`);
 console.log(`${tally.passed} passed, ${tally.failed} failed, ${tally.skipped} skipped`);
