@@ -13,7 +13,10 @@ export default defineConfig({
         test: {
           name: "unit",
           include: ["test/unit/**/*.test.{ts,tsx}", "app/**/*.test.{ts,tsx}"],
+          setupFiles: ["test/support/dom-timeouts.ts"],
           environment: "node",
+          // A test's own time is never a measure here (npm run bench is): room for a loaded CI machine.
+          testTimeout: 30_000,
         },
       },
       {
