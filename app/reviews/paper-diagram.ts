@@ -2,7 +2,7 @@
 // phone's one-column (stacked) one, each scaled to fit one page's printable box, and printed only if its
 // smallest type stays at or above 6 pt. Otherwise the wiring list alone (it always prints).
 import type { Design } from "~/engine";
-import { SMALLEST_TYPE, plainDrawingSize } from "~/components/wiring-diagram";
+import { SMALLEST_TYPE, plainDrawingSize } from "~/lib/wiring-geometry";
 
 const PX_PER_MM = 96 / 25.4;
 /** Paper sizes the report offers, in mm: A4 (ISO 216) and US Letter (8.5 × 11 in). */
