@@ -1,4 +1,4 @@
-// Designs of a workspace: the design itself, its numbered revisions (immutable, always proven)
+// Designs of a workspace: the design itself (archived or not), its numbered revisions (immutable, always proven)
 // and one working copy per design (the draft, not proven, guarded by a version number).
 import { check, foreignKey, index, integer, jsonb, pgTable, primaryKey, text, timestamp, unique, uniqueIndex } from "drizzle-orm/pg-core";
 import { sql } from "drizzle-orm";
@@ -20,12 +20,17 @@ export const design = pgTable(
       .notNull()
       .references(() => user.id),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    // Archived: kept for audit, hidden from lists, no new drafts or revisions (docs/decisions/167).
+    archivedAt: timestamp("archived_at", { withTimezone: true }),
+    archivedBy: text("archived_by").references(() => user.id),
   },
   (t) => [
     index("design_workspace_idx").on(t.workspaceId),
     index("design_vehicle_idx").on(t.vehicleId),
     // Target of the (design_id, workspace_id) keys below: a revision or draft cannot sit in another workspace.
     unique("design_id_workspace_uq").on(t.id, t.workspaceId),
+    // Who archived it is known exactly when it is archived.
+    check("design_archived_with_whom", sql`(${t.archivedAt} is null) = (${t.archivedBy} is null)`),
   ],
 );
 
