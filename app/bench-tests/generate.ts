@@ -9,6 +9,7 @@
 import { compileDesign, type CompiledDesign, type Design } from "../engine";
 import { RowBook, restRow, searchPool, EXHAUSTIVE_ROWS, type SearchPool } from "./book";
 import { minimumCover, type Cover, type Need } from "./cover";
+import { tableBound } from "./table-bound";
 import { faultItems, type FaultItem } from "./faults";
 import { checkPhases, planLockoutChecks, type LockoutCheck, type LockoutPlan } from "./lockouts";
 import { claimsFromReplay, replayPlan, type Claims, type Draft, type Observation, type PlanReplay } from "./replay";
@@ -239,6 +240,39 @@ function appliesThrottle(c: CompiledDesign, book: RowBook, row: number, moves: M
   );
 }
 
+/**
+ * The rows a plan must observe at least. A whole table: the fewest rows meeting every need (exact when
+ * the search finished). A sampled one: the cover of the rows searched is no bound on the whole table,
+ * so the bound is a packing of faults no row shows together, over the whole table (table-bound.ts),
+ * and the fewest rows among those searched is given beside it.
+ */
+function lowerBoundOf(
+  c: CompiledDesign,
+  pool: SearchPool,
+  faults: FaultItem[],
+  bound: Cover,
+  withDrive: Cover | null,
+  planRows: number,
+): NonNullable<BenchPlan["stats"]["lowerBound"]> {
+  if (pool.exhaustive) {
+    return {
+      rows: bound.lowerBound,
+      exact: bound.exact,
+      ...(withDrive ? { rowsWithDrive: withDrive.lowerBound, exactWithDrive: withDrive.exact } : {}),
+      planRows,
+    };
+  }
+  const whole = tableBound(c, faults, withDrive !== null);
+  return {
+    rows: whole.rows,
+    exact: false,
+    ...(withDrive ? { rowsWithDrive: whole.rowsWithDrive, exactWithDrive: false } : {}),
+    planRows,
+    apart: { faults: whole.witness, ...(withDrive ? { withDrive: whole.witnessWithDrive } : {}) },
+    searched: { rows: pool.rows.length, fewest: bound.rows.length, ...(withDrive ? { fewestWithDrive: withDrive.rows.length } : {}) },
+  };
+}
+
 /** The plan's figures: items and those covered, faults revealed, and the rows observed against the lower bound (decision 133). */
 function planStats(
   c: CompiledDesign,
@@ -258,12 +292,7 @@ function planStats(
     items: rules.length + faults.length + c.lockouts.length,
     covered: coveredRules + revealed.size + coveredLockouts,
     faults: { total: faults.length, revealable: faults.filter((f) => f.revealable).length, revealed: revealed.size },
-    lowerBound: {
-      rows: bound.lowerBound,
-      exact: bound.exact,
-      ...(withDrive ? { rowsWithDrive: withDrive.lowerBound, exactWithDrive: withDrive.exact } : {}),
-      planRows: new Set(drafts.map((d) => d.row)).size,
-    },
+    lowerBound: lowerBoundOf(c, pool, faults, bound, withDrive, new Set(drafts.map((d) => d.row)).size),
     rows: c.rows,
     rowsSearched: pool.rows.length,
   };

@@ -55,8 +55,10 @@ export type BenchPlan = {
     /** Single stuck contacts: all, those some row reveals, those this plan reveals. */
     faults?: { total: number; revealable: number; revealed: number };
     /**
-     * The fewest rows that reveal every revealable fault and show a test row for each rule (rows the
-     * search looked at), `exact` when proven minimal; `planRows`: distinct rows this plan observes.
+     * No plan can reveal every revealable fault and show a test row for each rule with fewer rows.
+     * A table searched whole: the fewest such rows, `exact` when proven minimal. A sampled table: a
+     * bound over the whole table from faults no row shows together (`apart`), and beside it the
+     * fewest rows among those searched (`searched`; not a bound). `planRows`: distinct rows this plan observes.
      */
     lowerBound?: {
       rows: number;
@@ -65,6 +67,10 @@ export type BenchPlan = {
       rowsWithDrive?: number;
       exactWithDrive?: boolean;
       planRows: number;
+      /** Sampled tables: the faults no row shows two of ("drive-row": the need for a row that drives). */
+      apart?: { faults: string[]; withDrive?: string[] };
+      /** Sampled tables: rows searched, and the fewest of them that meet every need. */
+      searched?: { rows: number; fewest: number; fewestWithDrive?: number };
     };
     /** Rows of the truth table, and how many of them the search looked at. */
     rows: number;

@@ -56,7 +56,17 @@ export {
 } from "./rows";
 export type { ContactFault } from "./table";
 export { replayTrace, type StepView } from "./sequence";
-export { evaluateRows, faultRows, glimpseRows, stepInto, type ControllerMemory, type RowGlimpse, type StepOutcome } from "./observe";
+export {
+  evaluateRows,
+  faultMeetings,
+  faultRows,
+  glimpseRows,
+  stepInto,
+  type ControllerMemory,
+  type FaultMeetings,
+  type RowGlimpse,
+  type StepOutcome,
+} from "./observe";
 export { csvChunks, csvHeader, csvLine, textTableChunks } from "./csv";
 export {
   diagnose,

@@ -119,3 +119,50 @@ export function faultRows(c: CompiledDesign, faults: readonly ContactFault[], li
   }
   return out;
 }
+
+/** Which faults show in a common row, over the whole table (for a bound on how few rows can reveal them all). */
+export type FaultMeetings = {
+  /** `together[i][j]`: some row shows fault i and fault j (both change an input there). */
+  together: boolean[][];
+  /** `withDrive[i]`: some row that drives (fault-free) shows fault i. */
+  withDrive: boolean[];
+};
+
+/**
+ * One pass over the whole table, word by word as faultRows does: for every pair of faults whether a
+ * row shows both, and for each fault whether a drive row shows it. Nothing per row is kept.
+ */
+export function faultMeetings(c: CompiledDesign, faults: readonly ContactFault[]): FaultMeetings {
+  const plain = new WordEvaluator(c);
+  const evs = faults.map((f) => new WordEvaluator(c, [f]));
+  const contact = faults.map((f) => {
+    const i = c.contactIndex[f.component];
+    if (i === undefined) throw new Error(`no contact with id ${JSON.stringify(f.component)}`);
+    return i;
+  });
+  const nets = [...new Set(c.inputs.map((x) => x.net))];
+  const together = faults.map(() => faults.map(() => false));
+  const withDrive = faults.map(() => false);
+  const shows = new Int32Array(faults.length);
+  for (let w = 0; w < plain.wordCount; w++) {
+    plain.evalWord(w);
+    for (let k = 0; k < faults.length; k++) {
+      shows[k] = 0;
+      const cw = plain.cw[contact[k]];
+      const changed = (faults[k].mode === "stuck-open" ? cw : ~cw) & plain.valid;
+      if (changed === 0) continue;
+      evs[k].evalWord(w);
+      let diff = 0;
+      for (const n of nets) diff |= plain.reach[n] ^ evs[k].reach[n];
+      shows[k] = diff & changed;
+      if ((shows[k] & plain.drive) !== 0) withDrive[k] = true;
+    }
+    for (let i = 0; i < faults.length; i++) {
+      if (shows[i] === 0) continue;
+      for (let j = i + 1; j < faults.length; j++) {
+        if ((shows[i] & shows[j]) !== 0) together[i][j] = together[j][i] = true;
+      }
+    }
+  }
+  return { together, withDrive };
+}

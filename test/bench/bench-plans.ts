@@ -1,5 +1,6 @@
 // Bench-plan figures for `npm run bench`: plan length against the lower bound (the fewest rows that
-// reveal every revealable fault and show a test row for each rule, exact when the search finished),
+// reveal every revealable fault and show a test row for each rule, exact when the search finished; for
+// a sampled table a packing bound over the whole table, with the fewest rows among those searched),
 // lockout steps, faults revealed, and the time to generate, for the shared examples, the held-back
 // fixtures and generated designs of growing size.
 import { readdirSync, readFileSync } from "node:fs";
@@ -52,6 +53,8 @@ export function benchPlanFigures() {
       lowerBoundRows: s.lowerBound!.rows,
       lowerBoundExact: s.lowerBound!.exact,
       lowerBoundWithDriveRow: s.lowerBound!.rowsWithDrive,
+      fewestAmongSearched: s.lowerBound!.searched?.fewest,
+      fewestAmongSearchedWithDriveRow: s.lowerBound!.searched?.fewestWithDrive,
       faults: s.faults,
       itemsCovered: `${s.covered} of ${s.items}`,
       uncovered: plan.uncovered.map((u) => u.item),

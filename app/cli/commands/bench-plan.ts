@@ -25,7 +25,16 @@ function planText(p: BenchPlan): string {
     for (const u of p.uncovered) lines.push(`  ${u.item}: ${u.reason}`);
   }
   const lb = p.stats.lowerBound;
-  if (lb) {
+  if (lb?.searched) {
+    // A sampled table: a bound over the whole table, and the fewest among the rows searched (no bound).
+    lines.push(
+      "",
+      `Rows observed: ${lb.planRows}; every plan needs at least ${lb.rows} (${lb.apart!.faults.length} faults no row shows together)` +
+        (lb.rowsWithDrive !== undefined ? `, ${lb.rowsWithDrive} with a row that shows drive` : "") +
+        `; fewest among the ${lb.searched.rows} of ${p.stats.rows} rows searched: ${lb.searched.fewest}` +
+        (lb.searched.fewestWithDrive !== undefined ? ` (${lb.searched.fewestWithDrive} with a drive row)` : ""),
+    );
+  } else if (lb) {
     lines.push(
       "",
       `Rows observed: ${lb.planRows}; fewest rows that reveal every revealable fault and show each rule: ${lb.rows}${lb.exact ? "" : " or more"}` +
@@ -50,7 +59,10 @@ input live or dead, the lockout latch), the rules and lockouts it checks
 ("covers") and the single stuck contacts that would show there ("reveals").
 "uncovered" lists every rule, lockout and stuck contact no step checks, with
 the reason; "stats.lowerBound" compares the rows the plan observes with the
-fewest rows that could reveal every revealable fault and show each rule.
+fewest rows that could reveal every revealable fault and show each rule. A
+table over 4,096 rows is searched in part: its bound then comes from faults
+no row shows together ("apart", checked over the whole table), and
+"searched" gives the fewest rows among those searched, which is no bound.
 
 Options:
   --text   plain text instead of JSON

@@ -3,6 +3,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { minimumCover, type Need } from "../../../app/bench-tests/cover";
+import { largestApart } from "../../../app/bench-tests/table-bound";
 
 /** Size of the smallest subset of rows 0..n-1 meeting every need that some row meets, by trying all 2^n. */
 function bruteForce(needs: Need[], n: number, fixed: number[] = []): number {
@@ -58,6 +59,41 @@ describe("minimumCover", () => {
         expect(got.rows.length).toBeGreaterThanOrEqual(bruteForce(list, n));
       }),
       { numRuns: 200 },
+    );
+  });
+});
+
+describe("faults no row shows together (a packing bound, app/bench-tests/table-bound.ts)", () => {
+  /** The largest set of nodes with no edge between any two, by trying all 2^n subsets. */
+  function largestByBruteForce(n: number, edge: (i: number, j: number) => boolean): number {
+    let best = 0;
+    for (let mask = 0; mask < 1 << n; mask++) {
+      const nodes = Array.from({ length: n }, (_, i) => i).filter((i) => mask & (1 << i));
+      if (nodes.every((i) => nodes.every((j) => i === j || !edge(i, j)))) best = Math.max(best, nodes.length);
+    }
+    return best;
+  }
+
+  it("is a set no two of which meet, as large as any such set on small graphs", () => {
+    const graphs = fc
+      .integer({ min: 0, max: 12 })
+      .chain((n) =>
+        fc.record({
+          n: fc.constant(n),
+          edges: fc.array(fc.tuple(fc.nat(Math.max(0, n - 1)), fc.nat(Math.max(0, n - 1))), { maxLength: 40 }),
+        }),
+      );
+    fc.assert(
+      fc.property(graphs, ({ n, edges }) => {
+        const key = (i: number, j: number) => `${Math.min(i, j)}-${Math.max(i, j)}`;
+        const set = new Set(edges.filter(([i, j]) => i !== j).map(([i, j]) => key(i, j)));
+        const edge = (i: number, j: number) => set.has(key(i, j));
+        const got = largestApart(n, edge);
+        for (const i of got) for (const j of got) if (i !== j) expect(edge(i, j)).toBe(false);
+        expect(new Set(got).size).toBe(got.length);
+        expect(got.length).toBe(largestByBruteForce(n, edge));
+      }),
+      { numRuns: 300 },
     );
   });
 });

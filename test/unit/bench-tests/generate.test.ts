@@ -6,7 +6,7 @@ import { afterAll, describe, expect, it } from "vitest";
 import { generateBenchPlan } from "../../../app/bench-tests/generate";
 import { validateDesign, type Design } from "../../../app/engine";
 import { inhibit, is, makeDesign } from "../engine/builders";
-import { checkPlan, fewestRows } from "./bench-reference";
+import { checkPlan, fewestRows, Reference } from "./bench-reference";
 
 const EXAMPLES = "/work/shared/spec/examples";
 const FIXTURES = new URL("./fixtures/", import.meta.url);
@@ -138,6 +138,37 @@ describe.each(designs)("bench plan for %s", (name, design) => {
       else expect(s.lowerBound!.rows).toBeLessThanOrEqual(brute);
     }
     expect(s.lowerBound!.planRows).toBeGreaterThanOrEqual(s.lowerBound!.rows);
+  });
+
+  it("states, for a table searched only in part, a bound that holds over the whole table", { timeout: 120_000 }, () => {
+    const lb = s.lowerBound!;
+    if (s.rowsSearched === s.rows) {
+      expect(lb.apart).toBeUndefined();
+      return;
+    }
+    // The fewest rows among those searched is no bound on the whole table: not called exact.
+    expect(lb.exact).toBe(false);
+    expect(lb.rows).toBe(lb.apart!.faults.length);
+    // Independent check, every row of the table by the reference: each named fault shows in some row
+    // and no row shows two of them, so any plan needs a row of its own for each (a packing bound).
+    const ref = new Reference(design);
+    const rowsOf = (id: string) => {
+      if (id === "drive-row") return new Set(Array.from({ length: ref.rows }, (_, i) => i).filter((i) => ref.see(ref.states(i)).drive));
+      const [, contact, mode] = id.split(":") as [string, string, "stuck-open" | "stuck-closed"];
+      return new Set(ref.revealingRows({ contact, mode }));
+    };
+    for (const named of [lb.apart!.faults, lb.apart!.withDrive ?? []]) {
+      const sets = named.map(rowsOf);
+      sets.forEach((rows) => expect(rows.size).toBeGreaterThan(0));
+      for (let i = 0; i < sets.length; i++)
+        for (let j = i + 1; j < sets.length; j++)
+          expect(
+            [...sets[i]].some((r) => sets[j].has(r)),
+            `${named[i]} and ${named[j]}`,
+          ).toBe(false);
+    }
+    if (lb.rowsWithDrive !== undefined) expect(lb.rowsWithDrive).toBe(lb.apart!.withDrive!.length);
+    expect(lb.searched!.fewest).toBeGreaterThanOrEqual(lb.rows);
   });
 });
 
