@@ -57,6 +57,17 @@ describe("e-mail tokens signed with the once-public secret", () => {
     expect(res.status).toBe(401);
     expect((await userRow(id))?.email).toBe(email);
   });
+
+  it("are refused for their secret alone: the same token signed with this install's own secret verifies", async () => {
+    // Positive control: the hand-made token is what better-auth accepts, so the 401s above come from the secret.
+    const own = process.env.AUTH_SECRET;
+    expect(own && own !== PUBLIC_SECRET).toBeTruthy();
+    const email = `control-${randomUUID().slice(0, 8)}@example.com`;
+    const id = await signUp(email);
+    const res = await client().fetch(`/api/auth/verify-email?token=${forgeToken({ email }, own!)}`);
+    expect(res.status).toBe(200);
+    expect((await userRow(id))?.email_verified).toBe(true);
+  });
 });
 
 /** Starts the production server with `secret` (or none) and returns its exit code and output. */
