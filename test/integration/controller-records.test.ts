@@ -228,6 +228,12 @@ describe("the demo", () => {
     const list = await (await reviewer.fetch("/w/larkspur/vehicles")).text();
     const card = (name: string) => list.slice(list.indexOf(name), list.indexOf("</a>", list.indexOf(name)));
     expect(card("Haybarn campus hauler #3")).not.toContain("The proof does not hold");
+    // #3 has a record of its own that agrees (not merely no record), against its released revision.
+    const three = (await db.query("SELECT id FROM vehicle WHERE workspace_id = $1 AND name = 'Haybarn campus hauler #3'", [workspaceId]))
+      .rows[0].id;
+    const state = (await (await reviewer.fetch(`/api/v1/vehicles/${three}/controller-record`)).json()) as any;
+    expect(state.record).not.toBeNull();
+    expect(state.proof).toMatchObject({ state: "holds", holds: true, differences: [] });
     expect(card("Haybarn campus hauler #5")).toContain("The proof does not hold");
     expect(card("Haybarn campus hauler #5")).toContain("brake-release");
   });
@@ -275,6 +281,36 @@ describe("the API", () => {
     expect(old.proof.state).toBe("does-not-hold"); // the proof is always about the newest version
     expect((await reviewer.fetch(`${recordPath(id)}?version=9`)).status).toBe(404);
     expect((await reviewer.fetch(`${recordPath(id)}?version=first`)).status).toBe(400);
+  });
+
+  it("a release through the API over a contradicting record is refused without a reason, and kept in the audit with one", async () => {
+    const id = await newVehicle("API override cart");
+    const dropped = withValue(agreeing(), "settings.lockouts", ["power-on", "enable-restore", "direction-engage"]);
+    expect((await put(technician, id, 0, dropped)).status).toBe(200);
+    const releases = async () => (await db.query("SELECT count(*)::int AS n FROM vehicle_release WHERE vehicle_id = $1", [id])).rows[0].n;
+    const release = (body: Record<string, unknown>) =>
+      engineer.fetch(`/api/v1/vehicles/${id}/releases`, json("POST", { revisionId: approvedRevisionId, ...body }));
+
+    const refused = await release({ note: "first" });
+    expect(refused.status).toBe(409);
+    const why = (await refused.json()) as any;
+    expect(why.error.code).toBe("release_refused");
+    expect(why.error.message).toContain("brake-release");
+    expect(await releases()).toBe(0);
+
+    const reason = "Controller is reprogrammed at the depot before first use";
+    const done = await release({ note: "first", override: reason });
+    expect(done.status).toBe(201);
+    expect(await releases()).toBe(1);
+    const audit = await db.query(
+      "SELECT detail FROM audit_event WHERE action = 'vehicle.revision-released' AND detail->>'vehicleId' = $1 ORDER BY at DESC LIMIT 1",
+      [id],
+    );
+    expect(audit.rows[0].detail.controllerOverride).toMatchObject({
+      reason,
+      recordVersion: 1,
+      findings: [{ code: "lockout-missing", message: expect.stringContaining("brake-release") }],
+    });
   });
 
   it("a stale version answers 409 with the current version and saves nothing; of two saves on one base exactly one wins", async () => {
