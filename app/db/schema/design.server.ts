@@ -3,6 +3,7 @@
 import { check, foreignKey, index, integer, jsonb, pgTable, primaryKey, text, timestamp, unique, uniqueIndex } from "drizzle-orm/pg-core";
 import { sql } from "drizzle-orm";
 import type { DraftCheck, Verdict } from "~/designs/types";
+import type { Design } from "~/engine";
 import { user } from "./auth.server";
 import { workspace } from "./workspace.server";
 import { vehicle } from "./vehicle.server";
@@ -41,7 +42,7 @@ export const designRevision = pgTable(
     designId: text("design_id").notNull(),
     workspaceId: text("workspace_id").notNull(),
     number: integer("number").notNull(),
-    document: jsonb("document").$type<Record<string, unknown>>().notNull(),
+    document: jsonb("document").$type<Design>().notNull(),
     verdict: jsonb("verdict").$type<Verdict>().notNull(),
     contentHash: text("content_hash").notNull(),
     message: text("message").notNull().default(""),
