@@ -1,7 +1,7 @@
 // `npm test`: typecheck, lint, unit tests, integration tests against real PostgreSQL and the running app,
 // and end-to-end tests in Debian's Chromium. Prints one closing line "N passed, N failed".
 import { randomBytes } from "node:crypto";
-import { existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";
+import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { stripVTControlCharacters } from "node:util";
 import { bringUp, run, say } from "./stack";
 
@@ -200,6 +200,19 @@ async function withStack() {
   } finally {
     await stack.stop();
   }
+}
+
+// How much of the API's contract the integration and fault tests saw: each endpoint's declared statuses.
+if (existsSync(`${results}/api-answers-seen.txt`)) {
+  const { ENDPOINTS } = await import("../app/api/endpoints");
+  const seen = new Set(readFileSync(`${results}/api-answers-seen.txt`, "utf8").split("\n").filter(Boolean));
+  const declared = ENDPOINTS.flatMap((e) => Object.keys(e.replies).map((status) => `${e.method.toUpperCase()} ${e.path} ${status}`));
+  const unseen = declared.filter((a) => !seen.has(a));
+  writeFileSync(`${results}/api-answers-unseen.txt`, unseen.map((a) => `${a}\n`).join(""));
+  console.log(
+    `\nAPI answers the tests saw and checked against their schemas: ${declared.length - unseen.length} of ${declared.length} declared ` +
+      `(endpoint × status, ${ENDPOINTS.length} endpoints); the others are listed in ${results}/api-answers-unseen.txt.`,
+  );
 }
 
 const seconds = Math.round((Date.now() - started) / 1000);
