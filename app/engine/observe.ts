@@ -82,12 +82,17 @@ export function glimpseRows(c: CompiledDesign, indexes: readonly number[], fault
 }
 
 /**
- * For each fault, the rows (in order, at most `limit` each) where some controller input reads
- * differently with that fault applied: one pass over the table, the fault-free word evaluated once,
- * and a fault's word only where its contact is in the state the fault changes. A fault with no row
- * has been checked against every row of the table.
+ * One pass over the table, word by word: for each fault `want` asks for, the rows of the word where
+ * some controller input reads differently with it applied (`shows[k]`, 0 for the others). The
+ * fault-free word is evaluated once, and a fault's word only where its contact is in the state the
+ * fault changes. `visit` returns false to stop.
  */
-export function faultRows(c: CompiledDesign, faults: readonly ContactFault[], limit = Infinity): number[][] {
+function scanFaultWords(
+  c: CompiledDesign,
+  faults: readonly ContactFault[],
+  want: (k: number) => boolean,
+  visit: (plain: WordEvaluator, shows: Int32Array) => boolean,
+): void {
   const plain = new WordEvaluator(c);
   const evs = faults.map((f) => new WordEvaluator(c, [f]));
   const contact = faults.map((f) => {
@@ -96,27 +101,50 @@ export function faultRows(c: CompiledDesign, faults: readonly ContactFault[], li
     return i;
   });
   const nets = [...new Set(c.inputs.map((x) => x.net))];
-  const out: number[][] = faults.map(() => []);
-  let open = faults.length;
-  for (let w = 0; w < plain.wordCount && open > 0; w++) {
+  const shows = new Int32Array(faults.length);
+  for (let w = 0; w < plain.wordCount; w++) {
     plain.evalWord(w);
     for (let k = 0; k < faults.length; k++) {
-      if (out[k].length >= limit) continue;
+      shows[k] = 0;
+      if (!want(k)) continue;
       const cw = plain.cw[contact[k]];
       const changed = (faults[k].mode === "stuck-open" ? cw : ~cw) & plain.valid;
       if (changed === 0) continue;
       evs[k].evalWord(w);
       let diff = 0;
       for (const n of nets) diff |= plain.reach[n] ^ evs[k].reach[n];
-      diff &= changed;
-      while (diff !== 0 && out[k].length < limit) {
-        const j = lowestBit(diff);
-        diff &= diff - 1;
-        out[k].push(w * WORD + j);
-      }
-      if (out[k].length >= limit) open--;
+      shows[k] = diff & changed;
     }
+    if (!visit(plain, shows)) return;
   }
+}
+
+/**
+ * For each fault, the rows (in order, at most `limit` each) where some controller input reads
+ * differently with that fault applied, in one pass over the table. A fault with no row has been
+ * checked against every row of the table.
+ */
+export function faultRows(c: CompiledDesign, faults: readonly ContactFault[], limit = Infinity): number[][] {
+  const out: number[][] = faults.map(() => []);
+  let open = faults.length;
+  scanFaultWords(
+    c,
+    faults,
+    (k) => out[k].length < limit,
+    (plain, shows) => {
+      for (let k = 0; k < faults.length; k++) {
+        let diff = shows[k];
+        if (diff === 0) continue;
+        while (diff !== 0 && out[k].length < limit) {
+          const j = lowestBit(diff);
+          diff &= diff - 1;
+          out[k].push(plain.wordIndex * WORD + j);
+        }
+        if (out[k].length >= limit) open--;
+      }
+      return open > 0;
+    },
+  );
   return out;
 }
 
@@ -128,41 +156,22 @@ export type FaultMeetings = {
   withDrive: boolean[];
 };
 
-/**
- * One pass over the whole table, word by word as faultRows does: for every pair of faults whether a
- * row shows both, and for each fault whether a drive row shows it. Nothing per row is kept.
- */
+/** For every pair of faults whether a row shows both, and for each whether a drive row shows it: one pass, nothing per row kept. */
 export function faultMeetings(c: CompiledDesign, faults: readonly ContactFault[]): FaultMeetings {
-  const plain = new WordEvaluator(c);
-  const evs = faults.map((f) => new WordEvaluator(c, [f]));
-  const contact = faults.map((f) => {
-    const i = c.contactIndex[f.component];
-    if (i === undefined) throw new Error(`no contact with id ${JSON.stringify(f.component)}`);
-    return i;
-  });
-  const nets = [...new Set(c.inputs.map((x) => x.net))];
   const together = faults.map(() => faults.map(() => false));
   const withDrive = faults.map(() => false);
-  const shows = new Int32Array(faults.length);
-  for (let w = 0; w < plain.wordCount; w++) {
-    plain.evalWord(w);
-    for (let k = 0; k < faults.length; k++) {
-      shows[k] = 0;
-      const cw = plain.cw[contact[k]];
-      const changed = (faults[k].mode === "stuck-open" ? cw : ~cw) & plain.valid;
-      if (changed === 0) continue;
-      evs[k].evalWord(w);
-      let diff = 0;
-      for (const n of nets) diff |= plain.reach[n] ^ evs[k].reach[n];
-      shows[k] = diff & changed;
-      if ((shows[k] & plain.drive) !== 0) withDrive[k] = true;
-    }
-    for (let i = 0; i < faults.length; i++) {
-      if (shows[i] === 0) continue;
-      for (let j = i + 1; j < faults.length; j++) {
-        if ((shows[i] & shows[j]) !== 0) together[i][j] = together[j][i] = true;
+  scanFaultWords(
+    c,
+    faults,
+    () => true,
+    (plain, shows) => {
+      for (let i = 0; i < faults.length; i++) {
+        if (shows[i] === 0) continue;
+        if ((shows[i] & plain.drive) !== 0) withDrive[i] = true;
+        for (let j = i + 1; j < faults.length; j++) if ((shows[i] & shows[j]) !== 0) together[i][j] = together[j][i] = true;
       }
-    }
-  }
+      return true;
+    },
+  );
   return { together, withDrive };
 }
