@@ -1,6 +1,7 @@
 // Fault dispositions: how each single stuck contact that defeats a rule is dealt with, recorded before
 // a revision may be approved. Shared by the server (the authority) and the pages (no server imports).
 import { z } from "zod";
+import { storable } from "../lib/text";
 
 export const DISPOSITIONS = ["accepted", "fix-next-revision", "ruled-out"] as const;
 export type Disposition = (typeof DISPOSITIONS)[number];
@@ -27,13 +28,15 @@ export const faultWords = (f: { component: string; mode: string }) =>
 
 export const dispositionSchema = z.object({
   intent: z.literal("dispose"),
-  component: z.string().trim().min(1, "Name the contact.").max(64),
+  component: storable(z.string().trim().min(1, "Name the contact.").max(64, "Name the contact by its id.")),
   mode: z.enum(FAULT_MODES, { message: "Choose stuck-open or stuck-closed." }),
   disposition: z.enum(DISPOSITIONS, { message: "Choose how this fault is dealt with." }),
-  justification: z
-    .string()
-    .trim()
-    .min(10, "Justify the disposition in a sentence or more (at least 10 characters).")
-    .max(2000, "Use at most 2000 characters."),
+  justification: storable(
+    z
+      .string()
+      .trim()
+      .min(10, "Justify the disposition in a sentence or more (at least 10 characters).")
+      .max(2000, "Use at most 2000 characters."),
+  ),
 });
 export type DispositionInput = z.output<typeof dispositionSchema>;
