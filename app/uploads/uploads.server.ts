@@ -9,6 +9,17 @@ import { create as contentDisposition } from "content-disposition";
 import { MAX_UPLOAD_BYTES } from "~/lib/body-limits";
 import { drainBody, readCapped } from "~/lib/read-body.server";
 import { EMPTY_FILE, refusalOf, type FileType } from "./kinds";
+import { textProblem } from "~/lib/text";
+
+/** The longest file name kept: what common file systems allow (common practice). */
+export const FILE_NAME_MAX = 255;
+
+/** Why a file's name cannot be kept as sent, or null (the same text rules as every field, decision 101). */
+export function fileNameProblem(name: string): string | null {
+  if (name.length > FILE_NAME_MAX) return `Rename the file: its name is longer than ${FILE_NAME_MAX} characters. Nothing was saved.`;
+  const problem = textProblem(name);
+  return problem ? `Rename the file: ${problem.replace(/^Remove/, "remove")} Nothing was saved.` : null;
+}
 
 export class UploadError extends Error {
   constructor(
@@ -60,6 +71,8 @@ export async function saveUpload(opts: {
 }) {
   const file = opts.file;
   if (!(file instanceof File) || (file.size === 0 && file.name === "")) throw new UploadError("file", "Choose a file to upload.");
+  const badName = fileNameProblem(file.name);
+  if (badName) throw new UploadError("file", badName);
   if (file.size === 0) throw new UploadError("file", EMPTY_FILE);
   if (file.size > MAX_UPLOAD_BYTES) throw tooLarge();
   const bytes = new Uint8Array(await file.arrayBuffer());
