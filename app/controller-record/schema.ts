@@ -3,6 +3,7 @@
 import { z } from "zod";
 import { LOCKOUTS, formatPath, type Lockout, type Problem } from "../engine/index";
 import { deriveValues, uncomputable } from "./derive";
+import { textProblem } from "../lib/text";
 
 export const CONTROLLER_RECORD_FORMAT = "chainproof/controller-record@1";
 
@@ -40,7 +41,14 @@ const packSchema = z.looseObject({
 });
 
 const controllerSchema = z.looseObject({
-  description: z.string({ error: required("text") }).max(DESCRIPTION_MAX, { error: `must be at most ${DESCRIPTION_MAX} characters` }),
+  description: z
+    .string({ error: required("text") })
+    .max(DESCRIPTION_MAX, { error: `must be at most ${DESCRIPTION_MAX} characters` })
+    // The text rules of every field (decision 101); a NUL is named once, by the check of the whole record below.
+    .refine((s) => s.includes("\u0000") || textProblem(s) === null, {
+      error:
+        "must not contain a broken character (U+FFFD, an unpaired surrogate) or a text-direction override (U+202A–U+202E, U+2066–U+2069)",
+    }),
   ratedCurrentA: positive,
   minVoltageV: positive,
   maxVoltageV: positive,
