@@ -9,7 +9,8 @@ export type FieldErrors = Record<string, string>;
 export function fieldErrors(error: z.ZodError): FieldErrors {
   const out: FieldErrors = {};
   for (const issue of error.issues) {
-    const key = issue.path.join(".") || "form";
+    // A repeated field's error (reviewers.2) belongs to the field: the form has one control for it.
+    const key = issue.path.filter((p) => typeof p !== "number").join(".") || "form";
     out[key] ??= issue.message;
   }
   return out;

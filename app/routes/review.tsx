@@ -129,9 +129,9 @@ export async function action({ request, params, context }: Route.ActionArgs) {
   }
   if (intent === "dispose") {
     const parsed = dispositionSchema.safeParse(form);
-    if (!parsed.success) return fail(400, fieldErrors(parsed.error));
+    if (!parsed.success) return fail(400, placeFault(fieldErrors(parsed.error)));
     const out = await recordDisposition(member, ref.id, parsed.data);
-    if (!out.ok) return fail(out.status, out.fields);
+    if (!out.ok) return fail(out.status, placeFault(out.fields));
     return {
       intent,
       ok: true,
@@ -145,7 +145,17 @@ export async function action({ request, params, context }: Route.ActionArgs) {
     if (!out.ok) return fail(out.status, out.fields);
     return { intent, ok: true, message: `${VERDICT_LABELS[parsed.data.verdict]}; the author got an e-mail.` } satisfies ActionResult;
   }
-  return fail(400, { intent: "Unknown action." });
+  // Above the page: no form of it has an intent control to mark.
+  return fail(400, { intent: "Unknown action.", form: "Unknown action." });
+}
+
+/**
+ * A disposition's contact and fault mode are the hidden fields of one listed fault's form, so a fault
+ * the page does not list has no form to show their error beside: it goes above the page as well.
+ */
+function placeFault(errors: FieldErrors): FieldErrors {
+  const problem = errors.component ? `Contact of the fault: ${errors.component}` : errors.mode ? `Fault mode: ${errors.mode}` : null;
+  return problem && !errors.form ? { ...errors, form: problem } : errors;
 }
 
 export const meta: Route.MetaFunction = ({ data }) => [

@@ -95,8 +95,12 @@ export async function action({ request, context }: Route.ActionArgs) {
     }
     case "change-role": {
       const parsed = roleChangeSchema.safeParse(values);
-      if (!parsed.success)
-        return data({ intent: "change-role", ok: false, fields: fieldErrors(parsed.error), message: null, newKey: null }, { status: 400 });
+      if (!parsed.success) {
+        // The member is a hidden field: the refusal is named above the list.
+        const fields = fieldErrors(parsed.error);
+        const message = fields.memberId ? "No such member." : (fields.role ?? "Choose a role.");
+        return data({ intent: "change-role", ok: false, fields, message, newKey: null }, { status: 400 });
+      }
       const r = await changeRole(m.workspace.id, m.user.id, parsed.data.memberId, parsed.data.role);
       if (!r.ok) return data({ intent: "change-role", ok: false, fields: {}, message: r.message, newKey: null }, { status: 400 });
       return { intent: "change-role", ok: true, fields: {}, message: "Role changed.", newKey: null };
@@ -104,7 +108,10 @@ export async function action({ request, context }: Route.ActionArgs) {
     case "remove": {
       const parsed = idSchema.safeParse(values);
       if (!parsed.success)
-        return data({ intent: "remove", ok: false, fields: fieldErrors(parsed.error), message: null, newKey: null }, { status: 400 });
+        return data(
+          { intent: "remove", ok: false, fields: fieldErrors(parsed.error), message: "No such member.", newKey: null },
+          { status: 400 },
+        );
       const r = await removeMember(m.workspace.id, m.user.id, parsed.data.id);
       if (!r.ok) return data({ intent: "remove", ok: false, fields: {}, message: r.message, newKey: null }, { status: 400 });
       return { intent: "remove", ok: true, fields: {}, message: "Member removed.", newKey: null };
@@ -112,7 +119,16 @@ export async function action({ request, context }: Route.ActionArgs) {
     case "revoke": {
       const parsed = idSchema.safeParse(values);
       if (!parsed.success)
-        return data({ intent: "revoke", ok: false, fields: fieldErrors(parsed.error), message: null, newKey: null }, { status: 400 });
+        return data(
+          {
+            intent: "revoke",
+            ok: false,
+            fields: fieldErrors(parsed.error),
+            message: "No such open invitation in this workspace.",
+            newKey: null,
+          },
+          { status: 400 },
+        );
       if (!(await revokeInvitation(m.workspace.id, m.user.id, parsed.data.id)))
         return data(
           { intent: "revoke", ok: false, fields: {}, message: "No such open invitation in this workspace.", newKey: null },

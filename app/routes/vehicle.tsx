@@ -226,6 +226,8 @@ export default function Vehicle({ loaderData, actionData }: Route.ComponentProps
           ) : null}
         </div>
         {errorsOf("start-bench-run") ? <Notice tone="error">{Object.values(errorsOf("start-bench-run")!)[0]}</Notice> : null}
+        {/* A form this page does not have (a forged or stale intent): no field of it to mark. */}
+        {result?.fields.intent ? <Notice tone="error">{result.fields.intent}</Notice> : null}
 
         {loaderData.controller.mark ? <ProofMark differences={loaderData.controller.differences} to="controller" /> : null}
 
