@@ -75,14 +75,12 @@ describe("faults no row shows together (a packing bound, app/bench-tests/table-b
   }
 
   it("is a set no two of which meet, as large as any such set on small graphs", () => {
-    const graphs = fc
-      .integer({ min: 0, max: 12 })
-      .chain((n) =>
-        fc.record({
-          n: fc.constant(n),
-          edges: fc.array(fc.tuple(fc.nat(Math.max(0, n - 1)), fc.nat(Math.max(0, n - 1))), { maxLength: 40 }),
-        }),
-      );
+    const graphs = fc.integer({ min: 0, max: 12 }).chain((n) =>
+      fc.record({
+        n: fc.constant(n),
+        edges: fc.array(fc.tuple(fc.nat(Math.max(0, n - 1)), fc.nat(Math.max(0, n - 1))), { maxLength: 40 }),
+      }),
+    );
     fc.assert(
       fc.property(graphs, ({ n, edges }) => {
         const key = (i: number, j: number) => `${Math.min(i, j)}-${Math.max(i, j)}`;
