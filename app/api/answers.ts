@@ -185,6 +185,12 @@ const draftState = z.object({
   check: draftCheckSchema,
 });
 
+/** Who archived a design and when; null while it is in use (docs/decisions/167). */
+export const archivedSchema = z.object({ at: isoTime, by: person }).nullable().meta({
+  description:
+    "Set when the design is archived: kept for audit, left out of lists, no new drafts, revisions or releases; its revisions stay readable.",
+});
+
 export const designSummarySchema = z
   .object({
     id: z.string(),
@@ -193,6 +199,7 @@ export const designSummarySchema = z
     vehicleName: z.string().nullable(),
     status: z.enum(DESIGN_STATUSES),
     createdAt: isoTime,
+    archived: archivedSchema,
     latestRevision: z
       .object({ number: int, contentHash: z.string(), createdAt: isoTime, authorName: z.string(), rules: int, singleFaults: int })
       .nullable(),
@@ -209,7 +216,7 @@ export const designCreatedAnswer = z.object({
   draft: z.object({ version: int }),
 });
 export const designAnswer = z.object({
-  design: designHead,
+  design: designHead.extend({ archived: archivedSchema }),
   latestRevision: int.nullable(),
   contentHash: z.string().nullable(),
   document: designDocumentSchema.nullable().meta({ description: "The latest revision's document (null before the first revision)." }),
@@ -230,6 +237,12 @@ export const draftAnswer = z.object({
     .nullable(),
 });
 export const draftSavedAnswer = z.object({ version: int });
+/** 409 design_archived: the design takes no new drafts, revisions or releases while archived. */
+export const designArchivedError = errorSchema.extend({ archived: archivedSchema });
+export const designPatchedAnswer = z.object({
+  design: designHead.extend({ archived: archivedSchema }),
+  changed: z.boolean().meta({ description: "False when the design already was in the state asked for (nothing was written)." }),
+});
 export const staleDraftError = errorSchema.extend({ currentVersion: int.meta({ description: "The draft's version now." }) });
 
 export const revisionListAnswer = z.object({

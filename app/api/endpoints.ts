@@ -4,7 +4,15 @@
 // OpenAPI document is this table (app/api/openapi.server.ts), the browser calls through it
 // (app/api/client.ts) and the integration tests check each answer against it. No server imports.
 import { z } from "zod";
-import { createDesignBodySchema, designFilterSchema, proofBodySchema, saveDraftBodySchema, saveRevisionBodySchema } from "~/designs/forms";
+import {
+  archivedFilterSchema,
+  createDesignBodySchema,
+  designFilterSchema,
+  designPatchBodySchema,
+  proofBodySchema,
+  saveDraftBodySchema,
+  saveRevisionBodySchema,
+} from "~/designs/forms";
 import { ONLY, PAGE_MAX } from "~/reviews/truth-table";
 import * as A from "./answers";
 import { releaseSchema as releaseBodySchema } from "~/vehicles/forms";
@@ -134,8 +142,11 @@ export const api = {
     path: "/api/v1/designs",
     tag: "Designs",
     summary: "List designs",
-    description: `${MEMBER} Without limit or cursor every design, ordered as on the designs page; with them, pages ordered by name then id.`,
-    query: workspaceQuerySchema.extend(designFilterSchema.shape).extend(pageQuerySchema.shape),
+    description: `${MEMBER} Without limit or cursor every design, ordered as on the designs page; with them, pages ordered by name then id. Archived designs are left out unless archived=include (all) or archived=only.`,
+    query: workspaceQuerySchema
+      .extend(designFilterSchema.shape)
+      .extend({ archived: archivedFilterSchema.meta({ description: "include: archived designs too; only: archived designs alone." }) })
+      .extend(pageQuerySchema.shape),
     replies: { 200: ok("The designs.", A.designListAnswer), ...badQuery, ...reading },
   }),
   createDesign: endpoint({
@@ -157,6 +168,17 @@ export const api = {
     params: designId,
     replies: { 200: ok("The design.", A.designAnswer), ...reading },
   }),
+  patchDesign: endpoint({
+    method: "patch",
+    path: "/api/v1/designs/{designId}",
+    tag: "Designs",
+    summary: "Archive a design or bring it back",
+    description:
+      "Admins and engineers. archived: true keeps the design for audit but leaves it out of lists and refuses new drafts, revisions and releases; its revisions, reviews, reports and releases stay readable. archived: false brings it back. Asking for the state it is already in changes nothing (changed: false).",
+    params: designId,
+    body: designPatchBodySchema,
+    replies: { 200: ok("The design as it is now.", A.designPatchedAnswer), ...writing },
+  }),
   getDraft: endpoint({
     method: "get",
     path: "/api/v1/designs/{designId}/draft",
@@ -177,7 +199,10 @@ export const api = {
     body: saveDraftBodySchema,
     replies: {
       200: ok("Saved.", A.draftSavedAnswer),
-      409: fail("The draft was saved elsewhere (stale_draft; currentVersion beside error).", A.staleDraftError),
+      409: fail(
+        "The draft was saved elsewhere (stale_draft; currentVersion beside error), or the design is archived (design_archived; archived beside error).",
+        z.union([A.staleDraftError, A.designArchivedError]),
+      ),
       ...writing,
     },
   }),
@@ -201,7 +226,10 @@ export const api = {
     body: saveRevisionBodySchema,
     replies: {
       201: ok("Saved.", A.revisionSavedAnswer),
-      409: fail("The change starts from an older revision (stale_revision; latestRevision beside error).", A.staleRevisionError),
+      409: fail(
+        "The change starts from an older revision (stale_revision; latestRevision beside error), or the design is archived (design_archived; archived beside error).",
+        z.union([A.staleRevisionError, A.designArchivedError]),
+      ),
       422: fail(
         "The design never drives (never_drives) or some rule fails (rules_fail); the verdict is beside error. Nothing was saved.",
         A.rulesFailError,
@@ -367,7 +395,7 @@ export const api = {
     replies: {
       201: ok("Released; the vehicle with its new current release.", A.vehicleAnswer),
       409: fail(
-        "The revision cannot be released (release_refused): not approved, refused by format 1.1, or contradicted by the controller record without an override reason; fields name why.",
+        "The revision cannot be released (release_refused): not approved, refused by format 1.1, its design archived, or contradicted by the controller record without an override reason; fields name why.",
       ),
       ...writing,
     },

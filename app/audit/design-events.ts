@@ -1,6 +1,6 @@
 // The workspace's design events in plain words for the people who review and draw designs: who saved,
-// asked for a review, commented, approved, disposed of a fault or released, on which revision. Pure
-// (no server imports): the activity page and its tests both use it. Events that are not about
+// archived or brought back a design, asked for a review, commented, approved, disposed of a fault or
+// released, on which revision. Pure (no server imports): the activity page and its tests both use it. Events that are not about
 // designs (sign-ins, members, keys) are not design events and are never described here.
 import { DISPOSITION_LABELS, type Disposition } from "~/reviews/dispositions";
 import { designPath } from "~/designs/paths";
@@ -9,6 +9,8 @@ import { reviewPath } from "~/reviews/paths";
 export const DESIGN_EVENT_ACTIONS = [
   "design.created",
   "design.revision-saved",
+  "design.archived",
+  "design.unarchived",
   "review.requested",
   "review.commented",
   "review.approved",
@@ -51,6 +53,16 @@ export function describeDesignEvent(e: DesignEvent, slug: string): EventWords | 
       return {
         text: `${who} saved ${number !== null ? `revision ${number}` : "a revision"} of ${quoted(e.subject, "a design")}.`,
         href: review,
+      };
+    case "design.archived":
+      return {
+        text: `${who} archived the design ${quoted(e.subject, "")}`.trimEnd() + "; its revisions stay readable.",
+        href: designId ? designPath(slug, designId) : null,
+      };
+    case "design.unarchived":
+      return {
+        text: `${who} brought back the design ${quoted(e.subject, "")}`.trimEnd() + " from the archive.",
+        href: designId ? designPath(slug, designId) : null,
       };
     case "review.requested": {
       const n = Array.isArray(d.reviewers) ? d.reviewers.length : 0;

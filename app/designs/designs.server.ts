@@ -1,6 +1,7 @@
 // Designs, their revisions and drafts. Every query is scoped by workspace id; the engine does all
 // checking and proving (validateDesign, prove), this module only stores what it says.
-import { and, asc, desc, eq, isNull, sql } from "drizzle-orm";
+import { and, asc, desc, eq, isNotNull, isNull, sql } from "drizzle-orm";
+import { alias } from "drizzle-orm/pg-core";
 import { db, schema } from "~/db/client.server";
 import type { DesignRecord } from "~/db/schema.server";
 import type { Membership } from "~/auth/guard.server";
@@ -20,6 +21,8 @@ import { readRevisionDesign } from "./revision-document";
 import type { DesignStatus, DesignSummary } from "./types";
 
 const { design, designRevision, designDraft, vehicle, user, workspace } = schema;
+/** The member who archived a design (a second join on the user table). */
+const archiver = alias(user, "archiver");
 
 export function statusOf(latestRevision: number | null | undefined): DesignStatus {
   return latestRevision ? "proven" : "draft";
@@ -62,13 +65,21 @@ export async function requireDesign(
 export async function getDesign(workspaceId: string, designId: string) {
   if (designId.includes("\u0000")) return null;
   const rows = await db
-    .select({ design, vehicleName: vehicle.name })
+    .select({ design, vehicleName: vehicle.name, archivedByName: archiver.name })
     .from(design)
     .leftJoin(vehicle, and(eq(vehicle.id, design.vehicleId), eq(vehicle.workspaceId, design.workspaceId)))
+    .leftJoin(archiver, eq(archiver.id, design.archivedBy))
     .where(and(eq(design.id, designId), eq(design.workspaceId, workspaceId)))
     .limit(1);
   const row = rows[0];
-  return row ? { ...row.design, vehicleName: row.vehicleName } : null;
+  return row ? { ...row.design, vehicleName: row.vehicleName, archived: archivedOf(row.design, row.archivedByName) } : null;
+}
+
+/** Who archived a design and when, or null while it is in use (docs/decisions/167). */
+export type Archived = { at: Date; by: { id: string; name: string } };
+
+export function archivedOf(d: { archivedAt: Date | null; archivedBy: string | null }, byName: string | null): Archived | null {
+  return d.archivedAt && d.archivedBy ? { at: d.archivedAt, by: { id: d.archivedBy, name: byName ?? "" } } : null;
 }
 
 // ---------------------------------------------------------------- listing
@@ -80,12 +91,25 @@ export async function listDesigns(workspaceId: string, filter: DesignFilter = {}
       : filter.vehicle === NO_VEHICLE
         ? isNull(design.vehicleId)
         : eq(design.vehicleId, filter.vehicle);
+  // Archived designs are kept for audit but left out of lists unless asked for (docs/decisions/167).
+  const archivedCond =
+    filter.archived === "include" ? undefined : filter.archived === "only" ? isNotNull(design.archivedAt) : isNull(design.archivedAt);
   const [designs, latest, drafts] = await Promise.all([
     db
-      .select({ id: design.id, name: design.name, vehicleId: design.vehicleId, vehicleName: vehicle.name, createdAt: design.createdAt })
+      .select({
+        id: design.id,
+        name: design.name,
+        vehicleId: design.vehicleId,
+        vehicleName: vehicle.name,
+        createdAt: design.createdAt,
+        archivedAt: design.archivedAt,
+        archivedBy: design.archivedBy,
+        archivedByName: archiver.name,
+      })
       .from(design)
       .leftJoin(vehicle, and(eq(vehicle.id, design.vehicleId), eq(vehicle.workspaceId, design.workspaceId)))
-      .where(and(eq(design.workspaceId, workspaceId), vehicleCond))
+      .leftJoin(archiver, eq(archiver.id, design.archivedBy))
+      .where(and(eq(design.workspaceId, workspaceId), vehicleCond, archivedCond))
       .orderBy(asc(design.name), asc(design.createdAt)),
     db
       .selectDistinctOn([designRevision.designId], {
@@ -118,6 +142,7 @@ export async function listDesigns(workspaceId: string, filter: DesignFilter = {}
   const out: DesignSummary[] = designs.map((d) => {
     const rev = latestOf.get(d.id);
     const draft = draftOf.get(d.id);
+    const archived = archivedOf(d, d.archivedByName);
     return {
       id: d.id,
       name: d.name,
@@ -125,6 +150,7 @@ export async function listDesigns(workspaceId: string, filter: DesignFilter = {}
       vehicleName: d.vehicleName,
       status: statusOf(rev?.number),
       createdAt: d.createdAt.toISOString(),
+      archived: archived ? { at: archived.at.toISOString(), by: archived.by } : null,
       latestRevision: rev
         ? {
             number: rev.number,
@@ -182,7 +208,11 @@ export async function createDesign(workspaceId: string, actorId: string, input: 
 // ---------------------------------------------------------------- revisions
 
 export type SaveRevisionOutcome =
-  { kind: "saved"; number: number; contentHash: string } | { kind: "stale"; latestRevision: number } | { kind: "missing" };
+  | { kind: "saved"; number: number; contentHash: string }
+  | { kind: "stale"; latestRevision: number }
+  | { kind: "missing" }
+  /** The design was archived: no new revisions (docs/decisions/167). */
+  | { kind: "archived" };
 
 function isUniqueViolation(e: unknown): boolean {
   const code = (x: unknown) => (x && typeof x === "object" && "code" in x ? (x as { code: unknown }).code : undefined);
@@ -212,11 +242,13 @@ async function saveRevision(
   try {
     return await db.transaction(async (tx) => {
       const locked = await tx
-        .select({ id: design.id, name: design.name })
+        .select({ id: design.id, name: design.name, archivedAt: design.archivedAt })
         .from(design)
         .where(and(eq(design.id, designId), eq(design.workspaceId, workspaceId)))
         .for("update");
       if (!locked[0]) return { kind: "missing" } as const;
+      // Checked under the lock that archiving takes too, so a save and an archive cannot cross.
+      if (locked[0].archivedAt) return { kind: "archived" } as const;
       const latest = await latestNumber(workspaceId, designId, tx);
       if (latest !== input.baseRevision) return { kind: "stale", latestRevision: latest } as const;
       const number = latest + 1;
@@ -257,7 +289,8 @@ export type SaveProvenOutcome =
   /** Proven, but not proven safe: a rule fails or it never drives (spec 1.1). */
   | { kind: "refused"; code: "never_drives" | "rules_fail"; message: string; verdict: Verdict }
   | { kind: "stale"; latestRevision: number }
-  | { kind: "missing" };
+  | { kind: "missing" }
+  | { kind: "archived" };
 
 /**
  * Only proven designs become revisions: the one way a document becomes a revision, for pages and
@@ -272,6 +305,8 @@ export async function saveProvenRevision(
   actorId: string,
   input: { document: unknown; baseRevision: number; message: string },
 ): Promise<SaveProvenOutcome> {
+  // An archived design takes no new revision: say so before spending a proof on it (saveRevision checks again).
+  if (await isArchived(workspaceId, designId)) return { kind: "archived" };
   // Before the engine: text jsonb cannot store and nesting too deep to walk.
   const unstorable = storableJsonProblem(input.document, "");
   if (unstorable) return { kind: "unstorable", problem: unstorable };
@@ -338,7 +373,11 @@ export async function getDraft(workspaceId: string, designId: string) {
   return row ? { ...row.draft, updatedByName: row.updatedByName } : null;
 }
 
-export type SaveDraftOutcome = { ok: true; version: number } | { ok: false; currentVersion: number };
+export type SaveDraftOutcome =
+  | { ok: true; version: number }
+  | { ok: false; currentVersion: number }
+  /** The design was archived: its working copy no longer changes (docs/decisions/167). */
+  | { ok: false; archived: true };
 
 /**
  * Replaces the draft when `version` is the current one (0: there is no draft yet) and bumps the
@@ -359,24 +398,108 @@ export async function saveDraft(
     updatedAt: new Date(),
     ...(input.baseRevision === undefined ? {} : { baseRevision: input.baseRevision }),
   };
-  const written =
-    input.version === 0
-      ? await db
-          .insert(designDraft)
-          .values({ designId, workspaceId, version: 1, ...values })
-          .onConflictDoNothing()
-          .returning({ version: designDraft.version })
-      : await db
-          .update(designDraft)
-          .set({ ...values, version: sql`${designDraft.version} + 1` })
-          .where(and(eq(designDraft.designId, designId), eq(designDraft.workspaceId, workspaceId), eq(designDraft.version, input.version)))
-          .returning({ version: designDraft.version });
-  if (written[0]) return { ok: true, version: written[0].version };
-  const current = await db
-    .select({ version: designDraft.version })
-    .from(designDraft)
-    .where(and(eq(designDraft.designId, designId), eq(designDraft.workspaceId, workspaceId)));
-  return { ok: false, currentVersion: current[0]?.version ?? 0 };
+  return db.transaction(async (tx): Promise<SaveDraftOutcome> => {
+    // A shared lock on the design: archiving (FOR UPDATE) waits for this save, or this save sees it archived.
+    const held = await tx
+      .select({ archivedAt: design.archivedAt })
+      .from(design)
+      .where(and(eq(design.id, designId), eq(design.workspaceId, workspaceId)))
+      .for("share");
+    if (held[0]?.archivedAt) return { ok: false, archived: true };
+    const written =
+      input.version === 0
+        ? await tx
+            .insert(designDraft)
+            .values({ designId, workspaceId, version: 1, ...values })
+            .onConflictDoNothing()
+            .returning({ version: designDraft.version })
+        : await tx
+            .update(designDraft)
+            .set({ ...values, version: sql`${designDraft.version} + 1` })
+            .where(
+              and(eq(designDraft.designId, designId), eq(designDraft.workspaceId, workspaceId), eq(designDraft.version, input.version)),
+            )
+            .returning({ version: designDraft.version });
+    if (written[0]) return { ok: true, version: written[0].version };
+    const current = await tx
+      .select({ version: designDraft.version })
+      .from(designDraft)
+      .where(and(eq(designDraft.designId, designId), eq(designDraft.workspaceId, workspaceId)));
+    return { ok: false, currentVersion: current[0]?.version ?? 0 };
+  });
+}
+
+// ---------------------------------------------------------------- archiving
+
+async function isArchived(workspaceId: string, designId: string): Promise<boolean> {
+  const rows = await db
+    .select({ archivedAt: design.archivedAt })
+    .from(design)
+    .where(and(eq(design.id, designId), eq(design.workspaceId, workspaceId)))
+    .limit(1);
+  return Boolean(rows[0]?.archivedAt);
+}
+
+/** A sentence for "archived by NAME on DATE" (UTC date: the same on every server). */
+export function archivedWords(a: Archived): string {
+  return `archived by ${a.by.name || "a former member"} on ${a.at.toISOString().slice(0, 10)}`;
+}
+
+/** The API's 409 design_archived: what was refused, who archived the design and when, and the way back. */
+export async function archivedAnswer(workspaceId: string, designId: string, what: "draft" | "revision"): Promise<Response> {
+  const a = (await getDesign(workspaceId, designId))?.archived;
+  const why = a ? `The design was ${archivedWords(a)}` : "The design is archived";
+  const refused = what === "draft" ? "its draft no longer changes" : "it takes no new revisions";
+  return apiError(409, "design_archived", `${why}; ${refused}. Bring it back from the archive (PATCH archived: false) to change it.`, [], {
+    // null only when it was brought back in the meantime: saving again then works.
+    archived: a ? { at: a.at.toISOString(), by: a.by } : null,
+  });
+}
+
+export type ArchiveOutcome =
+  /** changed: false when it already was in the state asked for (nothing written, no audit event). */
+  { kind: "done"; changed: boolean; archived: Archived | null } | { kind: "missing" };
+
+/**
+ * Archives a design (archive: true) or brings it back (false). Kept for audit: nothing is deleted,
+ * revisions, reviews and releases stay as they are; lists leave it out and it takes no new drafts,
+ * revisions or releases while archived (docs/decisions/167). The design row is locked so a
+ * revision or draft being saved finishes first; one audit event per change.
+ */
+export async function setArchived(workspaceId: string, designId: string, actorId: string, archive: boolean): Promise<ArchiveOutcome> {
+  if (designId.includes("\u0000")) return { kind: "missing" };
+  return db.transaction(async (tx): Promise<ArchiveOutcome> => {
+    const locked = await tx
+      .select({ name: design.name, archivedAt: design.archivedAt, archivedBy: design.archivedBy })
+      .from(design)
+      .where(and(eq(design.id, designId), eq(design.workspaceId, workspaceId)))
+      .for("update");
+    const row = locked[0];
+    if (!row) return { kind: "missing" };
+    if (Boolean(row.archivedAt) === archive) {
+      const by = row.archivedBy ? await tx.select({ name: user.name }).from(user).where(eq(user.id, row.archivedBy)) : [];
+      return { kind: "done", changed: false, archived: archivedOf(row, by[0]?.name ?? null) };
+    }
+    const at = archive ? new Date() : null;
+    await tx
+      .update(design)
+      .set({ archivedAt: at, archivedBy: archive ? actorId : null })
+      .where(and(eq(design.id, designId), eq(design.workspaceId, workspaceId)));
+    await recordAudit(
+      {
+        workspaceId,
+        actorId,
+        action: archive ? "design.archived" : "design.unarchived",
+        subject: row.name,
+        // Unarchiving keeps who had archived it and when, so the log alone tells the whole story.
+        detail: archive ? { designId } : { designId, archivedAt: row.archivedAt?.toISOString(), archivedBy: row.archivedBy },
+      },
+      tx,
+    );
+    if (!at) return { kind: "done", changed: true, archived: null };
+    const me = await tx.select({ name: user.name }).from(user).where(eq(user.id, actorId));
+    return { kind: "done", changed: true, archived: { at, by: { id: actorId, name: me[0]?.name ?? "" } } };
+  });
 }
 
 // ---------------------------------------------------------------- what the editor opens

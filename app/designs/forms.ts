@@ -60,10 +60,25 @@ export const createDesignBodySchema = z.object({
   start: z.enum(startKeys, { message: `start is one of ${startKeys.join(", ")}` }).default("blank"),
 });
 
+/** Which designs a list shows besides those in use: archived ones too, or only them (docs/decisions/167). */
+export const ARCHIVED_FILTERS = ["include", "only"] as const;
+export const archivedFilterSchema = z.enum(ARCHIVED_FILTERS, { message: `archived is one of ${ARCHIVED_FILTERS.join(", ")}` }).optional();
+
 /** Filters of the design list, from the query string; a value that makes no sense is ignored. */
 export const designFilterSchema = z.object({
   vehicle: z.string().trim().min(1).max(100).refine(storableText).optional().catch(undefined),
   status: z.enum(DESIGN_STATUSES).optional().catch(undefined),
+  archived: archivedFilterSchema.catch(undefined),
+});
+
+/** PATCH /api/v1/designs/:id: archive (true) or bring back (false); an unknown key is refused, not ignored. */
+export const designPatchBodySchema = z.strictObject({
+  archived: z.boolean({ message: "archived is true (archive the design) or false (bring it back)." }),
+});
+
+/** The design page's archive and restore buttons (intent names which). */
+export const archiveFormSchema = z.object({
+  intent: z.enum(["archive", "restore"], { message: "intent is archive or restore." }),
 });
 export type DesignFilter = z.output<typeof designFilterSchema>;
 /** The vehicle filter value for designs that belong to no vehicle. */

@@ -25,6 +25,8 @@ export const PERMISSIONS = {
   "members.manage": ["admin"],
   // Create designs, save drafts, save revisions.
   "design.edit": ["engineer"],
+  // Archive a design or bring it back: kept for audit, hidden from lists (decision 167).
+  "design.archive": ["admin", "engineer"],
   "vehicle.manage": ["admin", "engineer", "technician"],
   "bench.run": ["technician"],
   // Putting an approved revision on a vehicle is an engineering decision (docs/decisions/070).

@@ -2,7 +2,7 @@
 // Every query is scoped by workspace id. Rules: only reviewers decide (the routes ask requireCan
 // for "review.decide", and decide() asks can() again), nobody decides on a revision they authored, a decision signs the revision's
 // content hash, and a new revision starts without any approval (decisions belong to one revision).
-import { and, asc, desc, eq, inArray, lt } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNull, lt } from "drizzle-orm";
 import { db, schema } from "~/db/client.server";
 import { can, rolesThatCan } from "~/lib/roles";
 import { recordAudit } from "~/audit/audit.server";
@@ -506,7 +506,15 @@ export async function changeRequestsFor(workspaceId: string, authorId: string) {
     })
     .from(designRevision)
     .innerJoin(design, and(eq(design.id, designRevision.designId), eq(design.workspaceId, designRevision.workspaceId)))
-    .where(and(eq(designRevision.workspaceId, workspaceId), eq(designRevision.authorId, authorId), inArray(designRevision.id, wanted)))
+    // An archived design asks nothing more of its author (decision 167).
+    .where(
+      and(
+        eq(designRevision.workspaceId, workspaceId),
+        eq(designRevision.authorId, authorId),
+        inArray(designRevision.id, wanted),
+        isNull(design.archivedAt),
+      ),
+    )
     .orderBy(asc(design.name));
   const decisions = await decisionsOf(
     workspaceId,

@@ -20,7 +20,12 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
   const draft = await getDraft(m.workspace.id, d.id);
   const search = new URL(request.url).searchParams;
   // ?row=I opens simulating row I of what is shown; the editor checks it against the design.
-  const common = { slug: m.workspace.slug, design: { id: d.id, name: d.name }, draftVersion: draft?.version ?? 0, row: search.get("row") };
+  const common = {
+    slug: m.workspace.slug,
+    design: { id: d.id, name: d.name, archived: d.archived !== null },
+    draftVersion: draft?.version ?? 0,
+    row: search.get("row"),
+  };
 
   // ?revision=N shows that saved revision, read-only.
   const wanted = search.get("revision");
@@ -40,7 +45,8 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
   const start = editorStart(draft, latest);
   return {
     ...common,
-    readOnly: !canEdit,
+    // An archived design is read-only for everyone: no new drafts or revisions (decision 167).
+    readOnly: !canEdit || d.archived !== null,
     initial: (start.source === "none" ? blankDocument(d.name) : start.document) as unknown,
     baseRevision: start.baseRevision,
     showing:
@@ -99,7 +105,8 @@ export default function DesignEditorPage({ loaderData }: Route.ComponentProps) {
           throw failure(m, e);
         });
       if (a.status === 200) return { ok: true, version: a.body.version };
-      if (a.status === 409) return { ok: false, status: 409, currentVersion: a.body.currentVersion };
+      // A 409 is a stale draft, or a design archived since the editor opened (its message says so).
+      if (a.status === 409 && "currentVersion" in a.body) return { ok: false, status: 409, currentVersion: a.body.currentVersion };
       throw refused(m, a);
     },
     [design.id],
@@ -122,7 +129,7 @@ export default function DesignEditorPage({ loaderData }: Route.ComponentProps) {
         return { status: 400, problems: error.fields.length > 0 ? error.fields : [{ path: "", message: error.message }] };
       }
       if (a.status === 422) return { status: 422, verdict: a.body.verdict };
-      if (a.status === 409) return { status: 409, latestRevision: a.body.latestRevision };
+      if (a.status === 409 && "latestRevision" in a.body) return { status: 409, latestRevision: a.body.latestRevision };
       throw refused(m, a);
     },
     [design.id],
@@ -144,6 +151,7 @@ export default function DesignEditorPage({ loaderData }: Route.ComponentProps) {
           {showing.kind === "revision"
             ? `Opened revision ${showing.number}${readOnly ? ", read-only" : ""}`
             : `Opened the draft${showing.changed ? "" : `, same as revision ${showing.number}`}${readOnly ? ", read-only" : ""}`}
+          {design.archived ? " (the design is archived)" : ""}
         </p>
       </div>
       <DesignEditor

@@ -132,6 +132,36 @@ export async function releaseHistory(workspaceId: string, vehicleId: string) {
     .orderBy(desc(vehicleRelease.at), desc(vehicleRelease.id));
 }
 
+/**
+ * The vehicles a design's revisions were released to, newest release first, each saying whether it is
+ * still the vehicle's current release: the design page shows it, archived or not (decision 167).
+ */
+export async function releasesOfDesign(workspaceId: string, designId: string) {
+  const [rows, current] = await Promise.all([
+    db
+      .select({
+        id: vehicleRelease.id,
+        vehicleId: vehicle.id,
+        vehicleName: vehicle.name,
+        number: designRevision.number,
+        at: vehicleRelease.at,
+        releasedByName: user.name,
+      })
+      .from(vehicleRelease)
+      .innerJoin(
+        designRevision,
+        and(eq(designRevision.id, vehicleRelease.revisionId), eq(designRevision.workspaceId, vehicleRelease.workspaceId)),
+      )
+      .innerJoin(vehicle, and(eq(vehicle.id, vehicleRelease.vehicleId), eq(vehicle.workspaceId, vehicleRelease.workspaceId)))
+      .innerJoin(user, eq(user.id, vehicleRelease.releasedBy))
+      .where(and(eq(vehicleRelease.workspaceId, workspaceId), eq(designRevision.designId, designId)))
+      .orderBy(desc(vehicleRelease.at), desc(vehicleRelease.id)),
+    currentReleases(workspaceId),
+  ]);
+  const currentIds = new Set(current.map((c) => c.id));
+  return rows.map((r) => ({ ...r, current: currentIds.has(r.id) }));
+}
+
 /** The revision released to the vehicle now, with its document; null when none is. */
 export async function currentRelease(workspaceId: string, vehicleId: string) {
   const latest = (await releaseHistory(workspaceId, vehicleId))[0];
@@ -144,7 +174,7 @@ export async function currentRelease(workspaceId: string, vehicleId: string) {
   return { ...latest, document: readRevisionDesign(rows[0]!.document, latest.revisionId), authorId: rows[0]!.authorId };
 }
 
-/** Revisions that could be released: every revision of the workspace, designs for this vehicle first. */
+/** Revisions that could be released: every revision of the workspace's designs in use (not archived), designs for this vehicle first. */
 export async function releasableRevisions(workspaceId: string, vehicleId: string) {
   const rows = await db
     .select({
@@ -157,7 +187,7 @@ export async function releasableRevisions(workspaceId: string, vehicleId: string
     })
     .from(designRevision)
     .innerJoin(design, and(eq(design.id, designRevision.designId), eq(design.workspaceId, designRevision.workspaceId)))
-    .where(eq(designRevision.workspaceId, workspaceId))
+    .where(and(eq(designRevision.workspaceId, workspaceId), isNull(design.archivedAt)))
     .orderBy(desc(sql`${design.vehicleId} is not distinct from ${vehicleId}`), asc(design.name), desc(designRevision.number));
   const [approved, standings] = await Promise.all([
     Promise.all(rows.map((r) => revisionApproval(workspaceId, r.id))),
@@ -189,12 +219,27 @@ export async function releaseRevision(
   input: { revisionId: string; note: string; override?: string },
 ): Promise<ReleaseOutcome> {
   const rev = await db
-    .select({ id: designRevision.id, number: designRevision.number, designName: design.name, contentHash: designRevision.contentHash })
+    .select({
+      id: designRevision.id,
+      number: designRevision.number,
+      designName: design.name,
+      contentHash: designRevision.contentHash,
+      archivedAt: design.archivedAt,
+    })
     .from(designRevision)
     .innerJoin(design, and(eq(design.id, designRevision.designId), eq(design.workspaceId, designRevision.workspaceId)))
     .where(and(eq(designRevision.id, input.revisionId), eq(designRevision.workspaceId, workspaceId)))
     .limit(1);
   if (!rev[0]) return { ok: false, fields: { revisionId: "Choose a revision of a design in this workspace." } };
+  // An archived design's revisions stay on the vehicles they were released to, but are not released anew (decision 167).
+  if (rev[0].archivedAt) {
+    return {
+      ok: false,
+      fields: {
+        revisionId: `Revision ${rev[0].number} of "${rev[0].designName}" cannot be released: the design is archived. Bring the design back from the archive to release it.`,
+      },
+    };
+  }
   // A revision stored before format 1.1 that 1.1 would refuse stays readable but is not released (decision 111).
   const standing = (await standingsFor(workspaceId, [input.revisionId])).get(input.revisionId);
   if (standing && !standing.passes) {

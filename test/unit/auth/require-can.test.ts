@@ -36,6 +36,8 @@ const MAY: Record<Action, Role[]> = {
   "workspace.view": ["admin", "engineer", "technician", "reviewer"],
   "members.manage": ["admin"],
   "design.edit": ["engineer"],
+  // Issue 15: engineers and admins archive designs and bring them back (decision 167).
+  "design.archive": ["admin", "engineer"],
   "vehicle.manage": ["admin", "engineer", "technician"],
   "bench.run": ["technician"],
   "revision.release": ["admin", "engineer"],

@@ -17,6 +17,20 @@ const examples: Record<(typeof DESIGN_EVENT_ACTIONS)[number], { e: Omit<DesignEv
     text: "Rhea saved revision 3 of “Haybarn hauler”.",
     href: `/w/ws/designs/${D}/revisions/3/review`,
   },
+  "design.archived": {
+    e: { action: "design.archived", subject: "Haybarn hauler", detail: { designId: D } },
+    text: "Rhea archived the design “Haybarn hauler”; its revisions stay readable.",
+    href: `/w/ws/designs/${D}`,
+  },
+  "design.unarchived": {
+    e: {
+      action: "design.unarchived",
+      subject: "Haybarn hauler",
+      detail: { designId: D, archivedAt: "2026-11-30T09:00:00.000Z", archivedBy: "4f1c2a9e-0000-4000-8000-00000000u001" },
+    },
+    text: "Rhea brought back the design “Haybarn hauler” from the archive.",
+    href: `/w/ws/designs/${D}`,
+  },
   "review.requested": {
     e: {
       action: "review.requested",

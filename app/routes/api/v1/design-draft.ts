@@ -1,12 +1,13 @@
 // GET /api/v1/designs/:designId/draft -> { draft: { version, baseRevision, updatedAt, updatedBy, document, check } | null }
 // PUT /api/v1/designs/:designId/draft { document, version, baseRevision? }
-//   200 { version }   409 { error: { code: "stale_draft", ... }, currentVersion }
+//   200 { version }   409 { error: { code: "stale_draft", ... }, currentVersion } | { error: { code: "design_archived", ... }, archived }
 // The draft is the working copy: any JSON object (at most DESIGN_BODY_MAX_BYTES), not proven.
 import type { Route } from "./+types/design-draft";
 import { apiError, handleApi, readJsonBody, reply, requireMethod, zodFields } from "~/api/http.server";
 import { api } from "~/api/endpoints";
 import { storableJsonProblem } from "~/lib/storable-json";
-import { getDraft, requireDesign, saveDraft } from "~/designs/designs.server";
+import { archivedAnswer, getDraft, requireDesign, saveDraft } from "~/designs/designs.server";
+
 import { jsonObjectSchema, saveDraftBodySchema } from "~/designs/forms";
 import { DESIGN_BODY_MAX_BYTES } from "~/designs/types";
 
@@ -41,6 +42,7 @@ export async function action({ request, params, context }: Route.ActionArgs) {
     const unstorable = storableJsonProblem(body.data.document, "document");
     if (unstorable) return apiError(400, "invalid_body", "The draft holds something that cannot be stored.", [unstorable]);
     const saved = await saveDraft(member.workspace.id, design.id, member.user.id, body.data);
+    if (!saved.ok && "archived" in saved) return archivedAnswer(member.workspace.id, design.id, "draft");
     if (!saved.ok) {
       return apiError(
         409,

@@ -3,12 +3,13 @@
 // POST /api/v1/designs/:designId/revisions { document, baseRevision, message? }
 //   201 { revision: { number, contentHash, verdict } }
 //   400 { error: { code: "invalid_design" | "invalid_body" | "invalid_json", message, fields } }
-//   409 { error: { code: "stale_revision", ... }, latestRevision }
+//   409 { error: { code: "stale_revision", ... }, latestRevision } | { error: { code: "design_archived", ... }, archived }
 //   422 { error: { code: "never_drives" | "rules_fail", ... }, verdict }  (spec 1.1: ok needs a drive row)
 import type { Route } from "./+types/design-revisions";
 import { apiError, handleApi, readJsonBody, reply, requireMethod, zodFields } from "~/api/http.server";
 import { api } from "~/api/endpoints";
-import { listRevisions, requireDesign, saveProvenRevision } from "~/designs/designs.server";
+import { archivedAnswer, listRevisions, requireDesign, saveProvenRevision } from "~/designs/designs.server";
+
 import { proofLimitAnswer } from "~/proofs/pool.server";
 import { jsonObjectSchema, saveRevisionBodySchema } from "~/designs/forms";
 import { DESIGN_BODY_MAX_BYTES } from "~/designs/types";
@@ -65,6 +66,7 @@ export async function action({ request, params, context }: Route.ActionArgs) {
     }
     if (saved.kind === "refused") return apiError(422, saved.code, saved.message, [], { verdict: saved.verdict });
     if (saved.kind === "missing") return apiError(404, "not_found", "No such design.");
+    if (saved.kind === "archived") return archivedAnswer(member.workspace.id, design.id, "revision");
     if (saved.kind === "stale") {
       return apiError(
         409,
