@@ -1,8 +1,13 @@
-import { Link } from "react-router";
+import { data, Link } from "react-router";
 import type { Route } from "./+types/design";
 import { requireCan } from "~/auth/context.server";
 import { can } from "~/lib/roles";
-import { getDesign, getDraft, getRevision, listRevisions, statusOf } from "~/designs/designs.server";
+import { getDesign, getDraft, getRevision, listRevisions, setArchived, statusOf } from "~/designs/designs.server";
+import { archiveFormSchema } from "~/designs/forms";
+import { formObject } from "~/lib/forms";
+import { releasesOfDesign } from "~/vehicles/vehicles.server";
+import { ArchiveControl, ArchivedNotice } from "~/components/design/archive";
+import { Badge } from "~/components/ui/badge";
 import { standingsFor } from "~/designs/standing.server";
 import { RefusedBadge, RefusedNotice } from "~/components/refused-mark";
 import { designsPath, editorPath } from "~/designs/paths";
@@ -24,11 +29,12 @@ export async function loader({ params, context }: Route.LoaderArgs) {
   const m = requireCan(context, "workspace.view");
   const d = await getDesign(m.workspace.id, params.designId);
   if (!d) throw new Response("Not found", { status: 404 });
-  const [latest, draft, history, reviews] = await Promise.all([
+  const [latest, draft, history, reviews, releases] = await Promise.all([
     getRevision(m.workspace.id, d.id),
     getDraft(m.workspace.id, d.id),
     listRevisions(m.workspace.id, d.id),
     reviewStatusOf(m.workspace.id, [d.id]),
+    releasesOfDesign(m.workspace.id, d.id),
   ]);
   const review = reviews.get(d.id);
   const standings = await standingsFor(
@@ -50,9 +56,13 @@ export async function loader({ params, context }: Route.LoaderArgs) {
     }
   }
   return {
-    canEdit: can(m.role, "design.edit"),
+    // An archived design takes no new drafts or revisions: its page offers no editing (decision 167).
+    canEdit: can(m.role, "design.edit") && d.archived === null,
+    canArchive: can(m.role, "design.archive"),
     slug: m.workspace.slug,
     design: { id: d.id, name: d.name, vehicleId: d.vehicleId, vehicleName: d.vehicleName, status: statusOf(latest?.number) },
+    archived: d.archived ? { at: d.archived.at.toISOString(), byName: d.archived.by.name } : null,
+    releases: releases.map((r) => ({ ...r, at: r.at.toISOString() })),
     latest: latest
       ? {
           number: latest.number,
@@ -86,10 +96,21 @@ export async function loader({ params, context }: Route.LoaderArgs) {
   };
 }
 
+/** Archive the design or bring it back (admins and engineers). */
+export async function action({ request, params, context }: Route.ActionArgs) {
+  const m = requireCan(context, "design.archive");
+  const parsed = archiveFormSchema.safeParse(formObject(await request.formData()));
+  if (!parsed.success)
+    return data({ fields: { intent: parsed.error.issues[0]?.message ?? "intent is archive or restore." } }, { status: 400 });
+  const out = await setArchived(m.workspace.id, params.designId, m.user.id, parsed.data.intent === "archive");
+  if (out.kind === "missing") throw new Response("Not found", { status: 404 });
+  return { fields: {} as Record<string, string> };
+}
+
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.design.name ?? "Design"} · Chainproof` }];
 
-export default function DesignOverview({ loaderData }: Route.ComponentProps) {
-  const { canEdit, slug, design, latest, draft, history } = loaderData;
+export default function DesignOverview({ loaderData, actionData }: Route.ComponentProps) {
+  const { canEdit, canArchive, slug, design, archived, releases, latest, draft, history } = loaderData;
   const latestReview = history[0]?.review;
   return (
     <>
@@ -103,6 +124,7 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
         description={
           <span className="inline-flex flex-wrap items-center gap-2">
             <StatusBadge status={design.status} />
+            {archived ? <Badge tone="caution">Archived</Badge> : null}
             {latestReview ? <ReviewStatusBadge status={latestReview} number={history[0]?.number} /> : null}
             {design.vehicleId ? (
               <Link to={`/w/${slug}/vehicles/${design.vehicleId}`} className="text-copper-700 underline">
@@ -114,11 +136,22 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
           </span>
         }
         actions={
-          <ButtonLink to={editorPath(slug, design.id)} variant={canEdit ? "action" : "secondary"}>
-            {canEdit ? "Open the editor" : "View on the canvas"}
-          </ButtonLink>
+          <span className="flex flex-wrap items-center gap-2">
+            {canArchive ? (
+              <ArchiveControl
+                key={archived ? "archived" : "in-use"}
+                designName={design.name}
+                archived={archived !== null}
+                error={actionData && "intent" in actionData.fields ? actionData.fields.intent : undefined}
+              />
+            ) : null}
+            <ButtonLink to={editorPath(slug, design.id)} variant={canEdit ? "action" : "secondary"}>
+              {canEdit ? "Open the editor" : "View on the canvas"}
+            </ButtonLink>
+          </span>
         }
       />
+      {archived ? <ArchivedNotice archived={archived} /> : null}
 
       <div className="grid grid-cols-1 gap-5 lg:grid-cols-3">
         <div className="min-w-0 space-y-5 lg:col-span-2">
@@ -145,9 +178,11 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
               </>
             ) : (
               <p className="text-sm text-ink-600">
-                {canEdit
-                  ? "Save the draft from the editor once every rule holds; it becomes revision 1."
-                  : "An engineer saves revision 1 once every rule of the draft holds."}
+                {archived
+                  ? "The design was archived before a revision was saved."
+                  : canEdit
+                    ? "Save the draft from the editor once every rule holds; it becomes revision 1."
+                    : "An engineer saves revision 1 once every rule of the draft holds."}
               </p>
             )}
           </Section>
@@ -192,6 +227,33 @@ export default function DesignOverview({ loaderData }: Route.ComponentProps) {
               </div>
             ) : (
               <p className="text-sm text-ink-600">No draft.</p>
+            )}
+          </Section>
+          <Section title="Released to vehicles">
+            {releases.length === 0 ? (
+              <p className="text-sm text-ink-600">No revision of this design has been released to a vehicle.</p>
+            ) : (
+              <ul className="space-y-2 text-sm" aria-label="Releases of this design">
+                {releases.map((r) => (
+                  <li key={r.id} className="[overflow-wrap:anywhere]">
+                    <Link to={`/w/${slug}/vehicles/${r.vehicleId}`} className="font-semibold text-copper-700 underline">
+                      {r.vehicleName}
+                    </Link>
+                    : revision {r.number}
+                    {r.current ? (
+                      <>
+                        {" "}
+                        · <span className="font-semibold text-moss-700">current</span>
+                      </>
+                    ) : (
+                      <> · replaced since</>
+                    )}
+                    <span className="block text-ink-600">
+                      Released by {r.releasedByName}, <When iso={r.at} />
+                    </span>
+                  </li>
+                ))}
+              </ul>
             )}
           </Section>
           <SafetyNote />

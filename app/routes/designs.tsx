@@ -1,4 +1,5 @@
 import { Form, Link, useSubmit } from "react-router";
+import { Badge } from "~/components/ui/badge";
 import type { Route } from "./+types/designs";
 import { requireCan } from "~/auth/context.server";
 import { can } from "~/lib/roles";
@@ -47,7 +48,8 @@ const selectClass =
 export default function Designs({ loaderData }: Route.ComponentProps) {
   const { canEdit, filter, designs, vehicles, slug, review } = loaderData;
   const submit = useSubmit();
-  const filtered = filter.vehicle !== undefined || filter.status !== undefined;
+  // Showing archived designs too widens the list; it is not a filter that can leave it empty.
+  const filtered = filter.vehicle !== undefined || filter.status !== undefined || filter.archived === "only";
   return (
     <>
       <PageHeader
@@ -107,12 +109,23 @@ export default function Designs({ loaderData }: Route.ComponentProps) {
             ))}
           </select>
         </div>
+        <label className="flex min-h-10 items-center gap-2 text-sm font-medium text-ink-700">
+          <input
+            type="checkbox"
+            name="archived"
+            value="include"
+            defaultChecked={filter.archived === "include"}
+            key={`a-${filter.archived ?? ""}`}
+            className="h-4 w-4"
+          />
+          Show archived
+        </label>
         <noscript>
           <Button type="submit" variant="secondary">
             Apply
           </Button>
         </noscript>
-        {filtered ? (
+        {filtered || filter.archived ? (
           <Link to="." className="min-h-10 py-2 text-sm font-semibold text-copper-700 underline">
             Clear filters
           </Link>
@@ -165,8 +178,10 @@ function DesignRow({
   review?: { latest: ReviewStatus | null; approved: number | null };
 }) {
   const rev = d.latestRevision;
+  // An archived design takes no edits: its row opens the canvas read-only (decision 167).
+  const editable = canEdit && !d.archived;
   return (
-    <li className={cardVariants({ padding: "md" })}>
+    <li className={cardVariants({ padding: "md" })} data-archived={d.archived ? "true" : undefined}>
       <div className="flex flex-wrap items-start justify-between gap-3">
         <div className="min-w-0">
           <Link to={designPath(slug, d.id)} className="text-base font-semibold text-ink-900 hover:text-copper-700 hover:underline">
@@ -175,10 +190,15 @@ function DesignRow({
           <p className="text-sm text-ink-600">{d.vehicleName ?? "No vehicle"}</p>
         </div>
         <div className="flex items-center gap-2">
+          {d.archived ? (
+            <Badge tone="caution" title={`Archived by ${d.archived.by.name}`}>
+              Archived
+            </Badge>
+          ) : null}
           <StatusBadge status={d.status} />
           {review?.latest ? <ReviewStatusBadge status={review.latest} /> : null}
           <ButtonLink to={editorPath(slug, d.id)} variant="secondary" size="dense">
-            {canEdit ? "Edit" : "View canvas"}
+            {editable ? "Edit" : "View canvas"}
           </ButtonLink>
         </div>
       </div>
