@@ -1,5 +1,6 @@
 // The design editor end to end: build a design by mouse from an empty one, prove it, save it as a
-// revision, have an unsafe save refused with its counterexample, and open it read-only as a reviewer.
+// revision, have an unsafe save refused with its counterexample, and open it read-only as a reviewer
+// or once it is archived. With CHAINPROOF_SCREENSHOTS=1 it writes docs/screenshots/design-archived.png.
 import type { Page } from "@playwright/test";
 import { APP_ORIGIN, expect, signIn, test } from "../support/e2e";
 
@@ -178,6 +179,31 @@ test("a reviewer sees the canvas read-only but may simulate", async ({ page }) =
   await expect(page.getByRole("button", { name: "Undo" })).toHaveCount(0);
   await page.getByRole("tab", { name: "Conditions" }).click();
   await expect(page.getByRole("button", { name: "+ Condition" })).toBeDisabled();
+});
+
+test("an engineer archives a design after confirming: its page says so, the list hides it, the editor is read-only", async ({ page }) => {
+  await signIn(page, "engineer");
+  const name = `Archived canvas check ${Date.now()}`;
+  const id = await newDesign(page, name);
+  await page.goto(`/w/${WS}/designs/${id}`);
+  await page.getByRole("button", { name: "Archive", exact: true }).click();
+  const dialog = page.getByRole("dialog", { name: `Archive “${name}”?` });
+  await expect(dialog).toContainText("Nothing is deleted");
+  await dialog.getByRole("button", { name: "Archive the design" }).click();
+  await expect(page.getByTestId("archived-notice")).toContainText("Archived by");
+  await expect(page.getByRole("dialog")).toHaveCount(0);
+  await expect(page.getByRole("button", { name: "Bring back from the archive" })).toBeVisible();
+  if (process.env.CHAINPROOF_SCREENSHOTS === "1") await page.screenshot({ path: "docs/screenshots/design-archived.png", fullPage: true });
+
+  await page.goto(`/w/${WS}/designs`);
+  await expect(page.getByRole("link", { name, exact: true })).toHaveCount(0);
+  await page.getByLabel("Show archived").check();
+  await expect(page).toHaveURL(/archived=include/);
+  await expect(page.getByRole("link", { name, exact: true })).toBeVisible();
+
+  await openEditor(page, id);
+  await expect(page.getByText("Read only")).toBeVisible();
+  await expect(page.getByRole("button", { name: "Save revision" })).toHaveCount(0);
 });
 
 type Revision = { document: { conditions: Array<{ id: string; label?: string; states: string[] }> } };

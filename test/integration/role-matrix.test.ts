@@ -39,6 +39,30 @@ export const MATRIX: Row[] = [
     expect: all(400, { reviewer: 403 }),
   },
   { name: "designs list", method: "GET", path: "/w/larkspur/designs", expect: all(200) },
+  { name: "designs list with archived designs", method: "GET", path: "/w/larkspur/designs?archived=include", expect: all(200) },
+  // Archiving a demo design, with an intent that is not one: allowed roles get 400 (nothing changes), others 403.
+  {
+    name: "archive a design (bad intent: admins and engineers get 400, others 403)",
+    method: "POST",
+    path: "/w/larkspur/designs/:demoDesign",
+    body: { intent: "delete" },
+    expect: all(403, { admin: 400, engineer: 400 }),
+  },
+  {
+    name: "archive a design of no such id (admins and engineers get 404, others 403)",
+    method: "POST",
+    path: "/w/larkspur/designs/no-such-design",
+    body: { intent: "archive" },
+    expect: all(403, { admin: 404, engineer: 404 }),
+  },
+  {
+    name: "API: archive a design (bad body: admins and engineers get 400, others 403)",
+    method: "PATCH",
+    path: "/api/v1/designs/:demoDesign",
+    json: { archived: "yes" },
+    expect: api(403, { admin: 400, engineer: 400 }),
+  },
+  { name: "API: designs with archived ones", method: "GET", path: "/api/v1/designs?workspace=larkspur&archived=include", expect: api(200) },
   { name: "reviews", method: "GET", path: "/w/larkspur/reviews", expect: all(200) },
   {
     name: "design activity (admins, engineers, reviewers)",
@@ -220,8 +244,13 @@ export const MATRIX: Row[] = [
 
 const clients = {} as Record<DemoRole | "outsider" | "anonymous", Client>;
 
+/** A demo design's id, for rows that name one (":demoDesign"); they never change it. */
+let demoDesign = "";
+
 beforeAll(async () => {
   for (const role of Object.keys(DEMO) as DemoRole[]) clients[role] = await signIn(DEMO[role]);
+  const listed = await clients.admin.fetch("/api/v1/designs?workspace=larkspur");
+  demoDesign = ((await listed.json()) as { designs: Array<{ id: string }> }).designs[0]!.id;
   clients.outsider = (await createOutsider()).client;
   clients.anonymous = client();
 });
@@ -236,7 +265,7 @@ describe("role matrix", () => {
             : row.method === "POST"
               ? formBody(row.body ?? {})
               : { method: row.method };
-        const res = await clients[who].fetch(row.path, init);
+        const res = await clients[who].fetch(row.path.replace(":demoDesign", demoDesign), init);
         expect(res.status).toBe(row.expect[who]);
         if (res.status === 302) expect(res.headers.get("location")).toContain("/sign-in");
         const text = await res.text();
