@@ -64,7 +64,19 @@ async function expectShape(where: string, res: Response, schema: z.ZodType): Pro
   const parsed = schema.safeParse(body);
   if (!parsed.success) {
     throw new AnswerMismatch(
-      `${where} with a body that does not match its schema:\n${z.prettifyError(parsed.error)}\nbody: ${text.slice(0, 500)}`,
+      `${where} with a body that does not match its schema:\n${z.prettifyError(parsed.error)}${unionDetails(parsed.error)}\nbody: ${text.slice(0, 500)}`,
     );
   }
+}
+
+/** zod sums up a failed union as "Invalid input": add what each alternative found wrong (a 409 is one of two shapes). */
+function unionDetails(error: z.ZodError): string {
+  const lines: string[] = [];
+  for (const issue of error.issues) {
+    if (issue.code !== "invalid_union") continue;
+    issue.errors.forEach((branch, i) => {
+      for (const b of branch) lines.push(`  alternative ${i + 1}: ${b.message} at ${[...issue.path, ...b.path].join(".") || "(root)"}`);
+    });
+  }
+  return lines.length > 0 ? `\n${lines.join("\n")}` : "";
 }

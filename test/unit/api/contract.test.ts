@@ -64,6 +64,10 @@ describe("the test-side check of answers", () => {
   it("refuses a body of the wrong shape, a missing field or a body that is not JSON", async () => {
     await expect(checkAnswer("PUT", "/api/v1/designs/d1/draft", json(200, { version: "3" }))).rejects.toThrow(/does not match/);
     await expect(checkAnswer("PUT", "/api/v1/designs/d1/draft", json(409, error("stale_draft", "x")))).rejects.toThrow(/currentVersion/);
+    // A 409 is stale_draft with currentVersion or design_archived with archived: with neither, both are named.
+    await expect(checkAnswer("PUT", "/api/v1/designs/d1/draft", json(409, error("stale_draft", "x")))).rejects.toThrow(/archived/);
+    const archived = { ...error("design_archived", "x"), archived: { at: "2026-12-02T10:00:00.000Z", by: { id: "u", name: "Rhea" } } };
+    expect(await checkAnswer("PUT", "/api/v1/designs/d1/draft", json(409, archived))).toBe("checked");
     await expect(checkAnswer("GET", "/api/v1/designs/d1", new Response("<html>oops</html>", { status: 404 }))).rejects.toThrow(/not JSON/);
     const run = { runs: [{ id: "r", status: "paused" }], nextCursor: null };
     await expect(checkAnswer("GET", "/api/v1/bench-runs", json(200, run))).rejects.toThrow(/does not match/);
