@@ -476,6 +476,10 @@ const NOT_TEXT: Record<string, string> = {
   "PUT /api/v1/designs/{designId}/draft":
     "a design document: the engine's validation and storableJsonProblem, fuzzed in fuzz-api.test.ts (decision 101)",
   "POST /api/v1/proofs": "a design document, proved and never stored: fuzzed in fuzz-api.test.ts (decision 101)",
+  "routes/design.tsx archive":
+    "nothing but the intent (archive or restore); any other intent answers 400 naming it (archiving.test.ts, decision 167)",
+  "PATCH /api/v1/designs/{designId}":
+    "a boolean archived and no other key: a string or an extra key answers 400 naming it (archiving.test.ts, decision 167)",
 };
 // The controller form's lockout checkboxes are left out of its fields: a checkbox's value is not kept, only whether it was sent.
 
