@@ -29,6 +29,19 @@ const num = (v: unknown): number | null => (typeof v === "number" && Number.isIn
 const quoted = (s: string | null, fallback: string) => (s ? `“${s}”` : fallback);
 const MODES: Record<string, string> = { "stuck-closed": "stuck closed", "stuck-open": "stuck open" };
 
+/** The most of a justification an activity line quotes; the review page and the report give it whole. */
+export const JUSTIFICATION_CHARS = 120;
+
+/** A justification on one line, cut at a word before JUSTIFICATION_CHARS (then ending "…"). */
+export function shortJustification(text: string): string {
+  const flat = text.replace(/\s+/g, " ").trim();
+  if (flat.length <= JUSTIFICATION_CHARS) return flat;
+  const head = flat.slice(0, JUSTIFICATION_CHARS - 1);
+  const space = head.lastIndexOf(" ");
+  // A single word longer than a third of the room is cut inside the word.
+  return `${(space > JUSTIFICATION_CHARS / 3 ? head.slice(0, space) : head).replace(/[\s,;:.–—-]+$/, "")}…`;
+}
+
 export function isDesignEvent(action: string): action is DesignEventAction {
   return (DESIGN_EVENT_ACTIONS as readonly string[]).includes(action);
 }
@@ -90,7 +103,11 @@ export function describeDesignEvent(e: DesignEvent, slug: string): EventWords | 
       const [component, mode] = (str(d.fault) ?? "").split("/");
       const fault = component ? `${component} ${MODES[mode ?? ""] ?? "stuck"}` : "a single fault";
       const label = DISPOSITION_LABELS[d.disposition as Disposition] ?? str(d.dispositionLabel);
-      return { text: `${who} recorded how ${fault} in ${revision} is dealt with${label ? `: ${label.toLowerCase()}` : ""}.`, href: review };
+      const why = str(d.justification) ? shortJustification(str(d.justification)!) : "";
+      return {
+        text: `${who} recorded how ${fault} in ${revision} is dealt with${label ? `: ${label.toLowerCase()}` : ""}${why ? `. Justification: “${why}”` : "."}`,
+        href: review,
+      };
     }
     case "vehicle.revision-released": {
       const vehicleId = str(d.vehicleId);

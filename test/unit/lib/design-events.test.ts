@@ -2,6 +2,7 @@
 // names the revision or vehicle, links the page to read more, and shows no action code, id or
 // address; events that are not about designs are not described.
 import { describe, expect, it } from "vitest";
+import fc from "fast-check";
 import { DESIGN_EVENT_ACTIONS, describeDesignEvent, type DesignEvent } from "../../../app/audit/design-events";
 
 const D = "4f1c2a9e-0000-4000-8000-00000000d351";
@@ -63,9 +64,15 @@ const examples: Record<(typeof DESIGN_EVENT_ACTIONS)[number], { e: Omit<DesignEv
     e: {
       action: "review.fault-disposed",
       subject: "Haybarn hauler revision 3",
-      detail: { designId: D, number: 3, fault: "SEAT_SW/stuck-closed", disposition: "fix-next-revision", justification: "x" },
+      detail: {
+        designId: D,
+        number: 3,
+        fault: "SEAT_SW/stuck-closed",
+        disposition: "fix-next-revision",
+        justification: "Sealed switch in r4;\n  the seat is checked at every shift until then.",
+      },
     },
-    text: "Rhea recorded how SEAT_SW stuck closed in “Haybarn hauler revision 3” is dealt with: to be fixed in the next revision.",
+    text: "Rhea recorded how SEAT_SW stuck closed in “Haybarn hauler revision 3” is dealt with: to be fixed in the next revision. Justification: “Sealed switch in r4; the seat is checked at every shift until then.”",
     href: `/w/ws/designs/${D}/revisions/3/review`,
   },
   "vehicle.revision-released": {
@@ -94,6 +101,48 @@ describe("design events in words", () => {
       expect(words.text).not.toMatch(/undefined|null|\{|\?| \.|“”/);
       expect(words.href).toBeNull();
     }
+  });
+
+  it("quotes a long justification shortened at a word, on one line, ending in an ellipsis", () => {
+    // 17 words of 12 characters each (a space between): 220 characters, over the 120 an activity line quotes.
+    const words = Array.from({ length: 17 }, (_, i) => `word${String(i).padStart(2, "0")}abcdef`);
+    const e = {
+      action: "review.fault-disposed",
+      subject: "Cart revision 2",
+      detail: { designId: D, number: 2, fault: "KEY/stuck-open", disposition: "accepted", justification: words.join("\n") },
+      actorName: "Rhea",
+    };
+    // Nine words and their eight spaces are 116 characters; a tenth would pass 119 before the ellipsis.
+    expect(describeDesignEvent(e, "ws")!.text).toBe(
+      `Rhea recorded how KEY stuck open in “Cart revision 2” is dealt with: accepted. Justification: “${words.slice(0, 9).join(" ")}…”`,
+    );
+  });
+
+  it("never quotes more than 120 characters of a justification, and what it quotes is the justification's start", () => {
+    fc.assert(
+      fc.property(fc.string({ unit: fc.constantFrom("a", "b", " ", "\n", ",", "é"), minLength: 10, maxLength: 400 }), (justification) => {
+        const text = describeDesignEvent(
+          {
+            action: "review.fault-disposed",
+            subject: "Cart revision 2",
+            detail: { designId: D, number: 2, fault: "KEY/stuck-open", disposition: "ruled-out", justification },
+            actorName: "Rhea",
+          },
+          "ws",
+        )!.text;
+        const flat = justification.replace(/\s+/g, " ").trim();
+        const quoted = /Justification: “(.*)”$/s.exec(text)?.[1];
+        if (flat === "") return expect(text).toMatch(/ruled out for this part\.$/);
+        expect(quoted).toBeDefined();
+        expect(quoted!.length).toBeLessThanOrEqual(120);
+        expect(quoted).not.toMatch(/\n/);
+        if (flat.length <= 120) expect(quoted).toBe(flat);
+        else {
+          expect(quoted!.endsWith("…")).toBe(true);
+          expect(flat.startsWith(quoted!.slice(0, -1))).toBe(true);
+        }
+      }),
+    );
   });
 
   it("describes nothing that is not about designs", () => {
