@@ -30,6 +30,27 @@ const CONTROLLER = ["powered", "enabled", "direction", "braking", "throttle"].ma
  */
 export const PAGE_CHARS = Math.floor(((186 / 25.4) * 96) / PRINT_CHAR_PX);
 
+/**
+ * Rows of the printed table that one page holds, by paper, for the estimate that decides whether the
+ * report prints the whole table. Measured on Chromium's PDF (poppler's pdftotext): a full A4 page
+ * carries 86-87 rows under the repeated heading row, a Letter page 80-81 (its printable height is
+ * 251.4 mm against A4's 269 mm between 14 mm margins). The figures keep about 7% in hand: 80 on A4,
+ * and 80 × 251.4 ÷ 269, rounded down, on Letter.
+ */
+export const PRINT_ROWS_PER_PAGE = { a4: 80, letter: 74 } as const;
+/** Rows' worth of paper above a band's first row: the section's heading and sentences above the first band (which starts a page), a part's heading above the others. */
+export const FIRST_BAND_HEAD_ROWS = 16;
+export const PART_HEAD_ROWS = 5;
+
+/** Pages the whole printed table takes at most on the paper: every band starts a page and runs over whole pages of rows. */
+export function printedTablePages(columns: TableColumns, totalRows: number, size: keyof typeof PRINT_ROWS_PER_PAGE): number {
+  const perPage = PRINT_ROWS_PER_PAGE[size];
+  return printBands(columns, totalRows).reduce(
+    (pages, _, i) => pages + Math.ceil((totalRows + (i === 0 ? FIRST_BAND_HEAD_ROWS : PART_HEAD_ROWS)) / perPage),
+    0,
+  );
+}
+
 type Piece = { width: number; add: (b: Band) => void };
 
 export function printBands(columns: TableColumns, totalRows: number, pageChars = PAGE_CHARS): Band[] {

@@ -11,7 +11,7 @@ import { currentDispositions, dispositionHistory } from "~/reviews/dispositions.
 import { env } from "~/env.server";
 import { tableColumns } from "~/reviews/truth-table.server";
 import { tableRow } from "~/reviews/truth-table";
-import { printBands } from "~/reviews/print-bands";
+import { printedTablePages } from "~/reviews/print-bands";
 import { csvApiPath, reviewPath } from "~/reviews/paths";
 import { pageRows } from "~/engine";
 import { paperDiagram } from "~/reviews/paper-diagram";
@@ -27,10 +27,8 @@ import { ReportComments } from "~/components/report/comments";
 import { ReportTruthTable } from "~/components/report/truth-table";
 import { ReportCaution } from "~/components/report/caution";
 
-/** The full table is printed when it fits this many A4 pages (bands × pages of rows); else the CSV's URL. */
+/** The full table is printed when it fits this many pages of the chosen paper (bands × pages of rows); else the CSV's URL. */
 const TABLE_PAGE_LIMIT = 24;
-/** Rows of the dense printed table on one A4 page (9 px type, 14 mm margins). */
-const ROWS_PER_PAGE = 80;
 
 export async function loader({ request, params, context }: Route.LoaderArgs) {
   const { member, design, ref } = await requireRevisionPage(context, params, "workspace.view");
@@ -41,7 +39,7 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
   const size: Size = sizeParam === "letter" ? "letter" : "a4";
   const c = loaded.compiled;
   const columns = tableColumns(c);
-  const tablePages = printBands(columns, c.rows).length * Math.ceil(c.rows / ROWS_PER_PAGE);
+  const tablePages = printedTablePages(columns, c.rows, size);
   const [history, comparison] = await Promise.all([
     dispositionHistory(member.workspace.id, ref.id, ref.contentHash),
     compareWithLastApproved(member.workspace.id, design.id, ref.number, c, loaded.verdict),
@@ -144,6 +142,7 @@ export default function Report({ loaderData }: Route.ComponentProps) {
           table={d.table}
           tablePages={d.tablePages}
           pageLimit={TABLE_PAGE_LIMIT}
+          paper={SIZES[d.size]}
           csvUrl={d.csvUrl}
         />
         <ReportCaution className="mt-8" />

@@ -12,6 +12,7 @@ export function ReportTruthTable({
   table,
   tablePages,
   pageLimit,
+  paper,
   csvUrl,
 }: {
   /** Rows of the whole table. */
@@ -24,10 +25,13 @@ export function ReportTruthTable({
   tablePages: number;
   /** The most pages the table is printed on. */
   pageLimit: number;
+  /** The paper's name (A4, Letter), which the page count is for. */
+  paper: string;
   csvUrl: string;
 }) {
   return (
-    <section aria-label="Truth table">
+    // A printed table starts a page, as every further band does: the page count above holds on paper.
+    <section aria-label="Truth table" className={table ? "break-before" : undefined}>
       <h2 className={h2}>Truth table</h2>
       <p className="mt-2">
         {rows.toLocaleString("en-US")} rows; the drive is on in {verdict.driveRows.toLocaleString("en-US")}.{" "}
@@ -37,11 +41,17 @@ export function ReportTruthTable({
           .join("; ")}
       </p>
       {table ? (
-        <TruthTableBands columns={columns} rows={table} />
+        <>
+          <p className="mt-2" data-testid="report-table-pages">
+            The full table follows, on at most {tablePages.toLocaleString("en-US")} {paper} pages (it is printed when it takes {pageLimit}{" "}
+            or fewer).
+          </p>
+          <TruthTableBands columns={columns} rows={table} />
+        </>
       ) : (
         <p className="mt-2">
-          The full table is not printed: it would take about {tablePages.toLocaleString("en-US")} pages, more than {pageLimit}. The groups
-          above describe every row; the whole table is the CSV at{" "}
+          The full table is not printed: it would take about {tablePages.toLocaleString("en-US")} {paper} pages, more than {pageLimit}. The
+          groups above describe every row; the whole table is the CSV at{" "}
           <a href={csvUrl} className="break-all text-copper-700 underline" data-testid="report-csv-url">
             {csvUrl}
           </a>{" "}
