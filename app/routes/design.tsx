@@ -15,7 +15,7 @@ import { HashPrefix, Holds, NotProven, Section, StatusBadge, When } from "~/desi
 import { proveOffThread } from "~/proofs/pool.server";
 import type { Verdict } from "~/designs/types";
 import { PageHeader } from "~/components/page-header";
-import { CommonCauseNote } from "~/components/common-cause-note";
+import { SingleFaultResults } from "~/components/common-cause-note";
 import { SafetyNote } from "~/components/safety-note";
 import { reviewStatusOf } from "~/reviews/reviews.server";
 import { reviewPath, truthTablePath } from "~/reviews/paths";
@@ -356,7 +356,7 @@ function VerdictSummary({
           ))}
         </ul>
       )}
-      <div>
+      <SingleFaultResults>
         <h3 className="text-sm font-semibold">Single contact faults</h3>
         {verdict.singleFaults.length === 0 ? (
           <p className="mt-1 text-sm text-moss-700">No single stuck contact defeats a rule.</p>
@@ -371,8 +371,7 @@ function VerdictSummary({
             ))}
           </ul>
         )}
-        <CommonCauseNote className="mt-1" />
-      </div>
+      </SingleFaultResults>
     </div>
   );
 }

@@ -10,7 +10,7 @@ import { DESIGN_STATUSES, STATUS_LABELS, type DesignSummary } from "~/designs/ty
 import { HashPrefix, NotProven, StatusBadge, When } from "~/designs/design-bits";
 import { designPath, editorPath } from "~/designs/paths";
 import { PageHeader } from "~/components/page-header";
-import { CommonCauseNote } from "~/components/common-cause-note";
+import { SingleFaultResults } from "~/components/common-cause-note";
 import { EmptyState } from "~/components/empty-state";
 import { reviewStatusOf } from "~/reviews/reviews.server";
 import { ReviewStatusBadge } from "~/components/truth-table/review-status";
@@ -152,15 +152,14 @@ export default function Designs({ loaderData }: Route.ComponentProps) {
           </EmptyState>
         )
       ) : (
-        <>
+        <SingleFaultResults note="mt-4">
           <ul className="space-y-3" aria-label="Designs">
             {designs.map((d) => (
               <DesignRow key={d.id} d={d} canEdit={canEdit} slug={slug} review={review[d.id]} />
             ))}
           </ul>
-          {/* The rows count single faults: say once what such a count does not cover. */}
-          <CommonCauseNote className="mt-4" />
-        </>
+          {/* The rows count single faults: the note under the list says once what such a count does not cover. */}
+        </SingleFaultResults>
       )}
     </>
   );

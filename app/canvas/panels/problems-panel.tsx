@@ -2,7 +2,7 @@
 // failing rule with its counterexample, every single fault that defeats a rule, and the server's
 // refusal of a revision. Each counterexample opens in simulation on the canvas.
 import type { RuleVerdict, Verdict } from "../../engine";
-import { CommonCauseNote } from "../../components/common-cause-note";
+import { SingleFaultResults } from "../../components/common-cause-note";
 import { SafetyNote } from "../../components/safety-note";
 import { compiledOf, faultRow } from "../simulation";
 import { useEditor, useEditorStore } from "../store";
@@ -72,12 +72,11 @@ export function VerdictList({ verdict }: { verdict: Verdict }) {
         ))}
       </ul>
       {verdict.singleFaults.length === 0 ? (
-        <div>
+        <SingleFaultResults>
           <p className="text-sm text-moss-700">No single stuck contact defeats a rule.</p>
-          <CommonCauseNote className="mt-1" />
-        </div>
+        </SingleFaultResults>
       ) : (
-        <div>
+        <SingleFaultResults>
           <h4 className="text-xs font-bold uppercase tracking-wide text-ink-500">Single faults that defeat a rule</h4>
           <ul className="mt-1 space-y-1">
             {verdict.singleFaults.map((f) => (
@@ -105,8 +104,7 @@ export function VerdictList({ verdict }: { verdict: Verdict }) {
               </li>
             ))}
           </ul>
-          <CommonCauseNote className="mt-1" />
-        </div>
+        </SingleFaultResults>
       )}
     </div>
   );

@@ -10,6 +10,7 @@ import { DISPOSITION_HINTS, DISPOSITION_LABELS, DISPOSITIONS, faultKey, type Dis
 import { Button, SelectField, TextArea } from "~/components/ui/form";
 import { When } from "~/designs/design-bits";
 import { Card, cardVariants } from "~/components/ui/card";
+import { SingleFaultResults } from "~/components/common-cause-note";
 
 const n = (x: number) => x.toLocaleString("en-US");
 const plural = (x: number, one: string, many = `${one}s`) => `${n(x)} ${x === 1 ? one : many}`;
@@ -233,28 +234,26 @@ export function ReadableSummary({
           ) : null
         }
       >
-        {readable.faults.length === 0 ? (
-          <p className="text-sm text-moss-700">No single stuck contact defeats a rule.</p>
-        ) : (
-          <ul className="space-y-4">
-            {readable.faults.map((f) => (
-              <FaultBlock
-                key={faultKey(f)}
-                fault={f}
-                conditions={conditions}
-                table={table}
-                ruleLabels={ruleLabels}
-                current={dispositions[faultKey(f)]}
-                canDispose={canDispose}
-                errors={dispositionErrors?.key === faultKey(f) ? dispositionErrors.errors : {}}
-              />
-            ))}
-          </ul>
-        )}
-        <p className="mt-3 text-xs text-ink-600">
-          Only single stuck contacts of the drawn wiring are checked. Causes that act on several contacts at once (one actuator, one
-          connector, one cable) are common-cause failures, treated apart (ISO 13849-1, Annex F).
-        </p>
+        <SingleFaultResults note="mt-3">
+          {readable.faults.length === 0 ? (
+            <p className="text-sm text-moss-700">No single stuck contact defeats a rule.</p>
+          ) : (
+            <ul className="space-y-4">
+              {readable.faults.map((f) => (
+                <FaultBlock
+                  key={faultKey(f)}
+                  fault={f}
+                  conditions={conditions}
+                  table={table}
+                  ruleLabels={ruleLabels}
+                  current={dispositions[faultKey(f)]}
+                  canDispose={canDispose}
+                  errors={dispositionErrors?.key === faultKey(f) ? dispositionErrors.errors : {}}
+                />
+              ))}
+            </ul>
+          )}
+        </SingleFaultResults>
       </Block>
     </>
   );

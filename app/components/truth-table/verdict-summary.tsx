@@ -1,7 +1,7 @@
 // A revision's verdict in words: every rule with its unsafe / violating counts, the no-restart
 // result with its counterexample, and the single contact faults that defeat a rule.
 import type { Verdict } from "~/engine";
-import { CommonCauseNote } from "~/components/common-cause-note";
+import { SingleFaultResults } from "~/components/common-cause-note";
 import { Table, TBody, Td, Th, THead } from "~/components/ui/table";
 
 export type TraceStepView = { step: number; states: Record<string, string>; drive: boolean; restart: boolean; armed: string[] };
@@ -100,7 +100,7 @@ export function VerdictSummary({
           </div>
         ),
       )}
-      <div>
+      <SingleFaultResults>
         <h3 className="font-semibold">Single contact faults</h3>
         {verdict.singleFaults.length === 0 ? (
           <p className="mt-1 text-moss-700">
@@ -116,8 +116,7 @@ export function VerdictSummary({
             ))}
           </ul>
         )}
-        <CommonCauseNote className="mt-1" />
-      </div>
+      </SingleFaultResults>
     </div>
   );
 }
