@@ -46,3 +46,24 @@ export function reviewFormObject(form: FormData): Record<string, unknown> {
   }
   return out;
 }
+
+/** A revision number in a query (`compare=`, `revision=`); an empty value is no value. */
+const revisionInQuery = (what: string) =>
+  z.preprocess(
+    (v) => (v === "" ? undefined : v),
+    z.coerce
+      .number({ message: `${what}: give a revision number.` })
+      .int(`${what}: give a whole revision number.`)
+      .min(1, `${what}: revisions are numbered from 1.`)
+      .max(999_999_999, `${what}: no design has that many revisions.`)
+      .optional(),
+  );
+
+/** The report's query (page and PDF): the paper, and the revision to compare with when the reviewer chose one. */
+export const reportQuerySchema = z.object({
+  size: z.enum(["a4", "letter"], { message: "size: choose a4 or letter." }).default("a4"),
+  compare: revisionInQuery("compare"),
+});
+
+/** The review page's query: the revision to compare with and, from its chooser, the revision to review. */
+export const reviewQuerySchema = z.object({ compare: revisionInQuery("compare"), revision: revisionInQuery("revision") });

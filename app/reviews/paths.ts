@@ -6,10 +6,18 @@ import { apiUrl } from "~/api/client";
 export const revisionPath = (ws: string, designId: string, number: number) => `${designPath(ws, designId)}/revisions/${number}`;
 export const reviewPath = (ws: string, designId: string, number: number) => `${revisionPath(ws, designId, number)}/review`;
 export const truthTablePath = (ws: string, designId: string, number: number) => `${revisionPath(ws, designId, number)}/table`;
-export const reportPath = (ws: string, designId: string, number: number, size?: "a4" | "letter") =>
-  `${revisionPath(ws, designId, number)}/report${size ? `?size=${size}` : ""}`;
-export const reportPdfPath = (ws: string, designId: string, number: number, size: "a4" | "letter") =>
-  `${revisionPath(ws, designId, number)}/report.pdf?size=${size}`;
+/** `?size=…&compare=…`: the paper, and the revision the report compares with when the reviewer chose one. */
+const reportQuery = (size?: "a4" | "letter", compare?: number | null) => {
+  const q = new URLSearchParams();
+  if (size) q.set("size", size);
+  if (compare) q.set("compare", String(compare));
+  const s = q.toString();
+  return s ? `?${s}` : "";
+};
+export const reportPath = (ws: string, designId: string, number: number, size?: "a4" | "letter", compare?: number | null) =>
+  `${revisionPath(ws, designId, number)}/report${reportQuery(size, compare)}`;
+export const reportPdfPath = (ws: string, designId: string, number: number, size: "a4" | "letter", compare?: number | null) =>
+  `${revisionPath(ws, designId, number)}/report.pdf${reportQuery(size, compare)}`;
 export const reviewsPath = (ws: string) => `/w/${ws}/reviews`;
 
 /** A page of truth-table rows (JSON). */

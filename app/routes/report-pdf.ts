@@ -1,17 +1,19 @@
-// GET /w/:ws/designs/:designId/revisions/:number/report.pdf?size=a4|letter -> the printed report (members only).
+// GET /w/:ws/designs/:designId/revisions/:number/report.pdf?size=a4|letter&compare=N -> the printed report (members only).
 import type { Route } from "./+types/report-pdf";
 import { requireRevisionPage } from "~/reviews/access.server";
 import { printPdf, PrintBusyError } from "~/reviews/pdf.server";
 import { reportPath } from "~/reviews/paths";
+import { reportQuery } from "~/reviews/report-query.server";
 import { create as contentDisposition } from "content-disposition";
 
 export async function loader({ request, params, context }: Route.LoaderArgs) {
   const { member, design, ref } = await requireRevisionPage(context, params, "workspace.view");
-  const size = new URL(request.url).searchParams.get("size") === "letter" ? "letter" : "a4";
+  // Checked here too (400 naming the field), so a bad query is never printed as an error page.
+  const { size, compare } = await reportQuery(request, member.workspace.id, design.id, ref.number);
   let pdf: Buffer;
   try {
     pdf = await printPdf(
-      reportPath(member.workspace.slug, design.id, ref.number, size),
+      reportPath(member.workspace.slug, design.id, ref.number, size, compare),
       request.headers.get("cookie") ?? "",
       size === "letter" ? "Letter" : "A4",
       {
@@ -37,7 +39,7 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
   return new Response(new Uint8Array(pdf), {
     headers: {
       "content-type": "application/pdf",
-      "content-disposition": contentDisposition(`${base}-r${ref.number}-report-${size}.pdf`),
+      "content-disposition": contentDisposition(`${base}-r${ref.number}${compare ? `-vs-r${compare}` : ""}-report-${size}.pdf`),
       "cache-control": "private, no-store",
     },
   });

@@ -5,6 +5,7 @@ import { Link, useParams } from "react-router";
 import type { Route } from "./+types/report";
 import { requireRevisionPage } from "~/reviews/access.server";
 import { getReview } from "~/reviews/reviews.server";
+import { reportQuery } from "~/reviews/report-query.server";
 import { compareWithLastApproved, labelsOf, loadRevision, tracesOf } from "~/reviews/revision-view.server";
 import { readableSummary } from "~/reviews/readable.server";
 import { currentDispositions, dispositionHistory } from "~/reviews/dispositions.server";
@@ -17,7 +18,7 @@ import { pageRows } from "~/engine";
 import { paperDiagram } from "~/reviews/paper-diagram";
 import { Logo } from "~/components/logo";
 import { SectionError } from "~/components/error-boundary";
-import { SIZES, type Size } from "~/components/report/paper";
+import { SIZES } from "~/components/report/paper";
 import { ReportToolbar } from "~/components/report/toolbar";
 import { ReportCover } from "~/components/report/cover";
 import { ReportWiring } from "~/components/report/wiring";
@@ -35,14 +36,13 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
   const loaded = await loadRevision(member.workspace.id, design.id, ref.number);
   const review = await getReview(member.workspace.id, ref.id);
   if (!loaded || !review) throw new Response("Not found", { status: 404 });
-  const sizeParam = new URL(request.url).searchParams.get("size");
-  const size: Size = sizeParam === "letter" ? "letter" : "a4";
+  const { size, compare } = await reportQuery(request, member.workspace.id, design.id, ref.number);
   const c = loaded.compiled;
   const columns = tableColumns(c);
   const tablePages = printedTablePages(columns, c.rows, size);
   const [history, comparison] = await Promise.all([
     dispositionHistory(member.workspace.id, ref.id, ref.contentHash),
-    compareWithLastApproved(member.workspace.id, design.id, ref.number, c, loaded.verdict),
+    compareWithLastApproved(member.workspace.id, design.id, ref.number, c, loaded.verdict, compare),
   ]);
   const dispositions: Record<string, ReportDisposition> = {};
   for (const [key, x] of currentDispositions(history)) {
@@ -56,6 +56,7 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
   const wiring = loaded.design.wires.map((w) => ({ from: w.from, to: w.to, net: c.terminalNet[w.from] ?? -1 }));
   return {
     size,
+    compare,
     slug: member.workspace.slug,
     workspaceName: member.workspace.name,
     design: { id: design.id, name: design.name, vehicleName: design.vehicleName },
@@ -116,7 +117,7 @@ export default function Report({ loaderData }: Route.ComponentProps) {
 @media print { .report-toolbar { display: none !important; } body { background: white; } .report-page { padding: 0 !important; max-width: none !important; } .break-before { break-before: page; } }
 .report table { border-collapse: collapse; }
 .report th, .report td { vertical-align: top; }`}</style>
-      <ReportToolbar slug={d.slug} designId={d.design.id} number={d.revision.number} size={d.size} />
+      <ReportToolbar slug={d.slug} designId={d.design.id} number={d.revision.number} size={d.size} compare={d.compare} />
 
       <main className="report-page mx-auto max-w-[190mm] px-6 py-8 text-sm leading-snug">
         <ReportCover

@@ -1,14 +1,14 @@
 // The review of one revision: verdict, changes since the last approved revision, comments (on the
 // revision, a truth-table row or a component), the request for review and the decision.
-import { Link, data, useActionData } from "react-router";
+import { Link, data, redirect, useActionData } from "react-router";
 import type { Route } from "./+types/review";
 import { can, type Action } from "~/lib/roles";
 import { fieldErrors, type FieldErrors } from "~/lib/forms";
 import { requireRevisionPage } from "~/reviews/access.server";
-import { compiledRevision } from "~/reviews/compiled.server";
+import { compiledRevision, revisionRef } from "~/reviews/compiled.server";
 import { addComment, decide, getReview, listReviewers, requestReview, reviewStatusOf } from "~/reviews/reviews.server";
 import { compareWithLastApproved, labelsOf, loadRevision, tracesOf } from "~/reviews/revision-view.server";
-import { commentSchema, decisionSchema, requestReviewSchema, reviewFormObject } from "~/reviews/forms";
+import { commentSchema, decisionSchema, requestReviewSchema, reviewFormObject, reviewQuerySchema } from "~/reviews/forms";
 import { VERDICT_LABELS } from "~/reviews/status";
 import { reportPath, reviewPath, truthTablePath } from "~/reviews/paths";
 import { designPath, editorPath } from "~/designs/paths";
@@ -30,19 +30,21 @@ import { ChangesView } from "~/components/review/changes-view";
 import { CommentForm, CommentsView, type ActionResult } from "~/components/review/comments";
 import { DecisionForm, DecisionsView, RequestForm, RequestsView } from "~/components/review/decisions";
 
-const compareParam = (request: Request) => {
-  const raw = new URL(request.url).searchParams.get("compare");
-  return raw && /^[1-9][0-9]{0,8}$/.test(raw) ? Number(raw) : null;
-};
-
 export async function loader({ request, params, context }: Route.LoaderArgs) {
   const { member, design, ref } = await requireRevisionPage(context, params, "workspace.view");
+  // A bad value is not a comparison: the page falls back to the default one (the report, which prints it, says 400).
+  const query = reviewQuerySchema.safeParse(Object.fromEntries(new URL(request.url).searchParams));
+  const { compare = null, revision: chosen } = query.success ? query.data : {};
+  // The chooser names both revisions: another revision to review is that revision's page.
+  if (chosen !== undefined && chosen !== ref.number && (await revisionRef(member.workspace.id, design.id, chosen))) {
+    throw redirect(`${reviewPath(member.workspace.slug, design.id, chosen)}${compare && compare !== chosen ? `?compare=${compare}` : ""}`);
+  }
   const loaded = await loadRevision(member.workspace.id, design.id, ref.number);
   const review = await getReview(member.workspace.id, ref.id);
   if (!loaded || !review) throw new Response("Not found", { status: 404 });
   const [reviewers, comparison, statuses, history] = await Promise.all([
     listReviewers(member.workspace.id),
-    compareWithLastApproved(member.workspace.id, design.id, ref.number, loaded.compiled, loaded.verdict, compareParam(request)),
+    compareWithLastApproved(member.workspace.id, design.id, ref.number, loaded.compiled, loaded.verdict, compare),
     reviewStatusOf(member.workspace.id, [design.id]),
     dispositionHistory(member.workspace.id, ref.id, ref.contentHash),
   ]);
@@ -186,7 +188,16 @@ export default function Review({ loaderData }: Route.ComponentProps) {
             <ButtonLink to={truthTablePath(slug, design.id, revision.number)} variant="secondary">
               Truth table
             </ButtonLink>
-            <a href={reportPath(slug, design.id, revision.number)} className={buttonVariants({ variant: "secondary" })}>
+            <a
+              href={reportPath(
+                slug,
+                design.id,
+                revision.number,
+                undefined,
+                comparison.baseline?.chosen ? comparison.baseline.number : null,
+              )}
+              className={buttonVariants({ variant: "secondary" })}
+            >
               Report
             </a>
             <ButtonLink to={editorPath(slug, design.id, revision.number)} variant="secondary">

@@ -1,6 +1,7 @@
 // Reviews against the running app and its PostgreSQL: the truth-table API (pages and filter counts
 // equal the engine's own countRows / pageRows, CSV stream), who may request, comment and decide,
 // approvals bound to one revision, mails and the audit log, and workspace isolation.
+import { execFileSync } from "node:child_process";
 import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import pg from "pg";
@@ -482,5 +483,76 @@ describe("review and sign-off", () => {
     const report = await pageText(reviewer, `/w/${WS}/designs/${id}/revisions/2/report`);
     expect(report).toContain("Changes since revision 1");
     expect(report).toMatch(/Component SEAT, label: &quot;[^&]+&quot; → &quot;Seat switch, sealed&quot;/);
+  });
+
+  it("the report compares with the revision the reviewer chose: its links, the page and the PDF say which", async () => {
+    // Revisions of this design: 1 approved (the Haybarn wiring), 2 relabels SEAT, 3 is the wiring of 1 again.
+    const seatLabel = (PROVEN.components.find((c) => c.id === "SEAT") as { label: string }).label;
+    const quote = (s: string) => s.replace(/"/g, "&quot;");
+    const review = await pageText(reviewer, `${reviewUrl(id, 3)}?compare=2`);
+    // The review page's report link carries the choice; without a choice it carries none.
+    expect(review).toContain(`/revisions/3/report?compare=2"`);
+    expect(await pageText(reviewer, reviewUrl(id, 3))).toMatch(/\/revisions\/3\/report"/);
+    const chosen = await pageText(reviewer, `/w/${WS}/designs/${id}/revisions/3/report?compare=2`);
+    expect(chosen).toContain("Changes since revision 2");
+    expect(chosen).toContain("Compared with revision 2. The reviewer chose this revision on the review page.");
+    // Revision 3 undoes 2's relabelling: the change printed is 2's label back to 1's.
+    expect(chosen).toContain(
+      `Component SEAT, label: ${quote(JSON.stringify("Seat switch, sealed"))} → ${quote(JSON.stringify(seatLabel))}`,
+    );
+    // Its toolbar keeps the choice: the other paper, the PDF and the way back to the review.
+    expect(chosen).toContain(`/revisions/3/report?size=letter&amp;compare=2"`);
+    expect(chosen).toContain(`/revisions/3/report.pdf?size=a4&amp;compare=2"`);
+    expect(chosen).toContain(`/revisions/3/review?compare=2"`);
+    // Without a choice the report compares with the last approved revision, whose wiring 3 repeats.
+    const plain = await pageText(reviewer, `/w/${WS}/designs/${id}/revisions/3/report`);
+    expect(plain).toContain("Compared with revision 1, the last approved one.");
+    expect(plain).not.toContain("Seat switch, sealed");
+    // A later revision can be chosen too.
+    const later = await pageText(reviewer, `/w/${WS}/designs/${id}/revisions/2/report?compare=3`);
+    expect(later).toContain("Changes compared with revision 3");
+    // The choice is checked, for the page and the PDF alike: 400 naming the field, never another comparison.
+    for (const [query, says] of [
+      ["compare=two", "compare: give a revision number."],
+      ["compare=1.5", "compare: give a whole revision number."],
+      ["compare=0", "compare: revisions are numbered from 1."],
+      ["compare=3", "compare: choose a revision other than 3"],
+      ["compare=99", "compare: this design has no revision 99."],
+      ["size=a3", "size: choose a4 or letter."],
+    ]) {
+      for (const page of ["report", "report.pdf"]) {
+        const res = await reviewer.fetch(`/w/${WS}/designs/${id}/revisions/3/${page}?${query}`);
+        expect(res.status, `${page}?${query}`).toBe(400);
+        expect((await res.text()).replace(/<!-- -->/g, ""), `${page}?${query}`).toContain(says);
+      }
+    }
+    // The PDF prints the chosen comparison (read back with poppler's pdftotext, not our code).
+    const pdf = await reviewer.fetch(`/w/${WS}/designs/${id}/revisions/3/report.pdf?compare=2`);
+    expect(pdf.status).toBe(200);
+    expect(pdf.headers.get("content-disposition")).toContain("-r3-vs-r2-report-a4.pdf");
+    const text = execFileSync("pdftotext", ["-", "-"], { input: Buffer.from(await pdf.arrayBuffer()), encoding: "utf8" }).replace(
+      /\s+/g,
+      " ",
+    );
+    expect(text).toContain("Changes since revision 2");
+    expect(text).toContain("Compared with revision 2. The reviewer chose this revision on the review page.");
+  }, 60_000);
+
+  it("the reviewer chooses both revisions on the review page: another revision to review opens its own page", async () => {
+    const html = await pageText(reviewer, reviewUrl(id, 3));
+    expect(html).toMatch(/<select[^>]*name="revision"/);
+    expect(html).toMatch(/<select[^>]*name="compare"/);
+    const res = await reviewer.fetch(`${reviewUrl(id, 3)}?revision=2&compare=3`);
+    expect(res.status).toBe(302);
+    expect(res.headers.get("location")).toBe(`${reviewUrl(id, 2)}?compare=3`);
+    const page = await pageText(reviewer, `${reviewUrl(id, 2)}?compare=3`);
+    expect(page).toContain("Review of revision 2");
+    expect(page).toContain("Compared with revision 3.");
+    // The revision in the URL chosen again is this page, with the comparison chosen.
+    const same = await reviewer.fetch(`${reviewUrl(id, 3)}?revision=3&compare=2`);
+    expect(same.status).toBe(200);
+    expect((await same.text()).replace(/<!-- -->/g, "")).toContain("Compared with revision 2.");
+    // A revision the design does not have is no redirect.
+    expect((await reviewer.fetch(`${reviewUrl(id, 3)}?revision=99`)).status).toBe(200);
   });
 });

@@ -6,7 +6,8 @@ import type { Readable } from "~/reviews/readable";
 import { groupLine, REASON_WORDS, type ConditionWords } from "~/reviews/group-words";
 import { DISPOSITION_LABELS, faultKey, type Disposition } from "~/reviews/dispositions";
 import type { Comparison } from "~/reviews/revision-view.server";
-import { verdictChanges } from "~/components/review/changes-view";
+import { comparedWith, mentionsSingleFault, verdictChanges } from "~/components/review/changes-view";
+import { SingleFaultResults } from "~/components/common-cause-note";
 import { h2, iso } from "./paper";
 
 const n = (x: number) => x.toLocaleString("en-US");
@@ -83,35 +84,45 @@ export function ReportReading({ readable, dispositions }: { readable: Readable; 
         </div>
       ))}
       <h2 className={h2}>Single faults and their dispositions</h2>
-      {readable.faults.length === 0 ? <p className="mt-2">No single stuck contact defeats a rule.</p> : null}
-      {readable.faults.map((f) => {
-        const d = dispositions[faultKey(f)];
-        return (
-          <div key={faultKey(f)} className="mt-3 break-inside-avoid" data-testid="report-fault">
-            <h3 className="font-semibold">
-              {f.label} <code className="text-xs">{f.component}</code> {f.mode === "stuck-open" ? "stuck open" : "stuck closed"} — defeats{" "}
-              {f.defeats.join(", ")}
-            </h3>
-            <p>Breaks {n(f.broken.rows)} rows:</p>
-            <Groups conditions={c} doc={f.broken} />
-            <p className="mt-1" data-testid="report-disposition">
-              {d ? (
-                <>
-                  <strong>{DISPOSITION_LABELS[d.disposition]}</strong>: {d.justification} — {d.authorName}, {iso(d.createdAt)}
-                </>
-              ) : (
-                <strong>No disposition recorded.</strong>
-              )}
-            </p>
-          </div>
-        );
-      })}
-      <p className="mt-2 text-xs text-ink-600">
-        Only single stuck contacts of the drawn wiring are checked; common-cause failures (one actuator, connector or cable acting on
-        several contacts) are treated apart (ISO 13849-1, Annex F).
-      </p>
+      <SingleFaultResults note="mt-2">
+        {readable.faults.length === 0 ? <p className="mt-2">No single stuck contact defeats a rule.</p> : null}
+        {readable.faults.map((f) => {
+          const d = dispositions[faultKey(f)];
+          return (
+            <div key={faultKey(f)} className="mt-3 break-inside-avoid" data-testid="report-fault">
+              <h3 className="font-semibold">
+                {f.label} <code className="text-xs">{f.component}</code> {f.mode === "stuck-open" ? "stuck open" : "stuck closed"} — defeats{" "}
+                {f.defeats.join(", ")}
+              </h3>
+              <p>Breaks {n(f.broken.rows)} rows:</p>
+              <Groups conditions={c} doc={f.broken} />
+              <p className="mt-1" data-testid="report-disposition">
+                {d ? (
+                  <>
+                    <strong>{DISPOSITION_LABELS[d.disposition]}</strong>: {d.justification} — {d.authorName}, {iso(d.createdAt)}
+                  </>
+                ) : (
+                  <strong>No disposition recorded.</strong>
+                )}
+              </p>
+            </div>
+          );
+        })}
+      </SingleFaultResults>
     </section>
   );
+}
+
+/** The verdict's differences; when single faults come or go, with the note on what such results do not cover. */
+function VerdictLines({ lines }: { lines: string[] }) {
+  const list = (
+    <ul className="mt-2 ml-4 list-disc">
+      {lines.map((v) => (
+        <li key={v}>{v}</li>
+      ))}
+    </ul>
+  );
+  return lines.some(mentionsSingleFault) ? <SingleFaultResults>{list}</SingleFaultResults> : list;
 }
 
 export function ReportChanges({
@@ -150,7 +161,13 @@ export function ReportChanges({
   const o = comparison.outcomes;
   return (
     <section aria-label="Changes" data-testid="report-changes">
-      <h2 className={h2}>Changes since revision {comparison.baseline.number}</h2>
+      <h2 className={h2}>
+        {comparison.baseline.number < number ? "Changes since" : "Changes compared with"} revision {comparison.baseline.number}
+      </h2>
+      <p className="mt-2" data-testid="report-compared-with">
+        {comparedWith(comparison.baseline)}
+        {comparison.baseline.chosen ? " The reviewer chose this revision on the review page." : ""}
+      </p>
       {items.length === 0 ? (
         <p className="mt-2">The structure is the same.</p>
       ) : (
@@ -160,11 +177,7 @@ export function ReportChanges({
           ))}
         </ul>
       )}
-      <ul className="mt-2 ml-4 list-disc">
-        {verdictChanges(comparison.verdict.before, comparison.verdict.after).map((v) => (
-          <li key={v}>{v}</li>
-        ))}
-      </ul>
+      <VerdictLines lines={verdictChanges(comparison.verdict.before, comparison.verdict.after)} />
       {!o.comparable ? (
         <p className="mt-2">{o.reason}</p>
       ) : o.changedRows === 0 ? (

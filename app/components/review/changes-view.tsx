@@ -1,6 +1,7 @@
 // What changed between two revisions of a design: every changed field with its value before and
 // after, the verdict's differences, and the rows whose drive or rule outcome changed, as groups. A
-// small form chooses the revision to compare with (by default the last approved one).
+// small form chooses both revisions: the one reviewed and the one to compare with (by default the last
+// approved one).
 import { Form } from "react-router";
 import type { Verdict } from "~/engine";
 import type { Comparison } from "~/reviews/revision-view.server";
@@ -8,6 +9,7 @@ import type { FieldChange, ListDiff } from "~/reviews/diff";
 import { GroupList } from "./readable-summary";
 import type { ConditionWords } from "~/reviews/group-words";
 import { Button } from "~/components/ui/form";
+import { SingleFaultResults } from "~/components/common-cause-note";
 
 const n = (x: number) => x.toLocaleString("en-US");
 
@@ -51,6 +53,16 @@ function ListChanges({ title, diff }: { title: string; diff: ListDiff }) {
   );
 }
 
+/** Which revision a comparison is with, and why that one: the review page and the report say it alike. */
+export function comparedWith(baseline: { number: number; approved: boolean; chosen: boolean }): string {
+  return `Compared with revision ${baseline.number}${
+    baseline.chosen ? "." : baseline.approved ? ", the last approved one." : ", the previous one (no earlier revision is approved)."
+  }`;
+}
+
+/** A line of verdictChanges about a single fault (it then needs the common-cause note beside it). */
+export const mentionsSingleFault = (line: string) => /single fault/i.test(line);
+
 /** The verdict's differences in words: ok, drive rows, each rule's result and counts, single faults. */
 export function verdictChanges(before: Verdict, after: Verdict): string[] {
   const out: string[] = [];
@@ -81,6 +93,17 @@ export function verdictChanges(before: Verdict, after: Verdict): string[] {
   return out;
 }
 
+function VerdictChangeList({ lines }: { lines: string[] }) {
+  const list = (
+    <ul className="mt-1 ml-4 list-disc" data-testid="verdict-changes">
+      {lines.map((v) => (
+        <li key={v}>{v}</li>
+      ))}
+    </ul>
+  );
+  return lines.some(mentionsSingleFault) ? <SingleFaultResults>{list}</SingleFaultResults> : list;
+}
+
 const CHANGE_WORDS = {
   "drive-on": "Drive now on",
   "drive-off": "Drive now off",
@@ -104,17 +127,26 @@ export function ChangesView({
   conditions: ConditionWords[];
   table: string;
 }) {
+  const all = [number, ...others].sort((a, b) => b - a);
+  const select = "min-h-10 rounded-md border border-ink-300 bg-white px-2";
+  // Both revisions are chosen here: another revision to review opens its own review page (the loader redirects).
   const chooser =
     others.length > 0 ? (
-      <Form method="get" className="flex flex-wrap items-end gap-2 text-sm" aria-label="Compare with another revision">
+      <Form method="get" className="flex flex-wrap items-end gap-2 text-sm" aria-label="Compare two revisions">
+        <label className="flex flex-col">
+          <span className="text-ink-700">Review revision</span>
+          <select name="revision" defaultValue={number} className={select}>
+            {all.map((x) => (
+              <option key={x} value={x}>
+                {x}
+              </option>
+            ))}
+          </select>
+        </label>
         <label className="flex flex-col">
           <span className="text-ink-700">Compare with revision</span>
-          <select
-            name="compare"
-            defaultValue={comparison.baseline?.number ?? ""}
-            className="min-h-10 rounded-md border border-ink-300 bg-white px-2"
-          >
-            {others.map((x) => (
+          <select name="compare" defaultValue={comparison.baseline?.number ?? ""} className={select}>
+            {all.map((x) => (
               <option key={x} value={x}>
                 {x}
               </option>
@@ -141,13 +173,8 @@ export function ChangesView({
   return (
     <div className="space-y-4 text-sm" data-testid="review-diff">
       {chooser}
-      <p>
-        Compared with revision {comparison.baseline.number}
-        {comparison.baseline.chosen
-          ? "."
-          : comparison.baseline.approved
-            ? ", the last approved one."
-            : ", the previous one (no earlier revision is approved)."}
+      <p data-testid="compared-with">
+        {comparedWith(comparison.baseline)}
         {s.empty ? " The structure is the same." : ""}
       </p>
       {s.name ? (
@@ -183,15 +210,7 @@ export function ChangesView({
       ) : null}
       <div>
         <h3 className="font-semibold">Verdict</h3>
-        {verdict.length === 0 ? (
-          <p className="mt-1 text-ink-700">The verdict is the same.</p>
-        ) : (
-          <ul className="mt-1 ml-4 list-disc" data-testid="verdict-changes">
-            {verdict.map((v) => (
-              <li key={v}>{v}</li>
-            ))}
-          </ul>
-        )}
+        {verdict.length === 0 ? <p className="mt-1 text-ink-700">The verdict is the same.</p> : <VerdictChangeList lines={verdict} />}
       </div>
       <div>
         <h3 className="font-semibold">Truth-table rows</h3>
