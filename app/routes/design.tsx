@@ -8,6 +8,7 @@ import { formObject } from "~/lib/forms";
 import { releasesOfDesign } from "~/vehicles/vehicles.server";
 import { ArchiveControl, ArchivedNotice } from "~/components/design/archive";
 import { Badge } from "~/components/ui/badge";
+import { Notice } from "~/components/ui/form";
 import { standingsFor } from "~/designs/standing.server";
 import { RefusedBadge, RefusedNotice } from "~/components/refused-mark";
 import { designsPath, editorPath } from "~/designs/paths";
@@ -112,6 +113,8 @@ export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.design.
 export default function DesignOverview({ loaderData, actionData }: Route.ComponentProps) {
   const { canEdit, canArchive, slug, design, archived, releases, latest, draft, history } = loaderData;
   const latestReview = history[0]?.review;
+  // A refused archive or bring-back (an intent the page does not offer), named above the page.
+  const refusal = actionData && "intent" in actionData.fields ? actionData.fields.intent : null;
   return (
     <>
       <p className="mb-2 text-sm">
@@ -138,12 +141,7 @@ export default function DesignOverview({ loaderData, actionData }: Route.Compone
         actions={
           <span className="flex flex-wrap items-center gap-2">
             {canArchive ? (
-              <ArchiveControl
-                key={archived ? "archived" : "in-use"}
-                designName={design.name}
-                archived={archived !== null}
-                error={actionData && "intent" in actionData.fields ? actionData.fields.intent : undefined}
-              />
+              <ArchiveControl key={archived ? "archived" : "in-use"} designName={design.name} archived={archived !== null} />
             ) : null}
             <ButtonLink to={editorPath(slug, design.id)} variant={canEdit ? "action" : "secondary"}>
               {canEdit ? "Open the editor" : "View on the canvas"}
@@ -151,6 +149,11 @@ export default function DesignOverview({ loaderData, actionData }: Route.Compone
           </span>
         }
       />
+      {refusal ? (
+        <div className="mb-5">
+          <Notice tone="error">{refusal}</Notice>
+        </div>
+      ) : null}
       {archived ? <ArchivedNotice archived={archived} /> : null}
 
       <div className="grid grid-cols-1 gap-5 lg:grid-cols-3">

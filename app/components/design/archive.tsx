@@ -29,7 +29,7 @@ export function ArchivedNotice({ archived }: { archived: ArchivedView }) {
  * The button that opens the confirmation; the form posts intent=archive or intent=restore to the page.
  * The page keys it by the archived state, so it comes back closed once the change is made.
  */
-export function ArchiveControl({ designName, archived, error }: { designName: string; archived: boolean; error?: string }) {
+export function ArchiveControl({ designName, archived }: { designName: string; archived: boolean }) {
   const [open, setOpen] = useState(false);
   const formId = useId();
   const busy = useNavigation().state === "submitting";
@@ -67,7 +67,6 @@ export function ArchiveControl({ designName, archived, error }: { designName: st
               <p>It leaves the design lists and the release choices, and takes no new drafts or revisions. You can bring it back later.</p>
             </>
           )}
-          {error ? <p className="text-failing-ink">{error}</p> : null}
         </Form>
       </Dialog>
     </>
