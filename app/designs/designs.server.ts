@@ -1,6 +1,6 @@
 // Designs, their revisions and drafts. Every query is scoped by workspace id; the engine does all
 // checking and proving (validateDesign, prove), this module only stores what it says.
-import { and, asc, desc, eq, isNotNull, isNull, sql } from "drizzle-orm";
+import { and, asc, count, desc, eq, isNotNull, isNull, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { db, schema } from "~/db/client.server";
 import type { DesignRecord } from "~/db/schema.server";
@@ -83,6 +83,15 @@ export function archivedOf(d: { archivedAt: Date | null; archivedBy: string | nu
 }
 
 // ---------------------------------------------------------------- listing
+
+/** How many of the workspace's designs are archived (the designs page says so when they are all it has). */
+export async function countArchivedDesigns(workspaceId: string): Promise<number> {
+  const [row] = await db
+    .select({ n: count() })
+    .from(design)
+    .where(and(eq(design.workspaceId, workspaceId), isNotNull(design.archivedAt)));
+  return row?.n ?? 0;
+}
 
 export async function listDesigns(workspaceId: string, filter: DesignFilter = {}): Promise<DesignSummary[]> {
   const vehicleCond =

@@ -3,7 +3,7 @@ import { Badge } from "~/components/ui/badge";
 import type { Route } from "./+types/designs";
 import { requireCan } from "~/auth/context.server";
 import { can } from "~/lib/roles";
-import { listDesigns } from "~/designs/designs.server";
+import { countArchivedDesigns, listDesigns } from "~/designs/designs.server";
 import { vehicleNames } from "~/vehicles/vehicles.server";
 import { designFilterSchema, NO_VEHICLE } from "~/designs/forms";
 import { DESIGN_STATUSES, STATUS_LABELS, type DesignSummary } from "~/designs/types";
@@ -32,8 +32,11 @@ export async function loader({ request, context }: Route.LoaderArgs) {
   // Review status of the latest revision, and the newest approved one when that is older.
   const review: Record<string, { latest: ReviewStatus | null; approved: number | null }> = {};
   for (const [id, r] of reviews) review[id] = { latest: r.latest?.status ?? null, approved: r.lastApproved?.number ?? null };
+  // An empty list with archived designs behind it says so, instead of "no designs yet".
+  const hidden = designs.length === 0 && filter.archived === undefined ? await countArchivedDesigns(m.workspace.id) : 0;
   return {
     review,
+    hidden,
     canEdit: can(m.role, "design.edit"),
     slug: m.workspace.slug,
     filter,
@@ -46,7 +49,7 @@ const selectClass =
   "mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2 text-base sm:text-sm focus:border-copper-500 focus:outline-none focus:ring-2 focus:ring-copper-500/40";
 
 export default function Designs({ loaderData }: Route.ComponentProps) {
-  const { canEdit, filter, designs, vehicles, slug, review } = loaderData;
+  const { canEdit, filter, designs, vehicles, slug, review, hidden } = loaderData;
   const submit = useSubmit();
   // Showing archived designs too widens the list; it is not a filter that can leave it empty.
   const filtered = filter.vehicle !== undefined || filter.status !== undefined || filter.archived === "only";
@@ -135,6 +138,18 @@ export default function Designs({ loaderData }: Route.ComponentProps) {
       {designs.length === 0 ? (
         filtered ? (
           <EmptyState title="No design matches these filters">Choose another vehicle or status, or clear the filters.</EmptyState>
+        ) : hidden > 0 ? (
+          <EmptyState
+            title={hidden === 1 ? "The one design is archived" : `All ${hidden} designs are archived`}
+            action={
+              <ButtonLink to="?archived=include" variant="secondary">
+                Show archived
+              </ButtonLink>
+            }
+          >
+            Archived designs are kept for audit and left out of this list.
+            {canEdit ? " Start a new design, or bring one back from the archive on its page." : ""}
+          </EmptyState>
         ) : (
           <EmptyState
             title="No designs yet"

@@ -318,3 +318,15 @@ describe("diagnosis", () => {
     expect(((await shape.json()) as any).error.fields[0].path).toBe("states");
   });
 });
+
+describe("the local outbox", () => {
+  it("answers the mail the app sent, newest first, without signing in (local mode)", async () => {
+    const outsider = await createOutsider(); // signing up mails a confirmation link
+    const res = await client().fetch("/api/v1/outbox");
+    expect(res.status).toBe(200);
+    const { mail } = (await res.json()) as { mail: { recipients: string; subject: string; receivedAt: string }[] };
+    expect(mail.some((m) => m.recipients.includes(outsider.email))).toBe(true);
+    const times = mail.map((m) => Date.parse(m.receivedAt));
+    expect(times).toEqual([...times].sort((a, b) => b - a));
+  });
+});

@@ -7,6 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import pg from "pg";
 import { DEMO, formBody, signIn, type Client } from "../support/http";
 import { type Json } from "../support/hauler";
+import { createOutsider } from "../support/outsider";
 
 const WS = "larkspur";
 let db: pg.Pool;
@@ -330,5 +331,29 @@ describe("bringing a design back", () => {
     );
     expect(events.rows.map((r) => r.action)).toEqual(["design.archived", "design.unarchived"]);
     expect((await page(admin, `/w/${WS}/activity`)).html).toContain(`brought back the design “${name}” from the archive.`);
+  });
+});
+
+describe("a workspace whose designs are all archived", () => {
+  it("says so on the designs list, with the way to show them, instead of 'No designs yet'", async () => {
+    const other = await createOutsider();
+    const { rows } = await db.query<{ ws: string; user: string }>(
+      'SELECT w.id AS ws, u.id AS "user" FROM workspace w, "user" u WHERE w.slug = $1 AND u.email = $2',
+      [other.slug, other.email],
+    );
+    const { ws, user } = rows[0]!;
+    // Arranged in the database: the outsider is the workspace's admin, who may archive but not draw designs.
+    const id = `archived-only-${Date.now()}`;
+    await db.query(
+      "INSERT INTO design (id, workspace_id, name, created_by, archived_at, archived_by) VALUES ($1, $2, 'Old mower loom', $3, now(), $3)",
+      [id, ws, user],
+    );
+    const list = await page(other.client, `/w/${other.slug}/designs`);
+    expect(list.status).toBe(200);
+    expect(list.html).toContain("The one design is archived");
+    expect(list.html).not.toContain("No designs yet");
+    expect(list.html).toContain("?archived=include");
+    const shown = await page(other.client, `/w/${other.slug}/designs?archived=include`);
+    expect(shown.html).toContain("Old mower loom");
   });
 });
