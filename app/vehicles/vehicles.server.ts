@@ -224,6 +224,7 @@ export async function releaseRevision(
       number: designRevision.number,
       designName: design.name,
       contentHash: designRevision.contentHash,
+      designId: design.id,
       archivedAt: design.archivedAt,
     })
     .from(designRevision)
@@ -232,14 +233,13 @@ export async function releaseRevision(
     .limit(1);
   if (!rev[0]) return { ok: false, fields: { revisionId: "Choose a revision of a design in this workspace." } };
   // An archived design's revisions stay on the vehicles they were released to, but are not released anew (decision 167).
-  if (rev[0].archivedAt) {
-    return {
-      ok: false,
-      fields: {
-        revisionId: `Revision ${rev[0].number} of "${rev[0].designName}" cannot be released: the design is archived. Bring the design back from the archive to release it.`,
-      },
-    };
-  }
+  const archivedRefusal: ReleaseOutcome = {
+    ok: false,
+    fields: {
+      revisionId: `Revision ${rev[0].number} of "${rev[0].designName}" cannot be released: the design is archived. Bring the design back from the archive to release it.`,
+    },
+  };
+  if (rev[0].archivedAt) return archivedRefusal;
   // A revision stored before format 1.1 that 1.1 would refuse stays readable but is not released (decision 111).
   const standing = (await standingsFor(workspaceId, [input.revisionId])).get(input.revisionId);
   if (standing && !standing.passes) {
@@ -266,6 +266,14 @@ export async function releaseRevision(
       .where(and(eq(vehicle.id, vehicleId), eq(vehicle.workspaceId, workspaceId)))
       .for("update");
     if (!v[0]) return { ok: false, fields: { vehicleId: "No such vehicle." } };
+    // Asked again under a share lock on the design row, which archiving locks for update: an archive that
+    // commits first is seen here, and one that comes later waits for this release.
+    const d = await tx
+      .select({ archivedAt: design.archivedAt })
+      .from(design)
+      .where(and(eq(design.id, rev[0].designId), eq(design.workspaceId, workspaceId)))
+      .for("share");
+    if (!d[0] || d[0].archivedAt) return archivedRefusal;
     // Read while the vehicle is locked: a record saved meanwhile waits for this release (saveRecord locks it too).
     const against = await statusAgainstRevisions(workspaceId, vehicleId, [input.revisionId], tx);
     const status = against.byRevision.get(input.revisionId);

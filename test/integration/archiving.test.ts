@@ -357,3 +357,32 @@ describe("a workspace whose designs are all archived", () => {
     expect(shown.html).toContain("Old mower loom");
   });
 });
+
+describe("archiving and releasing at once", () => {
+  it("never leaves a release made after the design was archived", { timeout: 120_000 }, async () => {
+    const reviewerId = (await db.query<{ id: string }>('SELECT id FROM "user" WHERE email = $1', [DEMO.reviewer])).rows[0]!.id;
+    for (let round = 0; round < 4; round++) {
+      const id = await designWithRevision(`Race check ${round} ${Date.now()}`);
+      created.push(id);
+      const review = `/w/${WS}/designs/${id}/revisions/1/review`;
+      expect((await engineer.fetch(review, formBody({ intent: "request", reviewers: reviewerId }))).status).toBe(200);
+      expect((await reviewer.fetch(review, formBody({ intent: "decide", verdict: "approved", comment: "fine" }))).status).toBe(200);
+      const rev = (await db.query<{ id: string }>("SELECT id FROM design_revision WHERE design_id = $1", [id])).rows[0]!.id;
+      const [archived, released] = await Promise.all([
+        send(engineer, "PATCH", `/api/v1/designs/${id}`, { archived: true }),
+        send(engineer, "POST", `/api/v1/vehicles/${otherVehicleId}/releases`, { revisionId: rev, note: `race ${round}` }),
+      ]);
+      expect(archived.status).toBe(200);
+      expect([201, 409]).toContain(released.status);
+      // Either the release came first (and stays), or it was refused: none is dated after the archiving.
+      const late = await db.query(
+        `SELECT count(*)::int AS n FROM vehicle_release r JOIN design d ON d.id = $1
+         WHERE r.revision_id = $2 AND r.at >= d.archived_at`,
+        [id, rev],
+      );
+      expect(late.rows[0].n).toBe(0);
+      const made = (await db.query("SELECT count(*)::int AS n FROM vehicle_release WHERE revision_id = $1", [rev])).rows[0].n;
+      expect(made).toBe(released.status === 201 ? 1 : 0);
+    }
+  });
+});
