@@ -12,38 +12,22 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { DEMO, signIn, type Client } from "../support/http";
 import { csvApiPath } from "../../app/reviews/paths";
+import { fiveParts } from "../support/five-parts";
 
 const WS = "larkspur";
 let engineer: Client;
 let dir: string;
 
-/** Two contacts feeding the controller's power and enable, and load conditions of the given numbers of states: 8 × their product rows. */
+/** The five-part design with load conditions of the given numbers of states: 8 × their product rows. */
 function design(loads: number[]) {
+  const base = fiveParts();
   return {
-    format: "chainproof/design@1",
+    ...base,
     name: `Table of ${rowsOf(loads)} rows`,
     conditions: [
-      { id: "key", label: "Key", states: ["off", "on"] },
-      { id: "seat", label: "Seat", states: ["empty", "occupied"] },
-      { id: "grip", label: "Twist grip", states: ["closed", "open"] },
+      ...base.conditions,
       ...loads.map((n, c) => ({ id: `load${c + 1}`, label: `Load ${c + 1}`, states: Array.from({ length: n }, (_, i) => `w${i + 1}`) })),
     ],
-    components: [
-      { id: "PACK", type: "supply", label: "Pack + (48 V)" },
-      { id: "KEY", type: "contact", label: "Key switch", condition: "key", closedIn: ["on"] },
-      { id: "SEAT", type: "contact", label: "Seat switch", condition: "seat", closedIn: ["occupied"] },
-      { id: "PWR", type: "input", label: "Controller power", function: "power" },
-      { id: "EN", type: "input", label: "Drive enable", function: "enable" },
-    ],
-    wires: [
-      { from: "PACK.+", to: "KEY.1" },
-      { from: "KEY.2", to: "PWR.in" },
-      { from: "PACK.+", to: "SEAT.1" },
-      { from: "SEAT.2", to: "EN.in" },
-    ],
-    controller: { throttle: { condition: "grip", released: ["closed"], applied: ["open"] }, brakeCutsDrive: false, lockouts: [] },
-    rules: [{ id: "seat", label: "No drive with the seat empty", type: "inhibit", when: { cond: "seat", in: ["empty"] }, forbid: "drive" }],
-    layout: { PACK: { x: 0, y: 100 }, KEY: { x: 220, y: 30 }, SEAT: { x: 220, y: 170 }, PWR: { x: 460, y: 42 }, EN: { x: 460, y: 182 } },
   };
 }
 
