@@ -5,9 +5,10 @@
 // are refused; bad input is a 400 naming the field. Each change is one audit event in words.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import pg from "pg";
-import { DEMO, formBody, signIn, type Client } from "../support/http";
+import { DEMO, formBody, signIn, type Client, sendJson as send } from "../support/http";
 import { type Json } from "../support/hauler";
 import { createOutsider } from "../support/outsider";
+import { smallest as small } from "../support/smallest-design";
 
 const WS = "larkspur";
 let db: pg.Pool;
@@ -15,42 +16,11 @@ let engineer: Client, admin: Client, technician: Client, reviewer: Client;
 const created: string[] = [];
 const vehicles: string[] = [];
 
-async function send(c: Client, method: string, path: string, body?: unknown): Promise<{ status: number; body: Json }> {
-  const res = await c.fetch(path, {
-    method,
-    ...(body === undefined ? {} : { body: JSON.stringify(body), headers: { "content-type": "application/json" } }),
-  });
-  const text = await res.text();
-  try {
-    return { status: res.status, body: JSON.parse(text) as Json };
-  } catch {
-    return { status: res.status, body: { text } };
-  }
-}
-
 /** Page HTML without React's text separators (`a<!-- -->b`). */
 async function page(c: Client, path: string): Promise<{ status: number; html: string }> {
   const res = await c.fetch(path);
   return { status: res.status, html: (await res.text()).replace(/<!-- -->/g, "") };
 }
-
-/**
- * The smallest design that passes format 1.1 and has no single fault to dispose of (so a reviewer can
- * approve it at once): the enable input fed from the supply, must drive with the throttle applied.
- */
-const small = (name = "Small"): Json => ({
-  format: "chainproof/design@1",
-  name,
-  conditions: [{ id: "throttle", label: "Throttle", states: ["released", "applied"] }],
-  components: [
-    { id: "PACK", type: "supply", label: "Battery +" },
-    { id: "EN", type: "input", label: "Controller enable", function: "enable" },
-  ],
-  wires: [{ from: "PACK.+", to: "EN.in" }],
-  controller: { throttle: { condition: "throttle", released: ["released"], applied: ["applied"], fault: [] }, lockouts: [] },
-  rules: [{ id: "D1", label: "Drives with the throttle applied", type: "require-drive", when: { cond: "throttle", in: ["applied"] } }],
-  layout: {},
-});
 
 /** A design with revision 1 (every rule holds). */
 async function designWithRevision(name: string): Promise<string> {

@@ -5,7 +5,7 @@ import { execFileSync } from "node:child_process";
 import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import pg from "pg";
-import { client, DEMO, formBody, signIn, type Client } from "../support/http";
+import { client, DEMO, formBody, signIn, type Client, sendJson as json } from "../support/http";
 import { createOutsider } from "../support/outsider";
 import {
   compileDesign,
@@ -25,24 +25,10 @@ const PROVEN = JSON.parse(
 ) as Design;
 const ENGINE: CompiledDesign = compileDesign(PROVEN);
 
-type Json = Record<string, any>;
 let db: pg.Pool;
 let engineer: Client, technician: Client, reviewer: Client, admin: Client, outsider: Client, anonymous: Client;
 let ids: Record<"engineer" | "reviewer", string>;
 const created: string[] = [];
-
-async function json(c: Client, method: string, path: string, body?: unknown): Promise<{ status: number; body: Json }> {
-  const res = await c.fetch(path, {
-    method,
-    ...(body === undefined ? {} : { body: JSON.stringify(body), headers: { "content-type": "application/json" } }),
-  });
-  const text = await res.text();
-  try {
-    return { status: res.status, body: JSON.parse(text) as Json };
-  } catch {
-    return { status: res.status, body: { text } };
-  }
-}
 
 /** A new design with revision 1 (the proven Haybarn wiring), saved by the demo engineer. */
 async function designWithRevision(name: string): Promise<string> {

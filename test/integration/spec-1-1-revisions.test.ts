@@ -5,7 +5,8 @@
 import { createHash, randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import pg from "pg";
-import { DEMO, formBody, signIn, type Client } from "../support/http";
+import { smallest } from "../support/smallest-design";
+import { DEMO, formBody, signIn, type Client, sendJson as send } from "../support/http";
 import { HAULER_DRIVES, hauler, type Json } from "../support/hauler";
 import { refHolds, refMatchesSomeRow, refRow, refVerdict } from "../unit/engine/reference";
 import { compileDesign, prove, type Design } from "../../app/engine";
@@ -17,19 +18,6 @@ let engineer: Client;
 let reviewer: Client;
 const created: string[] = [];
 const vehicles: string[] = [];
-
-async function send(c: Client, method: string, path: string, body?: unknown): Promise<{ status: number; body: Json }> {
-  const res = await c.fetch(path, {
-    method,
-    ...(body === undefined ? {} : { body: JSON.stringify(body), headers: { "content-type": "application/json" } }),
-  });
-  const text = await res.text();
-  try {
-    return { status: res.status, body: JSON.parse(text) as Json };
-  } catch {
-    return { status: res.status, body: { text } };
-  }
-}
 
 async function newDesign(name: string): Promise<{ id: string; document: Json }> {
   const r = await send(engineer, "POST", `/api/v1/designs?workspace=${WS}`, { name, start: "blank" });
@@ -203,20 +191,7 @@ describe("revisions stored before format 1.1 that 1.1 would refuse", () => {
 
     // A revision that passes 1.1 replaces it: saved through the gate, unmarked, and its release is held up
     // only by the missing approval, not by format 1.1.
-    // The smallest design that passes: the enable input fed from the supply, must drive with the throttle applied.
-    const fixed = {
-      format: "chainproof/design@1",
-      name: "Replacement",
-      conditions: [{ id: "throttle", label: "Throttle", states: ["released", "applied"] }],
-      components: [
-        { id: "PACK", type: "supply", label: "Battery +" },
-        { id: "EN", type: "input", label: "Controller enable", function: "enable" },
-      ],
-      wires: [{ from: "PACK.+", to: "EN.in" }],
-      controller: { throttle: { condition: "throttle", released: ["released"], applied: ["applied"], fault: [] }, lockouts: [] },
-      rules: [{ id: "D1", label: "Drives with the throttle applied", type: "require-drive", when: { cond: "throttle", in: ["applied"] } }],
-      layout: {},
-    };
+    const fixed = smallest("Replacement");
     const saved = await send(engineer, "POST", `/api/v1/designs/${emptyRuleDesign}/revisions`, {
       document: fixed,
       baseRevision: 1,

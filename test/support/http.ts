@@ -47,3 +47,22 @@ export async function signIn(email: string, password = DEMO_PASSWORD): Promise<C
 export function formBody(values: Record<string, string>): RequestInit {
   return { method: "POST", body: new URLSearchParams(values), headers: { "content-type": "application/x-www-form-urlencoded" } };
 }
+
+/** Sends `body` as JSON (none when undefined) and reads the answer: parsed JSON, or `{ text }` when it is not JSON. */
+export async function sendJson(
+  c: Client,
+  method: string,
+  path: string,
+  body?: unknown,
+): Promise<{ status: number; body: Record<string, any> }> {
+  const res = await c.fetch(path, {
+    method,
+    ...(body === undefined ? {} : { body: JSON.stringify(body), headers: { "content-type": "application/json" } }),
+  });
+  const text = await res.text();
+  try {
+    return { status: res.status, body: JSON.parse(text) };
+  } catch {
+    return { status: res.status, body: { text } };
+  }
+}
