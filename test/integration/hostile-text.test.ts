@@ -115,41 +115,17 @@ const TEXT_REFUSED = /Remove the NUL character|Remove the broken character|Remov
 const benchShows = { step: /Name the step|Steps start at 1|There is no step/, intent: /Unknown action/, note: TEXT_REFUSED };
 const UNKNOWN_ACTION = /Unknown action/;
 
-// The controller settings form: every field it shows but the lockout checkboxes (see NOT_TEXT).
-const recordForm = (): Record<string, string> => {
+// The controller settings form: every field it shows but the lockout checkboxes (see NOT_TEXT), read from
+// the form's own flattening so a field added to the form is probed too.
+const recordFormFields = (): Record<string, string> => {
   const valid = validateRecord(exampleRecord());
   if (!valid.ok) throw new Error("the example record is not valid");
   const out = recordToForm(valid.record);
   for (const k of Object.keys(out)) if (k.startsWith("settings.lockouts.")) delete out[k];
-  return { ...out, baseVersion: String(recordVersion) };
+  return out;
 };
-const RECORD_FORM_FIELDS = [
-  "baseVersion",
-  "pack.chemistry",
-  "pack.seriesCells",
-  "pack.capacityAh",
-  "pack.continuousC",
-  "pack.fuseA",
-  "controller.description",
-  "controller.ratedCurrentA",
-  "controller.minVoltageV",
-  "controller.maxVoltageV",
-  "settings.lowVoltageCutbackV",
-  "settings.overVoltageCutoffV",
-  "settings.batteryCurrentPercent",
-  "settings.motorCurrentPercent",
-  "settings.throttle.sensor",
-  "settings.throttle.restV",
-  "settings.throttle.fullV",
-  "settings.throttle.releasedBelowV",
-  "settings.throttle.appliedFromV",
-  "settings.throttle.faultBelowV",
-  "settings.throttle.faultAboveV",
-  "settings.brakeCutsDrive",
-  "settings.precharge.resistorOhm",
-  "settings.precharge.capacitanceUF",
-  "settings.precharge.delayMs",
-];
+const recordForm = (): Record<string, string> => ({ ...recordFormFields(), baseVersion: String(recordVersion) });
+const RECORD_FORM_FIELDS = ["baseVersion", ...Object.keys(recordFormFields())];
 // The record as JSON: its text fields. Keys the record does not know are kept as sent, like a design
 // document's text: NUL and unpaired surrogates are refused there too (storableJsonProblem), the rest is the body's 64 KB.
 const RECORD_JSON_FIELDS = ["record.controller.description", "record.pack.chemistry", "record.settings.throttle.sensor"];
